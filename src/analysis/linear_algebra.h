@@ -1,0 +1,20 @@
+// The one place Eigen enters hushgain: the matrix aliases and the one
+// decomposition used (LU with partial pivoting, complex). Only analysis
+// includes this header; io and report never see an Eigen type.
+#ifndef HUSHGAIN_ANALYSIS_LINEAR_ALGEBRA_H_
+#define HUSHGAIN_ANALYSIS_LINEAR_ALGEBRA_H_
+
+#include <Eigen/Dense>
+#include <complex>
+
+namespace hushgain {
+
+using Complex = std::complex<double>;
+using RealMatrix = Eigen::MatrixXd;
+using ComplexMatrix = Eigen::MatrixXcd;
+using ComplexVector = Eigen::VectorXcd;
+using ComplexLu = Eigen::PartialPivLU<ComplexMatrix>;
+
+}  // namespace hushgain
+
+#endif  // HUSHGAIN_ANALYSIS_LINEAR_ALGEBRA_H_

@@ -1,0 +1,214 @@
+#include "analysis/mna_system.h"
+
+#include <cmath>
+#include <numeric>
+
+#include "noise/physical_constants.h"
+
+namespace hushgain {
+namespace {
+
+// Relative residual above which a solve is refused as inaccurate. LU with
+// partial pivoting on these small systems leaves ~1e-15; 1e-9 leaves room
+// for badly scaled but still meaningful networks.
+constexpr double kMaxRelativeResidual = 1e-9;
+// Below this reciprocal condition number (of the equilibrated matrix) the
+// answer has fewer than about three good digits: refuse it.
+constexpr double kMinReciprocalCondition = 1e-13;
+
+void StampConductance(RealMatrix& m, int a, int b, double value) {
+  if (a >= 0) m(a, a) += value;
+  if (b >= 0) m(b, b) += value;
+  if (a >= 0 && b >= 0) {
+    m(a, b) -= value;
+    m(b, a) -= value;
+  }
+}
+
+int Find(std::vector<int>& parent, int i) {
+  while (parent[i] != i) i = parent[i] = parent[parent[i]];
+  return i;
+}
+
+void Union(std::vector<int>& parent, int a, int b) {
+  parent[Find(parent, a)] = Find(parent, b);
+}
+
+std::string Hz(double f_hz) {
+  char buf[48];
+  std::snprintf(buf, sizeof buf, "%.6g Hz", f_hz);
+  return buf;
+}
+
+}  // namespace
+
+Status MnaSystem::Build(const Netlist& net, MnaSystem* system) {
+  // Every node needs a DC path to ground, or G is singular.
+  std::vector<int> parent(net.node_count());
+  std::iota(parent.begin(), parent.end(), 0);
+  for (const Resistor& r : net.resistors) Union(parent, r.a, r.b);
+  for (const VoltageSource& v : net.voltage_sources)
+    Union(parent, v.plus, v.minus);
+  for (const OpAmp& op : net.opamps) Union(parent, op.out, kGround);
+  for (NodeId n = 1; n < net.node_count(); ++n) {
+    if (Find(parent, n) != Find(parent, kGround))
+      return Status::Fail("node '" + net.node_names[n] +
+                          "' has no DC path to ground");
+  }
+
+  MnaSystem s;
+  s.names_.assign(net.node_names.begin() + 1, net.node_names.end());
+  int next = net.node_count() - 1;
+  for (const OpAmp& op : net.opamps) {
+    if (op.model.output_resistance_ohm > 0) {
+      s.opamp_amp_nodes_.push_back(next++);
+      s.names_.push_back(op.name + " amplifier");
+    } else {
+      s.opamp_amp_nodes_.push_back(s.NodeIndex(op.out));
+    }
+    s.opamp_rows_.push_back(next++);
+    s.names_.push_back(op.name + " source current");
+  }
+  for (const VoltageSource& v : net.voltage_sources) {
+    s.source_rows_.push_back(next++);
+    s.names_.push_back(v.name + " current");
+  }
+  s.g_ = RealMatrix::Zero(next, next);
+  s.c_ = RealMatrix::Zero(next, next);
+
+  for (const Resistor& r : net.resistors)
+    StampConductance(s.g_, s.NodeIndex(r.a), s.NodeIndex(r.b), 1.0 / r.ohms);
+  for (const Capacitor& c : net.capacitors)
+    StampConductance(s.c_, s.NodeIndex(c.a), s.NodeIndex(c.b), c.farads);
+
+  for (std::size_t k = 0; k < net.opamps.size(); ++k) {
+    const OpAmp& op = net.opamps[k];
+    const OpAmpModel& m = op.model;
+    int amp = s.opamp_amp_nodes_[k];
+    int row = s.opamp_rows_[k];
+    int p = s.NodeIndex(op.plus);
+    int n = s.NodeIndex(op.minus);
+    // Controlled source from ground to the amplifier node; its current
+    // enters the amplifier node.
+    s.g_(amp, row) -= 1.0;
+    s.g_(row, amp) += 1.0 / m.open_loop_gain;
+    s.c_(row, amp) += 1.0 / (2.0 * kPi * m.gbw_hz);
+    if (p >= 0) s.g_(row, p) -= 1.0;
+    if (n >= 0) s.g_(row, n) += 1.0;
+    if (m.output_resistance_ohm > 0)
+      StampConductance(s.g_, amp, s.NodeIndex(op.out),
+                       1.0 / m.output_resistance_ohm);
+    StampConductance(s.c_, p, -1, m.c_cm_f);
+    StampConductance(s.c_, n, -1, m.c_cm_f);
+    StampConductance(s.c_, p, n, m.c_diff_f);
+  }
+  for (std::size_t k = 0; k < net.voltage_sources.size(); ++k) {
+    const VoltageSource& v = net.voltage_sources[k];
+    int row = s.source_rows_[k];
+    int p = s.NodeIndex(v.plus);
+    int n = s.NodeIndex(v.minus);
+    // The source current leaves node + into the source.
+    if (p >= 0) {
+      s.g_(p, row) += 1.0;
+      s.g_(row, p) += 1.0;
+    }
+    if (n >= 0) {
+      s.g_(n, row) -= 1.0;
+      s.g_(row, n) -= 1.0;
+    }
+  }
+  s.output_index_ = s.NodeIndex(net.output);
+  *system = std::move(s);
+  return Status::Ok();
+}
+
+Port MnaSystem::Compile(const Excitation& excitation) const {
+  struct Visitor {
+    const MnaSystem& s;
+    Port operator()(const CurrentInjection& i) const {
+      return {s.NodeIndex(i.into), s.NodeIndex(i.out_of)};
+    }
+    Port operator()(const OpAmpInputVoltage& v) const {
+      return {s.opamp_rows_[v.opamp], -1};
+    }
+    Port operator()(const SourceVoltage& v) const {
+      return {s.source_rows_[v.source], -1};
+    }
+  };
+  return std::visit(Visitor{*this}, excitation);
+}
+
+AdjointSolver::AdjointSolver(const MnaSystem& system)
+    : system_(&system),
+      yt_(system.size(), system.size()),
+      lu_(system.size()),
+      rhs_(ComplexVector::Zero(system.size())),
+      z_(system.size()),
+      residual_(system.size()),
+      row_scale_(system.size()),
+      column_scale_(system.size()),
+      scaled_(system.size(), system.size()),
+      scaled_rhs_(system.size()) {
+  if (system.output_index() >= 0) rhs_[system.output_index()] = 1.0;
+}
+
+Status AdjointSolver::SolveAt(double f_hz) {
+  const double w = 2.0 * kPi * f_hz;
+  yt_.real() = system_->g().transpose();
+  yt_.imag() = w * system_->c().transpose();
+  // Equilibrate: scale each row, then each column, to a largest entry of 1.
+  const int n = system_->size();
+  for (int i = 0; i < n; ++i) {
+    const double m = yt_.row(i).cwiseAbs().maxCoeff();
+    row_scale_[i] = m > 0 ? 1.0 / m : 1.0;
+  }
+  for (int j = 0; j < n; ++j) {
+    const double m =
+        (yt_.col(j).cwiseAbs().array() * row_scale_.array()).maxCoeff();
+    column_scale_[j] = m > 0 ? 1.0 / m : 1.0;
+  }
+  scaled_ = row_scale_.asDiagonal() * yt_ * column_scale_.asDiagonal();
+  lu_.compute(scaled_);
+  // PartialPivLU skips an exactly zero pivot instead of failing, and its
+  // condition estimate misses that case: check the pivots as well.
+  const double smallest_pivot = lu_.matrixLU().diagonal().cwiseAbs().minCoeff();
+  if (!(smallest_pivot >= kMinReciprocalCondition) ||
+      !(lu_.rcond() >= kMinReciprocalCondition))
+    return Status::Fail(
+        "the network is singular or too ill-conditioned to "
+        "solve at " +
+        Hz(f_hz));
+  scaled_rhs_ = row_scale_.asDiagonal() * rhs_;
+  z_.noalias() = lu_.solve(scaled_rhs_);
+  z_.array() *= column_scale_.array();
+  residual_.noalias() = yt_ * z_;
+  residual_ -= rhs_;
+  double scale =
+      yt_.cwiseAbs().rowwise().sum().maxCoeff() * z_.cwiseAbs().maxCoeff() +
+      1.0;
+  double relative = residual_.cwiseAbs().maxCoeff() / scale;
+  if (!z_.allFinite() || !(relative <= kMaxRelativeResidual))
+    return Status::Fail(
+        "the network is singular or too ill-conditioned to "
+        "solve at " +
+        Hz(f_hz));
+  return Status::Ok();
+}
+
+Status DirectSolve(const MnaSystem& system, double f_hz, Port port,
+                   ComplexVector* x) {
+  const double w = 2.0 * kPi * f_hz;
+  ComplexMatrix y(system.size(), system.size());
+  y.real() = system.g();
+  y.imag() = w * system.c();
+  ComplexVector b = ComplexVector::Zero(system.size());
+  if (port.plus >= 0) b[port.plus] += 1.0;
+  if (port.minus >= 0) b[port.minus] -= 1.0;
+  ComplexLu lu(y);
+  *x = lu.solve(b);
+  if (!x->allFinite())
+    return Status::Fail("the network is singular at " + Hz(f_hz));
+  return Status::Ok();
+}
+
+}  // namespace hushgain

@@ -1,0 +1,114 @@
+// The budget: everything a noise and offset review of one stage needs, as a
+// plain value. Computed by ComputeBudget (budget/compute_budget.h), printed
+// by report/. SI units throughout; "input" quantities are in volts for a
+// voltage source and amperes for a current source (see input_unit).
+#ifndef HUSHGAIN_BUDGET_BUDGET_H_
+#define HUSHGAIN_BUDGET_BUDGET_H_
+
+#include <optional>
+#include <string>
+#include <vector>
+
+namespace hushgain {
+
+struct Contributor {
+  std::string name;  // "R_in", "R3", "e_n", "i_n-"
+  std::string kind;  // "thermal", "shot", "voltage_noise", "current_noise"
+  double output_rms_v = 0;  // sqrt(integral of S_out,k over the band)
+  double share = 0;         // fraction of the total output noise power
+  double output_density_ref_v_per_rthz = 0;  // at the reference frequency
+  // |transfer| from the source to the output at the reference frequency,
+  // V/V for a voltage source (e_n: the noise gain), V/A for a current.
+  double gain_to_output_ref = 0;
+  // The source's own density at the reference frequency, V or A per rtHz.
+  double source_density_ref = 0;
+};
+
+// Output offset at DC (finite A0), from
+//   Vout = Vos NG - Ib (H+ + H-) - (Ios/2) (H+ - H-)
+// where H+- is the output per unit current injected at the +- pin and
+// NG the DC noise gain. Vos and Ios have unknown sign: their terms are
+// magnitudes; the Ib term keeps its sign.
+struct OffsetBlock {
+  double vos_v = 0;         // |Vos| * NG
+  double ib_v = 0;          // signed
+  double ios_v = 0;         // magnitude
+  double worst_case_v = 0;  // |vos| + |ib| + |ios|
+  double rss_v = 0;         // sqrt(vos^2 + ib^2 + ios^2)
+  double noise_gain_dc = 0;
+  // The R_plus value that cancels the Ib term, and the value used (0 when
+  // the + input is tied to ground).
+  double balance_resistor_ohm = 0;
+  double plus_resistor_ohm = 0;
+};
+
+// One contributor compared between the T network and the plain resistor.
+struct TeeChange {
+  enum class Kind { kAdded, kRemoved, kRaised, kLowered, kSame };
+  std::string name;
+  Kind kind = Kind::kSame;
+  double tee_output_rms_v = 0;    // 0 when absent from the tee stage
+  double plain_output_rms_v = 0;  // 0 when absent from the plain stage
+};
+
+// The noise cost of a T network against the plain single resistor with the
+// same equivalent resistance (everything else unchanged).
+struct TeeComparison {
+  double equivalent_resistance_ohm = 0;  // R1 + R2 + R1 R2 / R3
+  double plain_output_rms_v = 0;
+  double plain_input_rms = 0;
+  double noise_cost_ratio = 0;  // tee output rms / plain output rms
+  double tee_noise_gain_ref = 0;
+  double plain_noise_gain_ref = 0;
+  double tee_noise_gain_dc = 0;
+  double plain_noise_gain_dc = 0;
+  double plain_bandwidth_3db_hz = 0;
+  double plain_offset_worst_case_v = 0;
+  std::vector<TeeChange> changes;  // in the order of the tee's contributors
+};
+
+struct Budget {
+  std::string stage_name;
+  double temperature_k = 0;
+  double band_low_hz = 0;
+  double band_high_hz = 0;
+  double reference_hz = 0;
+  std::string input_unit = "V";  // "V" or "A"
+
+  // Signal gain from the source to the output, V/V or V/A.
+  double signal_gain_ref = 0;  // magnitude at the reference frequency
+  double signal_gain_phase_ref_deg = 0;
+  double signal_gain_dc = 0;  // signed (negative for an inverting stage)
+  double noise_gain_ref = 0;  // |e_n -> output| at the reference frequency
+  double noise_gain_dc = 0;
+  double bandwidth_3db_hz = 0;  // 0 when not found below 100 x GBW
+  double peaking_db = 0;
+
+  std::vector<Contributor> contributors;  // largest share first
+  double output_rms_v = 0;
+  double output_peak_to_peak_v = 0;  // 6.6 x rms (about 99.9 % of the time)
+  double output_density_ref_v_per_rthz = 0;
+  double input_rms = 0;                   // output rms / |gain(f_ref)|
+  double input_density_ref_per_rthz = 0;  // output density / |gain(f_ref)|
+
+  OffsetBlock offset;
+
+  std::optional<double> full_scale_output_v;
+  std::optional<double> snr_db;            // full-scale sine rms / noise rms
+  std::optional<double> dynamic_range_db;  // 2 x full scale / noise p-p
+
+  std::optional<TeeComparison> tee;
+
+  int integration_evaluations = 0;
+  double integration_relative_error = 0;  // estimate
+  std::vector<std::string> warnings;
+};
+
+// The crest factor used for peak-to-peak noise: 6.6 x rms holds about
+// 99.9 % of the time for Gaussian noise (common practice; erf(3.3/sqrt 2)
+// = 0.99903).
+inline constexpr double kPeakToPeakPerRms = 6.6;
+
+}  // namespace hushgain
+
+#endif  // HUSHGAIN_BUDGET_BUDGET_H_

@@ -1,0 +1,20 @@
+// Output offset at DC from the op-amp's Vos, Ib and Ios:
+//   Vout = Vos NG - Ib (H+ + H-) - (Ios/2) (H+ - H-)
+// with Ib+ = Ib + Ios/2, Ib- = Ib - Ios/2 flowing into the pins, NG the DC
+// noise gain (Vos -> output) and H+- the DC transfer (V/A) of a unit current
+// injected into the + and - pin nodes. Vos and Ios have unknown sign, so
+// their terms are magnitudes; the worst case adds all three magnitudes.
+#ifndef HUSHGAIN_BUDGET_OFFSET_H_
+#define HUSHGAIN_BUDGET_OFFSET_H_
+
+#include "budget/budget.h"
+#include "circuit/opamp_model.h"
+
+namespace hushgain {
+
+OffsetBlock SumOffsets(const OpAmpModel& opamp, double noise_gain_dc,
+                       double h_plus_ohm, double h_minus_ohm);
+
+}  // namespace hushgain
+
+#endif  // HUSHGAIN_BUDGET_OFFSET_H_

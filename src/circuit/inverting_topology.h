@@ -1,0 +1,34 @@
+// The inverting stage template: source (with its resistance) -> R_in ->
+// summing node (- input); feedback from the summing node to the output as
+// one resistor R_f or a T network R1 (summing node to tee), R2 (tee to
+// output), R3 (tee to ground), an optional capacitor C_f across the whole
+// feedback path; an optional R_plus from the + input to ground; an optional
+// load R_load at the output.
+//
+//   Vs --R_source--+--R_in--+-- (-) op-amp out --+-- output
+//                           |                    |
+//                           +---- feedback ------+
+#ifndef HUSHGAIN_CIRCUIT_INVERTING_TOPOLOGY_H_
+#define HUSHGAIN_CIRCUIT_INVERTING_TOPOLOGY_H_
+
+#include "circuit/netlist.h"
+#include "circuit/stage.h"
+
+namespace hushgain {
+
+// The feedback path's DC transresistance: R_f, or R1 + R2 + R1 R2 / R3 for a
+// T network (star-mesh transform; Kennelly 1899).
+double FeedbackEquivalentOhm(const Feedback& feedback);
+
+// The DC resistance seen from the - input with the op-amp output and the
+// source at AC ground: (R_source + R_in) || (R_f, or R1 + R2 || R3). Bias
+// currents cancel when R_plus equals it.
+double InvertingBalanceOhm(const Stage& stage);
+
+// Builds the netlist. Element values are taken as given; io has validated
+// them (positive, finite).
+Netlist ExpandInverting(const Stage& stage);
+
+}  // namespace hushgain
+
+#endif  // HUSHGAIN_CIRCUIT_INVERTING_TOPOLOGY_H_

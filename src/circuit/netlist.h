@@ -1,0 +1,85 @@
+// A linear netlist: nodes, resistors, capacitors, op-amp macro models and the
+// signal source, plus the named excitation points that analysis turns into
+// right-hand sides. Topology templates build one; the engine reads it and
+// knows nothing of what stage it came from.
+#ifndef HUSHGAIN_CIRCUIT_NETLIST_H_
+#define HUSHGAIN_CIRCUIT_NETLIST_H_
+
+#include <string>
+#include <variant>
+#include <vector>
+
+#include "circuit/opamp_model.h"
+
+namespace hushgain {
+
+using NodeId = int;
+inline constexpr NodeId kGround = 0;
+
+struct Resistor {
+  std::string name;  // the designer's name: "R_in", "R1", "R_plus"
+  NodeId a = kGround;
+  NodeId b = kGround;
+  double ohms = 0;
+  bool noisy = true;  // thermal noise 4kTR; a model element is not
+};
+
+struct Capacitor {
+  std::string name;
+  NodeId a = kGround;
+  NodeId b = kGround;
+  double farads = 0;
+};
+
+struct OpAmp {
+  std::string name;
+  NodeId plus = kGround;
+  NodeId minus = kGround;
+  NodeId out = kGround;
+  OpAmpModel model;
+};
+
+// An ideal voltage source from `minus` to `plus`; the signal source is one.
+struct VoltageSource {
+  std::string name;
+  NodeId plus = kGround;
+  NodeId minus = kGround;
+};
+
+// Where a unit stimulus enters the network.
+// A unit current pushed into node `into`, drawn out of node `out_of`.
+struct CurrentInjection {
+  NodeId into = kGround;
+  NodeId out_of = kGround;
+};
+// A unit voltage in series with the + input of op-amp `opamp` (where e_n and
+// Vos sit: between the + pin and the ideal amplifier).
+struct OpAmpInputVoltage {
+  int opamp = 0;
+};
+// A unit voltage of voltage source `source`.
+struct SourceVoltage {
+  int source = 0;
+};
+using Excitation =
+    std::variant<CurrentInjection, OpAmpInputVoltage, SourceVoltage>;
+
+struct Netlist {
+  std::vector<std::string> node_names{"ground"};  // index = NodeId
+  std::vector<Resistor> resistors;
+  std::vector<Capacitor> capacitors;
+  std::vector<OpAmp> opamps;
+  std::vector<VoltageSource> voltage_sources;
+  Excitation signal = SourceVoltage{0};  // the stage's input
+  NodeId output = kGround;               // where the output voltage is read
+
+  NodeId AddNode(std::string name) {
+    node_names.push_back(std::move(name));
+    return static_cast<NodeId>(node_names.size() - 1);
+  }
+  int node_count() const { return static_cast<int>(node_names.size()); }
+};
+
+}  // namespace hushgain
+
+#endif  // HUSHGAIN_CIRCUIT_NETLIST_H_

@@ -1,0 +1,69 @@
+// A stage: what the designer described in a stage file, resolved to SI
+// values. A plain copyable value; io builds it, circuit expands it into a
+// Netlist, budget reads its bookkeeping fields (band, temperature).
+#ifndef HUSHGAIN_CIRCUIT_STAGE_H_
+#define HUSHGAIN_CIRCUIT_STAGE_H_
+
+#include <optional>
+#include <string>
+
+#include "circuit/opamp_model.h"
+
+namespace hushgain {
+
+enum class Topology {
+  kInverting,  // Rin from the source to the - input, feedback to the output
+};
+
+// A T network in the feedback path: R1 from the - input to the tee node,
+// R2 from the tee node to the output, R3 from the tee node to ground.
+struct TeeNetwork {
+  double r1_ohm = 0;
+  double r2_ohm = 0;
+  double r3_ohm = 0;
+};
+
+struct Feedback {
+  enum class Kind { kResistor, kTee };
+  Kind kind = Kind::kResistor;
+  double resistor_ohm = 0;  // kResistor
+  TeeNetwork tee;           // kTee
+  // Across the whole feedback path, - input to output; 0 = none.
+  double capacitor_f = 0;
+};
+
+// The resistor from the + input to ground.
+struct PlusResistor {
+  enum class Mode { kNone, kValue, kAuto };
+  Mode mode = Mode::kNone;
+  double ohms = 0;  // kValue
+};
+
+// The signal source driving the input resistor: an open-circuit voltage
+// behind its source resistance (noisy, a contributor).
+struct SignalSource {
+  double resistance_ohm = 0;
+};
+
+struct Stage {
+  std::string name;
+  double temperature_k = 298.15;
+  double band_low_hz = 0;
+  double band_high_hz = 0;
+  std::optional<double> reference_hz;  // default: sqrt(low * high)
+  OpAmpModel opamp;
+  SignalSource source;
+  Topology topology = Topology::kInverting;
+  double input_resistor_ohm = 0;
+  Feedback feedback;
+  PlusResistor plus_resistor;
+  std::optional<double> load_ohm;
+  std::optional<double> full_scale_output_v;  // peak output swing, ±V
+};
+
+// sqrt(low * high) unless the stage sets it.
+double ReferenceFrequencyHz(const Stage& stage);
+
+}  // namespace hushgain
+
+#endif  // HUSHGAIN_CIRCUIT_STAGE_H_

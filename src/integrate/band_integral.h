@@ -1,0 +1,55 @@
+// Adaptive, error-controlled integration of several spectral densities at
+// once over a frequency band, in log f:
+//   integral of S_k(f) df from f_low to f_high
+//     = integral of S_k(e^u) e^u du from ln f_low to ln f_high.
+// In u a 1/f density is a constant and a white one an exponential, so the
+// Gauss-Kronrod (7, 15) rule is exact on 1/f terms and converges fast on the
+// rest. All components share the evaluations: one call of the integrand
+// gives every contributor's density at one frequency (one network solve).
+// The interval with the largest error estimate is halved until the summed
+// estimate |K15 - G7| over all components falls below
+// relative_tolerance * (sum of all integrals).
+#ifndef HUSHGAIN_INTEGRATE_BAND_INTEGRAL_H_
+#define HUSHGAIN_INTEGRATE_BAND_INTEGRAL_H_
+
+#include <functional>
+#include <string>
+#include <vector>
+
+#include "analysis/status.h"
+
+namespace hushgain {
+
+struct IntegrationOptions {
+  // Target relative error on the total (the sum of all components).
+  double relative_tolerance = 1e-4;
+  // The initial partition: this many intervals per decade, at least one.
+  double intervals_per_decade = 1.0;
+  // Refinement stops here even when the tolerance is not met.
+  int max_intervals = 5000;
+
+  // Empty when valid; otherwise names the field, its value and the rule.
+  std::string Validate() const;
+};
+
+struct IntegrationResult {
+  Status status;                  // a failing integrand stops the integration
+  std::vector<double> integrals;  // one per component, units of S times Hz
+  double error_estimate = 0;      // absolute, on the sum of the components
+  int evaluations = 0;            // integrand calls
+  int intervals = 0;
+  bool converged = false;  // error_estimate met the tolerance
+};
+
+// Fills `values[0 .. n-1]` with the densities at `f_hz` (all >= 0).
+using BandIntegrand = std::function<Status(double f_hz, double* values)>;
+
+// Requires 0 < f_low < f_high, n >= 1 and valid options (asserted: the
+// callers validate user input first).
+IntegrationResult IntegrateBand(double f_low_hz, double f_high_hz, int n,
+                                const BandIntegrand& integrand,
+                                const IntegrationOptions& options);
+
+}  // namespace hushgain
+
+#endif  // HUSHGAIN_INTEGRATE_BAND_INTEGRAL_H_

@@ -1,0 +1,185 @@
+#include "io/device_library.h"
+
+#include <filesystem>
+#include <fstream>
+#include <sstream>
+
+#include "io/read_file.h"
+
+namespace hushgain {
+namespace {
+
+enum class Rule { kPositive, kNonNegative, kAny };
+
+struct OpAmpKey {
+  const char* key;
+  Quantity quantity;
+  double OpAmpModel::*member;
+  Rule rule;
+};
+
+// The parameter keys of an op-amp, in the order the README documents them.
+const OpAmpKey kOpAmpKeys[] = {
+    {"voltage_noise", Quantity::kVoltageDensity, &OpAmpModel::e_w_v_per_rthz,
+     Rule::kNonNegative},
+    {"voltage_noise_corner", Quantity::kFrequency, &OpAmpModel::f_cv_hz,
+     Rule::kNonNegative},
+    {"current_noise", Quantity::kCurrentDensity, &OpAmpModel::i_w_a_per_rthz,
+     Rule::kNonNegative},
+    {"current_noise_corner", Quantity::kFrequency, &OpAmpModel::f_ci_hz,
+     Rule::kNonNegative},
+    {"open_loop_gain", Quantity::kGain, &OpAmpModel::open_loop_gain,
+     Rule::kPositive},
+    {"gbw", Quantity::kFrequency, &OpAmpModel::gbw_hz, Rule::kPositive},
+    {"output_resistance", Quantity::kResistance,
+     &OpAmpModel::output_resistance_ohm, Rule::kNonNegative},
+    {"input_capacitance_cm", Quantity::kCapacitance, &OpAmpModel::c_cm_f,
+     Rule::kNonNegative},
+    {"input_capacitance_diff", Quantity::kCapacitance, &OpAmpModel::c_diff_f,
+     Rule::kNonNegative},
+    {"offset_voltage", Quantity::kVoltage, &OpAmpModel::vos_v,
+     Rule::kNonNegative},
+    {"offset_voltage_drift", Quantity::kVoltageDrift,
+     &OpAmpModel::vos_drift_v_per_k, Rule::kNonNegative},
+    {"bias_current", Quantity::kCurrent, &OpAmpModel::ib_a, Rule::kAny},
+    {"offset_current", Quantity::kCurrent, &OpAmpModel::ios_a,
+     Rule::kNonNegative},
+    {"output_current_limit", Quantity::kCurrent,
+     &OpAmpModel::output_current_limit_a, Rule::kPositive},
+    {"supply_span", Quantity::kVoltage, &OpAmpModel::supply_v, Rule::kPositive},
+};
+
+void CheckRule(double value, Rule rule, Quantity quantity, ObjectReader& reader,
+               const std::string& key) {
+  const bool ok = rule == Rule::kAny ||
+                  (rule == Rule::kPositive && value > 0) ||
+                  (rule == Rule::kNonNegative && value >= 0);
+  if (ok) return;
+  std::string q(QuantityName(quantity));
+  q = q.substr(q.find(' ') + 1);  // "a resistance" -> "resistance"
+  throw reader.ErrorAt(
+      key, std::string("expected a ") +
+               (rule == Rule::kPositive ? "positive " : "non-negative ") + q +
+               ", got " + reader.json().at(key).dump());
+}
+
+void ApplyBiasTemperature(ObjectReader& reader, OpAmpModel* model) {
+  if (!reader.Has("bias_current_temperature")) return;
+  ObjectReader law = reader.Object("bias_current_temperature");
+  std::string name = law.String("law");
+  if (name == "constant") {
+    model->ib_law = BiasTemperatureLaw::kNone;
+    model->ib_law_value = 0;
+  } else if (name == "doubling") {
+    model->ib_law = BiasTemperatureLaw::kDoubling;
+    model->ib_law_value = law.Quantity("interval_C", Quantity::kTemperature);
+    if (!(model->ib_law_value > 0))
+      throw law.ErrorAt("interval_C", "expected a positive interval in °C");
+  } else if (name == "coefficient") {
+    model->ib_law = BiasTemperatureLaw::kCoefficient;
+    model->ib_law_value = law.Quantity("per_C", Quantity::kRatio);
+  } else {
+    throw law.ErrorAt(
+        "law",
+        "expected \"constant\", \"doubling\" or \"coefficient\", got \"" +
+            name + "\"");
+  }
+  law.Finish();
+}
+
+std::vector<std::string> Names(const auto& map) {
+  std::vector<std::string> out;
+  for (const auto& [name, value] : map) out.push_back(name);
+  return out;
+}
+
+}  // namespace
+
+std::vector<std::string> DeviceLibrary::OpAmpNames() const {
+  return Names(opamps);
+}
+std::vector<std::string> DeviceLibrary::ResistorNames() const {
+  return Names(resistors);
+}
+
+void ApplyOpAmpParameters(ObjectReader& reader, OpAmpModel* model) {
+  for (const OpAmpKey& k : kOpAmpKeys) {
+    if (!reader.Has(k.key)) continue;
+    double value = reader.Quantity(k.key, k.quantity);
+    CheckRule(value, k.rule, k.quantity, reader, k.key);
+    model->*k.member = value;
+  }
+  ApplyBiasTemperature(reader, model);
+  reader.Finish();
+}
+
+void RequireCoreOpAmpParameters(ObjectReader& reader) {
+  for (const char* key :
+       {"voltage_noise", "current_noise", "open_loop_gain", "gbw"})
+    if (!reader.Has(key)) throw reader.ErrorAt(key, "missing (required)");
+}
+
+OpAmpModel ParseOpAmpDevice(std::string_view json_text,
+                            const std::string& source) {
+  nlohmann::json doc = ParseJsonText(json_text, source);
+  ObjectReader top(doc, source, "");
+  std::string kind = top.String("kind");
+  if (kind != "opamp")
+    throw top.ErrorAt("kind", "expected \"opamp\", got \"" + kind + "\"");
+  OpAmpModel model;
+  model.class_name = top.String("class");
+  top.String("illustrative");  // every device file says what its values are
+  ObjectReader parameters = top.Object("parameters");
+  RequireCoreOpAmpParameters(parameters);
+  ApplyOpAmpParameters(parameters, &model);
+  top.Finish();
+  return model;
+}
+
+ResistorTechnology ParseResistorTechnology(std::string_view json_text,
+                                           const std::string& source) {
+  nlohmann::json doc = ParseJsonText(json_text, source);
+  ObjectReader top(doc, source, "");
+  std::string kind = top.String("kind");
+  if (kind != "resistor_technology")
+    throw top.ErrorAt("kind",
+                      "expected \"resistor_technology\", got \"" + kind + "\"");
+  ResistorTechnology tech;
+  tech.class_name = top.String("class");
+  top.String("illustrative");
+  const nlohmann::json& index = top.Get("noise_index_dB");
+  if (!index.is_number())
+    throw top.ErrorAt("noise_index_dB", "expected a number of dB");
+  tech.noise_index_db = index.get<double>();
+  tech.tempco_per_k =
+      top.Quantity("temperature_coefficient_per_C", Quantity::kRatio);
+  tech.tolerance = top.Quantity("tolerance", Quantity::kRatio);
+  if (!(tech.tolerance >= 0))
+    throw top.ErrorAt("tolerance", "expected a non-negative tolerance");
+  top.Finish();
+  return tech;
+}
+
+DeviceLibrary LoadDeviceLibrary(const std::string& directory) {
+  namespace fs = std::filesystem;
+  DeviceLibrary library;
+  if (!fs::is_directory(directory))
+    throw Error(directory, "", "device folder not found");
+  for (const char* sub : {"opamps", "resistors"}) {
+    fs::path folder = fs::path(directory) / sub;
+    if (!fs::is_directory(folder)) continue;
+    for (const fs::directory_entry& entry : fs::directory_iterator(folder)) {
+      if (entry.path().extension() != ".json") continue;
+      std::string source = entry.path().string();
+      std::string text = ReadTextFile(source);
+      std::string name = entry.path().stem().string();
+      if (std::string(sub) == "opamps")
+        library.opamps[name] = ParseOpAmpDevice(text, source);
+      else
+        library.resistors[name] = ParseResistorTechnology(text, source);
+    }
+  }
+  return library;
+}
+
+}  // namespace hushgain

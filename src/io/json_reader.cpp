@@ -1,0 +1,152 @@
+#include "io/json_reader.h"
+
+#include <algorithm>
+#include <cmath>
+
+#include "io/suggest.h"
+
+namespace hushgain {
+
+nlohmann::json ParseJsonText(std::string_view text, const std::string& source) {
+  try {
+    return nlohmann::json::parse(text.begin(), text.end());
+  } catch (const nlohmann::json::parse_error& e) {
+    // nlohmann reports a byte offset; turn it into line and column.
+    std::size_t offset = std::min<std::size_t>(e.byte, text.size());
+    int line = 1, column = 1;
+    for (std::size_t i = 0; i + 1 < offset; ++i) {
+      if (text[i] == '\n') {
+        ++line;
+        column = 1;
+      } else {
+        ++column;
+      }
+    }
+    throw Error(source, "",
+                "malformed JSON at line " + std::to_string(line) + ", column " +
+                    std::to_string(column));
+  }
+}
+
+std::string JsonTypeName(const nlohmann::json& value) {
+  switch (value.type()) {
+    case nlohmann::json::value_t::null:
+      return "null";
+    case nlohmann::json::value_t::object:
+      return "an object";
+    case nlohmann::json::value_t::array:
+      return "an array";
+    case nlohmann::json::value_t::string:
+      return "a string";
+    case nlohmann::json::value_t::boolean:
+      return "a boolean";
+    default:
+      return "a number";
+  }
+}
+
+double ReadQuantity(const nlohmann::json& value, hushgain::Quantity kind,
+                    const std::string& source, const std::string& path) {
+  const std::string expected = "expected " + std::string(QuantityName(kind));
+  if (value.is_number()) {
+    double v = value.get<double>();
+    if (!std::isfinite(v))
+      throw Error(source, path, expected + ", got a non-finite number");
+    return v;
+  }
+  if (!value.is_string())
+    throw Error(source, path, expected + ", got " + JsonTypeName(value));
+  const std::string& text = value.get_ref<const std::string&>();
+  std::string why;
+  std::optional<double> parsed = ParseQuantity(text, kind, &why);
+  if (!parsed)
+    throw Error(source, path,
+                expected + ", got \"" + text + "\" (" + why + ")");
+  return *parsed;
+}
+
+ObjectReader::ObjectReader(const nlohmann::json& value, std::string source,
+                           std::string path)
+    : value_(value), source_(std::move(source)), path_(std::move(path)) {
+  if (!value_.is_object())
+    throw Error(source_, path_.empty() ? "/" : path_,
+                "expected an object, got " + JsonTypeName(value_));
+}
+
+bool ObjectReader::Has(const std::string& key) {
+  if (std::find(known_.begin(), known_.end(), key) == known_.end())
+    known_.push_back(key);
+  return value_.contains(key);
+}
+
+const nlohmann::json& ObjectReader::Get(const std::string& key) {
+  if (!Has(key)) {
+    // A misspelt key is likelier than a forgotten one: name it.
+    for (auto it = value_.begin(); it != value_.end(); ++it) {
+      if (it.key() != key && EditDistance(it.key(), key) <= 2)
+        throw ErrorAt(key,
+                      "missing (required; is \"" + it.key() + "\" a typo?)");
+    }
+    throw ErrorAt(key, "missing (required)");
+  }
+  return value_.at(key);
+}
+
+double ObjectReader::Quantity(const std::string& key, hushgain::Quantity kind) {
+  return ReadQuantity(Get(key), kind, source_, PathOf(key));
+}
+
+std::optional<double> ObjectReader::OptionalQuantity(const std::string& key,
+                                                     hushgain::Quantity kind) {
+  if (!Has(key)) return std::nullopt;
+  return Quantity(key, kind);
+}
+
+std::string ObjectReader::String(const std::string& key) {
+  const nlohmann::json& v = Get(key);
+  if (!v.is_string())
+    throw ErrorAt(key, "expected a string, got " + JsonTypeName(v));
+  return v.get<std::string>();
+}
+
+std::optional<std::string> ObjectReader::OptionalString(
+    const std::string& key) {
+  if (!Has(key)) return std::nullopt;
+  return String(key);
+}
+
+ObjectReader ObjectReader::Object(const std::string& key) {
+  return ObjectReader(Get(key), source_, PathOf(key));
+}
+
+void ObjectReader::Finish() {
+  for (auto it = value_.begin(); it != value_.end(); ++it) {
+    if (std::find(known_.begin(), known_.end(), it.key()) != known_.end())
+      continue;
+    throw ErrorAt(it.key(), "unknown key" + DidYouMean(it.key(), known_));
+  }
+}
+
+std::string ObjectReader::PathOf(const std::string& key) const {
+  std::string out = path_ + "/";
+  for (char c : key) {
+    if (c == '~')
+      out += "~0";
+    else if (c == '/')
+      out += "~1";
+    else
+      out += c;
+  }
+  return out;
+}
+
+Error ObjectReader::ErrorAt(const std::string& key,
+                            const std::string& message) const {
+  return Error(source_, PathOf(key), message);
+}
+
+Error ObjectReader::ErrorHere(const std::string& message) const {
+  return Error(source_, path_.empty() ? "/" : path_, message);
+}
+
+}  // namespace hushgain

@@ -1,0 +1,46 @@
+#include "io/read_file.h"
+
+#include <unistd.h>
+
+#include <cerrno>
+#include <cstdio>
+#include <cstring>
+#include <fstream>
+#include <sstream>
+
+#include "io/error.h"
+
+namespace hushgain {
+
+std::string ReadTextFile(const std::string& path) {
+  std::ifstream in(path, std::ios::binary);
+  if (!in)
+    throw Error(path, "", std::string("cannot read: ") + std::strerror(errno));
+  std::ostringstream out;
+  out << in.rdbuf();
+  if (in.bad()) throw Error(path, "", "cannot read");
+  return out.str();
+}
+
+void WriteFileAtomically(const std::string& path, const std::string& contents) {
+  const std::string temporary = path + ".tmp-" + std::to_string(::getpid());
+  {
+    std::ofstream out(temporary, std::ios::binary | std::ios::trunc);
+    if (!out)
+      throw Error(path, "",
+                  std::string("cannot write: ") + std::strerror(errno));
+    out << contents;
+    out.flush();
+    if (!out) {
+      std::remove(temporary.c_str());
+      throw Error(path, "", "cannot write");
+    }
+  }
+  if (std::rename(temporary.c_str(), path.c_str()) != 0) {
+    std::string why = std::strerror(errno);
+    std::remove(temporary.c_str());
+    throw Error(path, "", "cannot write: " + why);
+  }
+}
+
+}  // namespace hushgain

@@ -1,0 +1,225 @@
+#include "io/stage_parser.h"
+
+#include <cmath>
+#include <filesystem>
+
+#include "io/json_reader.h"
+#include "io/read_file.h"
+#include "io/suggest.h"
+#include "noise/physical_constants.h"
+
+namespace hushgain {
+namespace {
+
+std::string Dump(const nlohmann::json& value) { return value.dump(); }
+
+double PositiveResistance(ObjectReader& reader, const std::string& key) {
+  double ohms = reader.Quantity(key, Quantity::kResistance);
+  if (!(ohms > 0))
+    throw reader.ErrorAt(
+        key, "expected a positive resistance, got " + Dump(reader.Get(key)));
+  return ohms;
+}
+
+double NonNegativeCapacitance(ObjectReader& reader, const std::string& key) {
+  double farads = reader.Quantity(key, Quantity::kCapacitance);
+  if (!(farads >= 0))
+    throw reader.ErrorAt(key, "expected a non-negative capacitance, got " +
+                                  Dump(reader.Get(key)));
+  return farads;
+}
+
+bool LooksLikePath(const std::string& device) {
+  return device.find('/') != std::string::npos ||
+         (device.size() > 5 &&
+          device.compare(device.size() - 5, 5, ".json") == 0);
+}
+
+OpAmpModel ParseOpAmp(ObjectReader& reader, const StageContext& context) {
+  OpAmpModel model;
+  bool from_device = false;
+  if (auto device = reader.OptionalString("device")) {
+    from_device = true;
+    if (LooksLikePath(*device)) {
+      std::string text;
+      try {
+        text = context.read_file(*device);
+      } catch (const Error& e) {
+        throw reader.ErrorAt("device", e.message() + " (" + *device + ")");
+      }
+      model = ParseOpAmpDevice(text, *device);
+    } else {
+      const DeviceLibrary& lib = *context.library;
+      auto it = lib.opamps.find(*device);
+      if (it == lib.opamps.end())
+        throw reader.ErrorAt("device",
+                             "unknown op-amp device \"" + *device + "\"" +
+                                 DidYouMean(*device, lib.OpAmpNames()));
+      model = it->second;
+    }
+  }
+  if (reader.Has("set")) {
+    ObjectReader set = reader.Object("set");
+    if (!from_device) RequireCoreOpAmpParameters(set);
+    ApplyOpAmpParameters(set, &model);
+    if (!from_device) model.class_name = "inline parameters";
+  } else if (!from_device) {
+    throw reader.ErrorHere(
+        "expected \"device\" or \"set\" (inline parameters)");
+  }
+  reader.Finish();
+  return model;
+}
+
+Feedback ParseFeedback(ObjectReader& reader) {
+  Feedback fb;
+  const bool has_resistor = reader.Has("resistor");
+  const bool has_tee = reader.Has("tee");
+  if (has_resistor == has_tee)
+    throw reader.ErrorHere("expected exactly one of \"resistor\" or \"tee\"");
+  if (has_resistor) {
+    fb.kind = Feedback::Kind::kResistor;
+    fb.resistor_ohm = PositiveResistance(reader, "resistor");
+  } else {
+    fb.kind = Feedback::Kind::kTee;
+    ObjectReader tee = reader.Object("tee");
+    fb.tee.r1_ohm = PositiveResistance(tee, "r1");
+    fb.tee.r2_ohm = PositiveResistance(tee, "r2");
+    fb.tee.r3_ohm = PositiveResistance(tee, "r3");
+    tee.Finish();
+  }
+  if (reader.Has("capacitor"))
+    fb.capacitor_f = NonNegativeCapacitance(reader, "capacitor");
+  reader.Finish();
+  return fb;
+}
+
+PlusResistor ParsePlusResistor(ObjectReader& reader) {
+  PlusResistor plus;
+  if (!reader.Has("plus_resistor")) return plus;
+  const nlohmann::json& value = reader.Get("plus_resistor");
+  if (value.is_string() && value.get<std::string>() == "auto") {
+    plus.mode = PlusResistor::Mode::kAuto;
+    return plus;
+  }
+  double ohms = ReadQuantity(value, Quantity::kResistance, reader.source(),
+                             reader.PathOf("plus_resistor"));
+  if (!(ohms >= 0))
+    throw reader.ErrorAt(
+        "plus_resistor",
+        "expected \"auto\" or a non-negative resistance, got " + Dump(value));
+  if (ohms > 0) {
+    plus.mode = PlusResistor::Mode::kValue;
+    plus.ohms = ohms;
+  }
+  return plus;
+}
+
+SignalSource ParseSource(ObjectReader& reader) {
+  SignalSource source;
+  if (!reader.Has("voltage"))
+    throw reader.ErrorHere(
+        "expected \"voltage\" (a voltage source with its resistance)");
+  ObjectReader voltage = reader.Object("voltage");
+  if (voltage.Has("resistance")) {
+    source.resistance_ohm =
+        voltage.Quantity("resistance", Quantity::kResistance);
+    if (!(source.resistance_ohm >= 0))
+      throw voltage.ErrorAt("resistance",
+                            "expected a non-negative resistance, got " +
+                                Dump(voltage.Get("resistance")));
+  }
+  voltage.Finish();
+  reader.Finish();
+  return source;
+}
+
+}  // namespace
+
+Stage ParseStage(std::string_view json_text, std::string_view source_name,
+                 const StageContext& context) {
+  const std::string source(source_name);
+  nlohmann::json doc = ParseJsonText(json_text, source);
+  ObjectReader top(doc, source, "");
+  Stage stage;
+  stage.name = top.String("name");
+
+  double celsius = top.OptionalQuantity("temperature_C", Quantity::kTemperature)
+                       .value_or(25.0);
+  if (!(celsius > -kZeroCelsiusK && celsius < 1000))
+    throw top.ErrorAt(
+        "temperature_C",
+        "expected a temperature above -273.15 °C and below 1000 °C, got " +
+            Dump(top.Get("temperature_C")));
+  stage.temperature_k = celsius + kZeroCelsiusK;
+
+  ObjectReader band = top.Object("band_Hz");
+  stage.band_low_hz = band.Quantity("low", Quantity::kFrequency);
+  stage.band_high_hz = band.Quantity("high", Quantity::kFrequency);
+  if (!(stage.band_low_hz > 0))
+    throw band.ErrorAt(
+        "low",
+        "expected a positive frequency (1/f noise diverges at 0 Hz), got " +
+            Dump(band.Get("low")));
+  if (!(stage.band_high_hz > stage.band_low_hz))
+    throw band.ErrorAt("high", "expected a frequency above the low edge, got " +
+                                   Dump(band.Get("high")));
+  band.Finish();
+
+  if (auto ref = top.OptionalQuantity("reference_frequency_Hz",
+                                      Quantity::kFrequency)) {
+    if (!(*ref > 0))
+      throw top.ErrorAt("reference_frequency_Hz",
+                        "expected a positive frequency, got " +
+                            Dump(top.Get("reference_frequency_Hz")));
+    stage.reference_hz = *ref;
+  }
+
+  ObjectReader opamp = top.Object("opamp");
+  stage.opamp = ParseOpAmp(opamp, context);
+
+  if (top.Has("source")) {
+    ObjectReader src = top.Object("source");
+    stage.source = ParseSource(src);
+  }
+
+  ObjectReader st = top.Object("stage");
+  std::string topology = st.String("topology");
+  if (topology != "inverting")
+    throw st.ErrorAt("topology", "unknown topology \"" + topology + "\"" +
+                                     DidYouMean(topology, {"inverting"}));
+  stage.topology = Topology::kInverting;
+  stage.input_resistor_ohm = PositiveResistance(st, "input_resistor");
+  ObjectReader fb = st.Object("feedback");
+  stage.feedback = ParseFeedback(fb);
+  stage.plus_resistor = ParsePlusResistor(st);
+  if (st.Has("load")) stage.load_ohm = PositiveResistance(st, "load");
+  st.Finish();
+
+  if (auto fs =
+          top.OptionalQuantity("full_scale_output_V", Quantity::kVoltage)) {
+    if (!(*fs > 0))
+      throw top.ErrorAt("full_scale_output_V",
+                        "expected a positive voltage, got " +
+                            Dump(top.Get("full_scale_output_V")));
+    stage.full_scale_output_v = *fs;
+  }
+  top.Finish();
+  return stage;
+}
+
+Stage LoadStageFile(const std::string& path, const DeviceLibrary& library) {
+  const std::string text = ReadTextFile(path);
+  const std::filesystem::path folder =
+      std::filesystem::path(path).parent_path();
+  StageContext context;
+  context.library = &library;
+  context.read_file = [folder](const std::string& device_path) {
+    std::filesystem::path p(device_path);
+    if (p.is_relative()) p = folder / p;
+    return ReadTextFile(p.string());
+  };
+  return ParseStage(text, path, context);
+}
+
+}  // namespace hushgain

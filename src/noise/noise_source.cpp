@@ -1,0 +1,50 @@
+#include "noise/noise_source.h"
+
+#include "noise/physical_constants.h"
+
+namespace hushgain {
+
+const char* NoiseKindName(NoiseKind kind) {
+  switch (kind) {
+    case NoiseKind::kThermal:
+      return "thermal";
+    case NoiseKind::kShot:
+      return "shot";
+    case NoiseKind::kOpAmpVoltage:
+      return "voltage_noise";
+    case NoiseKind::kOpAmpCurrent:
+      return "current_noise";
+  }
+  return "noise";
+}
+
+std::vector<NoiseSource> CollectNoiseSources(const Netlist& net,
+                                             double temperature_k) {
+  std::vector<NoiseSource> sources;
+  const double four_kt = 4.0 * kBoltzmannJPerK * temperature_k;
+  for (const Resistor& r : net.resistors) {
+    if (!r.noisy) continue;
+    sources.push_back({r.name, NoiseKind::kThermal, CurrentInjection{r.a, r.b},
+                       four_kt / r.ohms, 0.0});
+  }
+  const bool several = net.opamps.size() > 1;
+  for (std::size_t k = 0; k < net.opamps.size(); ++k) {
+    const OpAmp& op = net.opamps[k];
+    const OpAmpModel& m = op.model;
+    std::string suffix = several ? " (" + op.name + ")" : "";
+    sources.push_back({"e_n" + suffix, NoiseKind::kOpAmpVoltage,
+                       OpAmpInputVoltage{static_cast<int>(k)},
+                       m.e_w_v_per_rthz * m.e_w_v_per_rthz, m.f_cv_hz});
+    const double i_psd = m.i_w_a_per_rthz * m.i_w_a_per_rthz;
+    if (op.minus != kGround)
+      sources.push_back({"i_n-" + suffix, NoiseKind::kOpAmpCurrent,
+                         CurrentInjection{op.minus, kGround}, i_psd,
+                         m.f_ci_hz});
+    if (op.plus != kGround)
+      sources.push_back({"i_n+" + suffix, NoiseKind::kOpAmpCurrent,
+                         CurrentInjection{op.plus, kGround}, i_psd, m.f_ci_hz});
+  }
+  return sources;
+}
+
+}  // namespace hushgain

@@ -1,0 +1,50 @@
+// Noise sources of a netlist, each a stimulus at an excitation point with a
+// one-sided power spectral density
+//   S(f) = white_psd * (1 + corner_hz / f)
+// in V^2/Hz (a voltage excitation) or A^2/Hz (a current excitation):
+//   resistor thermal noise  4kT/R as a current across the resistor
+//                           (Johnson 1928, Nyquist 1928)
+//   op-amp voltage noise    e_w^2 (1 + f_cv/f) in series with the + input
+//   op-amp current noise    i_w^2 (1 + f_ci/f) from each input pin to ground
+// Sources are uncorrelated: their output powers add.
+#ifndef HUSHGAIN_NOISE_NOISE_SOURCE_H_
+#define HUSHGAIN_NOISE_NOISE_SOURCE_H_
+
+#include <string>
+#include <vector>
+
+#include "circuit/netlist.h"
+
+namespace hushgain {
+
+enum class NoiseKind {
+  kThermal,       // 4kTR of a resistor
+  kShot,          // 2qI of a current
+  kOpAmpVoltage,  // e_n
+  kOpAmpCurrent,  // i_n at one pin
+};
+
+// "thermal", "shot", "voltage_noise", "current_noise": the JSON names.
+const char* NoiseKindName(NoiseKind kind);
+
+struct NoiseSource {
+  std::string name;  // "R_in", "e_n", "i_n-": how the budget names it
+  NoiseKind kind = NoiseKind::kThermal;
+  Excitation excitation;
+  double white_psd = 0;  // V^2/Hz or A^2/Hz
+  double corner_hz = 0;  // 1/f corner; 0 = white
+
+  double PsdAt(double f_hz) const {
+    return white_psd * (1.0 + corner_hz / f_hz);
+  }
+};
+
+// One source per noisy resistor, one e_n and two i_n per op-amp. Sources
+// whose excitation lies wholly on ground (an input pin tied to ground) are
+// left out: they reach no node.
+std::vector<NoiseSource> CollectNoiseSources(const Netlist& netlist,
+                                             double temperature_k);
+
+}  // namespace hushgain
+
+#endif  // HUSHGAIN_NOISE_NOISE_SOURCE_H_

@@ -1,0 +1,110 @@
+#include "report/json_report.h"
+
+#include <nlohmann/json.hpp>
+
+namespace hushgain {
+namespace {
+
+const char* ChangeName(TeeChange::Kind kind) {
+  switch (kind) {
+    case TeeChange::Kind::kAdded:
+      return "added";
+    case TeeChange::Kind::kRemoved:
+      return "removed";
+    case TeeChange::Kind::kRaised:
+      return "raised";
+    case TeeChange::Kind::kLowered:
+      return "lowered";
+    case TeeChange::Kind::kSame:
+      return "same";
+  }
+  return "same";
+}
+
+}  // namespace
+
+std::string BudgetToJson(const Budget& b) {
+  using nlohmann::json;
+  json out;
+  out["stage"] = b.stage_name;
+  out["temperature_K"] = b.temperature_k;
+  out["band_Hz"] = {b.band_low_hz, b.band_high_hz};
+  out["reference_frequency_Hz"] = b.reference_hz;
+  out["signal_gain"] = {
+      {"magnitude", b.signal_gain_ref},
+      {"phase_deg", b.signal_gain_phase_ref_deg},
+      {"dc", b.signal_gain_dc},
+      {"unit", b.input_unit == "A" ? "V/A" : "V/V"},
+  };
+  out["noise_gain"] = {{"at_reference", b.noise_gain_ref},
+                       {"dc", b.noise_gain_dc}};
+  out["response"] = {{"bandwidth_3db_Hz", b.bandwidth_3db_hz},
+                     {"peaking_dB", b.peaking_db}};
+
+  json contributors = json::array();
+  for (const Contributor& c : b.contributors) {
+    contributors.push_back({
+        {"name", c.name},
+        {"kind", c.kind},
+        {"output_rms_V", c.output_rms_v},
+        {"share", c.share},
+        {"output_density_V_per_rtHz", c.output_density_ref_v_per_rthz},
+        {"gain_to_output", c.gain_to_output_ref},
+        {"source_density_per_rtHz", c.source_density_ref},
+    });
+  }
+  out["noise"] = {
+      {"output_rms_V", b.output_rms_v},
+      {"output_peak_to_peak_V", b.output_peak_to_peak_v},
+      {"peak_to_peak_per_rms", kPeakToPeakPerRms},
+      {"output_density_V_per_rtHz", b.output_density_ref_v_per_rthz},
+      {"input_referred_rms", b.input_rms},
+      {"input_referred_density_per_rtHz", b.input_density_ref_per_rthz},
+      {"input_referred_unit", b.input_unit},
+      {"contributors", contributors},
+      {"integration",
+       {{"evaluations", b.integration_evaluations},
+        {"relative_error_estimate", b.integration_relative_error}}},
+  };
+  out["offset"] = {
+      {"vos_V", b.offset.vos_v},
+      {"ib_V", b.offset.ib_v},
+      {"ios_V", b.offset.ios_v},
+      {"worst_case_V", b.offset.worst_case_v},
+      {"rss_V", b.offset.rss_v},
+      {"noise_gain_dc", b.offset.noise_gain_dc},
+      {"plus_resistor_ohm", b.offset.plus_resistor_ohm},
+      {"balance_resistor_ohm", b.offset.balance_resistor_ohm},
+  };
+  if (b.full_scale_output_v) {
+    out["full_scale_output_V"] = *b.full_scale_output_v;
+    out["snr_dB"] = *b.snr_db;
+    out["dynamic_range_dB"] = *b.dynamic_range_db;
+  }
+  if (b.tee) {
+    const TeeComparison& t = *b.tee;
+    json changes = json::array();
+    for (const TeeChange& c : t.changes)
+      changes.push_back({{"name", c.name},
+                         {"change", ChangeName(c.kind)},
+                         {"tee_output_rms_V", c.tee_output_rms_v},
+                         {"plain_output_rms_V", c.plain_output_rms_v}});
+    out["tee"] = {
+        {"equivalent_resistance_ohm", t.equivalent_resistance_ohm},
+        {"plain_output_rms_V", t.plain_output_rms_v},
+        {"plain_input_referred_rms", t.plain_input_rms},
+        {"noise_cost_ratio", t.noise_cost_ratio},
+        {"noise_gain_at_reference",
+         {{"tee", t.tee_noise_gain_ref}, {"plain", t.plain_noise_gain_ref}}},
+        {"noise_gain_dc",
+         {{"tee", t.tee_noise_gain_dc}, {"plain", t.plain_noise_gain_dc}}},
+        {"plain_bandwidth_3db_Hz", t.plain_bandwidth_3db_hz},
+        {"plain_offset_worst_case_V", t.plain_offset_worst_case_v},
+        {"contributors", changes},
+    };
+  }
+  out["warnings"] = b.warnings;
+  return out.dump(2) + "\n";
+}
+
+}  // namespace hushgain

@@ -1,0 +1,131 @@
+#include "integrate/band_integral.h"
+
+#include <doctest/doctest.h>
+
+#include <cmath>
+
+#include "noise/physical_constants.h"
+#include "test_support.h"
+
+namespace hushgain {
+namespace {
+
+using test::RelErr;
+
+IntegrationResult Integrate(double lo, double hi,
+                            const std::function<double(double)>& s,
+                            double tolerance = 1e-8) {
+  IntegrationOptions options;
+  options.relative_tolerance = tolerance;
+  return IntegrateBand(
+      lo, hi, 1,
+      [&s](double f, double* out) {
+        out[0] = s(f);
+        return Status::Ok();
+      },
+      options);
+}
+
+// E_rms = e_w sqrt(f_c ln(f_H/f_L) + (f_H - f_L)), REFERENCES.md section 4
+// (derived there; mpmath and scipy.quad agree to 11 digits).
+double WhitePlusFlickerRms(double e_w, double fc, double lo, double hi) {
+  return e_w * std::sqrt(fc * std::log(hi / lo) + (hi - lo));
+}
+
+TEST_CASE(
+    "1/f plus white noise integrates to the closed form (section 4 examples)") {
+  struct Case {
+    double e_w, fc, lo, hi, published_rms;
+  };
+  const Case cases[] = {
+      {10e-9, 100, 0.1, 10e3, 1.055992071e-6},  // example A
+      {10e-9, 100, 0.1, 10, 216.890991e-9},     // example B
+      {5e-9, 1000, 0.01, 100, 482.450266e-9},   // example C
+  };
+  for (const Case& c : cases) {
+    auto r = Integrate(
+        c.lo, c.hi, [&](double f) { return c.e_w * c.e_w * (1 + c.fc / f); },
+        1e-6);
+    REQUIRE(r.converged);
+    const double rms = std::sqrt(r.integrals[0]);
+    CHECK(RelErr(rms, WhitePlusFlickerRms(c.e_w, c.fc, c.lo, c.hi)) < 1e-8);
+    CHECK(RelErr(rms, c.published_rms) < test::kRelTable);
+  }
+}
+
+TEST_CASE("a pure 1/f density is integrated exactly on the first pass") {
+  // In u = ln f, K/f df = K du: the Kronrod rule is exact, the error
+  // estimate zero, and no interval is split.
+  auto r = Integrate(
+      1e-3, 1e3, [](double f) { return 4.0 / f; }, 1e-12);
+  CHECK(r.converged);
+  CHECK(r.intervals == 6);  // one per decade, never split
+  CHECK(RelErr(r.integrals[0], 4.0 * std::log(1e6)) < 1e-14);
+}
+
+TEST_CASE("a single real pole has a noise bandwidth of pi/2 times f_3dB") {
+  // ENBW / f_3dB = pi/2 for n = 1 (REFERENCES.md section 3).
+  const double f3 = 1e3;
+  auto r = Integrate(1e-6, 1e12,
+                     [&](double f) { return 1.0 / (1 + (f / f3) * (f / f3)); });
+  // The band [1e-6, 1e12] Hz misses f3^2/1e12 + 1e-6 Hz of the infinite
+  // integral.
+  CHECK(RelErr(r.integrals[0], kPi / 2 * f3) < 1e-8);
+}
+
+TEST_CASE("Butterworth noise bandwidths match (pi/2n)/sin(pi/2n)") {
+  // REFERENCES.md section 3 table: n = 2: 1.110 720 735; n = 3: 1.047 197 551.
+  const double published[] = {1.570796327, 1.110720735, 1.047197551,
+                              1.026172153, 1.016640738};
+  for (int n = 1; n <= 5; ++n) {
+    auto r = Integrate(
+        1e-9, 1e9, [&](double x) { return 1.0 / (1 + std::pow(x, 2 * n)); });
+    CAPTURE(n);
+    CHECK(RelErr(r.integrals[0], published[n - 1]) < 2e-9);
+  }
+}
+
+TEST_CASE("two cascaded real poles: ENBW = (pi/4) f_p, 1.2203 times f_3dB") {
+  // REFERENCES.md section 3: m = 2 identical poles; f_3dB = f_p sqrt(sqrt2 -
+  // 1).
+  const double fp = 1.0;
+  auto r = Integrate(1e-12, 1e9, [&](double f) {
+    return 1.0 / std::pow(1 + f * f / (fp * fp), 2);
+  });
+  CHECK(RelErr(r.integrals[0], kPi / 4 * fp) < 1e-9);
+  CHECK(RelErr(r.integrals[0] / (fp * std::sqrt(std::sqrt(2.0) - 1)),
+               1.220331226) < test::kRelTable);
+}
+
+TEST_CASE("several components share evaluations and keep their own integrals") {
+  IntegrationOptions options;
+  auto r = IntegrateBand(
+      1, 100, 2,
+      [](double f, double* out) {
+        out[0] = 1.0;
+        out[1] = 1.0 / f;
+        return Status::Ok();
+      },
+      options);
+  CHECK(RelErr(r.integrals[0], 99.0) < 1e-9);
+  CHECK(RelErr(r.integrals[1], std::log(100.0)) < 1e-12);
+}
+
+TEST_CASE("a failing integrand stops the integration with its status") {
+  IntegrationOptions options;
+  auto r = IntegrateBand(
+      1, 10, 1, [](double, double*) { return Status::Fail("boom at 3 Hz"); },
+      options);
+  CHECK_FALSE(r.status.ok);
+  CHECK(r.status.message == "boom at 3 Hz");
+}
+
+TEST_CASE("options validate with a message naming the field") {
+  IntegrationOptions options;
+  CHECK(options.Validate().empty());
+  options.relative_tolerance = -1;
+  CHECK(options.Validate() == "relative_tolerance is -1, must be in (0, 1)");
+}
+
+}  // namespace
+}  // namespace hushgain
