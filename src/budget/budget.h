@@ -69,6 +69,9 @@ struct TeeComparison {
 
 struct Budget {
   std::string stage_name;
+  std::string opamp_class;  // "JFET input", or "inline parameters"
+  double opamp_gbw_hz = 0;
+  double opamp_open_loop_gain = 0;
   double temperature_k = 0;
   double band_low_hz = 0;
   double band_high_hz = 0;

@@ -46,6 +46,9 @@ BudgetOutcome ComputeBudget(const Stage& stage, const BudgetOptions& options) {
   BudgetOutcome outcome;
   Budget& b = outcome.budget;
   b.stage_name = stage.name;
+  b.opamp_class = stage.opamp.class_name;
+  b.opamp_gbw_hz = stage.opamp.gbw_hz;
+  b.opamp_open_loop_gain = stage.opamp.open_loop_gain;
   b.temperature_k = stage.temperature_k;
   b.band_low_hz = stage.band_low_hz;
   b.band_high_hz = stage.band_high_hz;

@@ -27,6 +27,9 @@ std::string BudgetToJson(const Budget& b) {
   using nlohmann::json;
   json out;
   out["stage"] = b.stage_name;
+  out["opamp"] = {{"class", b.opamp_class},
+                  {"gbw_Hz", b.opamp_gbw_hz},
+                  {"open_loop_gain", b.opamp_open_loop_gain}};
   out["temperature_K"] = b.temperature_k;
   out["band_Hz"] = {b.band_low_hz, b.band_high_hz};
   out["reference_frequency_Hz"] = b.reference_hz;

@@ -61,6 +61,8 @@ std::string Header(const Budget& b) {
          FormatEng(b.band_low_hz, "Hz") + " to " +
          FormatEng(b.band_high_hz, "Hz") + ", reference " +
          FormatEng(b.reference_hz, "Hz") + "\n";
+  out += "  op-amp " + b.opamp_class + ", GBW " + FormatEng(b.opamp_gbw_hz, "Hz") + ", A0 " +
+         Printf("%.3g", b.opamp_open_loop_gain) + "\n";
   out += "  signal gain " + Gain(b.signal_gain_dc) + " " + unit + " at DC, |" +
          Gain(b.signal_gain_ref) + "| at the reference\n";
   out += "  noise gain (e_n to output) " + Gain(b.noise_gain_dc) + " at DC, " +
