@@ -67,6 +67,8 @@ Status MnaSystem::Build(const Netlist& net, MnaSystem* system) {
       s.opamp_amp_nodes_.push_back(s.NodeIndex(op.out));
     }
     s.opamp_rows_.push_back(next++);
+    s.opamp_plus_.push_back(s.NodeIndex(op.plus));
+    s.opamp_minus_.push_back(s.NodeIndex(op.minus));
     s.names_.push_back(op.name + " source current");
   }
   for (const VoltageSource& v : net.voltage_sources) {

@@ -52,7 +52,6 @@ std::string ChangeLabel(const TeeChange& c) {
 }
 
 std::string Header(const Budget& b) {
-  const std::string unit = b.input_unit == "A" ? "V/A" : "V/V";
   std::string out = b.stage_name + "\n";
   out += "  temperature " + Printf("%.2f", b.temperature_k - kZeroCelsiusK) +
          " \xC2\xB0"
@@ -63,16 +62,32 @@ std::string Header(const Budget& b) {
          FormatEng(b.reference_hz, "Hz") + "\n";
   out += "  op-amp " + b.opamp_class + ", GBW " + FormatEng(b.opamp_gbw_hz, "Hz") + ", A0 " +
          Printf("%.3g", b.opamp_open_loop_gain) + "\n";
-  out += "  signal gain " + Gain(b.signal_gain_dc) + " " + unit + " at DC, |" +
-         Gain(b.signal_gain_ref) + "| at the reference\n";
+  if (b.input_unit == "A") {
+    out += "  transimpedance " + FormatEng(b.signal_gain_dc, "\xCE\xA9") + " at DC, |" +
+           FormatEng(b.signal_gain_ref, "\xCE\xA9") + "| at the reference\n";
+  } else {
+    out += "  signal gain " + Gain(b.signal_gain_dc) + " V/V at DC, |" + Gain(b.signal_gain_ref) +
+           "| at the reference\n";
+  }
   out += "  noise gain (e_n to output) " + Gain(b.noise_gain_dc) + " at DC, " +
-         Gain(b.noise_gain_ref) + " at the reference\n";
+         Gain(b.noise_gain_ref) + " at the reference, peak " + Gain(b.noise_gain_peak) + " at " +
+         FormatEng(b.noise_gain_peak_hz, "Hz") + "\n";
   out += "  closed-loop -3 dB bandwidth " +
-         (b.bandwidth_3db_hz > 0 ? FormatEng(b.bandwidth_3db_hz, "Hz")
-                                 : std::string("not found")) +
-         (b.peaking_db > 0.01 ? ", peaking " + Printf("%.2f dB", b.peaking_db)
-                              : "") +
+         (b.bandwidth_3db_hz > 0 ? FormatEng(b.bandwidth_3db_hz, "Hz") : std::string("not found")) +
+         (b.peaking_db > 0.01
+              ? ", peaking " + Printf("%.2f dB", b.peaking_db) + " at " + FormatEng(b.peak_hz, "Hz")
+              : "") +
          "\n";
+  if (b.loop.crossover_found)
+    out += "  loop gain crosses unity at " + FormatEng(b.loop.crossover_hz, "Hz") +
+           ", phase margin " + Printf("%.1f", b.loop.phase_margin_deg) + "\xC2\xB0\n";
+  if (b.feedback_capacitor_f > 0 || b.capacitor_choice)
+    out += "  feedback capacitor " + FormatEng(b.feedback_capacitor_f, "F") +
+           (b.capacitor_choice ? " (chosen for " + b.capacitor_choice->target + "; the estimate " +
+                                     b.capacitor_choice->estimate_rule + " gives " +
+                                     FormatEng(b.capacitor_choice->estimate_f, "F") + ")"
+                               : std::string()) +
+           "\n";
   return out;
 }
 
@@ -110,6 +125,17 @@ std::string NoiseSection(const Budget& b) {
   out += "  input-referred         " + FormatEng(b.input_rms, b.input_unit) +
          " rms, " + Density(b.input_density_ref_per_rthz, b.input_unit) +
          " at " + ref + "\n";
+  if (b.photodiode && b.photodiode->responsivity_a_per_w > 0) {
+    out += "  NEP                    " + FormatEng(b.photodiode->nep_w_per_rthz, std::string("W") + kPerRtHz) +
+           " at " + ref + ", " + FormatEng(b.photodiode->nep_rms_w, "W") + " rms over the band (" +
+           Printf("%.3g A/W", b.photodiode->responsivity_a_per_w) + ")\n";
+  }
+  if (b.photodiode && b.photodiode->noise_gain_plateau_estimate > 0) {
+    out += "  e_n x C                the e_n noise gain rises to " + Gain(b.noise_gain_peak) + " at " +
+           FormatEng(b.noise_gain_peak_hz, "Hz") + " (1 + C/C_f = " +
+           Gain(b.photodiode->noise_gain_plateau_estimate) + " with C = C_d + C_in = " +
+           FormatEng(b.photodiode->input_capacitance_f, "F") + ")\n";
+  }
   if (b.snr_db) {
     out += "  full scale             \xC2\xB1" +
            FormatEng(*b.full_scale_output_v, "V") + ": SNR " +
@@ -128,6 +154,7 @@ std::string OffsetSection(const Budget& b) {
             FormatEng(o.vos_v, "V")});
   t.AddRow({"Ib into both inputs", FormatEng(o.ib_v, "V")});
   t.AddRow({"Ios (sign unknown)", FormatEng(o.ios_v, "V")});
+  if (b.photodiode) t.AddRow({"dark current x transimpedance", FormatEng(o.dark_v, "V")});
   t.AddRule();
   t.AddRow({"worst case", FormatEng(o.worst_case_v, "V")});
   t.AddRow({"root-sum-square", FormatEng(o.rss_v, "V")});

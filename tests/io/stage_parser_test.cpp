@@ -4,7 +4,7 @@
 
 #include <map>
 
-#include "circuit/inverting_topology.h"
+#include "circuit/feedback_network.h"
 #include "test_support.h"
 
 namespace hushgain {
