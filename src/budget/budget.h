@@ -132,6 +132,10 @@ struct Budget {
   OffsetBlock offset;
 
   std::optional<double> full_scale_output_v;
+  // The op-amp's output current at the full-scale swing (load and feedback
+  // network), against the device's limit.
+  std::optional<double> full_scale_output_current_a;
+  double output_current_limit_a = 0;
   std::optional<double> snr_db;            // full-scale sine rms / noise rms
   std::optional<double> dynamic_range_db;  // 2 x full scale / noise p-p
 

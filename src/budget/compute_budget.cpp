@@ -196,6 +196,30 @@ Status LoopFigures(const Stage& stage, const MnaSystem& system, Budget& b) {
   return Status::Ok();
 }
 
+// The op-amp's output current with the output at full scale: the DC
+// solution for the signal, scaled to the full-scale output, read at the
+// controlled source's current (load plus feedback network, exact for the
+// stage as built).
+Status OutputDrive(const Stage& stage, const MnaSystem& system, const Ports& p, Budget& b) {
+  b.output_current_limit_a = stage.opamp.output_current_limit_a;
+  if (!stage.full_scale_output_v || b.signal_gain_dc == 0) return Status::Ok();
+  ComplexVector x;
+  Status s = DirectSolve(system, 0.0, p.signal, &x);
+  if (!s.ok) return s;
+  const double fs = *stage.full_scale_output_v;
+  const double amperes = std::abs(x[system.OpAmpRow(0)].real()) * fs / std::fabs(b.signal_gain_dc);
+  b.full_scale_output_current_a = amperes;
+  if (amperes > stage.opamp.output_current_limit_a)
+    b.warnings.push_back(Printf("at the full-scale %.4g V the op-amp must source %.3g mA", fs, amperes * 1e3) +
+                         Printf(", beyond its %.3g mA output limit: raise the load or feedback "
+                                "resistance",
+                                stage.opamp.output_current_limit_a * 1e3));
+  if (fs > 0.5 * stage.opamp.supply_v)
+    b.warnings.push_back(Printf("the full-scale swing of \xC2\xB1%.4g V exceeds half the %.4g V supply span",
+                                fs, stage.opamp.supply_v));
+  return Status::Ok();
+}
+
 void PhotodiodeFigures(const Stage& stage, Budget& b) {
   PhotodiodeBlock pd;
   pd.responsivity_a_per_w = stage.photodiode.responsivity_a_per_w;
@@ -252,6 +276,7 @@ BudgetOutcome ComputeBudget(const Stage& requested, const BudgetOptions& options
   if (s.ok) s = ReferenceFigures(stage, ports, evaluator, b);
   if (s.ok) s = BandNoise(stage, options, evaluator, b);
   if (s.ok) s = ResponseFigures(stage, ports, evaluator, b);
+  if (s.ok) s = OutputDrive(stage, evaluator.system(), ports, b);
   if (!s.ok) return {s, b};
 
   if (stage.full_scale_output_v && b.output_rms_v > 0) {

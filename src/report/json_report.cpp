@@ -92,6 +92,9 @@ std::string BudgetToJson(const Budget& b) {
   }
   if (b.full_scale_output_v) {
     out["full_scale_output_V"] = *b.full_scale_output_v;
+    if (b.full_scale_output_current_a)
+      out["full_scale_output_current_A"] = *b.full_scale_output_current_a;
+    out["output_current_limit_A"] = b.output_current_limit_a;
     out["snr_dB"] = *b.snr_db;
     out["dynamic_range_dB"] = *b.dynamic_range_db;
   }

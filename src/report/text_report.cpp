@@ -141,6 +141,9 @@ std::string NoiseSection(const Budget& b) {
            FormatEng(*b.full_scale_output_v, "V") + ": SNR " +
            Printf("%.1f dB", *b.snr_db) + " (full-scale sine), dynamic range " +
            Printf("%.1f dB", *b.dynamic_range_db) + " (swing / noise p-p)\n";
+    if (b.full_scale_output_current_a)
+      out += "  output drive           " + FormatEng(*b.full_scale_output_current_a, "A") +
+             " at full scale (limit " + FormatEng(b.output_current_limit_a, "A") + ")\n";
   }
   return out;
 }
