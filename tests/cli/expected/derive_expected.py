@@ -137,7 +137,7 @@ class Network:
         self.Ccm = op.get("input_capacitance_cm", 0.0)
         self.Cd = op.get("input_capacitance_diff", 0.0)
         self.Rp = plus_resistor(stage)
-        names = ["in", "n", "o"]
+        names = (["in"] if stage["Rs"] > 0 else []) + ["n", "o"]
         if "tee" in stage:
             names.append("t")
         if self.Rp > 0:
@@ -163,11 +163,6 @@ class Network:
         if stage["RL"]:
             r.append(("R_load", "o", None, stage["RL"]))
         self.resistors = r
-        if stage["Rs"] == 0:
-            del self.idx["in"]
-            self.idx = {k: i for i, k in enumerate(
-                [n for n in names if n != "in"])}
-            self.N = len(self.idx)
 
     def _index(self, node):
         if node is None or node == "src":
@@ -221,7 +216,6 @@ class Network:
         Y, src_col, amp_row = self.matrix(f)
         o = self.idx["o"]
         out = {}
-        rhs = np.zeros((self.N, 0), dtype=complex)
         cols, names = [], []
 
         def current_into(node):
