@@ -16,8 +16,14 @@ namespace hushgain {
 int RunBudgetCommand(const BudgetCommandOptions& options) {
   BudgetOptions budget_options;
   budget_options.integration.relative_tolerance = options.tolerance;
-  if (std::string why = budget_options.Validate(); !why.empty())
-    throw Error("command line", "", "--tolerance: " + why);
+  if (!budget_options.Validate().empty()) {
+    char value[32];
+    std::snprintf(value, sizeof value, "%g", options.tolerance);
+    throw Error("command line", "",
+                std::string("--tolerance: expected a relative tolerance in "
+                            "(0, 1), got ") +
+                    value);
+  }
 
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
   const Stage stage = LoadStageFile(options.stage_path, library);

@@ -6,6 +6,7 @@
 #include "io/json_reader.h"
 #include "io/read_file.h"
 #include "io/suggest.h"
+#include "io/units.h"
 #include "noise/physical_constants.h"
 
 namespace hushgain {
@@ -202,8 +203,9 @@ Stage ParseStage(std::string_view json_text, std::string_view source_name,
         "expected a positive frequency (1/f noise diverges at 0 Hz), got " +
             Dump(band.Get("low")));
   if (!(stage.band_high_hz > stage.band_low_hz))
-    throw band.ErrorAt("high", "expected a frequency above the low edge, got " +
-                                   Dump(band.Get("high")));
+    throw band.ErrorAt("high", "expected a frequency above the low edge (" +
+                                   FormatEng(stage.band_low_hz, "Hz") +
+                                   "), got " + Dump(band.Get("high")));
   band.Finish();
 
   if (auto ref = top.OptionalQuantity("reference_frequency_Hz",
