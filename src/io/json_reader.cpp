@@ -20,6 +20,13 @@ std::string ParseErrorReason(const std::string& what) {
   std::string reason = what.substr(at + marker.size());
   if (!reason.empty() && reason[0] >= 'A' && reason[0] <= 'Z')
     reason[0] += 'a' - 'A';
+  // "invalid literal; last read: '...'; expected ..." quotes raw input, with
+  // escaped newlines: the line and column already say where.
+  const std::size_t last_read = reason.find("; last read: '");
+  if (last_read != std::string::npos) {
+    const std::size_t end = reason.find("'; ", last_read + 14);
+    reason.erase(last_read, end == std::string::npos ? std::string::npos : end + 1 - last_read);
+  }
   return reason;
 }
 

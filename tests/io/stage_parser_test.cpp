@@ -117,7 +117,7 @@ TEST_CASE("bad stage files name the file and the JSON path") {
       {Good(R"("load": "10k")", R"("load": true)"),
        R"(stage.json: /stage/load: expected a resistance, got a boolean)"},
       {Good(R"("low": "0.1")", R"("low": "2k")"),
-       R"(stage.json: /band_Hz/high: expected a frequency above the low edge, got "1k")"},
+       R"(stage.json: /band_Hz/high: expected a frequency above the low edge (2.000 kHz), got "1k")"},
       {Good(R"("low": "0.1")", R"("low": 0)"),
        R"(stage.json: /band_Hz/low: expected a positive frequency (1/f noise diverges at 0 Hz), got 0)"},
       {Good(R"("device": "precision-bipolar")", R"("device": "precision-bipolr")"),
@@ -139,7 +139,7 @@ TEST_CASE("bad stage files name the file and the JSON path") {
       {Good(R"("plus_resistor": "auto")", R"("plus_resistor": "automatic")"),
        R"(stage.json: /stage/plus_resistor: expected a resistance, got "automatic" (no number))"},
       {"{\n  \"name\": \"x\",\n  oops\n}",
-       R"(stage.json: malformed JSON at line 3, column 3)"},
+       R"(stage.json: malformed JSON at line 3, column 3: invalid literal; expected string literal)"},
       {"[1, 2]", R"(stage.json: /: expected an object, got an array)"},
   };
   for (const Case& c : cases) {
