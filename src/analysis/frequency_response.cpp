@@ -20,7 +20,10 @@ ResponseSummary SummarizeResponse(const GainFunction& gain, double f_ref_hz,
 
   const double step = std::pow(10.0, 1.0 / points_per_decade);
   double f_prev = f_ref_hz;
-  for (double f = f_ref_hz * step; f <= f_max_hz * step; f *= step) {
+  // After the -3 dB point the scan goes on for one more decade, so a caller
+  // that watches other transfers in `gain` (the noise gain) sees past it.
+  double f_stop = f_max_hz * step;
+  for (double f = f_ref_hz * step; f <= f_stop; f *= step) {
     out.status = gain(f, &h);
     if (!out.status.ok) return out;
     const double magnitude = std::abs(h);
@@ -28,10 +31,10 @@ ResponseSummary SummarizeResponse(const GainFunction& gain, double f_ref_hz,
       peak = magnitude;
       out.peak_hz = f;
     }
-    if (magnitude < threshold) {
+    if (!out.bandwidth_found && magnitude < threshold) {
       // Bisect in log f between f_prev (above threshold) and f (below).
       double lo = f_prev, hi = f;
-      for (int i = 0; i < 60 && hi / lo > 1 + 1e-9; ++i) {
+      for (int i = 0; i < 60 && hi / lo > 1 + 1e-8; ++i) {
         double mid = std::sqrt(lo * hi);
         out.status = gain(mid, &h);
         if (!out.status.ok) return out;
@@ -39,7 +42,7 @@ ResponseSummary SummarizeResponse(const GainFunction& gain, double f_ref_hz,
       }
       out.bandwidth_3db_hz = std::sqrt(lo * hi);
       out.bandwidth_found = true;
-      break;
+      f_stop = std::min(f_stop, 10.0 * f);
     }
     f_prev = f;
   }
@@ -57,7 +60,7 @@ ResponseSummary SummarizeResponse(const GainFunction& gain, double f_ref_hz,
     double m1 = 0, m2 = 0;
     out.status = mag(x1, &m1);
     if (out.status.ok) out.status = mag(x2, &m2);
-    for (int i = 0; i < 60 && out.status.ok && b - a > 1e-9; ++i) {
+    for (int i = 0; i < 60 && out.status.ok && b - a > 1e-6; ++i) {
       if (m1 < m2) {
         a = x1;
         x1 = x2;

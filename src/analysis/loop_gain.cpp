@@ -72,7 +72,7 @@ LoopSummary SummarizeLoop(LoopGainSolver& solver, double f_start_hz, double f_ma
     if (mag_prev >= 1.0 && mag < 1.0) {
       // Bisect in log f; carry the unwrapped phase along.
       double lo = f_prev, hi = f, phase_lo = phase_prev;
-      for (int i = 0; i < 80 && hi / lo > 1 + 1e-12; ++i) {
+      for (int i = 0; i < 80 && hi / lo > 1 + 1e-8; ++i) {
         const double mid = std::sqrt(lo * hi);
         out.status = solver.LoopGainAt(mid, &t);
         if (!out.status.ok) return out;

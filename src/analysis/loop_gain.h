@@ -48,7 +48,7 @@ struct LoopSummary {
 // Scans f_start_hz .. f_max_hz (log, `points_per_decade`) for the first
 // unity crossing and refines it by bisection in log f.
 LoopSummary SummarizeLoop(LoopGainSolver& solver, double f_start_hz, double f_max_hz,
-                          int points_per_decade = 12);
+                          int points_per_decade = 8);
 
 }  // namespace hushgain
 
