@@ -69,7 +69,7 @@ TEST_CASE("plain inverting stage: every contributor matches its closed form") {
   CHECK(RelErr(FindContributor(b, "e_n").share, en_out * en_out / (rss * rss)) < test::kRelIdeal);
 }
 
-TEST_CASE("plain inverting stage: offsets Vos NG, Ib- Rf and the balance resistor") {
+TEST_CASE("plain inverting stage: offsets Vos NG; Ib- Rf and the balance resistor") {
   // Vout = Vos NG + Ib- Rf - Ib+ Rp NG (REFERENCES.md section 6).
   const Stage stage = SimpleExample();
   const Budget b = Compute(stage);
