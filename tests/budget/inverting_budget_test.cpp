@@ -14,11 +14,7 @@ using test::FindContributor;
 using test::RelErr;
 
 Budget Compute(const Stage& stage, double tolerance = 1e-6) {
-  BudgetOptions options;
-  options.integration.relative_tolerance = tolerance;
-  BudgetOutcome outcome = ComputeBudget(stage, options);
-  REQUIRE_MESSAGE(outcome.status.ok, outcome.status.message);
-  return outcome.budget;
+  return test::ComputeOrFail(stage, tolerance);
 }
 
 // REFERENCES.md section 6, "simple example" (values chosen there, derived by

@@ -28,13 +28,7 @@ Stage WorkedExample() {
   return s;
 }
 
-Budget Compute(const Stage& stage) {
-  BudgetOptions options;
-  options.integration.relative_tolerance = 1e-7;
-  BudgetOutcome outcome = ComputeBudget(stage, options);
-  REQUIRE_MESSAGE(outcome.status.ok, outcome.status.message);
-  return outcome.budget;
-}
+Budget Compute(const Stage& stage) { return test::ComputeOrFail(stage, 1e-7); }
 
 TEST_CASE("tee feedback acts as R1 + R2 + R1*R2/R3 at DC") {
   const Budget b = Compute(WorkedExample());

@@ -45,11 +45,7 @@ Stage WorkedExample(double cf) {
 }
 
 Budget Compute(const Stage& stage, double tolerance = 1e-5) {
-  BudgetOptions options;
-  options.integration.relative_tolerance = tolerance;
-  BudgetOutcome outcome = ComputeBudget(stage, options);
-  REQUIRE_MESSAGE(outcome.status.ok, outcome.status.message);
-  return outcome.budget;
+  return test::ComputeOrFail(stage, tolerance);
 }
 
 // Butterworth (Q = 1/sqrt 2): C_f = sqrt(2 w_t R_f C - 1) / (w_t R_f), exact.
