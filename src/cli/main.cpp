@@ -9,6 +9,7 @@
 
 #include "cli/budget_command.h"
 #include "cli/exit_codes.h"
+#include "cli/tee_command.h"
 #include "io/error.h"
 #include "io/suggest.h"
 
@@ -46,9 +47,87 @@ std::function<int()> DefineBudget(CLI::App* app, const GlobalOptions& global) {
   };
 }
 
+std::function<int()> DefineTee(CLI::App* app, const GlobalOptions& global) {
+  auto chosen = std::make_shared<std::function<int()>>();
+  // An unknown tee command gets a "did you mean" (CLI11 would only say
+  // that a subcommand is required).
+  app->require_subcommand(0, 1);
+  app->allow_extras();
+  app->parse_complete_callback([app] {
+    if (!app->get_subcommands().empty()) return;
+    std::vector<std::string> words = app->remaining();
+    std::vector<std::string> names(std::begin(kTeeSubcommands),
+                                   std::end(kTeeSubcommands));
+    if (words.empty())
+      throw Error("command line", "", "tee: expected \"sweep\" or \"search\"");
+    throw Error("command line", "",
+                "unknown tee command \"" + words.front() + "\"" +
+                    DidYouMean(words.front(), names) + "; try tee --help");
+  });
+
+  auto sweep = std::make_shared<TeeSweepCommandOptions>();
+  CLI::App* s = app->add_subcommand(
+      "sweep", "keep the gain, shrink the largest resistor of the T network");
+  s->add_option("stage", sweep->stage_path, "stage file (JSON) with a tee")
+      ->required();
+  s->add_option("--min", sweep->min,
+                "smallest largest-resistor value (default Req / 1000)");
+  s->add_option("--points", sweep->points, "rows, both ends included (13)");
+  s->add_option("--ratio", sweep->ratio,
+                "fix R1/R2 to a number, or to the stage's (\"stage\")");
+  s->add_flag("--csv", sweep->csv, "print CSV");
+  s->add_flag("--json", sweep->json, "print JSON");
+  s->add_option("--tolerance", sweep->tolerance,
+                "relative error target of the noise integral (default 1e-4)");
+  s->callback([sweep, chosen, &global] {
+    *chosen = [sweep, &global] {
+      sweep->devices_dir = global.devices_dir;
+      return RunTeeSweepCommand(*sweep);
+    };
+  });
+
+  auto search = std::make_shared<TeeSearchCommandOptions>();
+  CLI::App* q = app->add_subcommand(
+      "search", "standard-value T networks for the gain, least noise first");
+  q->add_option("stage", search->stage_path, "stage file (JSON)")->required();
+  q->add_option("--series", search->series,
+                "E6, E12, E24, E48, E96 or E192 (default E96)");
+  q->add_option("--max", search->max, "largest R1, R2, R3 (required)");
+  q->add_option("--min", search->min, "smallest R1, R2, R3 (default max/1000)");
+  q->add_option(
+      "--gain", search->gain,
+      "target |gain| (default the stage's own Req / (R_source + R_in))");
+  q->add_option("--gain-tol", search->gain_tolerance,
+                "relative gain tolerance, e.g. 0.5% (default 1%)");
+  q->add_flag("--free-input", search->free_input,
+              "draw R_in from the series too");
+  q->add_option("--input-min", search->input_min,
+                "smallest R_in with --free-input (default --min)");
+  q->add_option("--input-max", search->input_max,
+                "largest R_in with --free-input (default --max)");
+  q->add_option("--rank", search->rank, "noise, offset or weighted (noise)");
+  q->add_option("--offset-weight", search->offset_weight,
+                "offset weight of --rank weighted, 0 to 1 (0.5)");
+  q->add_option("--top", search->top, "how many networks to show (10)");
+  q->add_option("--threads", search->threads, "worker threads (2)");
+  q->add_flag("--csv", search->csv, "print CSV");
+  q->add_flag("--json", search->json, "print JSON");
+  q->add_option("--tolerance", search->tolerance,
+                "relative error target of the noise integral (default 1e-4)");
+  q->callback([search, chosen, &global] {
+    *chosen = [search, &global] {
+      search->devices_dir = global.devices_dir;
+      return RunTeeSearchCommand(*search);
+    };
+  });
+  return [chosen] { return *chosen ? (*chosen)() : kExitUsage; };
+}
+
 const std::vector<Command>& Commands() {
   static const std::vector<Command> commands = {
       {"budget", "noise and offset budget of a stage", DefineBudget},
+      {"tee", "T-network design: sweep the largest resistor, search E-series",
+       DefineTee},
   };
   return commands;
 }

@@ -1,0 +1,3 @@
+namespace hushgain {
+void RunTeeSearchBenchmarks() {}
+}  // namespace hushgain
