@@ -88,7 +88,7 @@ TEST_CASE("the tee approaches the end point continuously as L -> Req") {
   const Stage stage = HydrophoneLike();
   const double req = FeedbackEquivalentOhm(stage.feedback);
   double previous = 1e9;
-  for (double shortfall : {1e-1, 1e-3, 1e-5}) {
+  for (double shortfall : {0.3, 0.1, 0.01, 1e-5}) {
     Stage s = stage;
     s.feedback.tee = TeeForLargest(req, req * (1 - shortfall), std::nullopt);
     BudgetOptions options;
@@ -97,10 +97,11 @@ TEST_CASE("the tee approaches the end point continuously as L -> Req") {
     // Both budgets carry the integration's 1e-4 (power) tolerance.
     const double excess = std::fabs(b.budget.tee->noise_cost_ratio - 1);
     CAPTURE(shortfall);
-    CHECK(excess < previous);
+    // Below about 1e-6 the difference is the integration's own noise.
+    if (shortfall > 1e-3) CHECK(excess < previous);
     previous = excess;
   }
-  CHECK(previous < 1e-4);
+  CHECK(previous < 1e-5);
 }
 
 TEST_CASE("the sweep rule keeps Req and L and takes the least R2/R3") {
