@@ -196,7 +196,10 @@ int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
     throw OptionError("--series",
                       "unknown series \"" + options.series + "\"" +
                           DidYouMean(options.series, SeriesNames()));
-  if (options.max.empty()) throw OptionError("--max", "is required");
+  if (options.max.empty())
+    throw OptionError("--max",
+                      "required: the largest R1, R2, R3 allowed (e.g. --max "
+                      "100k)");
   const double max_ohm = PositiveResistance("--max", options.max);
   const double min_ohm = options.min.empty()
                              ? max_ohm / 1000
@@ -280,11 +283,13 @@ int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
     }
     char gain[32];
     std::snprintf(gain, sizeof gain, "%.6g", search.target_gain);
+    char tolerance[32];
+    std::snprintf(tolerance, sizeof tolerance, "%.3g %%",
+                  100 * search.gain_tolerance);
     std::cerr << "error: " << options.stage_path << ": no T network of "
               << SeriesName(*series) << " values from "
               << FormatEng(min_ohm, kOhm) << " to " << FormatEng(max_ohm, kOhm)
-              << " has a gain within " << options.gain_tolerance << " of "
-              << gain
+              << " has a gain within " << tolerance << " of " << gain
               << "; relax --gain-tol, widen --min/--max or take a denser "
                  "--series\n";
     return kExitAnalysisRefused;

@@ -45,8 +45,7 @@ TEST_CASE("closed form reproduces the worked T-network example") {
   CHECK(RelErr(f.equivalent_ohm, 4.967e6) < test::kRelTight);
   CHECK(RelErr(f.gain, 1056.8085) < kRelPrinted);
   CHECK(RelErr(f.noise_gain, 1157.8085) < kRelPrinted);
-  CHECK(RelErr(f.output_rms_v, 11617.20e-9 * std::sqrt(1000.0)) <
-        kRelPrinted);
+  CHECK(RelErr(f.output_rms_v, 11617.20e-9 * std::sqrt(1000.0)) < kRelPrinted);
   CHECK(RelErr(f.output_rms_v, 367.368e-6) < kRelPrinted);
 
   // Offsets with Rp = 0: Vos NG = 28.945 21 mV and Ib- Req = 4.967 mV, total
@@ -64,8 +63,8 @@ TEST_CASE("closed-form offset with R_plus = 4.3k bounds the signed example") {
       test::TeeStage(4.7e3, 47e3, 220e3, 2.2e3, WorkedExampleOpAmp()));
   stage.plus_resistor.mode = PlusResistor::Mode::kValue;
   stage.plus_resistor.ohms = 4.3e3;
-  const ClosedFormFigures f = ClosedFormTee(MakeClosedFormModel(stage), 4.7e3,
-                                            47e3, 220e3, 2.2e3);
+  const ClosedFormFigures f =
+      ClosedFormTee(MakeClosedFormModel(stage), 4.7e3, 47e3, 220e3, 2.2e3);
   const double ng = 1 + 220e3 / 2.2e3 + 4.967e6 / 4.7e3;
   const double ib_term = 0.95e-9 * (4.967e6 - 4.3e3 * ng);  // negative
   CHECK(ib_term < 0);
@@ -124,10 +123,10 @@ TEST_CASE("closed form agrees with the full engine for an ideal op-amp") {
   BudgetOptions options;
   const BudgetOutcome full = ComputeBudget(stage, options);
   REQUIRE(full.status.ok);
-  const ClosedFormFigures f = ClosedFormTee(MakeClosedFormModel(stage), 3.3e3,
-                                            68e3, 150e3, 1.8e3);
-  CHECK(RelErr(f.output_power_v2, full.budget.output_rms_v *
-                                      full.budget.output_rms_v) <
+  const ClosedFormFigures f =
+      ClosedFormTee(MakeClosedFormModel(stage), 3.3e3, 68e3, 150e3, 1.8e3);
+  CHECK(RelErr(f.output_power_v2,
+               full.budget.output_rms_v * full.budget.output_rms_v) <
         2 * test::kRelIntegral);
   CHECK(RelErr(f.noise_gain, full.budget.noise_gain_dc) < test::kRelIdeal);
   CHECK(RelErr(f.gain, std::fabs(full.budget.signal_gain_dc)) <
@@ -153,7 +152,8 @@ TEST_CASE("the power row equals the closed form network by network") {
     for (int j = 0; j < 4; ++j) inv[j] = 1 / r3[j];
     ClosedFormTeePowerRow(model, 2.2e3, 47e3, 33e3, inv, 4, row);
     for (int j = 0; j < 4; ++j) {
-      const ClosedFormFigures f = ClosedFormTee(model, 2.2e3, 47e3, 33e3, r3[j]);
+      const ClosedFormFigures f =
+          ClosedFormTee(model, 2.2e3, 47e3, 33e3, r3[j]);
       CHECK(RelErr(row[j], f.output_power_v2) < 1e-12);
     }
   }

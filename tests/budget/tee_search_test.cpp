@@ -229,7 +229,8 @@ TEST_CASE("search options name the field they break") {
   CHECK(o.Validate() == "target_gain: expected a positive gain, got 0");
   o.target_gain = 10;
   o.gain_tolerance = -0.01;
-  CHECK(o.Validate() == "gain_tolerance: expected a ratio in [0, 1), got -0.01");
+  CHECK(o.Validate() ==
+        "gain_tolerance: expected a ratio in [0, 1), got -0.01");
   o.gain_tolerance = 0.01;
   o.top = 0;
   CHECK(o.Validate() == "top: expected at least 1, got 0");
