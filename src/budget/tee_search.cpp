@@ -427,6 +427,19 @@ TeeSearchResult SearchTee(const Stage& stage, const TeeSearchOptions& o) {
                           stage.feedback.tee.r3_ohm)
           : ClosedFormPlain(model, stage.input_resistor_ohm,
                             stage.feedback.resistor_ohm);
+  const Scorer closed_scorer{o.ranking, o.offset_weight,
+                             closed_ref.output_rms_v,
+                             closed_ref.offset_worst_case_v};
+  if (!o.verify) {
+    SweepOutcome sweep =
+        RunSweep(stage, o, closed_scorer, static_cast<std::size_t>(o.top));
+    result.in_tolerance = sweep.in_tolerance;
+    result.rows_pruned = sweep.rows_pruned;
+    result.cancelled = sweep.cancelled;
+    result.best = std::move(sweep.pool);
+    result.status = Status::Ok();
+    return result;
+  }
   const BudgetOutcome full_ref = ComputeBudget(stage, ranking_budget);
   if (!full_ref.status.ok) {
     result.status =
@@ -435,9 +448,6 @@ TeeSearchResult SearchTee(const Stage& stage, const TeeSearchOptions& o) {
   }
   const double noise_ref = full_ref.budget.output_rms_v;
   const double offset_ref = full_ref.budget.offset.worst_case_v;
-  const Scorer closed_scorer{o.ranking, o.offset_weight,
-                             closed_ref.output_rms_v,
-                             closed_ref.offset_worst_case_v};
   result.reference_score = FullScore(full_ref.budget, o, noise_ref, offset_ref);
 
   std::size_t pool_size =
@@ -495,9 +505,27 @@ TeeSearchResult SearchTee(const Stage& stage, const TeeSearchOptions& o) {
     next = end;
     if (result.cancelled) break;
     if (verified.size() >= kMaxVerified) {
-      result.warnings.push_back(
-          "verification stopped after " + std::to_string(verified.size()) +
-          " full-engine budgets; the ranking beyond them is the closed form's");
+      std::string why = "verification stopped after " +
+                        std::to_string(verified.size()) +
+                        " full-engine budgets";
+      if (next < sweep.pool.size() &&
+          ranked.size() >= static_cast<std::size_t>(o.top) &&
+          ratio_min < kInf && ratio_min > 0) {
+        std::sort(ranked.begin(), ranked.end());
+        // How far below the smallest full/closed ratio seen an unverified
+        // network's ratio would have to fall to enter the top.
+        const double needed =
+            1 - ranked[o.top - 1].first.score /
+                    (sweep.pool[next].closed_score * ratio_min);
+        char buf[160];
+        std::snprintf(buf, sizeof buf,
+                      "; an unverified network would enter the top %d only if "
+                      "its full-engine figure fell %.3g %% further below its "
+                      "closed form than any verified one's",
+                      o.top, 100 * std::max(0.0, needed));
+        why += buf;
+      }
+      result.warnings.push_back(why);
       break;
     }
     // Without a positive closed-form figure there is no ratio to bound the

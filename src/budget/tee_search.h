@@ -73,6 +73,9 @@ struct TeeSearchOptions {
   // same gain in the examples.
   double verify_margin = 0.0025;
   int threads = 2;  // >= 1
+  // false only for benchmarks of the closed-form phase: the result then
+  // holds the closed-form best, without budgets, and nothing is verified.
+  bool verify = true;
   BudgetOptions budget;
   // Called from the calling thread, about every 0.1 s, with the fraction of
   // the closed-form sweep done (0 .. 1). May be empty.

@@ -2,6 +2,7 @@
 
 #include <unistd.h>
 
+#include <algorithm>
 #include <atomic>
 #include <cmath>
 #include <csignal>
@@ -279,7 +280,7 @@ int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
     if (result.cancelled) {
       std::cerr << "error: " << options.stage_path
                 << ": interrupted before any network was found\n";
-      return kExitAnalysisRefused;
+      return kExitInterrupted;
     }
     char gain[32];
     std::snprintf(gain, sizeof gain, "%.6g", search.target_gain);
@@ -305,16 +306,20 @@ int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
   query.gain_tolerance = search.gain_tolerance;
   query.ranking = options.rank;
   query.offset_weight = search.offset_weight;
-  for (const TeeCandidate& c : result.best)
-    for (const std::string& w : c.budget.warnings)
-      std::cerr << "warning: R1 " << FormatEng(c.r1_ohm, kOhm) << ", R2 "
-                << FormatEng(c.r2_ohm, kOhm) << ", R3 "
-                << FormatEng(c.r3_ohm, kOhm) << ": " << w << "\n";
+  // The budgets' own warnings, once each, naming the first network (by
+  // rank) that has it.
+  std::vector<std::string> seen;
+  for (std::size_t i = 0; i < result.best.size(); ++i)
+    for (const std::string& w : result.best[i].budget.warnings) {
+      if (std::find(seen.begin(), seen.end(), w) != seen.end()) continue;
+      seen.push_back(w);
+      std::cerr << "warning: #" << i + 1 << ": " << w << "\n";
+    }
   std::cout << (options.csv    ? SearchToCsv(result, query)
                 : options.json ? SearchToJson(result, query)
                                : SearchToText(result, query))
             << std::flush;
-  return kExitOk;
+  return result.cancelled ? kExitInterrupted : kExitOk;
 }
 
 }  // namespace hushgain

@@ -42,7 +42,8 @@ struct TeeSearchCommandOptions {
 };
 
 // Print on stdout and return an exit code (cli/exit_codes.h): 0, or 1 when
-// the analysis is refused or a search finds no network in tolerance.
+// the analysis is refused or a search finds no network in tolerance, or 130
+// when Ctrl-C stopped a search (the best found so far is printed).
 // Throw Error for bad input (the caller prints it; exit code 2).
 int RunTeeSweepCommand(const TeeSweepCommandOptions& options);
 int RunTeeSearchCommand(const TeeSearchCommandOptions& options);
