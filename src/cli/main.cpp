@@ -109,7 +109,8 @@ std::function<int()> DefineTee(CLI::App* app, const GlobalOptions& global) {
   q->add_option("--offset-weight", search->offset_weight,
                 "offset weight of --rank weighted, 0 to 1 (0.5)");
   q->add_option("--top", search->top, "how many networks to show (10)");
-  q->add_option("--threads", search->threads, "worker threads (2)");
+  q->add_option("--threads", search->threads,
+                "worker threads (0: one per core)");
   q->add_flag("--csv", search->csv, "print CSV");
   q->add_flag("--json", search->json, "print JSON");
   q->add_option("--tolerance", search->tolerance,

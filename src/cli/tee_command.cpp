@@ -9,6 +9,7 @@
 #include <cstdio>
 #include <iostream>
 #include <optional>
+#include <thread>
 
 #include "budget/tee_search.h"
 #include "budget/tee_sweep.h"
@@ -244,10 +245,13 @@ int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
     throw OptionError(
         "--top", "expected at least 1, got " + std::to_string(options.top));
   search.top = options.top;
-  if (options.threads < 1)
-    throw OptionError("--threads", "expected at least 1, got " +
+  if (options.threads < 0)
+    throw OptionError("--threads", "expected 0 (every core) or more, got " +
                                        std::to_string(options.threads));
-  search.threads = options.threads;
+  search.threads =
+      options.threads > 0
+          ? options.threads
+          : std::max(1, static_cast<int>(std::thread::hardware_concurrency()));
 
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
   const Stage stage = LoadStageFile(options.stage_path, library);

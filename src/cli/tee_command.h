@@ -35,7 +35,7 @@ struct TeeSearchCommandOptions {
   std::string rank = "noise";  // noise, offset, weighted
   double offset_weight = 0.5;
   int top = 10;
-  int threads = 2;
+  int threads = 0;  // 0: one per core
   bool csv = false;
   bool json = false;
   double tolerance = 1e-4;
