@@ -77,8 +77,20 @@ struct Sweep {
   Scorer scorer;
   std::vector<double> values;
   std::vector<double> inv_values;
-  std::vector<double> inputs;       // R_in values, in the order searched
-  std::vector<double> input_bound;  // the lower bound of each R_in row set
+  std::vector<double> inputs;  // R_in values
+  // The (R_in, R1) rows, in increasing order of their lower bound, so the
+  // pool fills with good candidates early and the bounds prune the rest.
+  struct RowSpec {
+    double bound;
+    std::uint32_t in_index;
+    std::uint32_t i1;
+    bool operator<(const RowSpec& o) const {
+      if (bound != o.bound) return bound < o.bound;
+      if (in_index != o.in_index) return in_index < o.in_index;
+      return i1 < o.i1;
+    }
+  };
+  std::vector<RowSpec> rows;
   std::size_t pool = 0;
   std::uint64_t total_rows = 0;
 
@@ -148,7 +160,6 @@ void Worker(Sweep& s, WorkerOut* out) {
   const TeeSearchOptions& o = *s.options;
   const std::vector<double>& v = s.values;
   const int n = static_cast<int>(v.size());
-  const double vmin = v.front();
   const double vmax = v.back();
   const double g = o.target_gain;
   const double tol = o.gain_tolerance;
@@ -167,21 +178,14 @@ void Worker(Sweep& s, WorkerOut* out) {
     const std::uint64_t last =
         std::min<std::uint64_t>(first + kRowsPerGrab, s.total_rows);
     for (std::uint64_t row = first; row < last; ++row) {
-      const std::size_t in_index = row / n;
-      const int i1 = static_cast<int>(row % n);
-      const double r_in = s.inputs[in_index];
+      const Sweep::RowSpec& spec = s.rows[row];
+      const double r_in = s.inputs[spec.in_index];
       const double ra = s.model.source_ohm + r_in;
-      const double r1 = v[i1];
+      const double r1 = v[spec.i1];
       const double req_lo = g_lo * ra;
       const double req_hi = g_hi * ra;
       double threshold = s.threshold.load(std::memory_order_relaxed);
-      if (s.input_bound[in_index] > threshold) {
-        ++out->rows_pruned;
-        continue;
-      }
-      const double k_lb = KLowerBound(req_lo, r1, vmin, vmax);
-      if (LowerBound(s, ra, g_lo, r1, vmin, k_lb, PlusLowerBound(s, ra, r1)) >
-          threshold) {
+      if (spec.bound > threshold) {
         ++out->rows_pruned;
         continue;
       }
@@ -276,28 +280,24 @@ SweepOutcome RunSweep(const Stage& stage, const TeeSearchOptions& o,
   s.values = o.values;
   for (double x : s.values) s.inv_values.push_back(1 / x);
   s.pool = pool_size;
-  std::vector<double> inputs = o.input_values;
-  if (inputs.empty()) inputs.push_back(stage.input_resistor_ohm);
 
-  // R_in rows in the order of their bound, so the pool fills with good
-  // candidates early and prunes the rest.
+  s.inputs = o.input_values;
+  if (s.inputs.empty()) s.inputs.push_back(stage.input_resistor_ohm);
   const double vmin = s.values.front();
   const double vmax = s.values.back();
   const double g_lo = o.target_gain * (1 - o.gain_tolerance);
-  std::vector<std::pair<double, double>> ordered;
-  for (double r_in : inputs) {
-    const double ra = s.model.source_ohm + r_in;
-    const double k_lb = KLowerBound(g_lo * ra, vmax, vmin, vmax);
-    ordered.push_back(
-        {LowerBound(s, ra, g_lo, vmin, vmin, k_lb, PlusLowerBound(s, ra, vmin)),
-         r_in});
+  for (std::uint32_t in = 0; in < s.inputs.size(); ++in) {
+    const double ra = s.model.source_ohm + s.inputs[in];
+    for (std::uint32_t i1 = 0; i1 < s.values.size(); ++i1) {
+      const double r1 = s.values[i1];
+      const double k_lb = KLowerBound(g_lo * ra, r1, vmin, vmax);
+      s.rows.push_back(
+          {LowerBound(s, ra, g_lo, r1, vmin, k_lb, PlusLowerBound(s, ra, r1)),
+           in, i1});
+    }
   }
-  std::sort(ordered.begin(), ordered.end());
-  for (const auto& [bound, r_in] : ordered) {
-    s.inputs.push_back(r_in);
-    s.input_bound.push_back(bound);
-  }
-  s.total_rows = static_cast<std::uint64_t>(s.inputs.size()) * s.values.size();
+  std::sort(s.rows.begin(), s.rows.end());
+  s.total_rows = s.rows.size();
 
   const int threads = std::max(1, o.threads);
   std::vector<WorkerOut> outs(threads);
