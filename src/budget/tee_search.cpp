@@ -440,15 +440,19 @@ TeeSearchResult SearchTee(const Stage& stage, const TeeSearchOptions& o) {
     result.status = Status::Ok();
     return result;
   }
-  const BudgetOutcome full_ref = ComputeBudget(stage, ranking_budget);
-  if (!full_ref.status.ok) {
-    result.status =
-        Status::Fail("the stage as given: " + full_ref.status.message);
-    return result;
+  // The full-engine references of the weighted figure (only it needs them).
+  double noise_ref = 0;
+  double offset_ref = 0;
+  if (o.ranking == TeeRanking::kWeighted) {
+    const BudgetOutcome full_ref = ComputeBudget(stage, ranking_budget);
+    if (!full_ref.status.ok) {
+      result.status =
+          Status::Fail("the stage as given: " + full_ref.status.message);
+      return result;
+    }
+    noise_ref = full_ref.budget.output_rms_v;
+    offset_ref = full_ref.budget.offset.worst_case_v;
   }
-  const double noise_ref = full_ref.budget.output_rms_v;
-  const double offset_ref = full_ref.budget.offset.worst_case_v;
-  result.reference_score = FullScore(full_ref.budget, o, noise_ref, offset_ref);
 
   std::size_t pool_size =
       o.pool > 0 ? static_cast<std::size_t>(o.pool)

@@ -109,7 +109,6 @@ struct TeeSearchResult {
   std::uint64_t rows_pruned = 0;   // (R_in, R1) rows skipped by a bound
   int verified = 0;                // full-engine budgets for the ranking
   bool cancelled = false;
-  double reference_score = 0;  // the stage as given, full engine
   std::vector<std::string> warnings;
 };
 

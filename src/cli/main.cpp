@@ -98,7 +98,7 @@ std::function<int()> DefineTee(CLI::App* app, const GlobalOptions& global) {
       "--gain", search->gain,
       "target |gain| (default the stage's own Req / (R_source + R_in))");
   q->add_option("--gain-tol", search->gain_tolerance,
-                "relative gain tolerance, e.g. 0.5% (default 1%)");
+                "relative gain tolerance: 0.5% or 0.005 (default 1%)");
   q->add_flag("--free-input", search->free_input,
               "draw R_in from the series too");
   q->add_option("--input-min", search->input_min,
