@@ -271,8 +271,11 @@ struct SweepOutcome {
   bool cancelled = false;
 };
 
+// `report` says whether to call the progress callback: only the first
+// sweep does, so the fraction never goes back.
 SweepOutcome RunSweep(const Stage& stage, const TeeSearchOptions& o,
-                      const Scorer& scorer, std::size_t pool_size) {
+                      const Scorer& scorer, std::size_t pool_size,
+                      bool report) {
   Sweep s;
   s.options = &o;
   s.model = MakeClosedFormModel(stage);
@@ -304,7 +307,7 @@ SweepOutcome RunSweep(const Stage& stage, const TeeSearchOptions& o,
   std::vector<std::thread> workers;
   for (int t = 0; t < threads; ++t)
     workers.emplace_back(Worker, std::ref(s), &outs[t]);
-  if (o.progress) {
+  if (o.progress && report) {
     auto last = std::chrono::steady_clock::now();
     for (;;) {
       const std::uint64_t done = s.rows_done.load(std::memory_order_relaxed);
@@ -335,7 +338,7 @@ SweepOutcome RunSweep(const Stage& stage, const TeeSearchOptions& o,
     result.pool.push_back(c);
   }
   result.cancelled = o.cancel && o.cancel->load();
-  if (o.progress && !result.cancelled) o.progress(1.0);
+  if (o.progress && report && !result.cancelled) o.progress(1.0);
   return result;
 }
 
@@ -432,7 +435,8 @@ TeeSearchResult SearchTee(const Stage& stage, const TeeSearchOptions& o) {
                              closed_ref.offset_worst_case_v};
   if (!o.verify) {
     SweepOutcome sweep =
-        RunSweep(stage, o, closed_scorer, static_cast<std::size_t>(o.top));
+        RunSweep(stage, o, closed_scorer, static_cast<std::size_t>(o.top),
+                 /*report=*/true);
     result.in_tolerance = sweep.in_tolerance;
     result.rows_pruned = sweep.rows_pruned;
     result.cancelled = sweep.cancelled;
@@ -457,7 +461,8 @@ TeeSearchResult SearchTee(const Stage& stage, const TeeSearchOptions& o) {
   std::size_t pool_size =
       o.pool > 0 ? static_cast<std::size_t>(o.pool)
                  : static_cast<std::size_t>(std::max(4 * o.top, o.top + 32));
-  SweepOutcome sweep = RunSweep(stage, o, closed_scorer, pool_size);
+  SweepOutcome sweep =
+      RunSweep(stage, o, closed_scorer, pool_size, /*report=*/true);
   result.in_tolerance = sweep.in_tolerance;
   result.rows_pruned = sweep.rows_pruned;
   result.cancelled = sweep.cancelled;
@@ -475,7 +480,8 @@ TeeSearchResult SearchTee(const Stage& stage, const TeeSearchOptions& o) {
       // otherwise search again with a larger pool (its best are the same).
       if (sweep.pool.size() < pool_size || result.cancelled) break;
       pool_size *= 4;
-      SweepOutcome larger = RunSweep(stage, o, closed_scorer, pool_size);
+      SweepOutcome larger =
+          RunSweep(stage, o, closed_scorer, pool_size, /*report=*/false);
       result.cancelled = larger.cancelled;
       result.in_tolerance = larger.in_tolerance;
       result.rows_pruned = larger.rows_pruned;

@@ -4,6 +4,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <thread>
 #include <tuple>
 #include <vector>
 
@@ -231,6 +232,29 @@ TEST_CASE("a cancelled search stops and says so") {
   REQUIRE(r.status.ok);
   CHECK(r.cancelled);
   CHECK(r.in_tolerance == 0);
+}
+
+TEST_CASE("progress is reported on the calling thread and ends at 1") {
+  const Stage stage = RealisticStage();
+  TeeSearchOptions o;
+  o.values = SeriesValuesInRange(PreferredSeries::kE96, 100, 100e3);
+  o.input_values = SeriesValuesInRange(PreferredSeries::kE24, 1e3, 10e3);
+  o.target_gain = 100;
+  o.gain_tolerance = 0.001;
+  o.top = 3;
+  const std::thread::id caller = std::this_thread::get_id();
+  std::vector<double> seen;
+  bool on_caller = true;
+  o.progress = [&](double f) {
+    on_caller = on_caller && std::this_thread::get_id() == caller;
+    seen.push_back(f);
+  };
+  const TeeSearchResult r = SearchTee(stage, o);
+  REQUIRE(r.status.ok);
+  CHECK(on_caller);
+  REQUIRE_FALSE(seen.empty());
+  CHECK(seen.back() == 1.0);
+  for (std::size_t i = 1; i < seen.size(); ++i) CHECK(seen[i] >= seen[i - 1]);
 }
 
 TEST_CASE("search options name the field they break") {
