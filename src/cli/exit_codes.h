@@ -7,6 +7,8 @@ namespace hushgain {
 inline constexpr int kExitOk = 0;
 inline constexpr int kExitAnalysisRefused = 1;  // singular network, ...
 inline constexpr int kExitUsage = 2;            // bad command line or input
+// Stopped by Ctrl-C after printing what it had (128 + SIGINT, as shells do).
+inline constexpr int kExitInterrupted = 130;
 
 }  // namespace hushgain
 

@@ -9,6 +9,8 @@
 
 #include "cli/budget_command.h"
 #include "cli/exit_codes.h"
+#include "cli/tee_command.h"
+#include "cli/tia_command.h"
 #include "io/error.h"
 #include "io/suggest.h"
 
@@ -61,9 +63,117 @@ std::function<int()> DefineBudget(CLI::App* app, const GlobalOptions& global) {
   };
 }
 
+// A command group (tee, tia) needs one of its subcommands; an unknown one
+// gets a "did you mean" (CLI11 would only say that one is required).
+void RequireSubcommand(CLI::App* app, const std::string& group,
+                       const std::vector<std::string>& names) {
+  app->require_subcommand(0, 1);
+  app->allow_extras();
+  app->parse_complete_callback([app, group, names] {
+    if (!app->get_subcommands().empty()) return;
+    std::vector<std::string> words = app->remaining();
+    std::string expected;
+    for (const std::string& n : names)
+      expected += (expected.empty() ? "\"" : " or \"") + n + "\"";
+    if (words.empty()) throw Error("command line", "", group + ": expected " + expected);
+    throw Error("command line", "",
+                "unknown " + group + " command \"" + words.front() + "\"" +
+                    DidYouMean(words.front(), names) + "; try " + group + " --help");
+  });
+}
+
+std::function<int()> DefineTee(CLI::App* app, const GlobalOptions& global) {
+  auto chosen = std::make_shared<std::function<int()>>();
+  RequireSubcommand(app, "tee",
+                    std::vector<std::string>(std::begin(kTeeSubcommands), std::end(kTeeSubcommands)));
+
+  auto sweep = std::make_shared<TeeSweepCommandOptions>();
+  CLI::App* s = app->add_subcommand(
+      "sweep", "keep the gain, shrink the largest resistor of the T network");
+  s->add_option("stage", sweep->stage_path, "stage file (JSON) with a tee")
+      ->required();
+  s->add_option("--min", sweep->min,
+                "smallest largest-resistor value (default Req / 1000)");
+  s->add_option("--points", sweep->points, "rows, both ends included (13)");
+  s->add_option("--ratio", sweep->ratio,
+                "fix R1/R2 to a number, or to the stage's (\"stage\")");
+  s->add_flag("--csv", sweep->csv, "print CSV");
+  s->add_flag("--json", sweep->json, "print JSON");
+  s->add_option("--tolerance", sweep->tolerance,
+                "relative error target of the noise integral (default 1e-4)");
+  s->callback([sweep, chosen, &global] {
+    *chosen = [sweep, &global] {
+      sweep->devices_dir = global.devices_dir;
+      return RunTeeSweepCommand(*sweep);
+    };
+  });
+
+  auto search = std::make_shared<TeeSearchCommandOptions>();
+  CLI::App* q = app->add_subcommand(
+      "search", "standard-value T networks for the gain, least noise first");
+  q->add_option("stage", search->stage_path, "stage file (JSON)")->required();
+  q->add_option("--series", search->series,
+                "E6, E12, E24, E48, E96 or E192 (default E96)");
+  q->add_option("--max", search->max, "largest R1, R2, R3 (required)");
+  q->add_option("--min", search->min, "smallest R1, R2, R3 (default max/1000)");
+  q->add_option(
+      "--gain", search->gain,
+      "target |gain| (default the stage's own Req / (R_source + R_in))");
+  q->add_option("--gain-tol", search->gain_tolerance,
+                "relative gain tolerance: 0.5% or 0.005 (default 1%)");
+  q->add_flag("--free-input", search->free_input,
+              "draw R_in from the series too");
+  q->add_option("--input-min", search->input_min,
+                "smallest R_in with --free-input (default --min)");
+  q->add_option("--input-max", search->input_max,
+                "largest R_in with --free-input (default --max)");
+  q->add_option("--rank", search->rank, "noise, offset or weighted (noise)");
+  q->add_option("--offset-weight", search->offset_weight,
+                "offset weight of --rank weighted, 0 to 1 (0.5)");
+  q->add_option("--top", search->top, "how many networks to show (10)");
+  q->add_option("--threads", search->threads,
+                "worker threads (0: one per core)");
+  q->add_flag("--csv", search->csv, "print CSV");
+  q->add_flag("--json", search->json, "print JSON");
+  q->add_option("--tolerance", search->tolerance,
+                "relative error target of the noise integral (default 1e-4)");
+  q->callback([search, chosen, &global] {
+    *chosen = [search, &global] {
+      search->devices_dir = global.devices_dir;
+      return RunTeeSearchCommand(*search);
+    };
+  });
+  return [chosen] { return *chosen ? (*chosen)() : kExitUsage; };
+}
+
+std::function<int()> DefineTia(CLI::App* app, const GlobalOptions& global) {
+  RequireSubcommand(app, "tia", {"suggest"});
+  auto options = std::make_shared<TiaSuggestCommandOptions>();
+  auto chosen = std::make_shared<bool>(false);
+  CLI::App* s = app->add_subcommand(
+      "suggest", "feedback resistor and capacitor for a bandwidth target");
+  s->add_option("stage", options->stage_path, "transimpedance stage file (JSON)")->required();
+  s->add_option("--bandwidth", options->bandwidth, "the -3 dB target, e.g. 50k (required)")
+      ->required();
+  s->add_option("--series", options->series, "IEC 60063 series of R_f (default E24)");
+  s->add_option("--min", options->min, "smallest R_f (default 1k)");
+  s->add_option("--max", options->max, "largest R_f (default 10G)");
+  s->add_option("--rows", options->rows, "proposals at or below the best R_f (default 6)");
+  s->add_flag("--json", options->json, "print JSON");
+  s->callback([chosen] { *chosen = true; });
+  return [options, chosen, &global] {
+    if (!*chosen) return kExitUsage;
+    options->devices_dir = global.devices_dir;
+    return RunTiaSuggestCommand(*options);
+  };
+}
+
 const std::vector<Command>& Commands() {
   static const std::vector<Command> commands = {
       {"budget", "noise and offset budget of a stage", DefineBudget},
+      {"tee", "T-network design: sweep the largest resistor, search E-series",
+       DefineTee},
+      {"tia", "photodiode stages: suggest R_f and C_f for a bandwidth", DefineTia},
   };
   return commands;
 }

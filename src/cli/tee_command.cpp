@@ -1,0 +1,329 @@
+#include "cli/tee_command.h"
+
+#include <unistd.h>
+
+#include <algorithm>
+#include <atomic>
+#include <cmath>
+#include <csignal>
+#include <cstdio>
+#include <iostream>
+#include <optional>
+#include <thread>
+
+#include "budget/tee_search.h"
+#include "budget/tee_sweep.h"
+#include "circuit/inverting_topology.h"
+#include "circuit/preferred_series.h"
+#include "cli/exit_codes.h"
+#include "io/device_library.h"
+#include "io/error.h"
+#include "io/stage_parser.h"
+#include "io/suggest.h"
+#include "io/units.h"
+#include "report/tee_report.h"
+
+namespace hushgain {
+namespace {
+
+constexpr const char* kOhm = "\xCE\xA9";
+
+// Set by the SIGINT handler; the search polls it. The one global of the
+// program, and only here: a signal handler can reach nothing else.
+std::atomic<bool> g_interrupted{false};
+
+extern "C" void OnInterrupt(int) {
+  g_interrupted.store(true);
+  // A second Ctrl-C ends the program the ordinary way.
+  std::signal(SIGINT, SIG_DFL);
+}
+
+Error OptionError(const std::string& option, const std::string& message) {
+  return Error("command line", "", option + ": " + message);
+}
+
+double ParseOption(const std::string& option, const std::string& text,
+                   Quantity quantity) {
+  std::string why;
+  std::optional<double> value = ParseQuantity(text, quantity, &why);
+  if (!value)
+    throw OptionError(option, "expected " +
+                                  std::string(QuantityName(quantity)) +
+                                  ", got \"" + text + "\" (" + why + ")");
+  return *value;
+}
+
+double PositiveResistance(const std::string& option, const std::string& text) {
+  const double ohms = ParseOption(option, text, Quantity::kResistance);
+  if (!(ohms > 0))
+    throw OptionError(option,
+                      "expected a positive resistance, got \"" + text + "\"");
+  return ohms;
+}
+
+void CheckOutputFlags(bool csv, bool json) {
+  if (csv && json) throw OptionError("--csv", "cannot be combined with --json");
+}
+
+BudgetOptions BudgetWithTolerance(double tolerance) {
+  BudgetOptions options;
+  options.integration.relative_tolerance = tolerance;
+  if (std::string why = options.Validate(); !why.empty())
+    throw OptionError("--tolerance", why);
+  return options;
+}
+
+int Refused(const std::string& path, const Status& status) {
+  std::cerr << "error: " << path << ": analysis refused: " << status.message
+            << "\n";
+  return kExitAnalysisRefused;
+}
+
+// A progress bar on stderr, drawn only when stderr is a terminal.
+class ProgressBar {
+ public:
+  ProgressBar() : enabled_(isatty(STDERR_FILENO) == 1) {}
+  ~ProgressBar() { Clear(); }
+  bool enabled() const { return enabled_; }
+
+  void Show(double fraction) {
+    if (!enabled_) return;
+    constexpr int kWidth = 40;
+    const int filled = static_cast<int>(fraction * kWidth + 0.5);
+    std::string bar(filled, '#');
+    bar += std::string(kWidth - filled, '.');
+    std::fprintf(stderr, "\rsearching [%s] %3d %%", bar.c_str(),
+                 static_cast<int>(100 * fraction + 0.5));
+    std::fflush(stderr);
+    drawn_ = true;
+  }
+  void Clear() {
+    if (!drawn_) return;
+    std::fprintf(stderr, "\r%60s\r", "");
+    std::fflush(stderr);
+    drawn_ = false;
+  }
+
+ private:
+  bool enabled_;
+  bool drawn_ = false;
+};
+
+TeeRanking ParseRanking(const std::string& text) {
+  if (text == "noise") return TeeRanking::kNoise;
+  if (text == "offset") return TeeRanking::kOffset;
+  if (text == "weighted") return TeeRanking::kWeighted;
+  throw OptionError("--rank",
+                    "unknown ranking \"" + text + "\"" +
+                        DidYouMean(text, {"noise", "offset", "weighted"}));
+}
+
+std::vector<double> SeriesRange(PreferredSeries series, double min_ohm,
+                                double max_ohm, const std::string& min_option,
+                                const std::string& max_option) {
+  if (max_ohm < min_ohm)
+    throw OptionError(max_option, FormatEng(max_ohm, kOhm) + " is below " +
+                                      min_option + " (" +
+                                      FormatEng(min_ohm, kOhm) + ")");
+  std::vector<double> values = SeriesValuesInRange(series, min_ohm, max_ohm);
+  if (values.empty())
+    throw OptionError(min_option + "/" + max_option,
+                      "no " + std::string(SeriesName(series)) +
+                          " value lies between " + FormatEng(min_ohm, kOhm) +
+                          " and " + FormatEng(max_ohm, kOhm));
+  return values;
+}
+
+}  // namespace
+
+int RunTeeSweepCommand(const TeeSweepCommandOptions& options) {
+  CheckOutputFlags(options.csv, options.json);
+  TeeSweepOptions sweep;
+  sweep.budget = BudgetWithTolerance(options.tolerance);
+  sweep.points = options.points;
+  if (options.points < 2)
+    throw OptionError("--points", "expected at least 2, got " +
+                                      std::to_string(options.points));
+  std::optional<double> min_ohm;
+  if (!options.min.empty()) min_ohm = PositiveResistance("--min", options.min);
+  if (!options.ratio.empty() && options.ratio != "stage") {
+    std::string why;
+    std::optional<double> r = ParseQuantity(options.ratio, Quantity::kRatio);
+    if (!r || !(*r > 0))
+      throw OptionError("--ratio",
+                        "expected a positive R1/R2 ratio or "
+                        "\"stage\", got \"" +
+                            options.ratio + "\"");
+    sweep.r1_over_r2 = *r;
+  }
+
+  const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
+  const Stage stage = LoadStageFile(options.stage_path, library);
+  if (stage.feedback.kind != Feedback::Kind::kTee)
+    throw Error(options.stage_path, "/stage/feedback",
+                "tee sweep needs a T network (\"tee\"), this stage has one "
+                "resistor");
+  const TeeNetwork& given = stage.feedback.tee;
+  if (options.ratio == "stage") sweep.r1_over_r2 = given.r1_ohm / given.r2_ohm;
+  const double req = FeedbackEquivalentOhm(stage.feedback);
+  if (min_ohm) {
+    if (!(*min_ohm < req))
+      throw OptionError("--min",
+                        FormatEng(*min_ohm, kOhm) +
+                            " is not below the equivalent resistance (" +
+                            FormatEng(req, kOhm) + ")");
+    sweep.min_largest_ohm = *min_ohm;
+  }
+
+  const TeeSweepResult result = SweepTee(stage, sweep);
+  if (!result.status.ok) return Refused(options.stage_path, result.status);
+  for (const TeeSweepRow& row : result.rows)
+    for (const std::string& w : row.budget.warnings)
+      std::cerr << "warning: largest " << FormatEng(row.largest_ohm, kOhm)
+                << ": " << w << "\n";
+  std::cout << (options.csv    ? SweepToCsv(result)
+                : options.json ? SweepToJson(result)
+                               : SweepToText(result))
+            << std::flush;
+  return kExitOk;
+}
+
+int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
+  CheckOutputFlags(options.csv, options.json);
+  TeeSearchOptions search;
+  search.budget = BudgetWithTolerance(options.tolerance);
+
+  const std::optional<PreferredSeries> series = SeriesFromName(options.series);
+  if (!series)
+    throw OptionError("--series",
+                      "unknown series \"" + options.series + "\"" +
+                          DidYouMean(options.series, SeriesNames()));
+  if (options.max.empty())
+    throw OptionError("--max",
+                      "required: the largest R1, R2, R3 allowed (e.g. --max "
+                      "100k)");
+  const double max_ohm = PositiveResistance("--max", options.max);
+  const double min_ohm = options.min.empty()
+                             ? max_ohm / 1000
+                             : PositiveResistance("--min", options.min);
+  search.values = SeriesRange(*series, min_ohm, max_ohm, "--min", "--max");
+
+  std::optional<double> input_min;
+  std::optional<double> input_max;
+  if (!options.free_input) {
+    if (!options.input_min.empty())
+      throw OptionError("--input-min", "needs --free-input");
+    if (!options.input_max.empty())
+      throw OptionError("--input-max", "needs --free-input");
+  } else {
+    input_min = options.input_min.empty()
+                    ? min_ohm
+                    : PositiveResistance("--input-min", options.input_min);
+    input_max = options.input_max.empty()
+                    ? max_ohm
+                    : PositiveResistance("--input-max", options.input_max);
+    search.input_values = SeriesRange(*series, *input_min, *input_max,
+                                      "--input-min", "--input-max");
+  }
+
+  search.gain_tolerance =
+      ParseOption("--gain-tol", options.gain_tolerance, Quantity::kRatio);
+  if (!(search.gain_tolerance >= 0))
+    throw OptionError("--gain-tol",
+                      "expected a non-negative tolerance, got \"" +
+                          options.gain_tolerance + "\"");
+  if (!(search.gain_tolerance < 1))
+    throw OptionError("--gain-tol", "expected a tolerance below 100 %, got \"" +
+                                        options.gain_tolerance + "\"");
+  search.ranking = ParseRanking(options.rank);
+  if (!(options.offset_weight >= 0 && options.offset_weight <= 1))
+    throw OptionError("--offset-weight",
+                      "expected a weight from 0 to 1, got " +
+                          std::to_string(options.offset_weight));
+  search.offset_weight = options.offset_weight;
+  if (options.top < 1)
+    throw OptionError(
+        "--top", "expected at least 1, got " + std::to_string(options.top));
+  search.top = options.top;
+  if (options.threads < 0)
+    throw OptionError("--threads", "expected 0 (every core) or more, got " +
+                                       std::to_string(options.threads));
+  search.threads =
+      options.threads > 0
+          ? options.threads
+          : std::max(1, static_cast<int>(std::thread::hardware_concurrency()));
+
+  const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
+  const Stage stage = LoadStageFile(options.stage_path, library);
+  const double stage_gain =
+      FeedbackEquivalentOhm(stage.feedback) /
+      (stage.source.resistance_ohm + stage.input_resistor_ohm);
+  search.target_gain = stage_gain;
+  if (!options.gain.empty()) {
+    search.target_gain = ParseOption("--gain", options.gain, Quantity::kGain);
+    if (!(search.target_gain > 0))
+      throw OptionError(
+          "--gain", "expected a positive gain, got \"" + options.gain + "\"");
+  }
+
+  ProgressBar bar;
+  if (bar.enabled()) search.progress = [&bar](double f) { bar.Show(f); };
+  g_interrupted.store(false);
+  search.cancel = &g_interrupted;
+  auto previous = std::signal(SIGINT, OnInterrupt);
+  const TeeSearchResult result = SearchTee(stage, search);
+  std::signal(SIGINT, previous == SIG_ERR ? SIG_DFL : previous);
+  bar.Clear();
+
+  if (!result.status.ok) return Refused(options.stage_path, result.status);
+  for (const std::string& w : result.warnings)
+    std::cerr << "warning: " << w << "\n";
+  if (result.cancelled)
+    std::cerr << "interrupted: showing the best found so far\n";
+  if (result.best.empty()) {
+    if (result.cancelled) {
+      std::cerr << "error: " << options.stage_path
+                << ": interrupted before any network was found\n";
+      return kExitInterrupted;
+    }
+    char gain[32];
+    std::snprintf(gain, sizeof gain, "%.6g", search.target_gain);
+    char tolerance[32];
+    std::snprintf(tolerance, sizeof tolerance, "%.3g %%",
+                  100 * search.gain_tolerance);
+    std::cerr << "error: " << options.stage_path << ": no T network of "
+              << SeriesName(*series) << " values from "
+              << FormatEng(min_ohm, kOhm) << " to " << FormatEng(max_ohm, kOhm)
+              << " has a gain within " << tolerance << " of " << gain
+              << "; relax --gain-tol, widen --min/--max or take a denser "
+                 "--series\n";
+    return kExitAnalysisRefused;
+  }
+
+  TeeSearchQuery query;
+  query.series = std::string(SeriesName(*series));
+  query.min_ohm = min_ohm;
+  query.max_ohm = max_ohm;
+  query.input_min_ohm = input_min;
+  query.input_max_ohm = input_max;
+  query.target_gain = search.target_gain;
+  query.gain_tolerance = search.gain_tolerance;
+  query.ranking = options.rank;
+  query.offset_weight = search.offset_weight;
+  // The budgets' own warnings, once each, naming the first network (by
+  // rank) that has it.
+  std::vector<std::string> seen;
+  for (std::size_t i = 0; i < result.best.size(); ++i)
+    for (const std::string& w : result.best[i].budget.warnings) {
+      if (std::find(seen.begin(), seen.end(), w) != seen.end()) continue;
+      seen.push_back(w);
+      std::cerr << "warning: #" << i + 1 << ": " << w << "\n";
+    }
+  std::cout << (options.csv    ? SearchToCsv(result, query)
+                : options.json ? SearchToJson(result, query)
+                               : SearchToText(result, query))
+            << std::flush;
+  return result.cancelled ? kExitInterrupted : kExitOk;
+}
+
+}  // namespace hushgain

@@ -1,0 +1,167 @@
+// `hushgain tee sweep` and `hushgain tee search` end to end: the built
+// binary is run, its exit code, whole stderr message and output checked.
+#include <doctest/doctest.h>
+#include <sys/wait.h>
+#include <unistd.h>
+
+#include <cstdlib>
+#include <filesystem>
+#include <fstream>
+#include <nlohmann/json.hpp>
+#include <sstream>
+#include <string>
+#include <vector>
+
+#include "test_support.h"
+
+namespace hushgain {
+namespace {
+
+struct Run {
+  int exit_code = -1;
+  std::string out;
+  std::string err;
+};
+
+std::string Slurp(const std::filesystem::path& p) {
+  std::ifstream in(p);
+  std::stringstream ss;
+  ss << in.rdbuf();
+  return ss.str();
+}
+
+// Runs the binary from the source folder with `args` (shell words).
+Run RunHushgain(const std::string& args) {
+  const std::filesystem::path dir =
+      std::filesystem::temp_directory_path() /
+      ("hushgain-tee-" + std::to_string(getpid()));
+  std::filesystem::create_directories(dir);
+  const std::string command = std::string("cd ") + HUSHGAIN_SOURCE_DIR +
+                              " && " + HUSHGAIN_BINARY + " " + args + " >" +
+                              (dir / "out").string() + " 2>" +
+                              (dir / "err").string();
+  const int status = std::system(command.c_str());
+  Run r;
+  r.exit_code = WIFEXITED(status) ? WEXITSTATUS(status) : -1;
+  r.out = Slurp(dir / "out");
+  r.err = Slurp(dir / "err");
+  std::filesystem::remove_all(dir);
+  return r;
+}
+
+const char* kTee = "examples/hydrophone-preamp.json";
+
+void CheckBadInput(const std::string& args, const std::string& message) {
+  const Run r = RunHushgain(args);
+  CAPTURE(args);
+  CHECK(r.exit_code == 2);
+  CHECK(r.err == message + "\n");
+  CHECK(r.out.empty());
+}
+
+TEST_CASE("tee commands refuse bad input with one line and exit code 2") {
+  const std::string search = std::string("tee search ") + kTee + " ";
+  CheckBadInput(search + "--series E97 --max 100k",
+                "error: command line: --series: unknown series \"E97\" (did "
+                "you mean \"E96\"?)");
+  CheckBadInput(search + "--max 100k --gain-tol=-0.5%",
+                "error: command line: --gain-tol: expected a non-negative "
+                "tolerance, got \"-0.5%\"");
+  CheckBadInput(search + "--series E6 --min 101 --max 140",
+                "error: command line: --min/--max: no E6 value lies between "
+                "101.0 \xCE\xA9 and 140.0 \xCE\xA9");
+  CheckBadInput(search + "--min 10k --max 1k",
+                "error: command line: --max: 1.000 k\xCE\xA9 is below --min "
+                "(10.00 k\xCE\xA9)");
+  CheckBadInput(search + "--max ten",
+                "error: command line: --max: expected a resistance, got "
+                "\"ten\" (no number)");
+  CheckBadInput(search + "--max 100k --rank noize",
+                "error: command line: --rank: unknown ranking \"noize\" (did "
+                "you mean \"noise\"?)");
+  CheckBadInput(search + "--max 100k --input-min 1k",
+                "error: command line: --input-min: needs --free-input");
+  CheckBadInput(search + "--max 100k --top 0",
+                "error: command line: --top: expected at least 1, got 0");
+  CheckBadInput("tee sweep examples/load-cell-bridge.json",
+                "error: examples/load-cell-bridge.json: /stage/feedback: tee "
+                "sweep needs a T network (\"tee\"), this stage has one "
+                "resistor");
+  CheckBadInput(std::string("tee sweep ") + kTee + " --min 20M",
+                "error: command line: --min: 20.00 M\xCE\xA9 is not below the "
+                "equivalent resistance (10.00 M\xCE\xA9)");
+  CheckBadInput("tee swep x.json",
+                "error: command line: unknown tee command \"swep\" (did you "
+                "mean \"sweep\"?); try tee --help");
+}
+
+TEST_CASE("a search with nothing in tolerance says what to relax, exit 1") {
+  const Run r = RunHushgain(std::string("tee search ") + kTee +
+                            " --series E6 --max 100k --gain-tol 0.1%");
+  CHECK(r.exit_code == 1);
+  CHECK(r.err ==
+        "error: examples/hydrophone-preamp.json: no T network of E6 values "
+        "from 100.0 \xCE\xA9 to 100.0 k\xCE\xA9 has a gain within 0.1 % of "
+        "909.447; relax --gain-tol, widen --min/--max or take a denser "
+        "--series\n");
+  CHECK(r.out.empty());
+}
+
+std::vector<std::vector<std::string>> ParseCsv(const std::string& text) {
+  std::vector<std::vector<std::string>> rows;
+  std::stringstream lines(text);
+  std::string line;
+  while (std::getline(lines, line)) {
+    std::vector<std::string> cells;
+    std::stringstream cs(line);
+    std::string cell;
+    while (std::getline(cs, cell, ',')) cells.push_back(cell);
+    rows.push_back(cells);
+  }
+  return rows;
+}
+
+TEST_CASE("tee search prints networks in tolerance, least noise first") {
+  // The example's own gain is Req / (R_source + R_in) = 10.2 M / 11 k
+  // (R1 = R2 = 100k, R3 = 1.02k; Kennelly's Req).
+  const double target = (100e3 + 100e3 + 100e3 * 100e3 / 1.02e3) / 11e3;
+  const Run r = RunHushgain(std::string("tee search ") + kTee +
+                            " --series E96 --max 100k --gain-tol 0.5% "
+                            "--top 5 --csv");
+  REQUIRE(r.exit_code == 0);
+  const auto rows = ParseCsv(r.out);
+  REQUIRE(rows.size() == 6);
+  CHECK(rows[0][0] == "rank");
+  CHECK(rows[0][8] == "output_rms_V");
+  double previous = 0;
+  for (int i = 1; i <= 5; ++i) {
+    const double r_in = std::stod(rows[i][1]);
+    const double r1 = std::stod(rows[i][2]);
+    const double r2 = std::stod(rows[i][3]);
+    const double r3 = std::stod(rows[i][4]);
+    const double rms = std::stod(rows[i][8]);
+    CHECK(r_in == 10e3);
+    for (double v : {r1, r2, r3}) CHECK((v >= 100 && v <= 100e3));
+    const double gain = (r1 + r2 + r1 * r2 / r3) / (1e3 + r_in);
+    CHECK(std::fabs(gain / target - 1) <= 0.005 * (1 + 1e-12));
+    CHECK(rms >= previous);
+    previous = rms;
+  }
+}
+
+TEST_CASE("tee sweep JSON starts at the plain resistor") {
+  const Run r = RunHushgain(std::string("tee sweep ") + kTee + " --json");
+  REQUIRE(r.exit_code == 0);
+  const nlohmann::json doc = nlohmann::json::parse(r.out);
+  const double req = 100e3 + 100e3 + 100e3 * 100e3 / 1.02e3;
+  CHECK(test::RelErr(doc["equivalent_resistance_ohm"].get<double>(), req) <
+        test::kRelTight);
+  const auto& rows = doc["rows"];
+  REQUIRE(rows.size() == 13);
+  CHECK(rows[0]["plain"].get<bool>());
+  CHECK(rows[0]["noise_cost_ratio"].get<double>() == 1.0);
+  CHECK(rows[12]["noise_cost_ratio"].get<double>() > 1.0);
+}
+
+}  // namespace
+}  // namespace hushgain
