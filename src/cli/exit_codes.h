@@ -7,6 +7,8 @@ namespace hushgain {
 inline constexpr int kExitOk = 0;
 inline constexpr int kExitAnalysisRefused = 1;  // singular network, ...
 inline constexpr int kExitUsage = 2;            // bad command line or input
+// A program hushgain needs is missing or failed (gnuplot for `plot`).
+inline constexpr int kExitToolFailed = 3;
 
 }  // namespace hushgain
 

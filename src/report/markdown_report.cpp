@@ -1,0 +1,106 @@
+#include "report/markdown_report.h"
+
+#include <cmath>
+#include <cstdio>
+
+#include "io/units.h"
+#include "noise/physical_constants.h"
+#include "report/budget_tables.h"
+#include "report/table.h"
+#include "report/text_escape.h"
+
+namespace hushgain {
+namespace {
+
+std::string Printf(const char* format, double value) {
+  char buf[64];
+  std::snprintf(buf, sizeof buf, format, value);
+  return buf;
+}
+
+std::string Item(const std::string& label, const std::string& text) {
+  return "- " + label + ": " + EscapeMarkdown(text) + "\n";
+}
+
+std::string Header(const Budget& b) {
+  const std::string unit = b.input_unit == "A" ? "V/A" : "V/V";
+  const std::string ref = FormatEng(b.reference_hz, "Hz");
+  std::string out = "## Noise budget: " + EscapeMarkdown(b.stage_name) + "\n\n";
+  out += Item("temperature", Printf("%.2f", b.temperature_k - kZeroCelsiusK) +
+                                 " \xC2\xB0"
+                                 "C (" +
+                                 Printf("%.2f", b.temperature_k) + " K)");
+  out +=
+      Item("band", FormatEng(b.band_low_hz, "Hz") + " to " +
+                       FormatEng(b.band_high_hz, "Hz") + ", reference " + ref);
+  out += Item("signal gain",
+              FormatGain(b.signal_gain_dc) + " " + unit + " at DC, magnitude " +
+                  FormatGain(b.signal_gain_ref) + " " + unit + " at " + ref);
+  out += Item("noise gain (e_n to output)",
+              FormatGain(b.noise_gain_dc) + " at DC, " +
+                  FormatGain(b.noise_gain_ref) + " at " + ref);
+  out += Item(
+      "closed-loop -3 dB bandwidth",
+      (b.bandwidth_3db_hz > 0 ? FormatEng(b.bandwidth_3db_hz, "Hz")
+                              : std::string("not found")) +
+          (b.peaking_db > 0.01 ? ", peaking " + Printf("%.2f dB", b.peaking_db)
+                               : ""));
+  return out;
+}
+
+std::string NoiseSection(const Budget& b) {
+  const std::string ref = FormatEng(b.reference_hz, "Hz", 3);
+  std::string out = "\n### Output noise, " + FormatEng(b.band_low_hz, "Hz") +
+                    " to " + FormatEng(b.band_high_hz, "Hz") + "\n\n";
+  out += RenderMarkdown(NoiseTable(b)) + "\n";
+  out += Item("output peak-to-peak",
+              FormatEng(b.output_peak_to_peak_v, "V") +
+                  " (6.6 x rms: inside about 99.9 % of the time, Gaussian)");
+  out += Item("input-referred",
+              FormatEng(b.input_rms, b.input_unit) + " rms, " +
+                  FormatDensity(b.input_density_ref_per_rthz, b.input_unit) +
+                  " at " + ref);
+  if (b.snr_db)
+    out += Item("full scale \xC2\xB1" + FormatEng(*b.full_scale_output_v, "V"),
+                "SNR " + Printf("%.1f dB", *b.snr_db) +
+                    " (full-scale sine), dynamic range " +
+                    Printf("%.1f dB", *b.dynamic_range_db) +
+                    " (swing / noise p-p)");
+  return out;
+}
+
+std::string OffsetSection(const Budget& b) {
+  const OffsetBlock& o = b.offset;
+  std::string out = "\n### Output offset at DC\n\n";
+  out += RenderMarkdown(OffsetTable(b)) + "\n";
+  out += Item("R_plus", o.plus_resistor_ohm > 0
+                            ? FormatEng(o.plus_resistor_ohm, "\xCE\xA9")
+                            : std::string("none (+ input grounded)"));
+  out += Item("R_plus that cancels the Ib term",
+              FormatEng(o.balance_resistor_ohm, "\xCE\xA9"));
+  return out;
+}
+
+std::string TeeSection(const Budget& b) {
+  const TeeComparison& c = *b.tee;
+  std::string out = "\n### T network against one resistor of the same " +
+                    FormatEng(c.equivalent_resistance_ohm, "\xCE\xA9") + "\n\n";
+  out += RenderMarkdown(TeeSummaryTable(b)) + "\n";
+  out += Item("noise cost of the T network",
+              Printf("x%.3f in output noise", c.noise_cost_ratio) +
+                  Printf(" (%+.2f dB)", 20.0 * std::log10(c.noise_cost_ratio)));
+  out += "\n" + RenderMarkdown(TeeChangesTable(b));
+  return out;
+}
+
+}  // namespace
+
+std::string BudgetToMarkdown(const Budget& b) {
+  std::string out = Header(b) + NoiseSection(b) + OffsetSection(b);
+  if (b.tee) out += TeeSection(b);
+  for (const std::string& w : b.warnings)
+    out += "\n> warning: " + EscapeMarkdown(w) + "\n";
+  return out;
+}
+
+}  // namespace hushgain
