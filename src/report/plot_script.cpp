@@ -14,9 +14,11 @@ namespace {
 
 // Sheet geometry in pixels. The legend column on the right holds names
 // with their rms and share; the left margin holds tic labels with units.
-constexpr int kWidthPx = 1280;
+constexpr int kWidthPx = 1320;
 constexpr int kLeftPx = 150;
-constexpr int kLegendPx = 360;
+constexpr int kLegendPx = 380;
+// Room between the plot and the legend for the dB axis of the gain panel.
+constexpr int kKeyGapPx = 85;
 constexpr int kHeadingPx = 90;
 constexpr int kPanelTopPx = 60;     // panel title and band-edge labels
 constexpr int kPanelBottomPx = 75;  // tic labels and axis label
@@ -91,7 +93,7 @@ std::string DecadeTics(const char* axis, int lo, int hi, Label label) {
     if (d < hi)
       for (int m = 2; m <= 9; ++m) {
         if (d > lo || m > 2) minor += ", ";
-        minor += "'' " + Num(m * v) + " 1";
+        minor += "\"\" " + Num(m * v) + " 1";
       }
   }
   std::string out = major + ")\n";
@@ -269,7 +271,7 @@ class ScriptWriter {
             " at first " + Num(b_.band_high_hz) +
             ", graph 1 left offset -0.4,0.7 tc rgb '" + kEdgeColour + "'\n";
     out_ += "set key at screen " +
-            Num(double(kWidthPx - kLegendPx + 20) / kWidthPx) + ", screen " +
+            Num(double(kWidthPx - kLegendPx + kKeyGapPx) / kWidthPx) + ", screen " +
             Num(f.top) +
             " left top Left reverse samplen 2.5 spacing 1.25 "
             "box lc rgb '#bbbbbb' width 1\n";

@@ -1,5 +1,8 @@
 #include "report/text_escape.h"
 
+#include <cctype>
+#include <cstdio>
+
 namespace hushgain {
 
 std::string EscapeMarkdown(std::string_view text) {
@@ -46,17 +49,20 @@ std::string CsvField(std::string_view text) {
 }
 
 std::string GnuplotString(std::string_view text) {
-  std::string out = "'";
+  std::string out = "\"";
   for (char c : text) {
     const unsigned char u = static_cast<unsigned char>(c);
-    if (c == '\'')
-      out += "''";
-    else if (u < 0x20 || u == 0x7F)
-      out += ' ';
-    else
+    if (std::isalpha(u) || c == ' ' || u >= 0x80) {
       out += c;
+    } else if (u < 0x20 || u == 0x7F) {
+      out += ' ';
+    } else {
+      char buf[8];
+      std::snprintf(buf, sizeof buf, "\\%03o", u);
+      out += buf;
+    }
   }
-  return out + "'";
+  return out + "\"";
 }
 
 }  // namespace hushgain

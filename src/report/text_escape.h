@@ -18,11 +18,17 @@ std::string EscapeMarkdown(std::string_view text);
 // CR or LF (or starts or ends with a space), with each double quote doubled.
 std::string CsvField(std::string_view text);
 
-// A gnuplot single-quoted string literal, quotes included. Inside single
-// quotes gnuplot does no backslash, backquote (`...`) or macro (@name)
-// processing; the only special sequence is '' for one quote. Control
-// characters (a newline would end the command) become spaces. Meant for
-// terminals set `noenhanced`, so ^ _ { } @ & are drawn as they are.
+// A gnuplot double-quoted string literal, quotes included, in which every
+// byte other than an ASCII letter or space, or a byte of a UTF-8 sequence
+// (>= 0x80), is written as an octal escape \ooo; digits too, because
+// gnuplot reads a fourth octal digit after an escape ("\0551" is one
+// byte). So the literal
+// holds no quote, backquote (`...` runs a shell command), @ (a macro), $ or
+// backslash of its own, and no line break (control characters become
+// spaces): gnuplot reads back exactly the text and nothing can end the
+// string early. (A single-quoted literal is not safe: gnuplot reads a
+// leading '' as an empty string.) Meant for terminals set `noenhanced`,
+// so ^ _ { } @ & are drawn as they are.
 std::string GnuplotString(std::string_view text);
 
 }  // namespace hushgain
