@@ -80,25 +80,34 @@ std::string GainLabel(double value) {
   return Printf("%g", value);
 }
 
-// Decade tics from 10^lo to 10^hi, labelled by `label`, with unlabelled
-// minor tics at 2..9 times each decade.
+// Log-axis tics over [v_min, v_max]: labelled at each decade, unlabelled
+// minor tics at 2..9 times each decade; when fewer than three decades fall
+// inside, 2 and 5 times each decade are labelled too, so a short axis still
+// reads.
 template <typename Label>
-std::string DecadeTics(const char* axis, int lo, int hi, Label label) {
-  std::string major = std::string("set ") + axis + "tics (";
-  std::string minor = std::string("set ") + axis + "tics add (";
+std::string LogTics(const char* axis, double v_min, double v_max, Label label) {
+  const double lo_v = v_min * (1 - 1e-9), hi_v = v_max * (1 + 1e-9);
+  const int lo = static_cast<int>(std::floor(std::log10(lo_v)));
+  const int hi = static_cast<int>(std::ceil(std::log10(hi_v)));
+  int decades_inside = 0;
   for (int d = lo; d <= hi; ++d) {
     const double v = std::pow(10.0, d);
-    if (d > lo) major += ", ";
-    major += GnuplotString(label(v)) + " " + Num(v);
-    if (d < hi)
-      for (int m = 2; m <= 9; ++m) {
-        if (d > lo || m > 2) minor += ", ";
-        minor += "\"\" " + Num(m * v) + " 1";
-      }
+    if (v >= lo_v && v <= hi_v) ++decades_inside;
   }
-  std::string out = major + ")\n";
-  if (hi > lo) out += minor + ")\n";
-  return out;
+  const bool label_2_5 = decades_inside < 3;
+  std::string list;
+  for (int d = lo; d <= hi; ++d) {
+    const double decade = std::pow(10.0, d);
+    for (int m = 1; m <= 9; ++m) {
+      const double v = m * decade;
+      if (v < lo_v || v > hi_v) continue;
+      const bool labelled = m == 1 || (label_2_5 && (m == 2 || m == 5));
+      if (!list.empty()) list += ", ";
+      list += labelled ? GnuplotString(label(v)) + " " + Num(v)
+                       : "\"\" " + Num(v) + " 1";
+    }
+  }
+  return std::string("set ") + axis + "tics (" + list + ")\n";
 }
 
 int FloorDecade(double v) {
@@ -242,9 +251,8 @@ class ScriptWriter {
     out_ += "set bmargin at screen " + Num(f.bottom) + "\n";
     out_ += "set logscale x\n";
     out_ += "set xrange [" + Num(f_min_) + ":" + Num(f_max_) + "]\n";
-    out_ += DecadeTics("x", CeilDecade(f_min_ * (1 - 1e-9)),
-                       FloorDecade(f_max_ * (1 + 1e-9)),
-                       [](double v) { return Short(v, "Hz"); });
+    out_ +=
+        LogTics("x", f_min_, f_max_, [](double v) { return Short(v, "Hz"); });
     out_ += "set xlabel 'frequency (Hz)'\n";
     out_ += "set grid xtics ytics lc rgb '#d8d8d8' lw 1\n";
     out_ += "set border 3 lw 1\nset xtics nomirror out\nset ytics out\n";
@@ -271,8 +279,8 @@ class ScriptWriter {
             " at first " + Num(b_.band_high_hz) +
             ", graph 1 left offset -0.4,0.7 tc rgb '" + kEdgeColour + "'\n";
     out_ += "set key at screen " +
-            Num(double(kWidthPx - kLegendPx + kKeyGapPx) / kWidthPx) + ", screen " +
-            Num(f.top) +
+            Num(double(kWidthPx - kLegendPx + kKeyGapPx) / kWidthPx) +
+            ", screen " + Num(f.top) +
             " left top Left reverse samplen 2.5 spacing 1.25 "
             "box lc rgb '#bbbbbb' width 1\n";
   }
@@ -298,8 +306,8 @@ class ScriptWriter {
     // The slight padding keeps gnuplot from dropping the end tics.
     out_ += "set yrange [" + Num(std::pow(10.0, lo) * 0.999) + ":" +
             Num(std::pow(10.0, hi) * 1.001) + "]\n";
-    out_ += DecadeTics("y", lo, hi,
-                       [](double v) { return Short(v, "V/\xE2\x88\x9AHz"); });
+    out_ += LogTics("y", std::pow(10.0, lo), std::pow(10.0, hi),
+                    [](double v) { return Short(v, "V/\xE2\x88\x9AHz"); });
     out_ += "set ylabel 'output noise density (V/\xE2\x88\x9AHz)'\n";
     out_ += "set key title 'in-band output rms, share' left\n";
     std::string plot =
@@ -373,13 +381,11 @@ class ScriptWriter {
     // inside it are labelled.
     const double top = y_max * 2.5;
     const double bottom = std::max(y_min / 1.5, top * 1e-5);
-    const int hi = FloorDecade(top);
-    const int lo = CeilDecade(bottom);
     const std::string unit = b_.input_unit == "A" ? "V/A" : "V/V";
     PanelTitle("Signal gain and e_n noise gain (magnitude)");
     out_ += "set logscale y\n";
     out_ += "set yrange [" + Num(bottom) + ":" + Num(top) + "]\n";
-    out_ += DecadeTics("y", lo, hi, GainLabel);
+    out_ += LogTics("y", bottom, top, GainLabel);
     out_ +=
         "set ylabel " +
         GnuplotString(b_.input_unit == "A" ? "gain (signal V/A, noise gain V/V)"
