@@ -1,6 +1,9 @@
 #include "analysis/frequency_response.h"
 
+#include <algorithm>
 #include <cmath>
+
+#include "analysis/phase.h"
 
 namespace hushgain {
 
@@ -17,7 +20,10 @@ ResponseSummary SummarizeResponse(const GainFunction& gain, double f_ref_hz,
 
   const double step = std::pow(10.0, 1.0 / points_per_decade);
   double f_prev = f_ref_hz;
-  for (double f = f_ref_hz * step; f <= f_max_hz * step; f *= step) {
+  // After the -3 dB point the scan goes on for one more decade, so a caller
+  // that watches other transfers in `gain` (the noise gain) sees past it.
+  double f_stop = f_max_hz * step;
+  for (double f = f_ref_hz * step; f <= f_stop; f *= step) {
     out.status = gain(f, &h);
     if (!out.status.ok) return out;
     const double magnitude = std::abs(h);
@@ -25,10 +31,10 @@ ResponseSummary SummarizeResponse(const GainFunction& gain, double f_ref_hz,
       peak = magnitude;
       out.peak_hz = f;
     }
-    if (magnitude < threshold) {
+    if (!out.bandwidth_found && magnitude < threshold) {
       // Bisect in log f between f_prev (above threshold) and f (below).
       double lo = f_prev, hi = f;
-      for (int i = 0; i < 60 && hi / lo > 1 + 1e-9; ++i) {
+      for (int i = 0; i < 60 && hi / lo > 1 + 1e-8; ++i) {
         double mid = std::sqrt(lo * hi);
         out.status = gain(mid, &h);
         if (!out.status.ok) return out;
@@ -36,11 +42,98 @@ ResponseSummary SummarizeResponse(const GainFunction& gain, double f_ref_hz,
       }
       out.bandwidth_3db_hz = std::sqrt(lo * hi);
       out.bandwidth_found = true;
-      break;
+      f_stop = std::min(f_stop, 10.0 * f);
     }
     f_prev = f;
   }
+  if (out.peak_hz > f_ref_hz) {
+    // Golden-section search for the maximum of |H| in log f around the best
+    // sample (one scan step either side).
+    const double g = (std::sqrt(5.0) - 1) / 2;
+    double a = std::log(out.peak_hz / step), b = std::log(out.peak_hz * step);
+    double x1 = b - g * (b - a), x2 = a + g * (b - a);
+    auto mag = [&](double x, double* m) {
+      Status st = gain(std::exp(x), &h);
+      *m = std::abs(h);
+      return st;
+    };
+    double m1 = 0, m2 = 0;
+    out.status = mag(x1, &m1);
+    if (out.status.ok) out.status = mag(x2, &m2);
+    for (int i = 0; i < 60 && out.status.ok && b - a > 1e-6; ++i) {
+      if (m1 < m2) {
+        a = x1;
+        x1 = x2;
+        m1 = m2;
+        x2 = a + g * (b - a);
+        out.status = mag(x2, &m2);
+      } else {
+        b = x2;
+        x2 = x1;
+        m2 = m1;
+        x1 = b - g * (b - a);
+        out.status = mag(x1, &m1);
+      }
+    }
+    if (!out.status.ok) return out;
+    if (std::max(m1, m2) > peak) {
+      peak = std::max(m1, m2);
+      out.peak_hz = std::exp(m1 > m2 ? x1 : x2);
+    }
+  }
   out.peaking_db = 20.0 * std::log10(peak / reference);
+  return out;
+}
+
+QualityFactor SecondOrderQ(const GainFunction& gain, double f_ref_hz, double f_max_hz,
+                           int points_per_decade) {
+  QualityFactor out;
+  std::complex<double> h;
+  out.status = gain(f_ref_hz, &h);
+  if (!out.status.ok) return out;
+  const std::complex<double> h_ref = h;
+  // The phase turned, relative to f_ref, unwrapped along the scan.
+  double turned = 0, prev_arg = 0, f_prev = f_ref_hz;
+  const double step = std::pow(10.0, 1.0 / points_per_decade);
+  auto relative_arg = [&](double f, double* arg) {
+    Status st = gain(f, &h);
+    *arg = std::arg(h / h_ref);
+    return st;
+  };
+  for (double f = f_ref_hz * step; f <= f_max_hz * step; f *= step) {
+    double arg = 0;
+    out.status = relative_arg(f, &arg);
+    if (!out.status.ok) return out;
+    const double d = WrapPi(arg - prev_arg);
+    const double turned_here = turned + d;
+    const double quarter = -kPi / 2;
+    if (turned_here <= quarter) {
+      double lo = f_prev, hi = f, turned_lo = turned, arg_lo = prev_arg;
+      for (int i = 0; i < 80 && hi / lo > 1 + 1e-12; ++i) {
+        const double mid = std::sqrt(lo * hi);
+        double a = 0;
+        out.status = relative_arg(mid, &a);
+        if (!out.status.ok) return out;
+        const double dm = WrapPi(a - arg_lo);
+        if (turned_lo + dm > quarter) {
+          lo = mid;
+          turned_lo += dm;
+          arg_lo = a;
+        } else {
+          hi = mid;
+        }
+      }
+      out.f90_hz = std::sqrt(lo * hi);
+      out.status = gain(out.f90_hz, &h);
+      if (!out.status.ok) return out;
+      out.q = std::abs(h) / std::abs(h_ref);
+      out.found = true;
+      return out;
+    }
+    turned = turned_here;
+    prev_arg = arg;
+    f_prev = f;
+  }
   return out;
 }
 

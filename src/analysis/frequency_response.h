@@ -25,9 +25,24 @@ struct ResponseSummary {
   double peak_hz = 0;
 };
 
-// Scans f_ref .. f_max_hz at `points_per_decade`.
+// Scans f_ref .. f_max_hz at `points_per_decade`; the peak is refined by a
+// golden-section search around the largest sample.
 ResponseSummary SummarizeResponse(const GainFunction& gain, double f_ref_hz,
                                   double f_max_hz, int points_per_decade = 20);
+
+// The quality factor of a second-order low-pass read off the response: at
+// the frequency f_90 where the phase has turned by -90 degrees from its value
+// at f_ref, Q = |H(f_90)| / |H(f_ref)|. Exact for 1/(1 + s/(Q w0) + s^2/w0^2)
+// when f_ref << f_90. Returns nullopt when the phase never turns by 90
+// degrees below f_max_hz, or on a failed solve (with `status` set).
+struct QualityFactor {
+  Status status;
+  bool found = false;
+  double q = 0;
+  double f90_hz = 0;
+};
+QualityFactor SecondOrderQ(const GainFunction& gain, double f_ref_hz, double f_max_hz,
+                           int points_per_decade = 20);
 
 }  // namespace hushgain
 

@@ -47,6 +47,10 @@ class MnaSystem {
   int OpAmpRow(int k) const { return opamp_rows_[k]; }
   // The unknown index of op-amp `k`'s ideal-amplifier output voltage.
   int OpAmpAmplifierNode(int k) const { return opamp_amp_nodes_[k]; }
+  // The unknown indices of op-amp `k`'s + and - pins (-1 for ground).
+  int OpAmpPlus(int k) const { return opamp_plus_[k]; }
+  int OpAmpMinus(int k) const { return opamp_minus_[k]; }
+  int opamp_count() const { return static_cast<int>(opamp_rows_.size()); }
   const std::string& UnknownName(int index) const { return names_[index]; }
 
   const RealMatrix& g() const { return g_; }
@@ -58,6 +62,8 @@ class MnaSystem {
   int output_index_ = -1;
   std::vector<int> opamp_rows_;
   std::vector<int> opamp_amp_nodes_;
+  std::vector<int> opamp_plus_;
+  std::vector<int> opamp_minus_;
   std::vector<int> source_rows_;
   std::vector<std::string> names_;
 };

@@ -33,8 +33,9 @@ struct OffsetBlock {
   double vos_v = 0;         // |Vos| * NG
   double ib_v = 0;          // signed
   double ios_v = 0;         // magnitude
-  double worst_case_v = 0;  // |vos| + |ib| + |ios|
-  double rss_v = 0;         // sqrt(vos^2 + ib^2 + ios^2)
+  double dark_v = 0;  // photodiode dark current x DC transimpedance, signed
+  double worst_case_v = 0;  // |vos| + |ib| + |ios| + |dark|
+  double rss_v = 0;         // sqrt(vos^2 + ib^2 + ios^2 + dark^2)
   double noise_gain_dc = 0;
   // The R_plus value that cancels the Ib term, and the value used (0 when
   // the + input is tied to ground).
@@ -67,8 +68,38 @@ struct TeeComparison {
   std::vector<TeeChange> changes;  // in the order of the tee's contributors
 };
 
+// The loop gain of the actual network (analysis/loop_gain.h).
+struct LoopBlock {
+  bool crossover_found = false;
+  double crossover_hz = 0;
+  double phase_margin_deg = 0;
+  double dc_loop_gain = 0;
+};
+
+// What a photodiode stage adds to the budget.
+struct PhotodiodeBlock {
+  double responsivity_a_per_w = 0;  // 0 = not given
+  double nep_w_per_rthz = 0;        // input current density / responsivity
+  double nep_rms_w = 0;             // input current rms / responsivity
+  double input_capacitance_f = 0;   // C_d + the op-amp's pin capacitance
+  // 1 + C / C_f, the high-frequency plateau of the e_n noise gain of an
+  // ideal op-amp (0 without C_f).
+  double noise_gain_plateau_estimate = 0;
+};
+
+// A feedback capacitor chosen for a target ("auto").
+struct CapacitorChoice {
+  std::string target;          // "butterworth" or "phase margin 60 deg"
+  double chosen_f = 0;         // found on the computed loop or response
+  double estimate_f = 0;       // the textbook approximation
+  std::string estimate_rule;   // "sqrt(C / (pi Rf GBW))"
+};
+
 struct Budget {
   std::string stage_name;
+  std::string opamp_class;  // "JFET input", or "inline parameters"
+  double opamp_gbw_hz = 0;
+  double opamp_open_loop_gain = 0;
   double temperature_k = 0;
   double band_low_hz = 0;
   double band_high_hz = 0;
@@ -83,6 +114,13 @@ struct Budget {
   double noise_gain_dc = 0;
   double bandwidth_3db_hz = 0;  // 0 when not found below 100 x GBW
   double peaking_db = 0;
+  double peak_hz = 0;
+  double noise_gain_peak = 0;  // the largest |e_n -> output| in the scan
+  double noise_gain_peak_hz = 0;
+  LoopBlock loop;
+  double feedback_capacitor_f = 0;  // as used (chosen when "auto")
+  std::optional<CapacitorChoice> capacitor_choice;
+  std::optional<PhotodiodeBlock> photodiode;
 
   std::vector<Contributor> contributors;  // largest share first
   double output_rms_v = 0;
@@ -94,6 +132,10 @@ struct Budget {
   OffsetBlock offset;
 
   std::optional<double> full_scale_output_v;
+  // The op-amp's output current at the full-scale swing (load and feedback
+  // network), against the device's limit.
+  std::optional<double> full_scale_output_current_a;
+  double output_current_limit_a = 0;
   std::optional<double> snr_db;            // full-scale sine rms / noise rms
   std::optional<double> dynamic_range_db;  // 2 x full scale / noise p-p
 

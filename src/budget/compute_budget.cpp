@@ -7,10 +7,12 @@
 #include <vector>
 
 #include "analysis/frequency_response.h"
+#include "analysis/loop_gain.h"
+#include "budget/feedback_capacitor.h"
 #include "budget/offset.h"
 #include "budget/tee_comparison.h"
 #include "circuit/expand_stage.h"
-#include "circuit/inverting_topology.h"
+#include "circuit/feedback_network.h"
 #include "noise/physical_constants.h"
 #include "noise/spectrum_evaluator.h"
 
@@ -20,17 +22,212 @@ namespace {
 // The closed-loop bandwidth search stops at this multiple of the GBW: no
 // single-op-amp stage has gain there.
 constexpr double kBandwidthSearchPerGbw = 100.0;
+// Phase margins below these draw a warning, and a severe one.
+constexpr double kLowPhaseMarginDeg = 45.0;
+constexpr double kSeverePhaseMarginDeg = 20.0;
 
-std::string Hz(double f_hz) {
-  char buf[48];
-  std::snprintf(buf, sizeof buf, "%.6g Hz", f_hz);
+std::string Printf(const char* format, double a, double b = 0) {
+  char buf[200];
+  std::snprintf(buf, sizeof buf, format, a, b);
   return buf;
 }
+
+std::string Hz(double f_hz) { return Printf("%.6g Hz", f_hz); }
 
 // Fails when `value` is not finite; names the quantity.
 Status CheckFinite(double value, const std::string& what) {
   if (std::isfinite(value)) return Status::Ok();
   return Status::Fail(what + " is not finite");
+}
+
+// The excitations the budget reads besides the noise sources.
+struct Ports {
+  Port signal, e_n, i_plus, i_minus;
+  std::vector<std::pair<Port, double>> junctions;  // port, DC current
+};
+
+Ports CompilePorts(const Netlist& net, const SpectrumEvaluator& ev) {
+  Ports p;
+  p.signal = ev.Compile(net.signal);
+  p.e_n = ev.Compile(Excitation{OpAmpInputVoltage{0}});
+  p.i_plus = ev.Compile(Excitation{CurrentInjection{net.opamps[0].plus, kGround}});
+  p.i_minus = ev.Compile(Excitation{CurrentInjection{net.opamps[0].minus, kGround}});
+  for (const JunctionCurrent& j : net.junction_currents)
+    p.junctions.push_back({ev.Compile(Excitation{CurrentInjection{j.b, j.a}}), j.amperes});
+  return p;
+}
+
+// DC: signal gain, noise gain and the offset block, with the finite A0.
+Status DcFigures(const Stage& stage, const Netlist& net, const Ports& p, SpectrumEvaluator& ev,
+                 Budget& b) {
+  Status s = ev.SolveAt(0.0);
+  if (!s.ok) return s;
+  b.signal_gain_dc = ev.Transfer(p.signal).real();
+  b.noise_gain_dc = std::abs(ev.Transfer(p.e_n));
+  double dark_v = 0;
+  for (const auto& [port, amperes] : p.junctions) dark_v += amperes * ev.Transfer(port).real();
+  b.offset = SumOffsets(stage.opamp, b.noise_gain_dc, ev.Transfer(p.i_plus).real(),
+                        ev.Transfer(p.i_minus).real(), dark_v);
+  b.offset.balance_resistor_ohm = BalanceResistorOhm(stage);
+  for (const Resistor& r : net.resistors)
+    if (r.name == "R_plus") b.offset.plus_resistor_ohm = r.ohms;
+  return Status::Ok();
+}
+
+// Gains and every contributor's densities at the reference frequency.
+Status ReferenceFigures(const Stage& stage, const Ports& p, SpectrumEvaluator& ev, Budget& b) {
+  const int n = ev.source_count();
+  std::vector<double> psd(n);
+  Status s = ev.Densities(b.reference_hz, psd.data());
+  if (!s.ok) return s;
+  const std::complex<double> gain_ref = ev.Transfer(p.signal);
+  b.signal_gain_ref = std::abs(gain_ref);
+  b.signal_gain_phase_ref_deg = std::arg(gain_ref) * 180.0 / kPi;
+  b.noise_gain_ref = std::abs(ev.Transfer(p.e_n));
+  b.contributors.resize(n);
+  double total_density_sq = 0;
+  for (int k = 0; k < n; ++k) {
+    const NoiseSource& source = ev.sources()[k];
+    Contributor& c = b.contributors[k];
+    c.name = source.name;
+    c.kind = NoiseKindName(source.kind);
+    c.output_density_ref_v_per_rthz = std::sqrt(psd[k]);
+    c.gain_to_output_ref = std::abs(ev.SourceTransfer(k));
+    double source_psd = source.PsdAt(b.reference_hz);
+    // A resistor's thermal noise is reported as its voltage density 4kTR.
+    if (source.kind == NoiseKind::kThermal) {
+      const double ohms = 4.0 * kBoltzmannJPerK * stage.temperature_k / source.white_psd;
+      source_psd *= ohms * ohms;
+      c.gain_to_output_ref /= ohms;
+    }
+    c.source_density_ref = std::sqrt(source_psd);
+    total_density_sq += psd[k];
+  }
+  b.output_density_ref_v_per_rthz = std::sqrt(total_density_sq);
+  b.input_density_ref_per_rthz = b.output_density_ref_v_per_rthz / b.signal_gain_ref;
+  return Status::Ok();
+}
+
+// The band integral of every contributor at once.
+Status BandNoise(const Stage& stage, const BudgetOptions& options, SpectrumEvaluator& ev,
+                 Budget& b) {
+  const int n = ev.source_count();
+  IntegrationResult integral = IntegrateBand(
+      stage.band_low_hz, stage.band_high_hz, n,
+      [&ev](double f, double* out) { return ev.Densities(f, out); }, options.integration);
+  if (!integral.status.ok) return integral.status;
+  double total_power = 0;
+  for (int k = 0; k < n; ++k) {
+    Status s = CheckFinite(integral.integrals[k], "the output noise of " + b.contributors[k].name);
+    if (!s.ok) return s;
+    total_power += integral.integrals[k];
+  }
+  for (int k = 0; k < n; ++k) {
+    b.contributors[k].output_rms_v = std::sqrt(integral.integrals[k]);
+    b.contributors[k].share = total_power > 0 ? integral.integrals[k] / total_power : 0;
+  }
+  std::stable_sort(b.contributors.begin(), b.contributors.end(),
+                   [](const Contributor& l, const Contributor& r) { return l.share > r.share; });
+  b.output_rms_v = std::sqrt(total_power);
+  b.output_peak_to_peak_v = kPeakToPeakPerRms * b.output_rms_v;
+  b.input_rms = b.output_rms_v / b.signal_gain_ref;
+  b.integration_evaluations = integral.evaluations;
+  b.integration_relative_error = total_power > 0 ? integral.error_estimate / total_power : 0;
+  if (!integral.converged)
+    b.warnings.push_back(Printf("noise integration stopped at an estimated relative error of "
+                                "%.2g (asked %.2g)",
+                                b.integration_relative_error,
+                                options.integration.relative_tolerance));
+  return Status::Ok();
+}
+
+// The closed-loop response and the e_n noise gain across frequency.
+Status ResponseFigures(const Stage& stage, const Ports& p, SpectrumEvaluator& ev, Budget& b) {
+  const double f_max = kBandwidthSearchPerGbw * stage.opamp.gbw_hz;
+  // The same solves give where e_n's noise gain peaks above the reference.
+  b.noise_gain_peak = b.noise_gain_ref;
+  b.noise_gain_peak_hz = b.reference_hz;
+  ResponseSummary response = SummarizeResponse(
+      [&](double f, std::complex<double>* h) {
+        Status st = ev.SolveAt(f);
+        *h = ev.Transfer(p.signal);
+        const double ng = std::abs(ev.Transfer(p.e_n));
+        if (st.ok && ng > b.noise_gain_peak) {
+          b.noise_gain_peak = ng;
+          b.noise_gain_peak_hz = f;
+        }
+        return st;
+      },
+      b.reference_hz, f_max, 10);
+  if (!response.status.ok) return response.status;
+  b.bandwidth_3db_hz = response.bandwidth_3db_hz;
+  b.peaking_db = response.peaking_db;
+  b.peak_hz = response.peak_hz;
+  if (b.bandwidth_3db_hz > 0 && b.bandwidth_3db_hz < b.band_high_hz)
+    b.warnings.push_back("the closed-loop -3 dB bandwidth (" + Hz(b.bandwidth_3db_hz) +
+                         ") is below the band's upper edge (" + Hz(b.band_high_hz) + ")");
+  return Status::Ok();
+}
+
+// The loop of the actual network: phase margin and crossover.
+Status LoopFigures(const Stage& stage, const MnaSystem& system, Budget& b) {
+  LoopGainSolver solver(system, 0, stage.opamp);
+  const double start = 1e-3 * std::min(stage.band_low_hz, stage.opamp.gbw_hz / stage.opamp.open_loop_gain);
+  LoopSummary loop = SummarizeLoop(solver, start, 1e3 * stage.opamp.gbw_hz);
+  if (!loop.status.ok) return loop.status;
+  b.loop = {loop.crossover_found, loop.crossover_hz, loop.phase_margin_deg, loop.dc_loop_gain};
+  if (!(loop.dc_loop_gain > 0))
+    return Status::Fail("the feedback is positive at DC (loop gain " + Printf("%.4g", loop.dc_loop_gain) + ")");
+  if (!loop.crossover_found) return Status::Ok();
+  if (loop.phase_margin_deg <= 0)
+    return Status::Fail(Printf("the loop is unstable: phase margin %.1f deg at the %.4g Hz crossover",
+                               loop.phase_margin_deg, loop.crossover_hz) +
+                        "; add or raise the feedback capacitor");
+  if (loop.phase_margin_deg < kSeverePhaseMarginDeg)
+    b.warnings.push_back(Printf("severe: phase margin %.1f deg (below 20 deg) at %.4g Hz: the stage "
+                                "is close to oscillation and its noise peaks",
+                                loop.phase_margin_deg, loop.crossover_hz));
+  else if (loop.phase_margin_deg < kLowPhaseMarginDeg)
+    b.warnings.push_back(Printf("low phase margin %.1f deg (below 45 deg) at %.4g Hz",
+                                loop.phase_margin_deg, loop.crossover_hz));
+  return Status::Ok();
+}
+
+// The op-amp's output current with the output at full scale: the DC
+// solution for the signal, scaled to the full-scale output, read at the
+// controlled source's current (load plus feedback network, exact for the
+// stage as built).
+Status OutputDrive(const Stage& stage, const MnaSystem& system, const Ports& p, Budget& b) {
+  b.output_current_limit_a = stage.opamp.output_current_limit_a;
+  if (!stage.full_scale_output_v || b.signal_gain_dc == 0) return Status::Ok();
+  ComplexVector x;
+  Status s = DirectSolve(system, 0.0, p.signal, &x);
+  if (!s.ok) return s;
+  const double fs = *stage.full_scale_output_v;
+  const double amperes = std::abs(x[system.OpAmpRow(0)].real()) * fs / std::fabs(b.signal_gain_dc);
+  b.full_scale_output_current_a = amperes;
+  if (amperes > stage.opamp.output_current_limit_a)
+    b.warnings.push_back(Printf("at the full-scale %.4g V the op-amp must source %.3g mA", fs, amperes * 1e3) +
+                         Printf(", beyond its %.3g mA output limit: raise the load or feedback "
+                                "resistance",
+                                stage.opamp.output_current_limit_a * 1e3));
+  if (fs > 0.5 * stage.opamp.supply_v)
+    b.warnings.push_back(Printf("the full-scale swing of \xC2\xB1%.4g V exceeds half the %.4g V supply span",
+                                fs, stage.opamp.supply_v));
+  return Status::Ok();
+}
+
+void PhotodiodeFigures(const Stage& stage, Budget& b) {
+  PhotodiodeBlock pd;
+  pd.responsivity_a_per_w = stage.photodiode.responsivity_a_per_w;
+  if (pd.responsivity_a_per_w > 0) {
+    pd.nep_w_per_rthz = b.input_density_ref_per_rthz / pd.responsivity_a_per_w;
+    pd.nep_rms_w = b.input_rms / pd.responsivity_a_per_w;
+  }
+  pd.input_capacitance_f = InputCapacitanceF(stage);
+  if (stage.feedback.capacitor_f > 0)
+    pd.noise_gain_plateau_estimate = 1 + pd.input_capacitance_f / stage.feedback.capacitor_f;
+  b.photodiode = pd;
 }
 
 }  // namespace
@@ -42,138 +239,52 @@ Stage PlainEquivalent(const Stage& tee_stage) {
   return plain;
 }
 
-BudgetOutcome ComputeBudget(const Stage& stage, const BudgetOptions& options) {
+BudgetOutcome ComputeBudget(const Stage& requested, const BudgetOptions& options) {
   BudgetOutcome outcome;
   Budget& b = outcome.budget;
+  Stage stage = requested;
+  if (stage.capacitor_target) {
+    CapacitorOutcome cap = ChooseFeedbackCapacitor(stage, *stage.capacitor_target);
+    if (!cap.status.ok) return {cap.status, b};
+    b.capacitor_choice = cap.choice;
+    stage.feedback.capacitor_f = cap.choice.chosen_f;
+    stage.capacitor_target.reset();
+  }
   b.stage_name = stage.name;
+  b.opamp_class = stage.opamp.class_name;
+  b.opamp_gbw_hz = stage.opamp.gbw_hz;
+  b.opamp_open_loop_gain = stage.opamp.open_loop_gain;
   b.temperature_k = stage.temperature_k;
   b.band_low_hz = stage.band_low_hz;
   b.band_high_hz = stage.band_high_hz;
   b.reference_hz = ReferenceFrequencyHz(stage);
   b.full_scale_output_v = stage.full_scale_output_v;
+  b.feedback_capacitor_f = stage.feedback.capacitor_f;
+  b.input_unit = stage.topology == Topology::kTransimpedance ? "A" : "V";
 
   const Netlist netlist = ExpandStage(stage);
   SpectrumEvaluator evaluator;
-  Status s =
-      SpectrumEvaluator::Create(netlist, stage.temperature_k, &evaluator);
+  Status s = SpectrumEvaluator::Create(netlist, stage.temperature_k, &evaluator);
   if (!s.ok) return {s, b};
-  const int n = evaluator.source_count();
-  const Port signal = evaluator.Compile(netlist.signal);
-  const Port e_n = evaluator.Compile(Excitation{OpAmpInputVoltage{0}});
-  const Port i_plus = evaluator.Compile(
-      Excitation{CurrentInjection{netlist.opamps[0].plus, kGround}});
-  const Port i_minus = evaluator.Compile(
-      Excitation{CurrentInjection{netlist.opamps[0].minus, kGround}});
+  const Ports ports = CompilePorts(netlist, evaluator);
 
-  // DC: signal gain, noise gain and offsets, with the finite A0.
-  s = evaluator.SolveAt(0.0);
+  s = LoopFigures(stage, evaluator.system(), b);
+  if (s.ok) s = DcFigures(stage, netlist, ports, evaluator, b);
+  if (s.ok) s = ReferenceFigures(stage, ports, evaluator, b);
+  if (s.ok) s = BandNoise(stage, options, evaluator, b);
+  if (s.ok) s = ResponseFigures(stage, ports, evaluator, b);
+  if (s.ok) s = OutputDrive(stage, evaluator.system(), ports, b);
   if (!s.ok) return {s, b};
-  b.signal_gain_dc = evaluator.Transfer(signal).real();
-  b.noise_gain_dc = std::abs(evaluator.Transfer(e_n));
-  b.offset = SumOffsets(stage.opamp, b.noise_gain_dc,
-                        evaluator.Transfer(i_plus).real(),
-                        evaluator.Transfer(i_minus).real());
-  b.offset.balance_resistor_ohm = BalanceResistorOhm(stage);
-  for (const Resistor& r : netlist.resistors)
-    if (r.name == "R_plus") b.offset.plus_resistor_ohm = r.ohms;
-
-  // The reference frequency: gains and densities.
-  std::vector<double> psd(n);
-  s = evaluator.Densities(b.reference_hz, psd.data());
-  if (!s.ok) return {s, b};
-  const std::complex<double> gain_ref = evaluator.Transfer(signal);
-  b.signal_gain_ref = std::abs(gain_ref);
-  b.signal_gain_phase_ref_deg = std::arg(gain_ref) * 180.0 / kPi;
-  b.noise_gain_ref = std::abs(evaluator.Transfer(e_n));
-  b.contributors.resize(n);
-  double total_density_sq = 0;
-  for (int k = 0; k < n; ++k) {
-    const NoiseSource& source = evaluator.sources()[k];
-    Contributor& c = b.contributors[k];
-    c.name = source.name;
-    c.kind = NoiseKindName(source.kind);
-    c.output_density_ref_v_per_rthz = std::sqrt(psd[k]);
-    c.gain_to_output_ref = std::abs(evaluator.SourceTransfer(k));
-    double source_psd = source.PsdAt(b.reference_hz);
-    // A resistor's thermal noise is reported as its voltage density 4kTR.
-    if (source.kind == NoiseKind::kThermal) {
-      const double ohms =
-          4.0 * kBoltzmannJPerK * stage.temperature_k / source.white_psd;
-      source_psd *= ohms * ohms;
-      c.gain_to_output_ref /= ohms;
-    }
-    c.source_density_ref = std::sqrt(source_psd);
-    total_density_sq += psd[k];
-  }
-  b.output_density_ref_v_per_rthz = std::sqrt(total_density_sq);
-  b.input_density_ref_per_rthz =
-      b.output_density_ref_v_per_rthz / b.signal_gain_ref;
-
-  // The band integral of every contributor at once.
-  IntegrationResult integral = IntegrateBand(
-      stage.band_low_hz, stage.band_high_hz, n,
-      [&evaluator](double f, double* out) {
-        return evaluator.Densities(f, out);
-      },
-      options.integration);
-  if (!integral.status.ok) return {integral.status, b};
-  double total_power = 0;
-  for (int k = 0; k < n; ++k) {
-    s = CheckFinite(integral.integrals[k],
-                    "the output noise of " + b.contributors[k].name);
-    if (!s.ok) return {s, b};
-    total_power += integral.integrals[k];
-  }
-  for (int k = 0; k < n; ++k) {
-    b.contributors[k].output_rms_v = std::sqrt(integral.integrals[k]);
-    b.contributors[k].share =
-        total_power > 0 ? integral.integrals[k] / total_power : 0;
-  }
-  std::stable_sort(b.contributors.begin(), b.contributors.end(),
-                   [](const Contributor& l, const Contributor& r) {
-                     return l.share > r.share;
-                   });
-  b.output_rms_v = std::sqrt(total_power);
-  b.output_peak_to_peak_v = kPeakToPeakPerRms * b.output_rms_v;
-  b.input_rms = b.output_rms_v / b.signal_gain_ref;
-  b.integration_evaluations = integral.evaluations;
-  b.integration_relative_error =
-      total_power > 0 ? integral.error_estimate / total_power : 0;
-  if (!integral.converged) {
-    char buf[160];
-    std::snprintf(buf, sizeof buf,
-                  "noise integration stopped at an estimated relative error of "
-                  "%.2g (asked %.2g)",
-                  b.integration_relative_error,
-                  options.integration.relative_tolerance);
-    b.warnings.push_back(buf);
-  }
-
-  // The closed-loop response.
-  ResponseSummary response = SummarizeResponse(
-      [&](double f, std::complex<double>* h) {
-        Status st = evaluator.SolveAt(f);
-        *h = evaluator.Transfer(signal);
-        return st;
-      },
-      b.reference_hz, kBandwidthSearchPerGbw * stage.opamp.gbw_hz);
-  if (!response.status.ok) return {response.status, b};
-  b.bandwidth_3db_hz = response.bandwidth_3db_hz;
-  b.peaking_db = response.peaking_db;
-  if (b.bandwidth_3db_hz > 0 && b.bandwidth_3db_hz < b.band_high_hz)
-    b.warnings.push_back(
-        "the closed-loop -3 dB bandwidth (" + Hz(b.bandwidth_3db_hz) +
-        ") is below the band's upper edge (" + Hz(b.band_high_hz) + ")");
 
   if (stage.full_scale_output_v && b.output_rms_v > 0) {
     const double fs = *stage.full_scale_output_v;
     b.snr_db = 20.0 * std::log10(fs / std::sqrt(2.0) / b.output_rms_v);
     b.dynamic_range_db = 20.0 * std::log10(2.0 * fs / b.output_peak_to_peak_v);
   }
+  if (stage.topology == Topology::kTransimpedance) PhotodiodeFigures(stage, b);
 
-  for (double v :
-       {b.signal_gain_ref, b.noise_gain_ref, b.output_rms_v, b.input_rms,
-        b.offset.worst_case_v, b.input_density_ref_per_rthz}) {
+  for (double v : {b.signal_gain_ref, b.noise_gain_ref, b.output_rms_v, b.input_rms,
+                   b.offset.worst_case_v, b.input_density_ref_per_rthz}) {
     s = CheckFinite(v, "a budget figure at " + Hz(b.reference_hz));
     if (!s.ok) return {s, b};
   }

@@ -5,7 +5,7 @@
 namespace hushgain {
 
 OffsetBlock SumOffsets(const OpAmpModel& opamp, double noise_gain_dc,
-                       double h_plus_ohm, double h_minus_ohm) {
+                       double h_plus_ohm, double h_minus_ohm, double dark_v) {
   OffsetBlock block;
   block.noise_gain_dc = noise_gain_dc;
   block.vos_v = std::fabs(opamp.vos_v * noise_gain_dc);
@@ -18,9 +18,10 @@ OffsetBlock SumOffsets(const OpAmpModel& opamp, double noise_gain_dc,
     h_sum = 0;
   block.ib_v = -opamp.ib_a * h_sum;
   block.ios_v = std::fabs(0.5 * opamp.ios_a * (h_plus_ohm - h_minus_ohm));
-  block.worst_case_v = block.vos_v + std::fabs(block.ib_v) + block.ios_v;
+  block.dark_v = dark_v;
+  block.worst_case_v = block.vos_v + std::fabs(block.ib_v) + block.ios_v + std::fabs(dark_v);
   block.rss_v = std::sqrt(block.vos_v * block.vos_v + block.ib_v * block.ib_v +
-                          block.ios_v * block.ios_v);
+                          block.ios_v * block.ios_v + dark_v * dark_v);
   return block;
 }
 

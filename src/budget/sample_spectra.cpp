@@ -4,6 +4,8 @@
 #include <complex>
 #include <cstdio>
 
+#include "analysis/loop_gain.h"
+#include "budget/feedback_capacitor.h"
 #include "circuit/expand_stage.h"
 #include "noise/spectrum_evaluator.h"
 
@@ -24,10 +26,27 @@ int SpectrumSamples::Find(const std::string& name) const {
   return -1;
 }
 
-SpectrumOutcome SampleSpectra(const Stage& stage,
+Stage StageAsBudgeted(const Stage& stage, const Budget& budget) {
+  Stage out = stage;
+  if (out.capacitor_target) {
+    out.feedback.capacitor_f = budget.feedback_capacitor_f;
+    out.capacitor_target.reset();
+  }
+  return out;
+}
+
+SpectrumOutcome SampleSpectra(const Stage& requested,
                               const std::vector<double>& f_hz) {
   SpectrumOutcome outcome;
   SpectrumSamples& out = outcome.samples;
+  Stage stage = requested;
+  if (stage.capacitor_target) {
+    const CapacitorOutcome cap =
+        ChooseFeedbackCapacitor(stage, *stage.capacitor_target);
+    if (!cap.status.ok) return {cap.status, out};
+    stage.feedback.capacitor_f = cap.choice.chosen_f;
+    stage.capacitor_target.reset();
+  }
   const Netlist netlist = ExpandStage(stage);
   SpectrumEvaluator evaluator;
   Status s =
@@ -47,6 +66,8 @@ SpectrumOutcome SampleSpectra(const Stage& stage,
   out.total_v_per_rthz.resize(points);
   out.signal_gain_abs.resize(points);
   out.noise_gain_abs.resize(points);
+  out.loop_gain_abs.resize(points);
+  LoopGainSolver loop(evaluator.system(), 0, stage.opamp);
 
   std::vector<double> psd(n);
   for (std::size_t i = 0; i < points; ++i) {
@@ -66,6 +87,12 @@ SpectrumOutcome SampleSpectra(const Stage& stage,
       return {NotFinite("the signal gain", f_hz[i]), out};
     if (!std::isfinite(out.noise_gain_abs[i]))
       return {NotFinite("the noise gain", f_hz[i]), out};
+    Complex t;
+    s = loop.LoopGainAt(f_hz[i], &t);
+    if (!s.ok) return {s, out};
+    out.loop_gain_abs[i] = std::abs(t);
+    if (!std::isfinite(out.loop_gain_abs[i]))
+      return {NotFinite("the loop gain", f_hz[i]), out};
   }
   outcome.status = Status::Ok();
   return outcome;

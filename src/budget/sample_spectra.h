@@ -6,6 +6,8 @@
 //   total(f)     = sqrt(sum over k of S_out,k(f))
 //   signal_gain(f) = |source -> output|        V/V (V/A for a current)
 //   noise_gain(f)  = |e_n -> output|           V/V
+//   loop_gain(f)   = |T(f)|, the return ratio of the op-amp in its network
+//                    (analysis/loop_gain.h)       V/V
 #ifndef HUSHGAIN_BUDGET_SAMPLE_SPECTRA_H_
 #define HUSHGAIN_BUDGET_SAMPLE_SPECTRA_H_
 
@@ -13,6 +15,7 @@
 #include <vector>
 
 #include "analysis/status.h"
+#include "budget/budget.h"
 #include "circuit/stage.h"
 
 namespace hushgain {
@@ -28,6 +31,7 @@ struct SpectrumSamples {
   std::vector<double> total_v_per_rthz;
   std::vector<double> signal_gain_abs;
   std::vector<double> noise_gain_abs;
+  std::vector<double> loop_gain_abs;
 
   // Index of `name` in names, or -1.
   int Find(const std::string& name) const;
@@ -38,9 +42,16 @@ struct SpectrumOutcome {
   SpectrumSamples samples;
 };
 
-// The stage must be valid and every f > 0. Never prints.
+// The stage must be valid and every f > 0. A feedback capacitor given as a
+// target ("auto") is chosen as the budget chooses it
+// (budget/feedback_capacitor.h); pass StageAsBudgeted to reuse a budget's
+// choice instead. Never prints.
 SpectrumOutcome SampleSpectra(const Stage& stage,
                               const std::vector<double>& f_hz);
+
+// `stage` with the feedback capacitor `budget` (computed from it) used, so
+// the samples describe the very network of the budget.
+Stage StageAsBudgeted(const Stage& stage, const Budget& budget);
 
 }  // namespace hushgain
 

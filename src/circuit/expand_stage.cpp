@@ -1,6 +1,7 @@
 #include "circuit/expand_stage.h"
 
 #include "circuit/inverting_topology.h"
+#include "circuit/transimpedance_topology.h"
 
 namespace hushgain {
 
@@ -8,6 +9,8 @@ Netlist ExpandStage(const Stage& stage) {
   switch (stage.topology) {
     case Topology::kInverting:
       return ExpandInverting(stage);
+    case Topology::kTransimpedance:
+      return ExpandTransimpedance(stage);
   }
   return ExpandInverting(stage);
 }
@@ -16,6 +19,8 @@ double BalanceResistorOhm(const Stage& stage) {
   switch (stage.topology) {
     case Topology::kInverting:
       return InvertingBalanceOhm(stage);
+    case Topology::kTransimpedance:
+      return TransimpedanceBalanceOhm(stage);
   }
   return InvertingBalanceOhm(stage);
 }

@@ -11,14 +11,11 @@
 #ifndef HUSHGAIN_CIRCUIT_INVERTING_TOPOLOGY_H_
 #define HUSHGAIN_CIRCUIT_INVERTING_TOPOLOGY_H_
 
+#include "circuit/feedback_network.h"
 #include "circuit/netlist.h"
 #include "circuit/stage.h"
 
 namespace hushgain {
-
-// The feedback path's DC transresistance: R_f, or R1 + R2 + R1 R2 / R3 for a
-// T network (star-mesh transform; Kennelly 1899).
-double FeedbackEquivalentOhm(const Feedback& feedback);
 
 // The DC resistance seen from the - input with the op-amp output and the
 // source at AC ground: (R_source + R_in) || (R_f, or R1 + R2 || R3). Bias

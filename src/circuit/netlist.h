@@ -46,6 +46,16 @@ struct VoltageSource {
   NodeId minus = kGround;
 };
 
+// A DC current through a junction from node `a` to node `b` (a photodiode's
+// dark current): no part of the linear network, but a source of shot noise
+// 2 q I and of a DC output.
+struct JunctionCurrent {
+  std::string name;
+  NodeId a = kGround;
+  NodeId b = kGround;
+  double amperes = 0;
+};
+
 // Where a unit stimulus enters the network.
 // A unit current pushed into node `into`, drawn out of node `out_of`.
 struct CurrentInjection {
@@ -70,6 +80,7 @@ struct Netlist {
   std::vector<Capacitor> capacitors;
   std::vector<OpAmp> opamps;
   std::vector<VoltageSource> voltage_sources;
+  std::vector<JunctionCurrent> junction_currents;
   Excitation signal = SourceVoltage{0};  // the stage's input
   NodeId output = kGround;               // where the output voltage is read
 

@@ -12,7 +12,8 @@
 namespace hushgain {
 
 enum class Topology {
-  kInverting,  // Rin from the source to the - input, feedback to the output
+  kInverting,       // Rin from the source to the - input, feedback to the output
+  kTransimpedance,  // a photodiode into the - input, feedback to the output
 };
 
 // A T network in the feedback path: R1 from the - input to the tee node,
@@ -32,6 +33,14 @@ struct Feedback {
   double capacitor_f = 0;
 };
 
+// What a feedback capacitor given as "auto" is chosen for: a maximally flat
+// (Butterworth, Q = 1/sqrt 2) closed-loop response, or a loop phase margin.
+struct CapacitorTarget {
+  enum class Kind { kButterworth, kPhaseMargin };
+  Kind kind = Kind::kButterworth;
+  double phase_margin_deg = 0;  // kPhaseMargin
+};
+
 // The resistor from the + input to ground.
 struct PlusResistor {
   enum class Mode { kNone, kValue, kAuto };
@@ -45,6 +54,16 @@ struct SignalSource {
   double resistance_ohm = 0;
 };
 
+// A photodiode in photovoltaic (zero-bias) mode: the photocurrent flows into
+// the - input; its junction capacitance and shunt resistance sit from the
+// - input to ground; its dark current has shot noise 2 q I_dark.
+struct Photodiode {
+  double capacitance_f = 0;
+  double shunt_resistance_ohm = 0;  // 0 = none (infinite)
+  double dark_current_a = 0;
+  double responsivity_a_per_w = 0;  // 0 = not given (no NEP)
+};
+
 struct Stage {
   std::string name;
   double temperature_k = 298.15;
@@ -52,10 +71,13 @@ struct Stage {
   double band_high_hz = 0;
   std::optional<double> reference_hz;  // default: sqrt(low * high)
   OpAmpModel opamp;
-  SignalSource source;
+  SignalSource source;       // kInverting
+  Photodiode photodiode;     // kTransimpedance
   Topology topology = Topology::kInverting;
-  double input_resistor_ohm = 0;
+  double input_resistor_ohm = 0;  // kInverting
   Feedback feedback;
+  // When set, feedback.capacitor_f is chosen by the budget for this target.
+  std::optional<CapacitorTarget> capacitor_target;
   PlusResistor plus_resistor;
   std::optional<double> load_ohm;
   std::optional<double> full_scale_output_v;  // peak output swing, ±V

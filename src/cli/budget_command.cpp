@@ -55,8 +55,14 @@ int RunBudgetCommand(const BudgetCommandOptions& options) {
   const std::string format = ResolveFormat(options);
   BudgetOptions budget_options;
   budget_options.integration.relative_tolerance = options.tolerance;
-  if (std::string why = budget_options.Validate(); !why.empty())
-    throw Error("command line", "", "--tolerance: " + why);
+  if (!budget_options.Validate().empty()) {
+    char value[32];
+    std::snprintf(value, sizeof value, "%g", options.tolerance);
+    throw Error("command line", "",
+                std::string("--tolerance: expected a relative tolerance in "
+                            "(0, 1), got ") +
+                    value);
+  }
 
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
   const Stage stage = LoadStageFile(options.stage_path, library);
@@ -67,9 +73,10 @@ int RunBudgetCommand(const BudgetCommandOptions& options) {
     return kExitAnalysisRefused;
   }
   if (!options.spectrum_path.empty()) {
-    const SpectrumOutcome spectrum = SampleSpectra(
-        stage, LogFrequencyGrid(stage.band_low_hz, stage.band_high_hz,
-                                kSpectrumPointsPerDecade));
+    const SpectrumOutcome spectrum =
+        SampleSpectra(StageAsBudgeted(stage, outcome.budget),
+                      LogFrequencyGrid(stage.band_low_hz, stage.band_high_hz,
+                                       kSpectrumPointsPerDecade));
     if (!spectrum.status.ok) {
       std::cerr << "error: " << options.stage_path
                 << ": analysis refused: " << spectrum.status.message << "\n";

@@ -34,6 +34,20 @@ struct Command {
       define;
 };
 
+// Refuses option text that is not a whole number, before CLI11 converts it,
+// so the message reads as the others: --tolerance: expected a number, ...
+CLI::Validator NumberValidator() {
+  return CLI::Validator(
+      [](std::string& text) -> std::string {
+        char* end = nullptr;
+        std::strtod(text.c_str(), &end);
+        if (text.empty() || end != text.c_str() + text.size())
+          return "expected a number, got \"" + text + "\"";
+        return "";
+      },
+      "NUMBER");
+}
+
 std::function<int()> DefineBudget(CLI::App* app, const GlobalOptions& global) {
   auto options = std::make_shared<BudgetCommandOptions>();
   app->add_option("stage", options->stage_path, "stage file (JSON)")
@@ -45,7 +59,8 @@ std::function<int()> DefineBudget(CLI::App* app, const GlobalOptions& global) {
                   "also write the output densities across the band to this "
                   "CSV file");
   app->add_option("--tolerance", options->tolerance,
-                  "relative error target of the noise integral (default 1e-4)");
+                  "relative error target of the noise integral (default 1e-4)")
+      ->check(NumberValidator());
   return [options, &global] {
     options->devices_dir = global.devices_dir;
     return RunBudgetCommand(*options);
@@ -122,7 +137,9 @@ int Run(int argc, char** argv) {
     return app.exit(e);
   } catch (const CLI::ParseError& e) {
     if (e.get_exit_code() == 0) return app.exit(e);
-    std::cerr << "error: " << e.what() << "\n";
+    std::string why = e.what();  // CLI11 starts its messages upper-case
+    if (!why.empty() && why[0] >= 'A' && why[0] <= 'Z') why[0] += 'a' - 'A';
+    std::cerr << "error: command line: " << why << "\n";
     return kExitUsage;
   }
   return handler ? handler() : kExitUsage;

@@ -108,7 +108,8 @@ int RunPlotCommand(const PlotCommandOptions& options) {
        LogFrequencyGrid(budget.band_low_hz, budget.band_high_hz,
                         kPlotPointsPerDecade),
        LogFrequencyGrid(budget.band_high_hz, f_max, kPlotPointsPerDecade)});
-  SpectrumOutcome spectrum = SampleSpectra(stage, grid);
+  SpectrumOutcome spectrum =
+      SampleSpectra(StageAsBudgeted(stage, budget), grid);
   if (!spectrum.status.ok) return Refused(options, spectrum.status.message);
   const PlotData data = CumulativeOnBand(budget, std::move(spectrum.samples));
 

@@ -6,15 +6,43 @@
 #include "io/suggest.h"
 
 namespace hushgain {
+namespace {
+
+// The parser's own reason without its prefix: from "[json.exception.
+// parse_error.101] parse error at line 3, column 29: syntax error while
+// parsing object - unexpected string literal; expected '}'" keeps
+// "unexpected string literal; expected '}'". Empty when the text has
+// another shape.
+std::string ParseErrorReason(const std::string& what) {
+  const std::string marker = " - ";
+  const std::size_t at = what.find(marker);
+  if (at == std::string::npos) return "";
+  std::string reason = what.substr(at + marker.size());
+  if (!reason.empty() && reason[0] >= 'A' && reason[0] <= 'Z')
+    reason[0] += 'a' - 'A';
+  // "invalid literal; last read: '...'; expected ..." quotes raw input, with
+  // escaped newlines: the line and column already say where.
+  const std::size_t last_read = reason.find("; last read: '");
+  if (last_read != std::string::npos) {
+    const std::size_t end = reason.find("'; ", last_read + 14);
+    reason.erase(last_read, end == std::string::npos ? std::string::npos : end + 1 - last_read);
+  }
+  return reason;
+}
+
+}  // namespace
 
 nlohmann::json ParseJsonText(std::string_view text, const std::string& source) {
   try {
     return nlohmann::json::parse(text.begin(), text.end());
   } catch (const nlohmann::json::parse_error& e) {
-    // nlohmann reports a byte offset; turn it into line and column.
-    std::size_t offset = std::min<std::size_t>(e.byte, text.size());
+    // nlohmann reports the 1-based offset of the last byte it read (one
+    // past the end when the text ended early); turn it into line and
+    // column, so an early end points just after the last character.
+    const std::size_t before =
+        std::min<std::size_t>(e.byte > 0 ? e.byte - 1 : 0, text.size());
     int line = 1, column = 1;
-    for (std::size_t i = 0; i + 1 < offset; ++i) {
+    for (std::size_t i = 0; i < before; ++i) {
       if (text[i] == '\n') {
         ++line;
         column = 1;
@@ -22,9 +50,11 @@ nlohmann::json ParseJsonText(std::string_view text, const std::string& source) {
         ++column;
       }
     }
+    const std::string reason = ParseErrorReason(e.what());
     throw Error(source, "",
                 "malformed JSON at line " + std::to_string(line) + ", column " +
-                    std::to_string(column));
+                    std::to_string(column) +
+                    (reason.empty() ? "" : ": " + reason));
   }
 }
 

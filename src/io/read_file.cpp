@@ -11,11 +11,21 @@
 #include "io/error.h"
 
 namespace hushgain {
+namespace {
+
+// strerror's text with a lowercase first letter, as every hushgain message:
+// "no such file or directory".
+std::string LowercaseReason(int error_number) {
+  std::string why = std::strerror(error_number);
+  if (!why.empty() && why[0] >= 'A' && why[0] <= 'Z') why[0] += 'a' - 'A';
+  return why;
+}
+
+}  // namespace
 
 std::string ReadTextFile(const std::string& path) {
   std::ifstream in(path, std::ios::binary);
-  if (!in)
-    throw Error(path, "", std::string("cannot read: ") + std::strerror(errno));
+  if (!in) throw Error(path, "", "cannot read: " + LowercaseReason(errno));
   std::ostringstream out;
   out << in.rdbuf();
   if (in.bad()) throw Error(path, "", "cannot read");
@@ -26,9 +36,7 @@ void WriteFileAtomically(const std::string& path, const std::string& contents) {
   const std::string temporary = path + ".tmp-" + std::to_string(::getpid());
   {
     std::ofstream out(temporary, std::ios::binary | std::ios::trunc);
-    if (!out)
-      throw Error(path, "",
-                  std::string("cannot write: ") + std::strerror(errno));
+    if (!out) throw Error(path, "", "cannot write: " + LowercaseReason(errno));
     out << contents;
     out.flush();
     if (!out) {
@@ -37,7 +45,7 @@ void WriteFileAtomically(const std::string& path, const std::string& contents) {
     }
   }
   if (std::rename(temporary.c_str(), path.c_str()) != 0) {
-    std::string why = std::strerror(errno);
+    std::string why = LowercaseReason(errno);
     std::remove(temporary.c_str());
     throw Error(path, "", "cannot write: " + why);
   }

@@ -6,6 +6,7 @@
 #include "io/json_reader.h"
 #include "io/read_file.h"
 #include "io/suggest.h"
+#include "io/units.h"
 #include "noise/physical_constants.h"
 
 namespace hushgain {
@@ -71,7 +72,8 @@ OpAmpModel ParseOpAmp(ObjectReader& reader, const StageContext& context) {
   return model;
 }
 
-Feedback ParseFeedback(ObjectReader& reader) {
+// Reads the feedback path; a capacitor of "auto" sets `target`.
+Feedback ParseFeedback(ObjectReader& reader, std::optional<CapacitorTarget>* target) {
   Feedback fb;
   const bool has_resistor = reader.Has("resistor");
   const bool has_tee = reader.Has("tee");
@@ -88,8 +90,34 @@ Feedback ParseFeedback(ObjectReader& reader) {
     fb.tee.r3_ohm = PositiveResistance(tee, "r3");
     tee.Finish();
   }
-  if (reader.Has("capacitor"))
-    fb.capacitor_f = NonNegativeCapacitance(reader, "capacitor");
+  const bool automatic = reader.Has("capacitor") && reader.Get("capacitor").is_string() &&
+                         reader.Get("capacitor").get<std::string>() == "auto";
+  if (automatic) {
+    CapacitorTarget t;
+    if (reader.Has("capacitor_target")) {
+      const nlohmann::json& v = reader.Get("capacitor_target");
+      if (v.is_string() && v.get<std::string>() == "butterworth") {
+        t.kind = CapacitorTarget::Kind::kButterworth;
+      } else if (v.is_object()) {
+        ObjectReader pm = reader.Object("capacitor_target");
+        const nlohmann::json& deg = pm.Get("phase_margin_deg");
+        if (!deg.is_number() || !(deg.get<double>() > 0 && deg.get<double>() < 90))
+          throw pm.ErrorAt("phase_margin_deg",
+                           "expected a number of degrees between 0 and 90, got " + Dump(deg));
+        t.kind = CapacitorTarget::Kind::kPhaseMargin;
+        t.phase_margin_deg = deg.get<double>();
+        pm.Finish();
+      } else {
+        throw reader.ErrorAt("capacitor_target",
+                             "expected \"butterworth\" or {\"phase_margin_deg\": ...}, got " + Dump(v));
+      }
+    }
+    *target = t;
+  } else {
+    if (reader.Has("capacitor")) fb.capacitor_f = NonNegativeCapacitance(reader, "capacitor");
+    if (reader.Has("capacitor_target"))
+      throw reader.ErrorAt("capacitor_target", "only with \"capacitor\": \"auto\"");
+  }
   reader.Finish();
   return fb;
 }
@@ -115,23 +143,36 @@ PlusResistor ParsePlusResistor(ObjectReader& reader) {
   return plus;
 }
 
-SignalSource ParseSource(ObjectReader& reader) {
+SignalSource ParseVoltageSource(ObjectReader& reader) {
   SignalSource source;
-  if (!reader.Has("voltage"))
-    throw reader.ErrorHere(
-        "expected \"voltage\" (a voltage source with its resistance)");
   ObjectReader voltage = reader.Object("voltage");
   if (voltage.Has("resistance")) {
-    source.resistance_ohm =
-        voltage.Quantity("resistance", Quantity::kResistance);
+    source.resistance_ohm = voltage.Quantity("resistance", Quantity::kResistance);
     if (!(source.resistance_ohm >= 0))
-      throw voltage.ErrorAt("resistance",
-                            "expected a non-negative resistance, got " +
-                                Dump(voltage.Get("resistance")));
+      throw voltage.ErrorAt("resistance", "expected a non-negative resistance, got " +
+                                              Dump(voltage.Get("resistance")));
   }
   voltage.Finish();
-  reader.Finish();
   return source;
+}
+
+Photodiode ParsePhotodiode(ObjectReader& reader) {
+  Photodiode pd;
+  ObjectReader r = reader.Object("photodiode");
+  pd.capacitance_f = NonNegativeCapacitance(r, "capacitance");
+  if (r.Has("shunt_resistance")) pd.shunt_resistance_ohm = PositiveResistance(r, "shunt_resistance");
+  if (auto dark = r.OptionalQuantity("dark_current", Quantity::kCurrent)) {
+    if (!(*dark >= 0))
+      throw r.ErrorAt("dark_current", "expected a non-negative current, got " + Dump(r.Get("dark_current")));
+    pd.dark_current_a = *dark;
+  }
+  if (auto resp = r.OptionalQuantity("responsivity", Quantity::kResponsivity)) {
+    if (!(*resp > 0))
+      throw r.ErrorAt("responsivity", "expected a positive responsivity, got " + Dump(r.Get("responsivity")));
+    pd.responsivity_a_per_w = *resp;
+  }
+  r.Finish();
+  return pd;
 }
 
 }  // namespace
@@ -162,8 +203,9 @@ Stage ParseStage(std::string_view json_text, std::string_view source_name,
         "expected a positive frequency (1/f noise diverges at 0 Hz), got " +
             Dump(band.Get("low")));
   if (!(stage.band_high_hz > stage.band_low_hz))
-    throw band.ErrorAt("high", "expected a frequency above the low edge, got " +
-                                   Dump(band.Get("high")));
+    throw band.ErrorAt("high", "expected a frequency above the low edge (" +
+                                   FormatEng(stage.band_low_hz, "Hz") +
+                                   "), got " + Dump(band.Get("high")));
   band.Finish();
 
   if (auto ref = top.OptionalQuantity("reference_frequency_Hz",
@@ -178,20 +220,39 @@ Stage ParseStage(std::string_view json_text, std::string_view source_name,
   ObjectReader opamp = top.Object("opamp");
   stage.opamp = ParseOpAmp(opamp, context);
 
+  ObjectReader st = top.Object("stage");
+  const std::string topology = st.String("topology");
+  if (topology == "inverting") {
+    stage.topology = Topology::kInverting;
+  } else if (topology == "transimpedance") {
+    stage.topology = Topology::kTransimpedance;
+  } else {
+    throw st.ErrorAt("topology", "unknown topology \"" + topology + "\"" +
+                                     DidYouMean(topology, {"inverting", "transimpedance"}));
+  }
+  const bool photodiode = stage.topology == Topology::kTransimpedance;
+
   if (top.Has("source")) {
     ObjectReader src = top.Object("source");
-    stage.source = ParseSource(src);
+    const char* wanted = photodiode ? "photodiode" : "voltage";
+    if (!src.Has(wanted))
+      throw src.ErrorHere(std::string("expected \"") + wanted + "\" for a " + topology + " stage");
+    if (photodiode) stage.photodiode = ParsePhotodiode(src);
+    else stage.source = ParseVoltageSource(src);
+    src.Finish();
+  } else if (photodiode) {
+    throw top.ErrorAt("source", "missing (required: a transimpedance stage needs \"photodiode\")");
   }
 
-  ObjectReader st = top.Object("stage");
-  std::string topology = st.String("topology");
-  if (topology != "inverting")
-    throw st.ErrorAt("topology", "unknown topology \"" + topology + "\"" +
-                                     DidYouMean(topology, {"inverting"}));
-  stage.topology = Topology::kInverting;
-  stage.input_resistor_ohm = PositiveResistance(st, "input_resistor");
+  if (photodiode) {
+    if (st.Has("input_resistor"))
+      throw st.ErrorAt("input_resistor",
+                       "not used by a transimpedance stage (the photodiode drives the - input)");
+  } else {
+    stage.input_resistor_ohm = PositiveResistance(st, "input_resistor");
+  }
   ObjectReader fb = st.Object("feedback");
-  stage.feedback = ParseFeedback(fb);
+  stage.feedback = ParseFeedback(fb, &stage.capacitor_target);
   stage.plus_resistor = ParsePlusResistor(st);
   if (st.Has("load")) stage.load_ohm = PositiveResistance(st, "load");
   st.Finish();

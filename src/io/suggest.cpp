@@ -23,7 +23,7 @@ int EditDistance(std::string_view a, std::string_view b) {
 
 std::string DidYouMean(std::string_view name,
                        const std::vector<std::string>& candidates) {
-  const int limit = std::max<int>(2, static_cast<int>(name.size()) / 3);
+  const int limit = std::max<int>(2, static_cast<int>(name.size()) / 3 + 1);
   const std::string* best = nullptr;
   int best_distance = limit + 1;
   for (const std::string& c : candidates) {

@@ -12,7 +12,7 @@ namespace hushgain {
 int EditDistance(std::string_view a, std::string_view b);
 
 // Returns " (did you mean \"x\"?)" or "" when no candidate is within
-// max(2, |name| / 3) edits.
+// max(2, |name| / 3 + 1) edits.
 std::string DidYouMean(std::string_view name,
                        const std::vector<std::string>& candidates);
 

@@ -1,5 +1,6 @@
 #include "io/units.h"
 
+#include <algorithm>
 #include <array>
 #include <cmath>
 #include <cstdio>
@@ -156,22 +157,16 @@ std::string FormatWith(double value, std::string_view unit, int digits,
   if (!std::isfinite(value))
     return std::string(value > 0 ? "inf " : "-inf ") + std::string(unit);
   if (digits < 1) digits = 1;
-  double magnitude = std::fabs(value);
-  int exponent3 = static_cast<int>(std::floor(std::log10(magnitude) / 3.0)) * 3;
-  // Rounding may carry into the next group: 999.96 -> "1000" -> "1.000 k".
-  double mantissa = value / std::pow(10.0, exponent3);
-  int int_digits = std::fabs(mantissa) >= 100  ? 3
-                   : std::fabs(mantissa) >= 10 ? 2
-                                               : 1;
-  int decimals = digits - int_digits;
-  if (decimals < 0) decimals = 0;
+  // Round to the significant digits first, so 9.99996e6 becomes 10.00e6
+  // and takes the next prefix when it must.
   char buf[64];
-  std::snprintf(buf, sizeof buf, "%.*f", decimals, mantissa);
-  if (std::fabs(std::strtod(buf, nullptr)) >= 1000.0) {
-    exponent3 += 3;
-    mantissa = value / std::pow(10.0, exponent3);
-    std::snprintf(buf, sizeof buf, "%.*f", digits - 1, mantissa);
-  }
+  std::snprintf(buf, sizeof buf, "%.*e", digits - 1, value);
+  const double rounded = std::strtod(buf, nullptr);
+  int exponent3 = static_cast<int>(std::floor(std::log10(std::fabs(rounded)) / 3.0)) * 3;
+  const double mantissa = rounded / std::pow(10.0, exponent3);
+  const double m = std::fabs(mantissa);
+  const int int_digits = m >= 99.95 ? 3 : m >= 9.995 ? 2 : 1;
+  std::snprintf(buf, sizeof buf, "%.*f", std::max(0, digits - int_digits), mantissa);
   if (exponent3 < -15 || exponent3 > 12) {
     std::snprintf(buf, sizeof buf, "%.*e", digits - 1, value);
     return std::string(buf) + " " + std::string(unit);

@@ -1,5 +1,7 @@
 #include "noise/noise_source.h"
 
+#include <cmath>
+
 #include "noise/physical_constants.h"
 
 namespace hushgain {
@@ -26,6 +28,11 @@ std::vector<NoiseSource> CollectNoiseSources(const Netlist& net,
     if (!r.noisy) continue;
     sources.push_back({r.name, NoiseKind::kThermal, CurrentInjection{r.a, r.b},
                        four_kt / r.ohms, 0.0});
+  }
+  for (const JunctionCurrent& j : net.junction_currents) {
+    // Schottky 1918: 2 q I, white.
+    sources.push_back({j.name, NoiseKind::kShot, CurrentInjection{j.b, j.a},
+                       2.0 * kElementaryChargeC * std::fabs(j.amperes), 0.0});
   }
   const bool several = net.opamps.size() > 1;
   for (std::size_t k = 0; k < net.opamps.size(); ++k) {

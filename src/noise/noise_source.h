@@ -6,6 +6,7 @@
 //                           (Johnson 1928, Nyquist 1928)
 //   op-amp voltage noise    e_w^2 (1 + f_cv/f) in series with the + input
 //   op-amp current noise    i_w^2 (1 + f_ci/f) from each input pin to ground
+//   junction shot noise     2 q I across the junction (Schottky 1918)
 // Sources are uncorrelated: their output powers add.
 #ifndef HUSHGAIN_NOISE_NOISE_SOURCE_H_
 #define HUSHGAIN_NOISE_NOISE_SOURCE_H_
@@ -39,7 +40,8 @@ struct NoiseSource {
   }
 };
 
-// One source per noisy resistor, one e_n and two i_n per op-amp. Sources
+// One source per noisy resistor and junction current, one e_n and two i_n
+// per op-amp. Sources
 // whose excitation lies wholly on ground (an input pin tied to ground) are
 // left out: they reach no node.
 std::vector<NoiseSource> CollectNoiseSources(const Netlist& netlist,

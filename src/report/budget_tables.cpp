@@ -89,6 +89,8 @@ Table OffsetTable(const Budget& b) {
             FormatEng(o.vos_v, "V")});
   t.AddRow({"Ib into both inputs", FormatEng(o.ib_v, "V")});
   t.AddRow({"Ios (sign unknown)", FormatEng(o.ios_v, "V")});
+  if (b.photodiode)
+    t.AddRow({"dark current x transimpedance", FormatEng(o.dark_v, "V")});
   t.AddRule();
   t.AddRow({"worst case", FormatEng(o.worst_case_v, "V")});
   t.AddRow({"root-sum-square", FormatEng(o.rss_v, "V")});

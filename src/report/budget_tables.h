@@ -17,7 +17,8 @@ namespace hushgain {
 // output rms, share; a rule, then the "total" row.
 Table NoiseTable(const Budget& budget);
 
-// Vos x noise gain, Ib, Ios; a rule; worst case, root-sum-square.
+// Vos x noise gain, Ib, Ios (and for a photodiode the dark current); a
+// rule; worst case, root-sum-square.
 Table OffsetTable(const Budget& budget);
 
 // Requires budget.tee. Rows: output and input-referred rms, e_n noise gain

@@ -63,12 +63,14 @@ std::string SpectrumToCsv(const Budget& b, const SpectrumSamples& s) {
   t.header.push_back(b.input_unit == "A" ? "signal_gain_V_per_A"
                                          : "signal_gain_V_per_V");
   t.header.push_back("noise_gain_V_per_V");
+  t.header.push_back("loop_gain_V_per_V");
   for (std::size_t i = 0; i < s.f_hz.size(); ++i) {
     std::vector<std::string> row = {CsvNumber(s.f_hz[i])};
     for (int k : order) row.push_back(CsvNumber(s.density_v_per_rthz[k][i]));
     row.push_back(CsvNumber(s.total_v_per_rthz[i]));
     row.push_back(CsvNumber(s.signal_gain_abs[i]));
     row.push_back(CsvNumber(s.noise_gain_abs[i]));
+    row.push_back(CsvNumber(s.loop_gain_abs[i]));
     t.AddRow(std::move(row));
   }
   return RenderCsv(t);

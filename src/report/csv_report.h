@@ -10,7 +10,8 @@
 //
 // SpectrumToCsv: one record per frequency of the samples:
 //   f_Hz, <contributor>_V_per_rtHz ..., total_V_per_rtHz,
-//   signal_gain_V_per_V (or _V_per_A), noise_gain_V_per_V
+//   signal_gain_V_per_V (or _V_per_A), noise_gain_V_per_V, loop_gain_V_per_V
+// (magnitudes; the loop gain is the op-amp's return ratio).
 // contributors in the budget's order (largest share first).
 #ifndef HUSHGAIN_REPORT_CSV_REPORT_H_
 #define HUSHGAIN_REPORT_CSV_REPORT_H_

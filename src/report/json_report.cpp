@@ -27,6 +27,9 @@ std::string BudgetToJson(const Budget& b) {
   using nlohmann::json;
   json out;
   out["stage"] = b.stage_name;
+  out["opamp"] = {{"class", b.opamp_class},
+                  {"gbw_Hz", b.opamp_gbw_hz},
+                  {"open_loop_gain", b.opamp_open_loop_gain}};
   out["temperature_K"] = b.temperature_k;
   out["band_Hz"] = {b.band_low_hz, b.band_high_hz};
   out["reference_frequency_Hz"] = b.reference_hz;
@@ -70,14 +73,28 @@ std::string BudgetToJson(const Budget& b) {
       {"vos_V", b.offset.vos_v},
       {"ib_V", b.offset.ib_v},
       {"ios_V", b.offset.ios_v},
+      {"dark_V", b.offset.dark_v},
       {"worst_case_V", b.offset.worst_case_v},
       {"rss_V", b.offset.rss_v},
       {"noise_gain_dc", b.offset.noise_gain_dc},
       {"plus_resistor_ohm", b.offset.plus_resistor_ohm},
       {"balance_resistor_ohm", b.offset.balance_resistor_ohm},
   };
+  if (b.photodiode) {
+    const PhotodiodeBlock& pd = *b.photodiode;
+    out["photodiode"] = {{"input_capacitance_F", pd.input_capacitance_f},
+                         {"noise_gain_plateau_estimate", pd.noise_gain_plateau_estimate},
+                         {"responsivity_A_per_W", pd.responsivity_a_per_w}};
+    if (pd.responsivity_a_per_w > 0) {
+      out["noise"]["nep_W_per_rtHz"] = pd.nep_w_per_rthz;
+      out["noise"]["nep_rms_W"] = pd.nep_rms_w;
+    }
+  }
   if (b.full_scale_output_v) {
     out["full_scale_output_V"] = *b.full_scale_output_v;
+    if (b.full_scale_output_current_a)
+      out["full_scale_output_current_A"] = *b.full_scale_output_current_a;
+    out["output_current_limit_A"] = b.output_current_limit_a;
     out["snr_dB"] = *b.snr_db;
     out["dynamic_range_dB"] = *b.dynamic_range_db;
   }

@@ -195,7 +195,7 @@ class ScriptWriter {
   }
 
   // Datablocks hold numbers only. $samples: f, one column per contributor
-  // (budget order), total, |signal gain|, |noise gain|.
+  // (budget order), total, |signal gain|, |noise gain|, |loop gain|.
   void Data() {
     const SpectrumSamples& s = d_.samples;
     out_ += "$samples << EOD\n";
@@ -204,7 +204,7 @@ class ScriptWriter {
       for (int k : order_) out_ += " " + LogNum(s.density_v_per_rthz[k][i]);
       out_ += " " + LogNum(s.total_v_per_rthz[i]) + " " +
               LogNum(s.signal_gain_abs[i]) + " " + LogNum(s.noise_gain_abs[i]) +
-              "\n";
+              " " + LogNum(s.loop_gain_abs[i]) + "\n";
     }
     out_ += "EOD\n";
     out_ += "$cumulative << EOD\n";
@@ -367,53 +367,106 @@ class ScriptWriter {
     out_ += "set format y '% h'\n";
   }
 
-  void Gain(const Frame&) {
-    const SpectrumSamples& s = d_.samples;
+  // A log range around the curves: a little room above the largest value,
+  // at most `decades` below it, and always the unity line when `with_unity`.
+  static std::pair<double, double> LogRange(
+      const std::vector<const std::vector<double>*>& curves, double decades,
+      bool with_unity) {
     double y_max = 0, y_min = HUGE_VAL;
-    for (const auto* v : {&s.signal_gain_abs, &s.noise_gain_abs})
+    for (const auto* v : curves)
       for (double x : *v)
         if (x > 0) {
           y_max = std::max(y_max, x);
           y_min = std::min(y_min, x);
         }
     if (!(y_max > 0)) y_max = y_min = 1;
-    // The range hugs the curves (no empty decade above them); decade tics
-    // inside it are labelled.
     const double top = y_max * 2.5;
-    const double bottom = std::max(y_min / 1.5, top * 1e-5);
-    const std::string unit = b_.input_unit == "A" ? "V/A" : "V/V";
-    PanelTitle("Signal gain and e_n noise gain (magnitude)");
+    double bottom = std::max(y_min / 1.5, top * std::pow(10.0, -decades));
+    if (with_unity) bottom = std::min(bottom, 0.3);
+    return {bottom, top};
+  }
+
+  // A vertical marker with a rotated label beside it, on the left or the
+  // right of the line.
+  void Marker(int tag, double f, const std::string& text, const char* colour,
+              bool label_left) {
+    out_ += "set arrow from first " + Num(f) + ", graph 0 to first " + Num(f) +
+            ", graph 1 nohead dt 4 lw 1.5 lc rgb '" + colour + "' front\n";
+    out_ += "set label " + std::to_string(tag) + " " + GnuplotString(text) +
+            " at first " + Num(f) + ", graph 0.04 left rotate by 90 offset " +
+            (label_left ? "-0.7" : "1.5") + ",0 tc rgb '" + colour +
+            "' front\n";
+  }
+
+  void Gain(const Frame&) {
+    const SpectrumSamples& s = d_.samples;
+    // A current source's signal gain is a transimpedance (V/A): it gets the
+    // left axis alone, the V/V gains the right one. Otherwise every gain is
+    // V/V on the left and the right axis reads the same in dB.
+    const bool transimpedance = b_.input_unit == "A";
+    std::vector<const std::vector<double>*> ratio_curves = {&s.noise_gain_abs,
+                                                            &s.loop_gain_abs};
+    if (!transimpedance) ratio_curves.push_back(&s.signal_gain_abs);
+    const auto [r_bottom, r_top] = LogRange(ratio_curves, 6, true);
+    PanelTitle("Signal gain, e_n noise gain and loop gain (magnitude)");
     out_ += "set logscale y\n";
-    out_ += "set yrange [" + Num(bottom) + ":" + Num(top) + "]\n";
-    out_ += LogTics("y", bottom, top, GainLabel);
-    out_ +=
-        "set ylabel " +
-        GnuplotString(b_.input_unit == "A" ? "gain (signal V/A, noise gain V/V)"
-                                           : "gain (V/V)") +
-        "\n";
-    out_ += "set y2range [" + Num(20.0 * std::log10(bottom)) + ":" +
-            Num(20.0 * std::log10(top)) + "]\n";
-    out_ += "set y2tics 10 out\nset y2label 'dB'\nset border 11 lw 1\n";
-    if (b_.bandwidth_3db_hz > 0) {
-      out_ += "set arrow from first " + Num(b_.bandwidth_3db_hz) +
-              ", graph 0 to first " + Num(b_.bandwidth_3db_hz) +
-              ", graph 1 nohead dt 4 lw 1.5 lc rgb '" + kColours[1] +
-              "' front\n";
-      out_ +=
-          "set label 13 " +
-          GnuplotString("-3 dB at " + FormatEng(b_.bandwidth_3db_hz, "Hz")) +
-          " at first " + Num(b_.bandwidth_3db_hz) +
-          ", graph 0.04 left rotate by 90 offset 1.4,0 tc rgb '" + kColours[1] +
-          "' front\n";
+    const char* ratio_axis = "x1y1";
+    if (transimpedance) {
+      const auto [z_bottom, z_top] = LogRange({&s.signal_gain_abs}, 4, false);
+      out_ += "set yrange [" + Num(z_bottom) + ":" + Num(z_top) + "]\n";
+      out_ += LogTics("y", z_bottom, z_top,
+                      [](double v) { return Short(v, "\xCE\xA9"); });
+      out_ += "set ylabel " + GnuplotString("transimpedance (V/A = \xCE\xA9)") +
+              "\n";
+      out_ += "set logscale y2\n";
+      out_ += "set y2range [" + Num(r_bottom) + ":" + Num(r_top) + "]\n";
+      out_ += "set y2tics out\n";
+      out_ += LogTics("y2", r_bottom, r_top, GainLabel);
+      out_ += "set y2label 'noise gain, loop gain (V/V)'\n";
+      ratio_axis = "x1y2";
+    } else {
+      out_ += "set yrange [" + Num(r_bottom) + ":" + Num(r_top) + "]\n";
+      out_ += LogTics("y", r_bottom, r_top, GainLabel);
+      out_ += "set ylabel 'gain (V/V)'\n";
+      out_ += "set y2range [" + Num(20.0 * std::log10(r_bottom)) + ":" +
+              Num(20.0 * std::log10(r_top)) + "]\n";
+      out_ += "set y2tics 20 out\nset y2label 'dB'\n";
     }
+    out_ += "set border 11 lw 1\n";
+    // The unity line, where the loop gain crosses over.
+    out_ += std::string("set arrow from graph 0, ") +
+            (transimpedance ? "second" : "first") + " 1 to graph 1, " +
+            (transimpedance ? "second" : "first") +
+            " 1 nohead dt 3 lw 1 lc rgb '#888888'\n";
+
+    // The -3 dB bandwidth and the loop crossover, each labelled on the side
+    // away from the other so the two never overlap.
+    const double bw = b_.bandwidth_3db_hz;
+    const bool crossover = b_.loop.crossover_found &&
+                           b_.loop.crossover_hz > f_min_ &&
+                           b_.loop.crossover_hz < f_max_;
+    if (bw > 0)
+      Marker(13, bw, "-3 dB at " + FormatEng(bw, "Hz"), kColours[1],
+             !crossover || bw <= b_.loop.crossover_hz);
+    if (crossover)
+      Marker(14, b_.loop.crossover_hz,
+             "loop gain 1 at " + FormatEng(b_.loop.crossover_hz, "Hz") +
+                 ", phase margin " + Printf("%.1f", b_.loop.phase_margin_deg) +
+                 "\xC2\xB0",
+             kColours[4], !(bw > 0) || bw > b_.loop.crossover_hz);
+
     const int cols = static_cast<int>(order_.size());
     out_ += "plot $samples using 1:" + std::to_string(cols + 3) +
-            " with lines lw 2.5 lc rgb '" + kColours[0] + "' title " +
-            GnuplotString("|signal gain| (" + unit + ")") +
-            ", \\\n  $samples using 1:" + std::to_string(cols + 4) +
-            " with lines lw 2.5 dt 2 lc rgb '" + kColours[2] + "' title " +
-            GnuplotString("|e_n noise gain| (V/V)") + "\n";
-    out_ += "set border 3\n";
+            " axes x1y1 with lines lw 2.5 lc rgb '" + kColours[0] + "' title " +
+            GnuplotString("|signal gain| (" +
+                          std::string(transimpedance ? "V/A" : "V/V") + ")") +
+            ", \\\n  $samples using 1:" + std::to_string(cols + 4) + " axes " +
+            ratio_axis + " with lines lw 2.5 dt 2 lc rgb '" + kColours[2] +
+            "' title " + GnuplotString("|e_n noise gain| (V/V)") +
+            ", \\\n  $samples using 1:" + std::to_string(cols + 5) + " axes " +
+            ratio_axis + " with lines lw 2 dt 5 lc rgb '" + kColours[4] +
+            "' title " + GnuplotString("|loop gain| (V/V)") + "\n";
+    out_ += "set border 3\nunset logscale y2\n";
   }
 
   const Budget& b_;

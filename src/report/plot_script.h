@@ -6,8 +6,11 @@
 //               V/rtHz; the band shaded, its edges drawn and labelled;
 //   cumulative  the output rms from the low band edge up to f,
 //               sqrt(integral of S_out from f_low to f), and the band total;
-//   gain        |signal gain| and |e_n noise gain| (V/V, dB on the right),
-//               the -3 dB bandwidth marked.
+//   gain        |signal gain|, |e_n noise gain| and |loop gain| (V/V, dB on
+//               the right; for a photodiode the transimpedance in ohm on
+//               the left and the V/V gains on the right), the -3 dB
+//               bandwidth and the loop's unity crossover with its phase
+//               margin marked.
 // Every string from the stage (stage and contributor names) and the output
 // path go through GnuplotString (report/text_escape.h) on a `noenhanced`
 // terminal, so they are drawn as text and never run; numbers are printed

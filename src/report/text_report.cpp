@@ -11,6 +11,14 @@
 namespace hushgain {
 namespace {
 
+constexpr const char* kPerRtHz = "/\xE2\x88\x9AHz";  // "/√Hz"
+
+std::string Gain(double value) { return FormatGain(value); }
+
+std::string Density(double value, const std::string& unit) {
+  return FormatDensity(value, unit);
+}
+
 std::string Printf(const char* format, double value) {
   char buf[64];
   std::snprintf(buf, sizeof buf, format, value);
@@ -18,7 +26,6 @@ std::string Printf(const char* format, double value) {
 }
 
 std::string Header(const Budget& b) {
-  const std::string unit = b.input_unit == "A" ? "V/A" : "V/V";
   std::string out = b.stage_name + "\n";
   out += "  temperature " + Printf("%.2f", b.temperature_k - kZeroCelsiusK) +
          " \xC2\xB0"
@@ -27,16 +34,41 @@ std::string Header(const Budget& b) {
          FormatEng(b.band_low_hz, "Hz") + " to " +
          FormatEng(b.band_high_hz, "Hz") + ", reference " +
          FormatEng(b.reference_hz, "Hz") + "\n";
-  out += "  signal gain " + FormatGain(b.signal_gain_dc) + " " + unit +
-         " at DC, |" + FormatGain(b.signal_gain_ref) + "| at the reference\n";
-  out += "  noise gain (e_n to output) " + FormatGain(b.noise_gain_dc) +
-         " at DC, " + FormatGain(b.noise_gain_ref) + " at the reference\n";
+  out += "  op-amp " + b.opamp_class + ", GBW " +
+         FormatEng(b.opamp_gbw_hz, "Hz") + ", A0 " +
+         Printf("%.3g", b.opamp_open_loop_gain) + "\n";
+  if (b.input_unit == "A") {
+    out += "  transimpedance " + FormatEng(b.signal_gain_dc, "\xCE\xA9") +
+           " at DC, |" + FormatEng(b.signal_gain_ref, "\xCE\xA9") +
+           "| at the reference\n";
+  } else {
+    out += "  signal gain " + Gain(b.signal_gain_dc) + " V/V at DC, |" +
+           Gain(b.signal_gain_ref) + "| at the reference\n";
+  }
+  out += "  noise gain (e_n to output) " + Gain(b.noise_gain_dc) + " at DC, " +
+         Gain(b.noise_gain_ref) + " at the reference, peak " +
+         Gain(b.noise_gain_peak) + " at " +
+         FormatEng(b.noise_gain_peak_hz, "Hz") + "\n";
   out += "  closed-loop -3 dB bandwidth " +
          (b.bandwidth_3db_hz > 0 ? FormatEng(b.bandwidth_3db_hz, "Hz")
                                  : std::string("not found")) +
-         (b.peaking_db > 0.01 ? ", peaking " + Printf("%.2f dB", b.peaking_db)
+         (b.peaking_db > 0.01 ? ", peaking " + Printf("%.2f dB", b.peaking_db) +
+                                    " at " + FormatEng(b.peak_hz, "Hz")
                               : "") +
          "\n";
+  if (b.loop.crossover_found)
+    out += "  loop gain crosses unity at " +
+           FormatEng(b.loop.crossover_hz, "Hz") + ", phase margin " +
+           Printf("%.1f", b.loop.phase_margin_deg) + "\xC2\xB0\n";
+  if (b.feedback_capacitor_f > 0 || b.capacitor_choice)
+    out += "  feedback capacitor " + FormatEng(b.feedback_capacitor_f, "F") +
+           (b.capacitor_choice
+                ? " (chosen for " + b.capacitor_choice->target +
+                      "; the estimate " + b.capacitor_choice->estimate_rule +
+                      " gives " +
+                      FormatEng(b.capacitor_choice->estimate_f, "F") + ")"
+                : std::string()) +
+           "\n";
   return out;
 }
 
@@ -48,13 +80,34 @@ std::string NoiseSection(const Budget& b) {
   out += "  output peak-to-peak    " + FormatEng(b.output_peak_to_peak_v, "V") +
          "  (6.6 x rms: inside about 99.9 % of the time, Gaussian)\n";
   out += "  input-referred         " + FormatEng(b.input_rms, b.input_unit) +
-         " rms, " + FormatDensity(b.input_density_ref_per_rthz, b.input_unit) +
+         " rms, " + Density(b.input_density_ref_per_rthz, b.input_unit) +
          " at " + ref + "\n";
+  if (b.photodiode && b.photodiode->responsivity_a_per_w > 0) {
+    out +=
+        "  NEP                    " +
+        FormatEng(b.photodiode->nep_w_per_rthz, std::string("W") + kPerRtHz) +
+        " at " + ref + ", " + FormatEng(b.photodiode->nep_rms_w, "W") +
+        " rms over the band (" +
+        Printf("%.3g A/W", b.photodiode->responsivity_a_per_w) + ")\n";
+  }
+  if (b.photodiode && b.photodiode->noise_gain_plateau_estimate > 0) {
+    out += "  e_n x C                the e_n noise gain rises to " +
+           Gain(b.noise_gain_peak) + " at " +
+           FormatEng(b.noise_gain_peak_hz, "Hz") +
+           " (1 + C/C_f = " + Gain(b.photodiode->noise_gain_plateau_estimate) +
+           " with C = C_d + C_in = " +
+           FormatEng(b.photodiode->input_capacitance_f, "F") + ")\n";
+  }
   if (b.snr_db) {
     out += "  full scale             \xC2\xB1" +
            FormatEng(*b.full_scale_output_v, "V") + ": SNR " +
            Printf("%.1f dB", *b.snr_db) + " (full-scale sine), dynamic range " +
            Printf("%.1f dB", *b.dynamic_range_db) + " (swing / noise p-p)\n";
+    if (b.full_scale_output_current_a)
+      out += "  output drive           " +
+             FormatEng(*b.full_scale_output_current_a, "A") +
+             " at full scale (limit " +
+             FormatEng(b.output_current_limit_a, "A") + ")\n";
   }
   return out;
 }
@@ -78,6 +131,7 @@ std::string TeeSection(const Budget& b) {
   out += Printf("  noise cost of the T network: x%.3f in output noise",
                 c.noise_cost_ratio) +
          Printf(" (%+.2f dB)\n", 20.0 * std::log10(c.noise_cost_ratio));
+
   out += "\n" + RenderText(TeeChangesTable(b));
   return out;
 }

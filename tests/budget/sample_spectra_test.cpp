@@ -43,6 +43,14 @@ TEST_CASE("sampled densities of an inverting stage follow the textbook terms") {
           test::kRelIdeal);
     CHECK(RelErr(s.signal_gain_abs[i], rf / rin) < test::kRelIdeal);
     CHECK(RelErr(s.noise_gain_abs[i], ng) < test::kRelIdeal);
+    // Loop gain T = A beta with beta = 1 / NG for this network, and the
+    // dominant-pole A(s) = A0 / (1 + s / w_p), f_p = GBW / A0 = 1 kHz
+    // (REFERENCES.md section 11): |T| = A0 / sqrt(1 + (f / f_p)^2) / NG.
+    const double f = s.f_hz[i];
+    const double a0 = 1e12, f_pole = 1e15 / a0;
+    CHECK(RelErr(s.loop_gain_abs[i],
+                 a0 / std::sqrt(1 + (f / f_pole) * (f / f_pole)) / ng) <
+          test::kRelIdeal);
     double sum = 0;
     for (const auto& d : s.density_v_per_rthz) sum += d[i] * d[i];
     CHECK(RelErr(s.total_v_per_rthz[i], std::sqrt(sum)) < test::kRelTight);

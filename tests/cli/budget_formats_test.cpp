@@ -21,7 +21,6 @@ using nlohmann::json;
 using test::RelErr;
 using test::RunHushgain;
 using test::ScratchDir;
-using test::ShellQuote;
 
 // Markdown and text cells carry 4 significant digits: a value read back is
 // within half a unit of the 4th digit, 5e-4 relative at worst.
@@ -30,9 +29,8 @@ constexpr double kRelFourDigits = 5e-4;
 // log f, against the adaptive band integral: the issue asks for 1 %.
 constexpr double kRelSpectrum = 0.01;
 
-json BudgetJson(const ScratchDir& dir, const std::string& example) {
-  const auto r = RunHushgain(
-      dir, "budget --format json " + ShellQuote(test::ExamplePath(example)));
+json BudgetJson(const std::string& example) {
+  const auto r = RunHushgain({"budget", "--format", "json", example});
   REQUIRE(r.exit_code == 0);
   return json::parse(r.out);
 }
@@ -89,12 +87,10 @@ std::vector<std::vector<std::string>> ParseCsv(const std::string& text) {
 }
 
 TEST_CASE("the markdown budget's totals equal the JSON budget's totals") {
-  ScratchDir dir("markdown");
-  for (const std::string& example : test::ExampleNames()) {
+  for (const std::string& example : test::ExamplePaths()) {
     INFO("example " << example);
-    const json j = BudgetJson(dir, example);
-    const auto r = RunHushgain(dir, "budget --format markdown " +
-                                        ShellQuote(test::ExamplePath(example)));
+    const json j = BudgetJson(example);
+    const auto r = RunHushgain({"budget", "--format", "markdown", example});
     REQUIRE(r.exit_code == 0);
     const std::string& md = r.out;
     CHECK(md.rfind("## Noise budget: ", 0) == 0);
@@ -138,12 +134,10 @@ TEST_CASE("the markdown budget's totals equal the JSON budget's totals") {
 }
 
 TEST_CASE("the csv budget holds every contributor with SI numbers") {
-  ScratchDir dir("csv");
-  for (const std::string& example : test::ExampleNames()) {
+  for (const std::string& example : test::ExamplePaths()) {
     INFO("example " << example);
-    const json j = BudgetJson(dir, example);
-    const auto r = RunHushgain(
-        dir, "budget --format csv " + ShellQuote(test::ExamplePath(example)));
+    const json j = BudgetJson(example);
+    const auto r = RunHushgain({"budget", "--format", "csv", example});
     REQUIRE(r.exit_code == 0);
     const auto rows = ParseCsv(r.out);
     const auto& contributors = j["noise"]["contributors"];
@@ -163,22 +157,24 @@ TEST_CASE("the csv budget holds every contributor with SI numbers") {
 
 TEST_CASE("the spectrum csv integrates to the budget's output rms") {
   ScratchDir dir("spectrum");
-  for (const std::string& example : test::ExampleNames()) {
+  for (const std::string& example : test::ExamplePaths()) {
     INFO("example " << example);
-    const json j = BudgetJson(dir, example);
-    const std::string csv = dir / (example + ".csv");
-    const auto r =
-        RunHushgain(dir, "budget --spectrum " + ShellQuote(csv) + " " +
-                             ShellQuote(test::ExamplePath(example)));
+    const json j = BudgetJson(example);
+    const std::string csv = dir / (test::Stem(example) + ".csv");
+    const auto r = RunHushgain({"budget", "--spectrum", csv, example});
     REQUIRE(r.exit_code == 0);
     const auto rows = ParseCsv(test::ReadAll(csv));
     REQUIRE(rows.size() > 50);
     const std::vector<std::string>& header = rows[0];
     CHECK(header[0] == "f_Hz");
     const std::size_t columns = header.size();
-    CHECK(header[columns - 3] == "total_V_per_rtHz");
-    CHECK(header[columns - 2] == "signal_gain_V_per_V");
-    CHECK(header[columns - 1] == "noise_gain_V_per_V");
+    CHECK(header[columns - 4] == "total_V_per_rtHz");
+    // V/A for a current source (a photodiode), V/V for a voltage source.
+    CHECK(header[columns - 3] == (j["noise"]["input_referred_unit"] == "A"
+                                      ? "signal_gain_V_per_A"
+                                      : "signal_gain_V_per_V"));
+    CHECK(header[columns - 2] == "noise_gain_V_per_V");
+    CHECK(header[columns - 1] == "loop_gain_V_per_V");
     // The band edges are on the grid.
     const double f_low = j["band_Hz"][0], f_high = j["band_Hz"][1];
     CHECK(RelErr(std::stod(rows[1][0]), f_low) < 1e-8);
@@ -189,12 +185,12 @@ TEST_CASE("the spectrum csv integrates to the budget's output rms") {
     for (std::size_t i = 2; i < rows.size(); ++i) {
       const double f0 = std::stod(rows[i - 1][0]), f1 = std::stod(rows[i][0]);
       const double du = std::log(f1 / f0);
-      for (std::size_t c = 1; c < columns - 2; ++c) {
+      for (std::size_t c = 1; c < columns - 3; ++c) {
         const double d0 = std::stod(rows[i - 1][c]), d1 = std::stod(rows[i][c]);
         power[c] += 0.5 * du * (d0 * d0 * f0 + d1 * d1 * f1);
       }
     }
-    CHECK(RelErr(std::sqrt(power[columns - 3]), j["noise"]["output_rms_V"]) <
+    CHECK(RelErr(std::sqrt(power[columns - 4]), j["noise"]["output_rms_V"]) <
           kRelSpectrum);
     // Each contributor with a share above 1 % also matches its own rms.
     for (const json& c : j["noise"]["contributors"]) {
@@ -209,25 +205,23 @@ TEST_CASE("the spectrum csv integrates to the budget's output rms") {
 }
 
 TEST_CASE("--json is the same as --format json") {
-  ScratchDir dir("json");
-  const std::string stage = ShellQuote(test::ExamplePath("load-cell-bridge"));
-  const auto a = RunHushgain(dir, "budget --json " + stage);
-  const auto b = RunHushgain(dir, "budget --format json " + stage);
+  const std::string stage = test::ExamplePath("load-cell-bridge");
+  const auto a = RunHushgain({"budget", "--json", stage});
+  const auto b = RunHushgain({"budget", "--format", "json", stage});
   CHECK(a.exit_code == 0);
   CHECK(a.out == b.out);
   CHECK(json::parse(a.out).contains("noise"));
 }
 
 TEST_CASE("a bad --format is one line naming the option, exit code 2") {
-  ScratchDir dir("badformat");
-  const std::string stage = ShellQuote(test::ExamplePath("load-cell-bridge"));
-  auto r = RunHushgain(dir, "budget --format markdwn " + stage);
+  const std::string stage = test::ExamplePath("load-cell-bridge");
+  auto r = RunHushgain({"budget", "--format", "markdwn", stage});
   CHECK(r.exit_code == 2);
   CHECK(r.err ==
         "error: command line: --format: expected text, json, markdown or csv, "
         "got \"markdwn\" (did you mean \"markdown\"?)\n");
   CHECK(r.out.empty());
-  r = RunHushgain(dir, "budget --json --format csv " + stage);
+  r = RunHushgain({"budget", "--json", "--format", "csv", stage});
   CHECK(r.exit_code == 2);
   CHECK(r.err == "error: command line: --json contradicts --format csv\n");
 }
@@ -235,9 +229,8 @@ TEST_CASE("a bad --format is one line naming the option, exit code 2") {
 TEST_CASE("--spectrum into a missing folder fails and leaves nothing") {
   ScratchDir dir("spectrumfail");
   const std::string target = dir / "no-such-folder/spectrum.csv";
-  const auto r =
-      RunHushgain(dir, "budget --spectrum " + ShellQuote(target) + " " +
-                           ShellQuote(test::ExamplePath("load-cell-bridge")));
+  const auto r = RunHushgain(
+      {"budget", "--spectrum", target, test::ExamplePath("load-cell-bridge")});
   CHECK(r.exit_code == 2);
   CHECK(r.err.rfind("error: " + target + ": cannot write", 0) == 0);
   CHECK(dir.Files().empty());

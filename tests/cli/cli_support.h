@@ -1,42 +1,45 @@
-// Running the built hushgain binary from tests: a scratch folder per test,
-// the command's exit code, stdout and stderr as text.
+// Helpers for the end-to-end tests of `budget` formats and `plot`: every
+// example stage in examples/, a scratch folder per test, and the built
+// binary run through RunBinary (cli/run_binary.h: fork and exec, no shell).
 #ifndef HUSHGAIN_TESTS_CLI_CLI_SUPPORT_H_
 #define HUSHGAIN_TESTS_CLI_CLI_SUPPORT_H_
 
-#include <sys/wait.h>
 #include <unistd.h>
 
 #include <algorithm>
-#include <cstdlib>
 #include <filesystem>
 #include <fstream>
 #include <sstream>
 #include <string>
 #include <vector>
 
+#include "cli/run_binary.h"
+
 namespace hushgain::test {
 
-inline const std::vector<std::string>& ExampleNames() {
-  static const std::vector<std::string> names = {
-      "hydrophone-preamp", "load-cell-bridge", "thermopile-stage"};
-  return names;
+// Every stage file in examples/, by path, sorted.
+inline std::vector<std::string> ExamplePaths() {
+  std::vector<std::string> out;
+  for (const auto& e : std::filesystem::directory_iterator(
+           std::filesystem::path(HUSHGAIN_SOURCE_DIR) / "examples"))
+    if (e.path().extension() == ".json") out.push_back(e.path().string());
+  std::sort(out.begin(), out.end());
+  return out;
 }
 
 inline std::string ExamplePath(const std::string& name) {
   return std::string(HUSHGAIN_SOURCE_DIR) + "/examples/" + name + ".json";
 }
 
-inline std::string ReadAll(const std::filesystem::path& path) {
+inline std::string Stem(const std::string& path) {
+  return std::filesystem::path(path).stem().string();
+}
+
+inline std::string ReadAll(const std::string& path) {
   std::ifstream in(path, std::ios::binary);
   std::ostringstream out;
   out << in.rdbuf();
   return out.str();
-}
-
-inline std::string ShellQuote(const std::string& s) {
-  std::string out = "'";
-  for (char c : s) out += c == '\'' ? std::string("'\\''") : std::string(1, c);
-  return out + "'";
 }
 
 // A fresh empty folder under the system temporary folder, removed on
@@ -55,7 +58,9 @@ class ScratchDir {
     std::error_code ec;
     std::filesystem::remove_all(path_, ec);
   }
-  const std::filesystem::path& path() const { return path_; }
+  ScratchDir(const ScratchDir&) = delete;
+  ScratchDir& operator=(const ScratchDir&) = delete;
+
   std::string operator/(const std::string& name) const {
     return (path_ / name).string();
   }
@@ -72,28 +77,15 @@ class ScratchDir {
   std::filesystem::path path_;
 };
 
-struct RunResult {
-  int exit_code = -1;
-  std::string out;
-  std::string err;
-};
-
-// Runs `HUSHGAIN_BINARY args` through /bin/sh with `env_prefix` (such as
-// "PATH=/nowhere") before it; args are already shell-quoted.
-inline RunResult RunHushgain(const ScratchDir& dir, const std::string& args,
-                             const std::string& env_prefix = "") {
-  const std::string out = dir / ".stdout", err = dir / ".stderr";
-  const std::string command = env_prefix + " " + ShellQuote(HUSHGAIN_BINARY) +
-                              " " + args + " >" + ShellQuote(out) + " 2>" +
-                              ShellQuote(err);
-  const int status = std::system(command.c_str());
-  RunResult r;
-  r.exit_code = WIFEXITED(status) ? WEXITSTATUS(status) : -1;
-  r.out = ReadAll(out);
-  r.err = ReadAll(err);
-  std::filesystem::remove(out);
-  std::filesystem::remove(err);
-  return r;
+// The built binary with `args`; `env` entries ("PATH=...") go through
+// /usr/bin/env when given.
+inline RunResult RunHushgain(const std::vector<std::string>& args,
+                             const std::vector<std::string>& env = {}) {
+  if (env.empty()) return RunBinary(HUSHGAIN_BINARY, args);
+  std::vector<std::string> all = env;
+  all.push_back(HUSHGAIN_BINARY);
+  all.insert(all.end(), args.begin(), args.end());
+  return RunBinary("/usr/bin/env", all);
 }
 
 }  // namespace hushgain::test

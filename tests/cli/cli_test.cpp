@@ -1,1 +1,408 @@
+// End-to-end tests of the built hushgain binary: every example through
+// `budget` and `budget --json`, its figures against expectations derived
+// independently (tests/cli/expected/derive_expected.py), and bad input:
+// exit code 2, one line on stderr naming the file and the JSON path (or the
+// option), nothing on stdout, nothing on disk changed.
 #include <doctest/doctest.h>
+#include <unistd.h>
+
+#include <algorithm>
+#include <cmath>
+#include <cstdlib>
+#include <filesystem>
+#include <fstream>
+#include <map>
+#include <nlohmann/json.hpp>
+#include <sstream>
+#include <string>
+#include <vector>
+
+#include "cli/run_binary.h"
+#include "test_support.h"
+
+namespace hushgain::test {
+namespace {
+
+namespace fs = std::filesystem;
+using nlohmann::json;
+
+// The engine integrates to a relative error of 1e-4 on the total output
+// noise power, about 5e-5 on an rms; derive_expected.py integrates to 1e-11
+// and stores 10 digits. 2e-4 on an rms (and on a ratio of two rms values)
+// leaves room for the engine's error estimate being conservative by 2x, and
+// still catches any change of the model (a missing contributor, a wrong
+// noise gain or a lost 1/f term moves these figures by 1e-3 or more).
+constexpr double kRelNoiseExpected = 2e-4;
+// The DC offsets come from one linear solve on each side: rounding only,
+// plus the 10 stored digits.
+constexpr double kRelOffsetExpected = 1e-8;
+
+RunResult Hushgain(const std::vector<std::string>& args,
+                   const std::string& working_dir = "") {
+  return RunBinary(HUSHGAIN_BINARY, args, working_dir);
+}
+
+std::string ReadAll(const fs::path& path) {
+  std::ifstream in(path, std::ios::binary);
+  std::ostringstream out;
+  out << in.rdbuf();
+  return out.str();
+}
+
+std::vector<fs::path> Examples() {
+  std::vector<fs::path> out;
+  for (const fs::directory_entry& e :
+       fs::directory_iterator(fs::path(HUSHGAIN_SOURCE_DIR) / "examples"))
+    if (e.path().extension() == ".json") out.push_back(e.path());
+  std::sort(out.begin(), out.end());
+  return out;
+}
+
+// The value at a JSON pointer such as "/noise/output_rms_V"; fails the
+// test when it is missing.
+const json& At(const json& doc, const std::string& pointer) {
+  const json::json_pointer p(pointer);
+  REQUIRE_MESSAGE(doc.contains(p), "missing key " << pointer);
+  return doc.at(p);
+}
+
+void CheckFiniteNumber(const json& doc, const std::string& pointer) {
+  const json& v = At(doc, pointer);
+  CHECK_MESSAGE(v.is_number(), pointer << " is " << v.dump());
+  if (v.is_number())
+    CHECK_MESSAGE(std::isfinite(v.get<double>()), pointer << " = " << v);
+}
+
+// A folder of its own under the system temporary folder, removed with the
+// object; bad stage files go here, never into the source tree.
+class TempFolder {
+ public:
+  TempFolder() {
+    std::string pattern =
+        (fs::temp_directory_path() / "hushgain-cli-test-XXXXXX").string();
+    REQUIRE(::mkdtemp(pattern.data()) != nullptr);
+    path_ = pattern;
+  }
+  ~TempFolder() {
+    std::error_code ignored;
+    fs::remove_all(path_, ignored);
+  }
+  TempFolder(const TempFolder&) = delete;
+  TempFolder& operator=(const TempFolder&) = delete;
+
+  const fs::path& path() const { return path_; }
+
+  void Write(const std::string& name, const std::string& text) const {
+    std::ofstream out(path_ / name, std::ios::binary);
+    out << text;
+  }
+
+  // Every file in the folder with its contents.
+  std::map<std::string, std::string> Snapshot() const {
+    std::map<std::string, std::string> files;
+    for (const fs::directory_entry& e : fs::directory_iterator(path_))
+      files[e.path().filename().string()] = ReadAll(e.path());
+    return files;
+  }
+
+ private:
+  fs::path path_;
+};
+
+// A valid stage; each bad-input case below changes one thing.
+json GoodStage() {
+  return json::parse(R"({
+    "name": "bad-input test stage",
+    "temperature_C": 25,
+    "band_Hz": {"low": "10", "high": "1k"},
+    "opamp": {"device": "zero-drift"},
+    "source": {"voltage": {"resistance": "100"}},
+    "stage": {
+      "topology": "inverting",
+      "input_resistor": "1k",
+      "feedback": {"resistor": "100k"},
+      "load": "10k"
+    }
+  })");
+}
+
+// Runs `hushgain args...` in a temporary folder holding stage.json with
+// `stage_text`, and checks the bad-input contract: exit code 2, nothing on
+// stdout, exactly the one line `expected_line` on stderr, and the folder
+// (the input file included) unchanged afterwards.
+void CheckBadInput(const std::string& stage_text,
+                   const std::vector<std::string>& args,
+                   const std::string& expected_line) {
+  TempFolder folder;
+  folder.Write("stage.json", stage_text);
+  const auto before = folder.Snapshot();
+  const RunResult r = Hushgain(args, folder.path().string());
+  CHECK(r.exit_code == 2);
+  CHECK(r.out == "");
+  CHECK(Lines(r.err).size() == 1);
+  CHECK(r.err == expected_line + "\n");
+  CHECK(folder.Snapshot() == before);
+}
+
+void CheckBadStage(const json& stage, const std::string& expected_line) {
+  CheckBadInput(stage.dump(2), {"budget", "stage.json"}, expected_line);
+  // The same file asked for JSON output fails the same way.
+  CheckBadInput(stage.dump(2), {"budget", "--json", "stage.json"},
+                expected_line);
+}
+
+}  // namespace
+
+TEST_CASE("the repository holds at least three examples") {
+  CHECK(Examples().size() >= 3);
+}
+
+TEST_CASE("every example runs through budget with exit code 0") {
+  for (const fs::path& example : Examples()) {
+    CAPTURE(example);
+    const std::string before = ReadAll(example);
+    const RunResult r = Hushgain({"budget", example.string()});
+    CHECK(r.exit_code == 0);
+    CHECK(r.err.find("error") == std::string::npos);
+    // The table opens with the stage's name from the file.
+    const std::string name = json::parse(before).at("name");
+    REQUIRE_FALSE(Lines(r.out).empty());
+    CHECK(Lines(r.out)[0] == name);
+    CHECK(r.out.find("total") != std::string::npos);
+    CHECK(ReadAll(example) == before);
+  }
+}
+
+TEST_CASE("budget --json of every example has the documented keys as finite values") {
+  for (const fs::path& example : Examples()) {
+    CAPTURE(example);
+    const RunResult r = Hushgain({"budget", "--json", example.string()});
+    REQUIRE(r.exit_code == 0);
+    const json doc = json::parse(r.out);  // throws (fails) on bad JSON
+
+    for (const char* key :
+         {"/noise/output_rms_V", "/noise/output_peak_to_peak_V",
+          "/noise/input_referred_rms", "/signal_gain/magnitude",
+          "/reference_frequency_Hz", "/band_Hz/0", "/band_Hz/1",
+          "/temperature_K", "/offset/vos_V", "/offset/ib_V", "/offset/ios_V",
+          "/offset/worst_case_V", "/offset/rss_V"})
+      CheckFiniteNumber(doc, key);
+    CHECK(At(doc, "/band_Hz").size() == 2);
+    CHECK(At(doc, "/noise/input_referred_unit").is_string());
+
+    const json& contributors = At(doc, "/noise/contributors");
+    REQUIRE(contributors.is_array());
+    CHECK_FALSE(contributors.empty());
+    double share_sum = 0, power_sum = 0;
+    for (const json& c : contributors) {
+      CHECK(c.contains("name"));
+      CHECK(c.contains("kind"));
+      CHECK(At(c, "/name").is_string());
+      CHECK(At(c, "/kind").is_string());
+      CheckFiniteNumber(c, "/output_rms_V");
+      CheckFiniteNumber(c, "/share");
+      share_sum += c.value("share", 0.0);
+      const double rms = c.value("output_rms_V", 0.0);
+      power_sum += rms * rms;
+    }
+    // Uncorrelated contributors add in power (DESIGN.md); the shares are
+    // fractions of the total power, and p-p is 6.6 x rms (REFERENCES.md
+    // section 5, common practice).
+    const double total = At(doc, "/noise/output_rms_V").get<double>();
+    CHECK(RelErr(share_sum, 1.0) < kRelTight);
+    CHECK(RelErr(std::sqrt(power_sum), total) < kRelTight);
+    CHECK(RelErr(At(doc, "/noise/output_peak_to_peak_V").get<double>(),
+                 6.6 * total) < kRelTight);
+
+    const json stage_file = json::parse(ReadAll(example));
+    if (stage_file.at("/stage/feedback"_json_pointer).contains("tee")) {
+      CheckFiniteNumber(doc, "/tee/equivalent_resistance_ohm");
+      CheckFiniteNumber(doc, "/tee/plain_output_rms_V");
+      CheckFiniteNumber(doc, "/tee/noise_cost_ratio");
+    } else {
+      CHECK_FALSE(doc.contains("tee"));
+    }
+  }
+}
+
+TEST_CASE("budget --json of every example matches the derived expectations") {
+  // tests/cli/expected/<example>.json: figures derived without the engine
+  // by tests/cli/expected/derive_expected.py (REFERENCES.md section 6 noise
+  // gains and section 4 white + 1/f integrals, and an own nodal analysis of
+  // the DESIGN.md macro model with a direct solve per source); each entry
+  // names its method and, where a closed form exists, its distance from it.
+  const std::map<std::string, std::string> pointer_of = {
+      {"output_rms_V", "/noise/output_rms_V"},
+      {"input_referred_rms", "/noise/input_referred_rms"},
+      {"worst_case_V", "/offset/worst_case_V"},
+      {"noise_cost_ratio", "/tee/noise_cost_ratio"},
+  };
+  for (const fs::path& example : Examples()) {
+    CAPTURE(example);
+    const fs::path expected_path = fs::path(HUSHGAIN_SOURCE_DIR) / "tests" /
+                                   "cli" / "expected" / example.filename();
+    REQUIRE_MESSAGE(fs::exists(expected_path),
+                    "no expectations for " << example.filename());
+    const json expected = json::parse(ReadAll(expected_path));
+    const RunResult r = Hushgain({"budget", "--json", example.string()});
+    REQUIRE(r.exit_code == 0);
+    const json doc = json::parse(r.out);
+
+    const json& figures = expected.at("figures");
+    CHECK(figures.contains("output_rms_V"));
+    CHECK(figures.contains("worst_case_V"));
+    for (auto it = figures.begin(); it != figures.end(); ++it) {
+      CAPTURE(it.key());
+      REQUIRE(pointer_of.count(it.key()) == 1);
+      const double want = it.value().at("value").get<double>();
+      const double got = At(doc, pointer_of.at(it.key())).get<double>();
+      const double tolerance =
+          it.key() == "worst_case_V" ? kRelOffsetExpected : kRelNoiseExpected;
+      CHECK_MESSAGE(
+          RelErr(got, want) < tolerance,
+          got << " against " << want << " (" << it.value().at("method") << ")");
+    }
+  }
+}
+
+TEST_CASE("the bad-input stage is good before it is broken") {
+  TempFolder folder;
+  folder.Write("stage.json", GoodStage().dump(2));
+  const RunResult r =
+      Hushgain({"budget", "stage.json"}, folder.path().string());
+  CHECK(r.exit_code == 0);
+  CHECK(r.err == "");
+}
+
+TEST_CASE("a missing field is named by its JSON path") {
+  json stage = GoodStage();
+  stage["stage"].erase("input_resistor");
+  CheckBadStage(stage,
+                "error: stage.json: /stage/input_resistor: missing (required)");
+}
+
+TEST_CASE("an unknown device gets a did-you-mean") {
+  json stage = GoodStage();
+  stage["opamp"]["device"] = "zero-drfit";
+  CheckBadStage(stage,
+                "error: stage.json: /opamp/device: unknown op-amp device "
+                "\"zero-drfit\" (did you mean \"zero-drift\"?)");
+}
+
+TEST_CASE("a negative resistor is refused") {
+  json stage = GoodStage();
+  stage["stage"]["input_resistor"] = "-1k";
+  CheckBadStage(stage,
+                "error: stage.json: /stage/input_resistor: expected a positive "
+                "resistance, got \"-1k\"");
+}
+
+TEST_CASE("a zero resistor is refused") {
+  json stage = GoodStage();
+  stage["stage"]["feedback"]["resistor"] = 0;
+  CheckBadStage(stage,
+                "error: stage.json: /stage/feedback/resistor: expected a "
+                "positive resistance, got 0");
+}
+
+TEST_CASE("a low band edge above the high edge is refused") {
+  json stage = GoodStage();
+  stage["band_Hz"] = {{"low", "10k"}, {"high", "1k"}};
+  CheckBadStage(stage,
+                "error: stage.json: /band_Hz/high: expected a frequency above "
+                "the low edge (10.00 kHz), got \"1k\"");
+}
+
+TEST_CASE("a low band edge at zero is refused") {
+  json stage = GoodStage();
+  stage["band_Hz"]["low"] = 0;
+  CheckBadStage(stage,
+                "error: stage.json: /band_Hz/low: expected a positive "
+                "frequency (1/f noise diverges at 0 Hz), got 0");
+}
+
+TEST_CASE("malformed JSON is reported with its line and column") {
+  // Line 3 lacks the comma between two members; the parser stops at the
+  // end of the string it did not expect, "high", whose closing quote is in
+  // column 29.
+  const std::string text =
+      "{\n"
+      "  \"name\": \"x\",\n"
+      "  \"band_Hz\": {\"low\": 1 \"high\": 2}\n"
+      "}\n";
+  CheckBadInput(text, {"budget", "stage.json"},
+                "error: stage.json: malformed JSON at line 3, column 29: "
+                "unexpected string literal; expected '}'");
+}
+
+TEST_CASE("truncated JSON is reported just after its last character") {
+  const std::string text = "{\n  \"name\": \"x\",\n";
+  CheckBadInput(text, {"budget", "stage.json"},
+                "error: stage.json: malformed JSON at line 3, column 1: "
+                "unexpected end of input; expected string literal");
+}
+
+TEST_CASE("an unknown unit names the text that failed") {
+  json stage = GoodStage();
+  stage["stage"]["input_resistor"] = "10 kV";
+  CheckBadStage(stage,
+                "error: stage.json: /stage/input_resistor: expected a "
+                "resistance, got \"10 kV\" (unknown unit \"kV\")");
+}
+
+TEST_CASE("an object where a resistance goes is refused") {
+  json stage = GoodStage();
+  stage["stage"]["input_resistor"] = {{"value", "1k"}};
+  CheckBadStage(stage,
+                "error: stage.json: /stage/input_resistor: expected a "
+                "resistance, got an object");
+}
+
+TEST_CASE("a boolean where a resistance goes is refused") {
+  json stage = GoodStage();
+  stage["stage"]["feedback"]["resistor"] = true;
+  CheckBadStage(stage,
+                "error: stage.json: /stage/feedback/resistor: expected a "
+                "resistance, got a boolean");
+}
+
+TEST_CASE("an unknown key gets a did-you-mean") {
+  json stage = GoodStage();
+  stage["stage"].erase("load");
+  stage["stage"]["laod"] = "10k";
+  CheckBadStage(stage,
+                "error: stage.json: /stage/laod: unknown key (did you mean "
+                "\"load\"?)");
+}
+
+TEST_CASE("a missing stage file is named") {
+  CheckBadInput(GoodStage().dump(), {"budget", "no-such-stage.json"},
+                "error: no-such-stage.json: cannot read: no such file or "
+                "directory");
+}
+
+TEST_CASE("an unknown subcommand gets a did-you-mean") {
+  CheckBadInput(GoodStage().dump(), {"budgte", "stage.json"},
+                "error: unknown command \"budgte\" (did you mean "
+                "\"budget\"?); try --help");
+}
+
+TEST_CASE("a --tolerance outside 0 to 1 is refused") {
+  CheckBadInput(GoodStage().dump(),
+                {"budget", "--tolerance", "0", "stage.json"},
+                "error: command line: --tolerance: expected a relative "
+                "tolerance in (0, 1), got 0");
+  CheckBadInput(GoodStage().dump(),
+                {"budget", "--tolerance", "1.5", "stage.json"},
+                "error: command line: --tolerance: expected a relative "
+                "tolerance in (0, 1), got 1.5");
+}
+
+TEST_CASE("a --tolerance that is not a number is refused") {
+  CheckBadInput(GoodStage().dump(),
+                {"budget", "--tolerance", "tight", "stage.json"},
+                "error: command line: --tolerance: expected a number, got "
+                "\"tight\"");
+}
+
+}  // namespace hushgain::test

@@ -21,7 +21,6 @@ using nlohmann::json;
 using test::ReadAll;
 using test::RunHushgain;
 using test::ScratchDir;
-using test::ShellQuote;
 
 // A sheet of three panels is far above this; an empty or truncated
 // picture is far below.
@@ -66,9 +65,8 @@ bool WellFormedXml(const std::string& xml, std::string* why) {
   return true;
 }
 
-std::vector<std::string> ContributorNames(const ScratchDir& dir,
-                                          const std::string& stage) {
-  const auto r = RunHushgain(dir, "budget --json " + ShellQuote(stage));
+std::vector<std::string> ContributorNames(const std::string& stage) {
+  const auto r = RunHushgain({"budget", "--json", stage});
   REQUIRE(r.exit_code == 0);
   std::vector<std::string> names;
   for (const json& c : json::parse(r.out)["noise"]["contributors"])
@@ -80,12 +78,10 @@ bool HasPython() { return std::filesystem::exists("/usr/bin/python3"); }
 
 TEST_CASE("plot writes a valid PNG for every example") {
   ScratchDir dir("png");
-  for (const std::string& example : test::ExampleNames()) {
+  for (const std::string& example : test::ExamplePaths()) {
     INFO("example " << example);
-    const std::string png = dir / (example + ".png");
-    const auto r =
-        RunHushgain(dir, "plot " + ShellQuote(test::ExamplePath(example)) +
-                             " -o " + ShellQuote(png));
+    const std::string png = dir / (test::Stem(example) + ".png");
+    const auto r = RunHushgain({"plot", example, "-o", png});
     INFO("stderr: " << r.err);
     REQUIRE(r.exit_code == 0);
     const std::string bytes = ReadAll(png);
@@ -100,12 +96,10 @@ TEST_CASE("plot writes a valid PNG for every example") {
 
 TEST_CASE("plot writes a well-formed SVG naming every contributor") {
   ScratchDir dir("svg");
-  for (const std::string& example : test::ExampleNames()) {
-    INFO("example " << example);
-    const std::string stage = test::ExamplePath(example);
-    const std::string svg = dir / (example + ".svg");
-    const auto r = RunHushgain(
-        dir, "plot " + ShellQuote(stage) + " -o " + ShellQuote(svg));
+  for (const std::string& stage : test::ExamplePaths()) {
+    INFO("example " << stage);
+    const std::string svg = dir / (test::Stem(stage) + ".svg");
+    const auto r = RunHushgain({"plot", stage, "-o", svg});
     INFO("stderr: " << r.err);
     REQUIRE(r.exit_code == 0);
     const std::string text = ReadAll(svg);
@@ -114,11 +108,13 @@ TEST_CASE("plot writes a well-formed SVG naming every contributor") {
     CHECK_MESSAGE(WellFormedXml(text, &why), why);
     CHECK(text.find("<svg") != std::string::npos);
     if (HasPython())
-      CHECK(std::system(("/usr/bin/python3 -c 'import sys, xml.dom.minidom; "
-                         "xml.dom.minidom.parse(sys.argv[1])' " +
-                         ShellQuote(svg))
-                            .c_str()) == 0);
-    for (const std::string& name : ContributorNames(dir, stage)) {
+      CHECK(test::RunBinary("/usr/bin/python3",
+                            {"-c",
+                             "import sys, xml.dom.minidom; "
+                             "xml.dom.minidom.parse(sys.argv[1])",
+                             svg})
+                .exit_code == 0);
+    for (const std::string& name : ContributorNames(stage)) {
       INFO("contributor " << name);
       CHECK(text.find(">" + name + "  ") != std::string::npos);
     }
@@ -127,16 +123,14 @@ TEST_CASE("plot writes a well-formed SVG naming every contributor") {
 
 TEST_CASE("--only draws one panel, a smaller picture") {
   ScratchDir dir("only");
-  const std::string stage = ShellQuote(test::ExamplePath("hydrophone-preamp"));
-  const auto full =
-      RunHushgain(dir, "plot " + stage + " -o " + ShellQuote(dir / "full.svg"));
+  const std::string stage = test::ExamplePath("hydrophone-preamp");
+  const auto full = RunHushgain({"plot", stage, "-o", dir / "full.svg"});
   REQUIRE(full.exit_code == 0);
   const std::string sheet = ReadAll(dir / "full.svg");
   for (const char* panel : {"spectrum", "cumulative", "gain"}) {
     INFO("panel " << panel);
     const std::string svg = dir / (std::string(panel) + ".svg");
-    const auto r = RunHushgain(
-        dir, "plot " + stage + " --only " + panel + " -o " + ShellQuote(svg));
+    const auto r = RunHushgain({"plot", stage, "--only", panel, "-o", svg});
     REQUIRE(r.exit_code == 0);
     const std::string one = ReadAll(svg);
     CHECK(one.size() < sheet.size());
@@ -145,7 +139,7 @@ TEST_CASE("--only draws one panel, a smaller picture") {
     const bool has_cumulative =
         one.find("Cumulative output noise") != std::string::npos;
     const bool has_gain =
-        one.find("e_n noise gain (magnitude)") != std::string::npos;
+        one.find("loop gain (magnitude)") != std::string::npos;
     CHECK(has_spectrum == (std::string(panel) == "spectrum"));
     CHECK(has_cumulative == (std::string(panel) == "cumulative"));
     CHECK(has_gain == (std::string(panel) == "gain"));
@@ -173,9 +167,8 @@ TEST_CASE("names from the stage file reach gnuplot as text, never as code") {
     }
     const std::string svg = dir / "out.svg";
     const std::string script = dir / "out.gp";
-    const auto r = RunHushgain(dir, "plot " + ShellQuote(stage_path) + " -o " +
-                                        ShellQuote(svg) + " --script " +
-                                        ShellQuote(script));
+    const auto r =
+        RunHushgain({"plot", stage_path, "-o", svg, "--script", script});
     INFO("stderr: " << r.err);
     REQUIRE(r.exit_code == 0);
     CHECK_FALSE(std::filesystem::exists(pwned));
@@ -221,8 +214,7 @@ TEST_CASE("names from the stage file reach gnuplot as text, never as code") {
     CHECK(gp.find("system(") == std::string::npos);
     CHECK(gp.find('`') == std::string::npos);
     // Running the saved script again does not run the name either.
-    CHECK(std::system(
-              ("gnuplot " + ShellQuote(script) + " 2>/dev/null").c_str()) == 0);
+    CHECK(test::RunBinary("/usr/bin/gnuplot", {script}).exit_code == 0);
     CHECK_FALSE(std::filesystem::exists(pwned));
   }
 }
@@ -231,10 +223,8 @@ TEST_CASE("without gnuplot, plot names the package and writes nothing") {
   ScratchDir dir("nognuplot");
   const std::string png = dir / "out.png";
   const auto r =
-      RunHushgain(dir,
-                  "plot " + ShellQuote(test::ExamplePath("load-cell-bridge")) +
-                      " -o " + ShellQuote(png),
-                  "PATH=" + ShellQuote(dir / "empty-path"));
+      RunHushgain({"plot", test::ExamplePath("load-cell-bridge"), "-o", png},
+                  {"PATH=" + dir / "empty-path"});
   CHECK(r.exit_code == 3);
   CHECK(r.err ==
         "error: plot needs gnuplot, which is not on PATH; install the Debian "
@@ -244,16 +234,14 @@ TEST_CASE("without gnuplot, plot names the package and writes nothing") {
 
 TEST_CASE("plot refuses an unknown picture type or panel, exit code 2") {
   ScratchDir dir("plotusage");
-  const std::string stage = ShellQuote(test::ExamplePath("load-cell-bridge"));
-  auto r =
-      RunHushgain(dir, "plot " + stage + " -o " + ShellQuote(dir / "out.pdf"));
+  const std::string stage = test::ExamplePath("load-cell-bridge");
+  auto r = RunHushgain({"plot", stage, "-o", dir / "out.pdf"});
   CHECK(r.exit_code == 2);
   CHECK(r.err ==
         "error: command line: -o: expected a file name ending in "
         ".png or .svg, got \"" +
             dir / "out.pdf" + "\"\n");
-  r = RunHushgain(
-      dir, "plot " + stage + " --only gian -o " + ShellQuote(dir / "out.png"));
+  r = RunHushgain({"plot", stage, "--only", "gian", "-o", dir / "out.png"});
   CHECK(r.exit_code == 2);
   CHECK(r.err ==
         "error: command line: --only: expected spectrum, cumulative "
@@ -264,9 +252,8 @@ TEST_CASE("plot refuses an unknown picture type or panel, exit code 2") {
 TEST_CASE("plot into a missing folder is a write error naming the file") {
   ScratchDir dir("plotfolder");
   const std::string png = dir / "missing/out.png";
-  const auto r = RunHushgain(
-      dir, "plot " + ShellQuote(test::ExamplePath("load-cell-bridge")) +
-               " -o " + ShellQuote(png));
+  const auto r =
+      RunHushgain({"plot", test::ExamplePath("load-cell-bridge"), "-o", png});
   CHECK(r.exit_code == 2);
   CHECK(r.err ==
         "error: " + png + ": cannot write: No such file or directory\n");

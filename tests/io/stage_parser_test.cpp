@@ -1,1 +1,158 @@
+#include "io/stage_parser.h"
+
 #include <doctest/doctest.h>
+
+#include <map>
+
+#include "circuit/feedback_network.h"
+#include "test_support.h"
+
+namespace hushgain {
+namespace {
+
+using test::RelErr;
+
+DeviceLibrary Library() {
+  DeviceLibrary lib;
+  OpAmpModel m;
+  m.class_name = "test class";
+  m.e_w_v_per_rthz = 4e-9;
+  m.i_w_a_per_rthz = 1e-12;
+  m.gbw_hz = 8e6;
+  m.open_loop_gain = 1e6;
+  lib.opamps["precision-bipolar"] = m;
+  lib.opamps["low-noise-bipolar"] = m;
+  return lib;
+}
+
+const DeviceLibrary& SharedLibrary() {
+  static const DeviceLibrary lib = Library();
+  return lib;
+}
+
+Stage Parse(const std::string& text,
+            std::map<std::string, std::string> files = {}) {
+  StageContext context;
+  context.library = &SharedLibrary();
+  context.read_file = [files](const std::string& path) {
+    auto it = files.find(path);
+    if (it == files.end()) throw Error(path, "", "cannot read: No such file or directory");
+    return it->second;
+  };
+  return ParseStage(text, "stage.json", context);
+}
+
+const char* kGood = R"({
+  "name": "load-cell bridge preamp",
+  "temperature_C": 25,
+  "band_Hz": {"low": "0.1", "high": "1k"},
+  "opamp": {"device": "precision-bipolar", "set": {"gbw": "2 MHz"}},
+  "source": {"voltage": {"resistance": "350"}},
+  "stage": {
+    "topology": "inverting",
+    "input_resistor": "2.2k",
+    "feedback": {"tee": {"r1": "47k", "r2": "47k", "r3": "1.1k"}, "capacitor": "10p"},
+    "plus_resistor": "auto",
+    "load": "10k"
+  },
+  "full_scale_output_V": 4
+})";
+
+// Replaces the first occurrence of `from` in kGood.
+std::string Good(const std::string& from, const std::string& to) {
+  std::string s = kGood;
+  std::size_t at = s.find(from);
+  REQUIRE(at != std::string::npos);
+  return s.replace(at, from.size(), to);
+}
+
+TEST_CASE("a stage file resolves every value to SI") {
+  const Stage s = Parse(kGood);
+  CHECK(s.name == "load-cell bridge preamp");
+  CHECK(RelErr(s.temperature_k, 298.15) < test::kRelTight);
+  CHECK(s.band_low_hz == doctest::Approx(0.1));
+  CHECK(s.band_high_hz == 1e3);
+  CHECK_FALSE(s.reference_hz.has_value());
+  CHECK(RelErr(ReferenceFrequencyHz(s), 10.0) < test::kRelTight);
+  CHECK(s.opamp.gbw_hz == 2e6);           // overridden
+  CHECK(s.opamp.e_w_v_per_rthz == 4e-9);  // from the device
+  CHECK(s.source.resistance_ohm == 350);
+  CHECK(s.input_resistor_ohm == 2.2e3);
+  CHECK(s.feedback.kind == Feedback::Kind::kTee);
+  CHECK(s.feedback.tee.r3_ohm == 1.1e3);
+  CHECK(RelErr(s.feedback.capacitor_f, 10e-12) < test::kRelTight);
+  CHECK(s.plus_resistor.mode == PlusResistor::Mode::kAuto);
+  CHECK(*s.load_ohm == 10e3);
+  CHECK(*s.full_scale_output_v == 4);
+  CHECK(RelErr(FeedbackEquivalentOhm(s.feedback), 47e3 + 47e3 + 47e3 * 47e3 / 1.1e3) < test::kRelTight);
+}
+
+TEST_CASE("an op-amp can come inline or from a device file by path") {
+  const Stage inline_stage = Parse(Good(
+      R"("device": "precision-bipolar", "set": {"gbw": "2 MHz"})",
+      R"("set": {"voltage_noise": "3n", "current_noise": "1p", "open_loop_gain": "120 dB", "gbw": "5M"})"));
+  CHECK(inline_stage.opamp.open_loop_gain == doctest::Approx(1e6));
+  CHECK(inline_stage.opamp.class_name == "inline parameters");
+
+  const std::string device = R"({"kind": "opamp", "class": "my class", "illustrative": "x",
+    "parameters": {"voltage_noise": "7n", "current_noise": "2f", "open_loop_gain": 1e5, "gbw": "3M"}})";
+  const Stage from_path = Parse(Good(R"("device": "precision-bipolar")", R"("device": "parts/mine.json")"),
+                                {{"parts/mine.json", device}});
+  CHECK(from_path.opamp.class_name == "my class");
+  CHECK(from_path.opamp.e_w_v_per_rthz == doctest::Approx(7e-9));
+  CHECK(from_path.opamp.gbw_hz == 2e6);  // "set" still applies on top
+}
+
+TEST_CASE("bad stage files name the file and the JSON path") {
+  struct Case { std::string text; std::string message; };
+  const Case cases[] = {
+      {Good(R"("r2": "47k")", R"("r2": "ten")"),
+       R"(stage.json: /stage/feedback/tee/r2: expected a resistance, got "ten" (no number))"},
+      {Good(R"("input_resistor": "2.2k")", R"("input_resistor": "-2.2k")"),
+       R"(stage.json: /stage/input_resistor: expected a positive resistance, got "-2.2k")"},
+      {Good(R"("input_resistor": "2.2k")", R"("input_resistor": 0)"),
+       R"(stage.json: /stage/input_resistor: expected a positive resistance, got 0)"},
+      {Good(R"("load": "10k")", R"("load": "10 kV")"),
+       R"(stage.json: /stage/load: expected a resistance, got "10 kV" (unknown unit "kV"))"},
+      {Good(R"("load": "10k")", R"("load": true)"),
+       R"(stage.json: /stage/load: expected a resistance, got a boolean)"},
+      {Good(R"("low": "0.1")", R"("low": "2k")"),
+       R"(stage.json: /band_Hz/high: expected a frequency above the low edge (2.000 kHz), got "1k")"},
+      {Good(R"("low": "0.1")", R"("low": 0)"),
+       R"(stage.json: /band_Hz/low: expected a positive frequency (1/f noise diverges at 0 Hz), got 0)"},
+      {Good(R"("device": "precision-bipolar")", R"("device": "precision-bipolr")"),
+       R"(stage.json: /opamp/device: unknown op-amp device "precision-bipolr" (did you mean "precision-bipolar"?))"},
+      {Good(R"("load": "10k")", R"("lod": "10k")"),
+       R"(stage.json: /stage/lod: unknown key (did you mean "load"?))"},
+      {Good(R"("input_resistor": "2.2k",)", ""),
+       R"(stage.json: /stage/input_resistor: missing (required))"},
+      {Good(R"("band_Hz")", R"("band_hz")"),
+       R"(stage.json: /band_Hz: missing (required; is "band_hz" a typo?))"},
+      {Good(R"("topology": "inverting")", R"("topology": "inverter")"),
+       R"(stage.json: /stage/topology: unknown topology "inverter" (did you mean "inverting"?))"},
+      {Good(R"("tee": {"r1": "47k", "r2": "47k", "r3": "1.1k"})", R"("resistor": "1M", "tee": {})"),
+       R"(stage.json: /stage/feedback: expected exactly one of "resistor" or "tee")"},
+      {Good(R"("gbw": "2 MHz")", R"("gbw": "-2 MHz")"),
+       R"(stage.json: /opamp/set/gbw: expected a positive frequency, got "-2 MHz")"},
+      {Good(R"("temperature_C": 25)", R"("temperature_C": -300)"),
+       R"(stage.json: /temperature_C: expected a temperature above -273.15 °C and below 1000 °C, got -300)"},
+      {Good(R"("plus_resistor": "auto")", R"("plus_resistor": "automatic")"),
+       R"(stage.json: /stage/plus_resistor: expected a resistance, got "automatic" (no number))"},
+      {"{\n  \"name\": \"x\",\n  oops\n}",
+       R"(stage.json: malformed JSON at line 3, column 3: invalid literal; expected string literal)"},
+      {"[1, 2]", R"(stage.json: /: expected an object, got an array)"},
+  };
+  for (const Case& c : cases) {
+    CAPTURE(c.text);
+    CHECK_THROWS_WITH_AS(Parse(c.text), c.message.c_str(), Error);
+  }
+}
+
+TEST_CASE("a device path that cannot be read is an error at /opamp/device") {
+  CHECK_THROWS_WITH_AS(
+      Parse(Good(R"("device": "precision-bipolar")", R"("device": "nowhere/x.json")")),
+      R"(stage.json: /opamp/device: cannot read: No such file or directory (nowhere/x.json))", Error);
+}
+
+}  // namespace
+}  // namespace hushgain

@@ -81,7 +81,8 @@ TEST_CASE("bad values are refused with the reason") {
 }
 
 TEST_CASE("engineering notation prints 4 significant digits and an SI prefix") {
-  CHECK(FormatEng(1.2345e-6, "V") == "1.235 \xC2\xB5V");
+  CHECK(FormatEng(1.23456e-6, "V") == "1.235 \xC2\xB5V");
+  CHECK(FormatEng(9.99996e6, "\xCE\xA9") == "10.00 M\xCE\xA9");  // rounding carries
   CHECK(FormatEng(4.967e6, "\xCE\xA9") == "4.967 M\xCE\xA9");
   CHECK(FormatEng(0, "V") == "0 V");
   CHECK(FormatEng(999.96, "Hz") == "1.000 kHz");

@@ -1,0 +1,99 @@
+#include "analysis/loop_gain.h"
+
+#include <cmath>
+#include <cstdio>
+
+#include "analysis/phase.h"
+
+namespace hushgain {
+namespace {
+
+std::string Hz(double f_hz) {
+  char buf[48];
+  std::snprintf(buf, sizeof buf, "%.6g Hz", f_hz);
+  return buf;
+}
+
+}  // namespace
+
+LoopGainSolver::LoopGainSolver(const MnaSystem& system, int opamp, const OpAmpModel& model)
+    : g_(system.g()),
+      c_(system.c()),
+      y_(system.size(), system.size()),
+      lu_(system.size()),
+      b_(ComplexVector::Zero(system.size())),
+      x_(system.size()),
+      plus_(system.OpAmpPlus(opamp)),
+      minus_(system.OpAmpMinus(opamp)),
+      inverse_a0_(1.0 / model.open_loop_gain),
+      inverse_wt_(1.0 / (2.0 * kPi * model.gbw_hz)) {
+  // Replace the controlled-source row by V_amp = 1.
+  const int row = system.OpAmpRow(opamp);
+  g_.row(row).setZero();
+  c_.row(row).setZero();
+  g_(row, system.OpAmpAmplifierNode(opamp)) = 1.0;
+  b_[row] = 1.0;
+}
+
+Status LoopGainSolver::LoopGainAt(double f_hz, Complex* loop_gain) {
+  const double w = 2.0 * kPi * f_hz;
+  y_.real() = g_;
+  y_.imag() = w * c_;
+  lu_.compute(y_);
+  x_.noalias() = lu_.solve(b_);
+  const double smallest_pivot = lu_.matrixLU().diagonal().cwiseAbs().minCoeff();
+  if (!x_.allFinite() || !(smallest_pivot > 0))
+    return Status::Fail("the loop cannot be solved at " + Hz(f_hz));
+  Complex vd = 0;
+  if (plus_ >= 0) vd += x_[plus_];
+  if (minus_ >= 0) vd -= x_[minus_];
+  const Complex a = 1.0 / Complex(inverse_a0_, w * inverse_wt_);
+  *loop_gain = -a * vd;
+  return Status::Ok();
+}
+
+LoopSummary SummarizeLoop(LoopGainSolver& solver, double f_start_hz, double f_max_hz,
+                          int points_per_decade) {
+  LoopSummary out;
+  Complex t;
+  out.status = solver.LoopGainAt(f_start_hz, &t);
+  if (!out.status.ok) return out;
+  out.dc_loop_gain = t.real();
+  double phase = std::arg(t);  // unwrapped, radians
+  double f_prev = f_start_hz;
+  double mag_prev = std::abs(t);
+  double phase_prev = phase;
+  const double step = std::pow(10.0, 1.0 / points_per_decade);
+  for (double f = f_start_hz * step; f <= f_max_hz * step; f *= step) {
+    out.status = solver.LoopGainAt(f, &t);
+    if (!out.status.ok) return out;
+    phase += WrapPi(std::arg(t) - phase);
+    const double mag = std::abs(t);
+    if (mag_prev >= 1.0 && mag < 1.0) {
+      // Bisect in log f; carry the unwrapped phase along.
+      double lo = f_prev, hi = f, phase_lo = phase_prev;
+      for (int i = 0; i < 80 && hi / lo > 1 + 1e-8; ++i) {
+        const double mid = std::sqrt(lo * hi);
+        out.status = solver.LoopGainAt(mid, &t);
+        if (!out.status.ok) return out;
+        const double phase_mid = phase_lo + WrapPi(std::arg(t) - phase_lo);
+        if (std::abs(t) >= 1.0) {
+          lo = mid;
+          phase_lo = phase_mid;
+        } else {
+          hi = mid;
+        }
+      }
+      out.crossover_found = true;
+      out.crossover_hz = std::sqrt(lo * hi);
+      out.phase_margin_deg = 180.0 + phase_lo * 180.0 / kPi;
+      return out;
+    }
+    f_prev = f;
+    mag_prev = mag;
+    phase_prev = phase;
+  }
+  return out;
+}
+
+}  // namespace hushgain

@@ -1,0 +1,55 @@
+// The loop gain of an op-amp in its actual network, as a return ratio
+// (Bode): drive the op-amp's ideal-amplifier node with 1 V from outside,
+// removing the controlled-source relation, solve the network for the input
+// difference v_d = V+ - V-, and
+//   T(j w) = -A(j w) v_d,   A(s) = 1 / (1/A0 + s / (2 pi GBW)).
+// Every pin capacitance, the output resistance and the load are included.
+// For a negative-feedback loop T(0) > 0; the phase margin is
+// 180 deg + arg T at the first frequency where |T| falls through 1, with the
+// phase unwrapped from DC.
+#ifndef HUSHGAIN_ANALYSIS_LOOP_GAIN_H_
+#define HUSHGAIN_ANALYSIS_LOOP_GAIN_H_
+
+#include "analysis/linear_algebra.h"
+#include "analysis/mna_system.h"
+#include "analysis/status.h"
+#include "circuit/opamp_model.h"
+
+namespace hushgain {
+
+class LoopGainSolver {
+ public:
+  LoopGainSolver(const MnaSystem& system, int opamp, const OpAmpModel& model);
+
+  // Writes T(j 2 pi f); fails like AdjointSolver::SolveAt.
+  Status LoopGainAt(double f_hz, Complex* loop_gain);
+
+ private:
+  RealMatrix g_;
+  RealMatrix c_;
+  ComplexMatrix y_;
+  ComplexLu lu_;
+  ComplexVector b_;
+  ComplexVector x_;
+  int plus_;
+  int minus_;
+  double inverse_a0_;
+  double inverse_wt_;
+};
+
+struct LoopSummary {
+  Status status;
+  double dc_loop_gain = 0;     // T at the lowest scanned frequency, real part
+  bool crossover_found = false;
+  double crossover_hz = 0;     // |T| = 1
+  double phase_margin_deg = 0;  // 180 + arg T(crossover), unwrapped
+};
+
+// Scans f_start_hz .. f_max_hz (log, `points_per_decade`) for the first
+// unity crossing and refines it by bisection in log f.
+LoopSummary SummarizeLoop(LoopGainSolver& solver, double f_start_hz, double f_max_hz,
+                          int points_per_decade = 8);
+
+}  // namespace hushgain
+
+#endif  // HUSHGAIN_ANALYSIS_LOOP_GAIN_H_

@@ -1,0 +1,95 @@
+#include "cli/run_binary.h"
+
+#include <fcntl.h>
+#include <sys/wait.h>
+#include <unistd.h>
+
+#include <cerrno>
+#include <cstdlib>
+#include <filesystem>
+#include <fstream>
+#include <sstream>
+
+namespace hushgain::test {
+namespace {
+
+std::string Slurp(const std::string& path) {
+  std::ifstream in(path, std::ios::binary);
+  std::ostringstream out;
+  out << in.rdbuf();
+  return out.str();
+}
+
+// A fresh, empty file under the system temporary folder; returns its path.
+std::string TemporaryFile(const char* tag) {
+  std::string pattern =
+      (std::filesystem::temp_directory_path() / "hushgain-run-").string() +
+      tag + "-XXXXXX";
+  int fd = ::mkstemp(pattern.data());
+  if (fd >= 0) ::close(fd);
+  return pattern;
+}
+
+}  // namespace
+
+RunResult RunBinary(const std::string& program,
+                    const std::vector<std::string>& args,
+                    const std::string& working_dir) {
+  RunResult result;
+  const std::string out_path = TemporaryFile("out");
+  const std::string err_path = TemporaryFile("err");
+
+  std::vector<std::string> argv_storage;
+  argv_storage.push_back(program);
+  argv_storage.insert(argv_storage.end(), args.begin(), args.end());
+  std::vector<char*> argv;
+  for (std::string& a : argv_storage) argv.push_back(a.data());
+  argv.push_back(nullptr);
+
+  const pid_t pid = ::fork();
+  if (pid == 0) {
+    // Child: only async-signal-safe calls until exec.
+    int out_fd = ::open(out_path.c_str(), O_WRONLY | O_TRUNC);
+    int err_fd = ::open(err_path.c_str(), O_WRONLY | O_TRUNC);
+    if (out_fd < 0 || err_fd < 0) ::_exit(126);
+    ::dup2(out_fd, STDOUT_FILENO);
+    ::dup2(err_fd, STDERR_FILENO);
+    ::close(out_fd);
+    ::close(err_fd);
+    if (!working_dir.empty() && ::chdir(working_dir.c_str()) != 0) ::_exit(126);
+    ::execv(program.c_str(), argv.data());
+    ::_exit(127);
+  }
+  if (pid > 0) {
+    int status = 0;
+    pid_t waited = -1;
+    do {
+      waited = ::waitpid(pid, &status, 0);
+    } while (waited < 0 && errno == EINTR);
+    if (waited < 0)
+      result.exit_code = -1;
+    else if (WIFEXITED(status))
+      result.exit_code = WEXITSTATUS(status);
+    else if (WIFSIGNALED(status))
+      result.exit_code = 128 + WTERMSIG(status);
+  }
+  result.out = Slurp(out_path);
+  result.err = Slurp(err_path);
+  std::filesystem::remove(out_path);
+  std::filesystem::remove(err_path);
+  return result;
+}
+
+std::vector<std::string> Lines(const std::string& text) {
+  std::vector<std::string> lines;
+  std::size_t start = 0;
+  while (start < text.size()) {
+    std::size_t end = text.find('\n', start);
+    if (end == std::string::npos) end = text.size();
+    lines.push_back(text.substr(start, end - start));
+    start = end + 1;
+  }
+  return lines;
+}
+
+}  // namespace hushgain::test

@@ -1,0 +1,33 @@
+// Runs a program as a child process (fork and exec, no shell) and captures
+// its exit code, standard output and standard error, for end-to-end tests
+// of the built hushgain binary.
+#ifndef HUSHGAIN_TESTS_CLI_RUN_BINARY_H_
+#define HUSHGAIN_TESTS_CLI_RUN_BINARY_H_
+
+#include <string>
+#include <vector>
+
+namespace hushgain::test {
+
+struct RunResult {
+  // The exit status; 128 + signal number when the child died of a signal,
+  // -1 when it could not be started.
+  int exit_code = -1;
+  std::string out;  // everything written to stdout
+  std::string err;  // everything written to stderr
+};
+
+// Runs `program` with `args` (argv[1..]); the child's stdout and stderr go
+// to temporary files that are read back and removed. Blocks until the child
+// exits. `working_dir`, when not empty, is the child's current directory.
+RunResult RunBinary(const std::string& program,
+                    const std::vector<std::string>& args,
+                    const std::string& working_dir = "");
+
+// The lines of `text` (split at '\n'; a final newline ends the last line
+// and does not start a new one).
+std::vector<std::string> Lines(const std::string& text);
+
+}  // namespace hushgain::test
+
+#endif  // HUSHGAIN_TESTS_CLI_RUN_BINARY_H_
