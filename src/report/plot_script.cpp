@@ -14,11 +14,11 @@ namespace {
 
 // Sheet geometry in pixels. The legend column on the right holds names
 // with their rms and share; the left margin holds tic labels with units.
-constexpr int kWidthPx = 1320;
+constexpr int kWidthPx = 1400;
 constexpr int kLeftPx = 150;
-constexpr int kLegendPx = 380;
+constexpr int kLegendPx = 440;
 // Room between the plot and the legend for the dB axis of the gain panel.
-constexpr int kKeyGapPx = 85;
+constexpr int kKeyGapPx = 95;
 constexpr int kHeadingPx = 90;
 constexpr int kPanelTopPx = 60;     // panel title and band-edge labels
 constexpr int kPanelBottomPx = 75;  // tic labels and axis label
@@ -75,9 +75,17 @@ std::string Short(double value, const std::string& unit) {
   return number + rest;
 }
 
+// 0.5, 20, 5000, then 1e4, 2e5: short enough for a tic.
 std::string GainLabel(double value) {
-  if (value >= 1 && value <= 1e6) return Printf("%.0f", value);
-  return Printf("%g", value);
+  if (value >= 1 && value < 1e4) return Printf("%.0f", value);
+  if (value < 1 && value >= 1e-3) return Printf("%g", value);
+  std::string s = Printf("%.0e", value);  // "2e+05"
+  const std::size_t e = s.find('e');
+  std::string exponent = s.substr(e + 1);
+  const bool negative = exponent[0] == '-';
+  exponent.erase(0, 1);
+  while (exponent.size() > 1 && exponent[0] == '0') exponent.erase(0, 1);
+  return s.substr(0, e) + "e" + (negative ? "-" : "") + exponent;
 }
 
 // Log-axis tics over [v_min, v_max]: labelled at each decade, unlabelled
@@ -219,15 +227,16 @@ class ScriptWriter {
   }
 
   void Heading() {
-    const std::string unit = b_.input_unit == "A" ? "V/A" : "V/V";
     const std::string summary =
         Printf("%.2f", b_.temperature_k - kZeroCelsiusK) +
         " \xC2\xB0"
         "C, band " +
         FormatEng(b_.band_low_hz, "Hz") + " to " +
-        FormatEng(b_.band_high_hz, "Hz") + ", signal gain " +
-        Printf("%.4g", b_.signal_gain_dc) + " " + unit + " at DC;  output " +
-        FormatEng(b_.output_rms_v, "V") + " rms (" +
+        FormatEng(b_.band_high_hz, "Hz") +
+        (b_.input_unit == "A"
+             ? ", transimpedance " + FormatEng(b_.signal_gain_dc, "\xCE\xA9")
+             : ", signal gain " + Printf("%.4g", b_.signal_gain_dc) + " V/V") +
+        " at DC;  output " + FormatEng(b_.output_rms_v, "V") + " rms (" +
         FormatEng(b_.output_peak_to_peak_v, "V") + " p-p), input-referred " +
         FormatEng(b_.input_rms, b_.input_unit) + " rms";
     out_ += "set label 1 " + GnuplotString(b_.stage_name) +
@@ -282,7 +291,7 @@ class ScriptWriter {
             Num(double(kWidthPx - kLegendPx + kKeyGapPx) / kWidthPx) +
             ", screen " + Num(f.top) +
             " left top Left reverse samplen 2.5 spacing 1.25 "
-            "box lc rgb '#bbbbbb' width 1\n";
+            "box lc rgb '#bbbbbb' width -1\n";
   }
 
   void PanelTitle(const std::string& title) {
@@ -386,16 +395,13 @@ class ScriptWriter {
     return {bottom, top};
   }
 
-  // A vertical marker with a rotated label beside it, on the left or the
-  // right of the line.
-  void Marker(int tag, double f, const std::string& text, const char* colour,
-              bool label_left) {
+  // A vertical marker line; its words go into the legend (a key entry in
+  // the same colour and dash), so no text ever crosses a curve.
+  std::string Marker(double f, const std::string& text, const char* colour) {
     out_ += "set arrow from first " + Num(f) + ", graph 0 to first " + Num(f) +
             ", graph 1 nohead dt 4 lw 1.5 lc rgb '" + colour + "' front\n";
-    out_ += "set label " + std::to_string(tag) + " " + GnuplotString(text) +
-            " at first " + Num(f) + ", graph 0.04 left rotate by 90 offset " +
-            (label_left ? "-0.7" : "1.5") + ",0 tc rgb '" + colour +
-            "' front\n";
+    return ", \\\n  keyentry with lines dt 4 lw 1.5 lc rgb '" +
+           std::string(colour) + "' title " + GnuplotString(text);
   }
 
   void Gain(const Frame&) {
@@ -439,21 +445,21 @@ class ScriptWriter {
             (transimpedance ? "second" : "first") +
             " 1 nohead dt 3 lw 1 lc rgb '#888888'\n";
 
-    // The -3 dB bandwidth and the loop crossover, each labelled on the side
-    // away from the other so the two never overlap.
+    // The -3 dB bandwidth and the loop crossover, named in the legend.
     const double bw = b_.bandwidth_3db_hz;
     const bool crossover = b_.loop.crossover_found &&
                            b_.loop.crossover_hz > f_min_ &&
                            b_.loop.crossover_hz < f_max_;
+    std::string markers;
     if (bw > 0)
-      Marker(13, bw, "-3 dB at " + FormatEng(bw, "Hz"), kColours[1],
-             !crossover || bw <= b_.loop.crossover_hz);
+      markers += Marker(bw, "-3 dB at " + FormatEng(bw, "Hz"), kColours[1]);
     if (crossover)
-      Marker(14, b_.loop.crossover_hz,
-             "loop gain 1 at " + FormatEng(b_.loop.crossover_hz, "Hz") +
-                 ", phase margin " + Printf("%.1f", b_.loop.phase_margin_deg) +
-                 "\xC2\xB0",
-             kColours[4], !(bw > 0) || bw > b_.loop.crossover_hz);
+      markers +=
+          Marker(b_.loop.crossover_hz,
+                 "crossover " + FormatEng(b_.loop.crossover_hz, "Hz") +
+                     ", PM " +
+                     Printf("%.1f", b_.loop.phase_margin_deg) + "\xC2\xB0",
+                 kColours[4]);
 
     const int cols = static_cast<int>(order_.size());
     out_ += "plot $samples using 1:" + std::to_string(cols + 3) +
@@ -465,7 +471,7 @@ class ScriptWriter {
             "' title " + GnuplotString("|e_n noise gain| (V/V)") +
             ", \\\n  $samples using 1:" + std::to_string(cols + 5) + " axes " +
             ratio_axis + " with lines lw 2 dt 5 lc rgb '" + kColours[4] +
-            "' title " + GnuplotString("|loop gain| (V/V)") + "\n";
+            "' title " + GnuplotString("|loop gain| (V/V)") + markers + "\n";
     out_ += "set border 3\nunset logscale y2\n";
   }
 
