@@ -6,6 +6,7 @@
 #include <string>
 
 #include "report/csv_report.h"
+#include "report/text_escape.h"
 
 namespace hushgain {
 namespace {
@@ -95,9 +96,11 @@ TEST_CASE("the plot script draws three panels from inline data") {
         std::string::npos);
   CHECK(gp.find("set arrow from first 1000, graph 0 to first 1000, graph 1") !=
         std::string::npos);
-  CHECK(
-      gp.find("title \"R\\137in  4\\056000 \xC2\xB5V\\054 64\\0560 \\045\"") !=
-      std::string::npos);
+  // (GnuplotString itself is checked in text_escape_test.cpp.)
+  CHECK(gp.find("title " + GnuplotString("R_in  4.000 \xC2\xB5V, 64.0 %")) !=
+        std::string::npos);
+  CHECK(gp.find("title " + GnuplotString("e_n  3.000 \xC2\xB5V, 36.0 %")) !=
+        std::string::npos);
   CHECK(gp.find("unset multiplot") != std::string::npos);
 }
 
