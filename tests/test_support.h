@@ -7,7 +7,10 @@
 #include <stdexcept>
 #include <string>
 
+#include <doctest/doctest.h>
+
 #include "budget/budget.h"
+#include "budget/compute_budget.h"
 #include "circuit/stage.h"
 #include "noise/physical_constants.h"
 
@@ -60,6 +63,16 @@ inline Stage TeeStage(double rin, double r1, double r2, double r3,
   s.feedback.kind = Feedback::Kind::kTee;
   s.feedback.tee = {r1, r2, r3};
   return s;
+}
+
+// The budget of `stage` at a relative integration tolerance; a failed
+// status fails the test with its message.
+inline Budget ComputeOrFail(const Stage& stage, double tolerance) {
+  BudgetOptions options;
+  options.integration.relative_tolerance = tolerance;
+  BudgetOutcome outcome = ComputeBudget(stage, options);
+  REQUIRE_MESSAGE(outcome.status.ok, outcome.status.message);
+  return outcome.budget;
 }
 
 inline const Contributor& FindContributor(const Budget& b,

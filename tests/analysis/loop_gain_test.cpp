@@ -12,7 +12,7 @@ namespace {
 
 using test::RelErr;
 
-TEST_CASE("the loop gain of an inverting stage is A(s) / NG, crossing at f_p sqrt((A0/NG)^2 - 1)") {
+TEST_CASE("the loop gain of an inverting stage is A(s) / NG; crossing at f_p sqrt((A0/NG)^2 - 1)") {
   // Single-pole A(s) = A0 / (1 + s/w_p) (REFERENCES.md section 11; Sedra and
   // Smith, ch. 2); with resistive feedback beta = 1/NG, so |T| = 1 where
   // A0/NG = sqrt(1 + (f/f_p)^2), and the phase there is -atan(f/f_p).

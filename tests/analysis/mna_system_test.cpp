@@ -88,7 +88,7 @@ TEST_CASE("a node without a DC path to ground is refused by name") {
   CHECK(s.message == "node 'island' has no DC path to ground");
 }
 
-TEST_CASE("a singular solve is a status naming the frequency, not a NaN") {
+TEST_CASE("a singular solve is a status naming the frequency; not a NaN") {
   // Two ideal voltage sources in parallel at different values: singular.
   Netlist net;
   NodeId a = net.AddNode("a");

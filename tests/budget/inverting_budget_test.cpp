@@ -14,11 +14,7 @@ using test::FindContributor;
 using test::RelErr;
 
 Budget Compute(const Stage& stage, double tolerance = 1e-6) {
-  BudgetOptions options;
-  options.integration.relative_tolerance = tolerance;
-  BudgetOutcome outcome = ComputeBudget(stage, options);
-  REQUIRE_MESSAGE(outcome.status.ok, outcome.status.message);
-  return outcome.budget;
+  return test::ComputeOrFail(stage, tolerance);
 }
 
 // REFERENCES.md section 6, "simple example" (values chosen there, derived by
@@ -69,7 +65,7 @@ TEST_CASE("plain inverting stage: every contributor matches its closed form") {
   CHECK(RelErr(FindContributor(b, "e_n").share, en_out * en_out / (rss * rss)) < test::kRelIdeal);
 }
 
-TEST_CASE("plain inverting stage: offsets Vos NG, Ib- Rf and the balance resistor") {
+TEST_CASE("plain inverting stage: offsets Vos NG; Ib- Rf and the balance resistor") {
   // Vout = Vos NG + Ib- Rf - Ib+ Rp NG (REFERENCES.md section 6).
   const Stage stage = SimpleExample();
   const Budget b = Compute(stage);

@@ -28,13 +28,7 @@ Stage WorkedExample() {
   return s;
 }
 
-Budget Compute(const Stage& stage) {
-  BudgetOptions options;
-  options.integration.relative_tolerance = 1e-7;
-  BudgetOutcome outcome = ComputeBudget(stage, options);
-  REQUIRE_MESSAGE(outcome.status.ok, outcome.status.message);
-  return outcome.budget;
-}
+Budget Compute(const Stage& stage) { return test::ComputeOrFail(stage, 1e-7); }
 
 TEST_CASE("tee feedback acts as R1 + R2 + R1*R2/R3 at DC") {
   const Budget b = Compute(WorkedExample());
@@ -46,7 +40,7 @@ TEST_CASE("tee feedback acts as R1 + R2 + R1*R2/R3 at DC") {
   CHECK(RelErr(b.tee->equivalent_resistance_ohm, req) < test::kRelTight);
 }
 
-TEST_CASE("tee noise gain is 1 + R2/R3 + Req/Rin, above the plain 1 + Req/Rin") {
+TEST_CASE("tee noise gain is 1 + R2/R3 + Req/Rin; above the plain 1 + Req/Rin") {
   const Budget b = Compute(WorkedExample());
   const double req = kR1 + kR2 + kR1 * kR2 / kR3;
   const double ng_t = 1 + kR2 / kR3 + req / kRin;
@@ -107,7 +101,7 @@ TEST_CASE("the plain equivalent gives the published plain-Rf column and the nois
   CHECK(saw_en);
 }
 
-TEST_CASE("tee offsets: Vos NG_T, Ib- Req and the balance resistor Req/NG_T") {
+TEST_CASE("tee offsets: Vos NG_T; Ib- Req and the balance resistor Req/NG_T") {
   const Budget b = Compute(WorkedExample());
   // Vout = Vos NG_T + Ib- Req - Ib+ Rp NG_T; with Rp = 0: 28.945 21 + 4.967 mV.
   CHECK(RelErr(b.offset.vos_v * 1e3, 28.94521) < 1e-6);
@@ -130,7 +124,7 @@ TEST_CASE("tee with R_plus = 4.3k: offsets and the noise the resistor adds") {
   CHECK(RelErr(b.output_density_ref_v_per_rthz * 1e9, 15383.65) < 1e-6);
 }
 
-TEST_CASE("tee bandwidth is set by NG_T, not by the signal gain") {
+TEST_CASE("tee bandwidth is set by NG_T; not by the signal gain") {
   // REFERENCES.md section 11: the section 6 tee with A0 = 1e6, GBW = 10 MHz
   // has f_3dB = GBW/NG_T + f_p = 8 647.0 Hz.
   Stage stage = WorkedExample();

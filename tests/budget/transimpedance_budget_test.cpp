@@ -45,11 +45,7 @@ Stage WorkedExample(double cf) {
 }
 
 Budget Compute(const Stage& stage, double tolerance = 1e-5) {
-  BudgetOptions options;
-  options.integration.relative_tolerance = tolerance;
-  BudgetOutcome outcome = ComputeBudget(stage, options);
-  REQUIRE_MESSAGE(outcome.status.ok, outcome.status.message);
-  return outcome.budget;
+  return test::ComputeOrFail(stage, tolerance);
 }
 
 // Butterworth (Q = 1/sqrt 2): C_f = sqrt(2 w_t R_f C - 1) / (w_t R_f), exact.
@@ -80,7 +76,7 @@ TEST_CASE("the e_n noise gain is 1 + Z_f s C and tends to 1 + C/C_f at high freq
   CHECK(RelErr(std::abs(ev.Transfer(e_n)), 1 + kC / cf) < 1e-5);  // (fp/f)^2 short of the limit
 }
 
-TEST_CASE("transimpedance at low frequency equals R_f, or the tee's equivalent") {
+TEST_CASE("transimpedance at low frequency equals R_f; or the tee's equivalent") {
   Stage stage = WorkedExample(0.4e-12);
   stage.opamp = test::IdealOpAmp(10e-9, 0);
   CHECK(RelErr(Compute(stage).signal_gain_dc, -kRf) < test::kRelIdeal);
@@ -110,7 +106,7 @@ TEST_CASE("the Butterworth C_f found on the response matches the exact closed fo
   CHECK(b.peaking_db < 0.01);
 }
 
-TEST_CASE("the classic C_f = sqrt(C / (2 pi R_f GBW)) gives about 52 degrees and 1.2 dB, not 45") {
+TEST_CASE("the classic C_f = sqrt(C / (2 pi R_f GBW)) gives about 52 degrees and 1.2 dB; not 45") {
   // Section 7, "45 deg" choice: exact C_f = 0.282 892 pF gives Q 0.9944,
   // 1.217 dB of peaking, a true phase margin of 52.08 deg, f_3dB 71 383 Hz.
   const Budget exact = Compute(WorkedExample(0.282892e-12), 1e-4);
@@ -124,7 +120,7 @@ TEST_CASE("the classic C_f = sqrt(C / (2 pi R_f GBW)) gives about 52 degrees and
   CHECK(classic.peaking_db < 1.35);
 }
 
-TEST_CASE("the section 7 Butterworth budget: R_f, e_n, i_n and shot noise rms") {
+TEST_CASE("the section 7 Butterworth budget: R_f; e_n; i_n and shot noise rms") {
   // 1 mHz .. 10 GHz, rms at the output: R_f 101.691, e_n 444.589, i_n 2.498,
   // shot 14.142, total 456.297 uV. A0 = 1e9 stands in for the ideal
   // integrator of the derivation: 0.5 % allowed.
@@ -139,7 +135,7 @@ TEST_CASE("the section 7 Butterworth budget: R_f, e_n, i_n and shot noise rms") 
   CHECK(RelErr(b.photodiode->noise_gain_plateau_estimate, 126.33) < 1e-4);
 }
 
-TEST_CASE("R_f with C_f integrates to kT/C_f at the output (ideal op-amp, C_d = 0)") {
+TEST_CASE("R_f with C_f integrates to kT/C_f at the output (ideal op-amp; C_d = 0)") {
   // REFERENCES.md section 12: kT/C; 300 K and 1 pF: 64.357 960 uV rms.
   Stage stage = WorkedExample(1e-12);
   stage.photodiode.capacitance_f = 0;
@@ -153,7 +149,7 @@ TEST_CASE("R_f with C_f integrates to kT/C_f at the output (ideal op-amp, C_d = 
   CHECK(RelErr(rf_rms, 64.357960e-6) < 1e-4);
 }
 
-TEST_CASE("dark-current shot noise is sqrt(2 q I) at the input and NEP is i_n,in / R") {
+TEST_CASE("dark-current shot noise is sqrt(2 q I) at the input and NEP is i_n;in / R") {
   // Schottky 1918; REFERENCES.md section 2: 100 pA -> 5.660 701 fA/rtHz.
   const Budget b = Compute(WorkedExample(ButterworthCf()), 1e-4);
   const Contributor& shot = FindContributor(b, "I_dark");

@@ -85,7 +85,7 @@ TEST_CASE("Butterworth noise bandwidths match (pi/2n)/sin(pi/2n)") {
   }
 }
 
-TEST_CASE("two cascaded real poles: ENBW = (pi/4) f_p, 1.2203 times f_3dB") {
+TEST_CASE("two cascaded real poles: ENBW = (pi/4) f_p; 1.2203 times f_3dB") {
   // REFERENCES.md section 3: m = 2 identical poles; f_3dB = f_p sqrt(sqrt2 -
   // 1).
   const double fp = 1.0;

@@ -51,7 +51,7 @@ TEST_CASE("a device file with an unknown parameter gets a suggestion") {
                        Error);
 }
 
-TEST_CASE("a resistor technology reads its noise index, tempco and tolerance") {
+TEST_CASE("a resistor technology reads its noise index; tempco and tolerance") {
   const char* text = R"({"kind": "resistor_technology", "class": "thin film", "illustrative": "x",
                          "noise_index_dB": -35, "temperature_coefficient_per_C": "25 ppm", "tolerance": "0.1%"})";
   const ResistorTechnology t = ParseResistorTechnology(text, "r.json");

@@ -17,7 +17,7 @@ double Parse(const char* text, Quantity q) {
   return *v;
 }
 
-TEST_CASE("SI prefixes scale values and case matters: m is milli, M is mega") {
+TEST_CASE("SI prefixes scale values and case matters: m is milli; M is mega") {
   CHECK(RelErr(Parse("12.4k", Quantity::kResistance), 12.4e3) < kRelTight);
   CHECK(RelErr(Parse("2.2 MOhm", Quantity::kResistance), 2.2e6) < kRelTight);
   CHECK(RelErr(Parse("2.2 mOhm", Quantity::kResistance), 2.2e-3) < kRelTight);
@@ -42,7 +42,7 @@ TEST_CASE("SI prefixes scale values and case matters: m is milli, M is mega") {
   CHECK(RelErr(Parse("0.3 uV/C", Quantity::kVoltageDrift), 0.3e-6) < kRelTight);
 }
 
-TEST_CASE("a bare unit symbol is the unit, not a prefix") {
+TEST_CASE("a bare unit symbol is the unit; not a prefix") {
   CHECK(RelErr(Parse("1 F", Quantity::kCapacitance), 1.0) < kRelTight);
   CHECK(RelErr(Parse("1 fF", Quantity::kCapacitance), 1e-15) < kRelTight);
   CHECK(RelErr(Parse("3 V", Quantity::kVoltage), 3.0) < kRelTight);
