@@ -213,7 +213,7 @@ TEST_CASE("--json is the same as --format json") {
   CHECK(json::parse(a.out).contains("noise"));
 }
 
-TEST_CASE("a bad --format is one line naming the option, exit code 2") {
+TEST_CASE("a bad --format is one line naming the option and exit code 2") {
   const std::string stage = test::ExamplePath("load-cell-bridge");
   auto r = RunHushgain({"budget", "--format", "markdwn", stage});
   CHECK(r.exit_code == 2);

@@ -121,7 +121,7 @@ TEST_CASE("plot writes a well-formed SVG naming every contributor") {
   }
 }
 
-TEST_CASE("--only draws one panel, a smaller picture") {
+TEST_CASE("--only draws one panel in a smaller picture") {
   ScratchDir dir("only");
   const std::string stage = test::ExamplePath("hydrophone-preamp");
   const auto full = RunHushgain({"plot", stage, "-o", dir / "full.svg"});
@@ -146,7 +146,7 @@ TEST_CASE("--only draws one panel, a smaller picture") {
   }
 }
 
-TEST_CASE("names from the stage file reach gnuplot as text, never as code") {
+TEST_CASE("names from the stage file reach gnuplot as text and never as code") {
   // Quotes of both kinds, semicolons, system(), backquotes and a macro:
   // each would run a command if it reached gnuplot unquoted.
   ScratchDir dir("inject");
@@ -219,7 +219,7 @@ TEST_CASE("names from the stage file reach gnuplot as text, never as code") {
   }
 }
 
-TEST_CASE("without gnuplot, plot names the package and writes nothing") {
+TEST_CASE("without gnuplot the plot command names the package and writes nothing") {
   ScratchDir dir("nognuplot");
   const std::string png = dir / "out.png";
   const auto r =
@@ -232,7 +232,7 @@ TEST_CASE("without gnuplot, plot names the package and writes nothing") {
   CHECK(dir.Files().empty());
 }
 
-TEST_CASE("plot refuses an unknown picture type or panel, exit code 2") {
+TEST_CASE("plot refuses an unknown picture type or panel with exit code 2") {
   ScratchDir dir("plotusage");
   const std::string stage = test::ExamplePath("load-cell-bridge");
   auto r = RunHushgain({"plot", stage, "-o", dir / "out.pdf"});

@@ -5,7 +5,7 @@
 namespace hushgain {
 namespace {
 
-TEST_CASE("gnuplot strings carry no quote, backquote or macro sign") {
+TEST_CASE("gnuplot strings carry no quote or backquote or macro sign") {
   // gnuplot 5.4 manual, "Strings" and "Substitution": in double quotes a
   // backslash and three octal digits is one byte; backquotes and @ are
   // substituted before a line is parsed, so they must not appear raw.
