@@ -69,7 +69,8 @@ std::vector<std::string> ContributorNames(const std::string& stage) {
   const auto r = RunHushgain({"budget", "--json", stage});
   REQUIRE(r.exit_code == 0);
   std::vector<std::string> names;
-  for (const json& c : json::parse(r.out)["noise"]["contributors"])
+  const json budget = json::parse(r.out);
+  for (const json& c : budget["noise"]["contributors"])
     names.push_back(c["name"]);
   return names;
 }
