@@ -8,6 +8,7 @@
 #include <cstring>
 
 #include "bench/budget_bench.h"
+#include "bench/report_bench.h"
 
 namespace {
 
@@ -19,6 +20,7 @@ struct BenchmarkGroup {
 // In the order they print; budget first (its first line is budget_tee_full).
 constexpr BenchmarkGroup kGroups[] = {
     {"budget", hushgain::bench::RunBudgetBenchmarks},
+    {"report", hushgain::bench::RunReportBenchmarks},
 };
 
 bool Selected(const char* name, int argc, char** argv) {
