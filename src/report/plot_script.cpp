@@ -194,7 +194,7 @@ class ScriptWriter {
         std::to_string(kWidthPx) + "," + std::to_string(height_px_);
     if (o_.format == PlotFormat::kSvg)
       out_ += "set terminal svg size " + size +
-              " font 'DejaVu Sans,13' noenhanced background rgb 'white'\n";
+              " font 'DejaVu Sans,11' noenhanced background rgb 'white'\n";
     else
       out_ += "set terminal pngcairo size " + size +
               " font 'DejaVu Sans,11' noenhanced background rgb 'white'\n";
