@@ -1,0 +1,27 @@
+// `hushgain tia suggest STAGE.json --bandwidth 50k`: feedback resistor and
+// capacitor proposals for a photodiode stage and a bandwidth target.
+#ifndef HUSHGAIN_CLI_TIA_COMMAND_H_
+#define HUSHGAIN_CLI_TIA_COMMAND_H_
+
+#include <string>
+
+namespace hushgain {
+
+struct TiaSuggestCommandOptions {
+  std::string stage_path;
+  std::string devices_dir;
+  std::string bandwidth = "";  // a frequency with prefix: "50k"
+  std::string series = "E24";  // IEC 60063 series of the candidate R_f
+  std::string min = "1k";      // candidate range
+  std::string max = "10G";
+  int rows = 6;
+  bool json = false;
+};
+
+// Prints the table (or JSON) on stdout; returns an exit code
+// (cli/exit_codes.h). Throws Error for bad input.
+int RunTiaSuggestCommand(const TiaSuggestCommandOptions& options);
+
+}  // namespace hushgain
+
+#endif  // HUSHGAIN_CLI_TIA_COMMAND_H_
