@@ -9,6 +9,7 @@
 
 #include "bench/budget_bench.h"
 #include "bench/tee_search_bench.h"
+#include "bench/report_bench.h"
 
 namespace {
 
@@ -21,6 +22,7 @@ struct BenchmarkGroup {
 constexpr BenchmarkGroup kGroups[] = {
     {"budget", hushgain::bench::RunBudgetBenchmarks},
     {"tee", hushgain::RunTeeSearchBenchmarks},
+    {"report", hushgain::bench::RunReportBenchmarks},
 };
 
 bool Selected(const char* name, int argc, char** argv) {

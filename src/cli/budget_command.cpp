@@ -2,18 +2,57 @@
 
 #include <cstdio>
 #include <iostream>
+#include <vector>
 
 #include "budget/compute_budget.h"
+#include "budget/frequency_grid.h"
+#include "budget/sample_spectra.h"
 #include "cli/exit_codes.h"
 #include "io/device_library.h"
 #include "io/error.h"
+#include "io/read_file.h"
 #include "io/stage_parser.h"
+#include "io/suggest.h"
+#include "report/csv_report.h"
 #include "report/json_report.h"
+#include "report/markdown_report.h"
 #include "report/text_report.h"
 
 namespace hushgain {
+namespace {
+
+const std::vector<std::string>& Formats() {
+  static const std::vector<std::string> formats = {"text", "json", "markdown",
+                                                   "csv"};
+  return formats;
+}
+
+// The format asked for, after --json; throws Error naming the option.
+std::string ResolveFormat(const BudgetCommandOptions& options) {
+  bool known = false;
+  for (const std::string& f : Formats()) known = known || f == options.format;
+  if (!known)
+    throw Error("command line", "",
+                "--format: expected text, json, markdown or csv, got \"" +
+                    options.format + "\"" +
+                    DidYouMean(options.format, Formats()));
+  if (options.json && options.format != "text" && options.format != "json")
+    throw Error("command line", "",
+                "--json contradicts --format " + options.format);
+  return options.json ? "json" : options.format;
+}
+
+std::string Render(const Budget& budget, const std::string& format) {
+  if (format == "json") return BudgetToJson(budget);
+  if (format == "markdown") return BudgetToMarkdown(budget);
+  if (format == "csv") return BudgetToCsv(budget);
+  return BudgetToText(budget);
+}
+
+}  // namespace
 
 int RunBudgetCommand(const BudgetCommandOptions& options) {
+  const std::string format = ResolveFormat(options);
   BudgetOptions budget_options;
   budget_options.integration.relative_tolerance = options.tolerance;
   if (!budget_options.Validate().empty()) {
@@ -33,8 +72,20 @@ int RunBudgetCommand(const BudgetCommandOptions& options) {
               << ": analysis refused: " << outcome.status.message << "\n";
     return kExitAnalysisRefused;
   }
-  const std::string text = options.json ? BudgetToJson(outcome.budget)
-                                        : BudgetToText(outcome.budget);
+  if (!options.spectrum_path.empty()) {
+    const SpectrumOutcome spectrum =
+        SampleSpectra(StageAsBudgeted(stage, outcome.budget),
+                      LogFrequencyGrid(stage.band_low_hz, stage.band_high_hz,
+                                       kSpectrumPointsPerDecade));
+    if (!spectrum.status.ok) {
+      std::cerr << "error: " << options.stage_path
+                << ": analysis refused: " << spectrum.status.message << "\n";
+      return kExitAnalysisRefused;
+    }
+    WriteFileAtomically(options.spectrum_path,
+                        SpectrumToCsv(outcome.budget, spectrum.samples));
+  }
+  const std::string text = Render(outcome.budget, format);
   for (const std::string& w : outcome.budget.warnings)
     std::cerr << "warning: " << w << "\n";
   std::cout << text << std::flush;

@@ -9,12 +9,21 @@ namespace hushgain {
 struct BudgetCommandOptions {
   std::string stage_path;
   std::string devices_dir;
-  bool json = false;        // print the JSON object instead of the text
+  // text (default), json, markdown or csv.
+  std::string format = "text";
+  bool json = false;        // --json: the same as --format json
   double tolerance = 1e-4;  // relative, on the total output noise power
+  // When set, the per-contributor output densities on a log grid across
+  // the band (kSpectrumPointsPerDecade, band edges included) go to this CSV
+  // file (report/csv_report.h SpectrumToCsv), written atomically.
+  std::string spectrum_path;
 };
 
+inline constexpr double kSpectrumPointsPerDecade = 50;
+
 // Prints the budget on stdout; returns an exit code (cli/exit_codes.h).
-// Throws Error for bad input (the caller prints it).
+// Throws Error for bad input (the caller prints it), naming the option:
+// an unknown --format, or --json beside a --format other than json.
 int RunBudgetCommand(const BudgetCommandOptions& options);
 
 }  // namespace hushgain

@@ -9,6 +9,8 @@ inline constexpr int kExitAnalysisRefused = 1;  // singular network, ...
 inline constexpr int kExitUsage = 2;            // bad command line or input
 // Stopped by Ctrl-C after printing what it had (128 + SIGINT, as shells do).
 inline constexpr int kExitInterrupted = 130;
+// A program hushgain needs is missing or failed (gnuplot for `plot`).
+inline constexpr int kExitToolFailed = 3;
 
 }  // namespace hushgain
 

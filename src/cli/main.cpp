@@ -11,6 +11,7 @@
 #include "cli/exit_codes.h"
 #include "cli/tee_command.h"
 #include "cli/tia_command.h"
+#include "cli/plot_command.h"
 #include "io/error.h"
 #include "io/suggest.h"
 
@@ -53,7 +54,12 @@ std::function<int()> DefineBudget(CLI::App* app, const GlobalOptions& global) {
   auto options = std::make_shared<BudgetCommandOptions>();
   app->add_option("stage", options->stage_path, "stage file (JSON)")
       ->required();
-  app->add_flag("--json", options->json, "print the budget as one JSON object");
+  app->add_flag("--json", options->json, "the same as --format json");
+  app->add_option("--format", options->format,
+                  "text, json, markdown or csv (default text)");
+  app->add_option("--spectrum", options->spectrum_path,
+                  "also write the output densities across the band to this "
+                  "CSV file");
   app->add_option("--tolerance", options->tolerance,
                   "relative error target of the noise integral (default 1e-4)")
       ->check(NumberValidator());
@@ -168,12 +174,31 @@ std::function<int()> DefineTia(CLI::App* app, const GlobalOptions& global) {
   };
 }
 
+std::function<int()> DefinePlot(CLI::App* app, const GlobalOptions& global) {
+  auto options = std::make_shared<PlotCommandOptions>();
+  app->add_option("stage", options->stage_path, "stage file (JSON)")
+      ->required();
+  app->add_option("-o,--output", options->output_path,
+                  "picture to write, .png or .svg")
+      ->required();
+  app->add_option("--only", options->only,
+                  "draw one panel: spectrum, cumulative or gain");
+  app->add_option("--script", options->script_path,
+                  "also save the gnuplot script (data inline) to this file");
+  return [options, &global] {
+    options->devices_dir = global.devices_dir;
+    return RunPlotCommand(*options);
+  };
+}
+
 const std::vector<Command>& Commands() {
   static const std::vector<Command> commands = {
       {"budget", "noise and offset budget of a stage", DefineBudget},
       {"tee", "T-network design: sweep the largest resistor, search E-series",
        DefineTee},
       {"tia", "photodiode stages: suggest R_f and C_f for a bandwidth", DefineTia},
+      {"plot", "noise spectra, cumulative noise and gains as a picture",
+       DefinePlot},
   };
   return commands;
 }

@@ -3,6 +3,7 @@
 #include <algorithm>
 
 #include "io/units.h"
+#include "report/text_escape.h"
 
 namespace hushgain {
 
@@ -46,6 +47,42 @@ std::string RenderText(const Table& table, int indent) {
                   static_cast<int>(r)) != table.rules_after.end())
       out += rule;
   }
+  return out;
+}
+
+std::string RenderMarkdown(const Table& table) {
+  const std::size_t columns = table.header.size();
+  auto line = [&](const std::vector<std::string>& row) {
+    std::string out = "|";
+    for (std::size_t c = 0; c < columns; ++c) {
+      const std::string cell = c < row.size() ? EscapeMarkdown(row[c]) : "";
+      out += " " + cell + " |";
+    }
+    return out + "\n";
+  };
+  std::string out = line(table.header) + "|";
+  for (std::size_t c = 0; c < columns; ++c) {
+    const bool right =
+        c < table.align.size() && table.align[c] == Table::Align::kRight;
+    out += right ? " ---: |" : " --- |";
+  }
+  out += "\n";
+  for (const auto& row : table.rows) out += line(row);
+  return out;
+}
+
+std::string RenderCsv(const Table& table) {
+  const std::size_t columns = table.header.size();
+  auto record = [&](const std::vector<std::string>& row) {
+    std::string out;
+    for (std::size_t c = 0; c < columns; ++c) {
+      if (c > 0) out += ',';
+      if (c < row.size()) out += CsvField(row[c]);
+    }
+    return out + "\r\n";
+  };
+  std::string out = record(table.header);
+  for (const auto& row : table.rows) out += record(row);
   return out;
 }
 

@@ -1,5 +1,7 @@
 // A table of already formatted cells, and its renderings: fixed-width text
-// (aligned by display width, so "µ" and "√" count as one column).
+// (aligned by display width, so "µ" and "√" count as one column), a
+// Markdown pipe table and CSV. Any report table (budget, spectrum, sweep)
+// is built once as a Table and rendered in the format asked for.
 #ifndef HUSHGAIN_REPORT_TABLE_H_
 #define HUSHGAIN_REPORT_TABLE_H_
 
@@ -23,6 +25,17 @@ struct Table {
 // Two spaces between columns, `indent` spaces before each line, a dashed
 // rule under the header and at each rules_after.
 std::string RenderText(const Table& table, int indent = 2);
+
+// A GitHub-flavoured Markdown pipe table: the header, the delimiter row
+// (`---:` for right-aligned columns) and one line per row, every cell
+// escaped (report/text_escape.h), so a "|" in a name stays in its cell.
+// Markdown has no inner rules: rules_after is ignored. Every line ends in
+// "\n".
+std::string RenderMarkdown(const Table& table);
+
+// RFC 4180 CSV: the header record, then one record per row, fields quoted
+// as needed, records ending in CRLF. Rules are ignored.
+std::string RenderCsv(const Table& table);
 
 }  // namespace hushgain
 

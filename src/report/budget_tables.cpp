@@ -1,0 +1,148 @@
+#include "report/budget_tables.h"
+
+#include <cstdio>
+
+#include "io/units.h"
+
+namespace hushgain {
+namespace {
+
+constexpr const char* kPerRtHz = "/\xE2\x88\x9AHz";  // "/√Hz"
+constexpr const char* kOhm = "\xCE\xA9";             // "Ω"
+
+std::string Printf(const char* format, double value) {
+  char buf[64];
+  std::snprintf(buf, sizeof buf, format, value);
+  return buf;
+}
+
+std::string KindLabel(const std::string& kind) {
+  if (kind == "voltage_noise") return "op-amp e_n";
+  if (kind == "current_noise") return "op-amp i_n";
+  return kind;
+}
+
+std::string ChangeLabel(const TeeChange& c) {
+  switch (c.kind) {
+    case TeeChange::Kind::kAdded:
+      return "added by the tee";
+    case TeeChange::Kind::kRemoved:
+      return "replaced by the tee";
+    case TeeChange::Kind::kRaised:
+      return Printf("raised x%.3f", c.tee_output_rms_v / c.plain_output_rms_v);
+    case TeeChange::Kind::kLowered:
+      return Printf("lowered x%.3f", c.tee_output_rms_v / c.plain_output_rms_v);
+    case TeeChange::Kind::kSame:
+      return "unchanged";
+  }
+  return "";
+}
+
+}  // namespace
+
+std::string FormatGain(double value) { return Printf("%.4g", value); }
+
+std::string FormatDensity(double value, const std::string& unit) {
+  return FormatEng(value, unit + kPerRtHz);
+}
+
+std::string FormatShare(double fraction) {
+  if (fraction > 0 && fraction < 0.0005) return "<0.1 %";
+  return Printf("%.1f %%", 100.0 * fraction);
+}
+
+Table NoiseTable(const Budget& b) {
+  const std::string ref = FormatEng(b.reference_hz, "Hz", 3);
+  Table t;
+  t.header = {"contributor",
+              "kind",
+              "source @ " + ref,
+              "gain @ " + ref,
+              "output @ " + ref,
+              "output rms",
+              "share"};
+  t.align = {Table::Align::kLeft,  Table::Align::kLeft,  Table::Align::kRight,
+             Table::Align::kRight, Table::Align::kRight, Table::Align::kRight,
+             Table::Align::kRight};
+  for (const Contributor& c : b.contributors) {
+    const bool current = c.kind == "current_noise" || c.kind == "shot";
+    t.AddRow({c.name, KindLabel(c.kind),
+              FormatDensity(c.source_density_ref, current ? "A" : "V"),
+              current ? FormatEng(c.gain_to_output_ref, kOhm)
+                      : FormatGain(c.gain_to_output_ref),
+              FormatDensity(c.output_density_ref_v_per_rthz, "V"),
+              FormatEng(c.output_rms_v, "V"), FormatShare(c.share)});
+  }
+  t.AddRule();
+  t.AddRow({"total", "", "", "",
+            FormatDensity(b.output_density_ref_v_per_rthz, "V"),
+            FormatEng(b.output_rms_v, "V"), "100 %"});
+  return t;
+}
+
+Table OffsetTable(const Budget& b) {
+  const OffsetBlock& o = b.offset;
+  Table t;
+  t.header = {"term", "output"};
+  t.align = {Table::Align::kLeft, Table::Align::kRight};
+  t.AddRow({"Vos x noise gain (" + FormatGain(o.noise_gain_dc) + ")",
+            FormatEng(o.vos_v, "V")});
+  t.AddRow({"Ib into both inputs", FormatEng(o.ib_v, "V")});
+  t.AddRow({"Ios (sign unknown)", FormatEng(o.ios_v, "V")});
+  if (b.photodiode)
+    t.AddRow({"dark current x transimpedance", FormatEng(o.dark_v, "V")});
+  t.AddRule();
+  t.AddRow({"worst case", FormatEng(o.worst_case_v, "V")});
+  t.AddRow({"root-sum-square", FormatEng(o.rss_v, "V")});
+  return t;
+}
+
+Table TeeSummaryTable(const Budget& b) {
+  const TeeComparison& c = *b.tee;
+  Table t;
+  t.header = {"", "T network", "plain R_f", "ratio"};
+  t.align = {Table::Align::kLeft, Table::Align::kRight, Table::Align::kRight,
+             Table::Align::kRight};
+  auto ratio = [](double a, double p) {
+    return p != 0 ? Printf("x%.3f", a / p) : std::string("");
+  };
+  t.AddRow({"output noise rms", FormatEng(b.output_rms_v, "V"),
+            FormatEng(c.plain_output_rms_v, "V"),
+            ratio(b.output_rms_v, c.plain_output_rms_v)});
+  t.AddRow({"input-referred rms", FormatEng(b.input_rms, b.input_unit),
+            FormatEng(c.plain_input_rms, b.input_unit),
+            ratio(b.input_rms, c.plain_input_rms)});
+  t.AddRow({"e_n noise gain, DC", FormatGain(c.tee_noise_gain_dc),
+            FormatGain(c.plain_noise_gain_dc),
+            ratio(c.tee_noise_gain_dc, c.plain_noise_gain_dc)});
+  t.AddRow({"e_n noise gain, reference", FormatGain(c.tee_noise_gain_ref),
+            FormatGain(c.plain_noise_gain_ref),
+            ratio(c.tee_noise_gain_ref, c.plain_noise_gain_ref)});
+  t.AddRow({"-3 dB bandwidth", FormatEng(b.bandwidth_3db_hz, "Hz"),
+            FormatEng(c.plain_bandwidth_3db_hz, "Hz"),
+            ratio(b.bandwidth_3db_hz, c.plain_bandwidth_3db_hz)});
+  t.AddRow({"offset, worst case", FormatEng(b.offset.worst_case_v, "V"),
+            FormatEng(c.plain_offset_worst_case_v, "V"),
+            ratio(b.offset.worst_case_v, c.plain_offset_worst_case_v)});
+  return t;
+}
+
+Table TeeChangesTable(const Budget& b) {
+  Table t;
+  t.header = {"contributor", "T network", "plain R_f", "change"};
+  t.align = {Table::Align::kLeft, Table::Align::kRight, Table::Align::kRight,
+             Table::Align::kLeft};
+  for (const TeeChange& ch : b.tee->changes) {
+    t.AddRow({ch.name,
+              ch.kind == TeeChange::Kind::kRemoved
+                  ? "-"
+                  : FormatEng(ch.tee_output_rms_v, "V"),
+              ch.kind == TeeChange::Kind::kAdded
+                  ? "-"
+                  : FormatEng(ch.plain_output_rms_v, "V"),
+              ChangeLabel(ch)});
+  }
+  return t;
+}
+
+}  // namespace hushgain

@@ -1,0 +1,151 @@
+#include "report/markdown_report.h"
+
+#include <cmath>
+#include <cstdio>
+
+#include "io/units.h"
+#include "noise/physical_constants.h"
+#include "report/budget_tables.h"
+#include "report/table.h"
+#include "report/text_escape.h"
+
+namespace hushgain {
+namespace {
+
+std::string Printf(const char* format, double value) {
+  char buf[64];
+  std::snprintf(buf, sizeof buf, format, value);
+  return buf;
+}
+
+std::string Item(const std::string& label, const std::string& text) {
+  return "- " + label + ": " + EscapeMarkdown(text) + "\n";
+}
+
+std::string Header(const Budget& b) {
+  const std::string ref = FormatEng(b.reference_hz, "Hz");
+  std::string out = "## Noise budget: " + EscapeMarkdown(b.stage_name) + "\n\n";
+  out += Item("temperature", Printf("%.2f", b.temperature_k - kZeroCelsiusK) +
+                                 " \xC2\xB0"
+                                 "C (" +
+                                 Printf("%.2f", b.temperature_k) + " K)");
+  out +=
+      Item("band", FormatEng(b.band_low_hz, "Hz") + " to " +
+                       FormatEng(b.band_high_hz, "Hz") + ", reference " + ref);
+  out += Item("op-amp", b.opamp_class + ", GBW " +
+                            FormatEng(b.opamp_gbw_hz, "Hz") + ", A0 " +
+                            Printf("%.3g", b.opamp_open_loop_gain));
+  if (b.input_unit == "A")
+    out += Item("transimpedance",
+                FormatEng(b.signal_gain_dc, "\xCE\xA9") + " at DC, magnitude " +
+                    FormatEng(b.signal_gain_ref, "\xCE\xA9") + " at " + ref);
+  else
+    out += Item("signal gain",
+                FormatGain(b.signal_gain_dc) + " V/V at DC, magnitude " +
+                    FormatGain(b.signal_gain_ref) + " at " + ref);
+  out += Item("noise gain (e_n to output)",
+              FormatGain(b.noise_gain_dc) + " at DC, " +
+                  FormatGain(b.noise_gain_ref) + " at " + ref + ", peak " +
+                  FormatGain(b.noise_gain_peak) + " at " +
+                  FormatEng(b.noise_gain_peak_hz, "Hz"));
+  out += Item("closed-loop -3 dB bandwidth",
+              (b.bandwidth_3db_hz > 0 ? FormatEng(b.bandwidth_3db_hz, "Hz")
+                                      : std::string("not found")) +
+                  (b.peaking_db > 0.01
+                       ? ", peaking " + Printf("%.2f dB", b.peaking_db) +
+                             " at " + FormatEng(b.peak_hz, "Hz")
+                       : ""));
+  if (b.loop.crossover_found)
+    out += Item("loop gain",
+                "crosses unity at " + FormatEng(b.loop.crossover_hz, "Hz") +
+                    ", phase margin " +
+                    Printf("%.1f", b.loop.phase_margin_deg) + "\xC2\xB0");
+  if (b.feedback_capacitor_f > 0 || b.capacitor_choice)
+    out +=
+        Item("feedback capacitor",
+             FormatEng(b.feedback_capacitor_f, "F") +
+                 (b.capacitor_choice
+                      ? " (chosen for " + b.capacitor_choice->target +
+                            "; the estimate " +
+                            b.capacitor_choice->estimate_rule + " gives " +
+                            FormatEng(b.capacitor_choice->estimate_f, "F") + ")"
+                      : std::string()));
+  return out;
+}
+
+std::string NoiseSection(const Budget& b) {
+  const std::string ref = FormatEng(b.reference_hz, "Hz", 3);
+  std::string out = "\n### Output noise, " + FormatEng(b.band_low_hz, "Hz") +
+                    " to " + FormatEng(b.band_high_hz, "Hz") + "\n\n";
+  out += RenderMarkdown(NoiseTable(b)) + "\n";
+  out += Item("output peak-to-peak",
+              FormatEng(b.output_peak_to_peak_v, "V") +
+                  " (6.6 x rms: inside about 99.9 % of the time, Gaussian)");
+  out += Item("input-referred",
+              FormatEng(b.input_rms, b.input_unit) + " rms, " +
+                  FormatDensity(b.input_density_ref_per_rthz, b.input_unit) +
+                  " at " + ref);
+  if (b.photodiode && b.photodiode->responsivity_a_per_w > 0)
+    out += Item(
+        "NEP",
+        FormatDensity(b.photodiode->nep_w_per_rthz, "W") + " at " + ref + ", " +
+            FormatEng(b.photodiode->nep_rms_w, "W") + " rms over the band (" +
+            Printf("%.3g A/W", b.photodiode->responsivity_a_per_w) + ")");
+  if (b.photodiode && b.photodiode->noise_gain_plateau_estimate > 0)
+    out += Item("e_n x C",
+                "the e_n noise gain rises to " + FormatGain(b.noise_gain_peak) +
+                    " at " + FormatEng(b.noise_gain_peak_hz, "Hz") +
+                    " (1 + C/C_f = " +
+                    FormatGain(b.photodiode->noise_gain_plateau_estimate) +
+                    " with C = C_d + C_in = " +
+                    FormatEng(b.photodiode->input_capacitance_f, "F") + ")");
+  if (b.snr_db) {
+    out += Item("full scale \xC2\xB1" + FormatEng(*b.full_scale_output_v, "V"),
+                "SNR " + Printf("%.1f dB", *b.snr_db) +
+                    " (full-scale sine), dynamic range " +
+                    Printf("%.1f dB", *b.dynamic_range_db) +
+                    " (swing / noise p-p)");
+    if (b.full_scale_output_current_a)
+      out += Item("output drive",
+                  FormatEng(*b.full_scale_output_current_a, "A") +
+                      " at full scale (limit " +
+                      FormatEng(b.output_current_limit_a, "A") + ")");
+  }
+  return out;
+}
+
+std::string OffsetSection(const Budget& b) {
+  const OffsetBlock& o = b.offset;
+  std::string out = "\n### Output offset at DC\n\n";
+  out += RenderMarkdown(OffsetTable(b)) + "\n";
+  out += Item("R_plus", o.plus_resistor_ohm > 0
+                            ? FormatEng(o.plus_resistor_ohm, "\xCE\xA9")
+                            : std::string("none (+ input grounded)"));
+  out += Item("R_plus that cancels the Ib term",
+              FormatEng(o.balance_resistor_ohm, "\xCE\xA9"));
+  return out;
+}
+
+std::string TeeSection(const Budget& b) {
+  const TeeComparison& c = *b.tee;
+  std::string out = "\n### T network against one resistor of the same " +
+                    FormatEng(c.equivalent_resistance_ohm, "\xCE\xA9") + "\n\n";
+  out += RenderMarkdown(TeeSummaryTable(b)) + "\n";
+  out += Item("noise cost of the T network",
+              Printf("x%.3f in output noise", c.noise_cost_ratio) +
+                  Printf(" (%+.2f dB)", 20.0 * std::log10(c.noise_cost_ratio)));
+  out += "\n" + RenderMarkdown(TeeChangesTable(b));
+  return out;
+}
+
+}  // namespace
+
+std::string BudgetToMarkdown(const Budget& b) {
+  std::string out = Header(b) + NoiseSection(b) + OffsetSection(b);
+  if (b.tee) out += TeeSection(b);
+  for (const std::string& w : b.warnings)
+    out += "\n> warning: " + EscapeMarkdown(w) + "\n";
+  return out;
+}
+
+}  // namespace hushgain

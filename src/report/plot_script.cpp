@@ -1,0 +1,501 @@
+#include "report/plot_script.h"
+
+#include <algorithm>
+#include <cassert>
+#include <cmath>
+#include <cstdio>
+
+#include "io/units.h"
+#include "noise/physical_constants.h"
+#include "report/text_escape.h"
+
+namespace hushgain {
+namespace {
+
+// Sheet geometry in pixels. The legend column on the right holds names
+// with their rms and share; the left margin holds tic labels with units.
+constexpr int kWidthPx = 1400;
+constexpr int kLeftPx = 150;
+constexpr int kLegendPx = 440;
+// Room between the plot and the legend for the dB axis of the gain panel.
+constexpr int kKeyGapPx = 95;
+constexpr int kHeadingPx = 90;
+constexpr int kPanelTopPx = 60;     // panel title and band-edge labels
+constexpr int kPanelBottomPx = 75;  // tic labels and axis label
+
+int PlotHeightPx(PlotPanel panel) {
+  switch (panel) {
+    case PlotPanel::kSpectrum:
+      return 520;
+    case PlotPanel::kCumulative:
+      return 300;
+    case PlotPanel::kGain:
+      return 360;
+  }
+  return 300;
+}
+
+// Our own colours, chosen to stay apart on white and in grey print; past
+// the tenth contributor the dash pattern changes.
+constexpr const char* kColours[] = {"#1f5fa8", "#d1495b", "#2e933c", "#e09f1f",
+                                    "#7b4b94", "#00a0a0", "#9c6644", "#c44f9b",
+                                    "#5c6b73", "#8ab833"};
+constexpr int kColourCount = sizeof kColours / sizeof kColours[0];
+constexpr const char* kBandShade = "#e4e4e4";
+constexpr const char* kEdgeColour = "#444444";
+
+std::string Num(double v) {
+  if (!std::isfinite(v)) return "NaN";
+  char buf[40];
+  std::snprintf(buf, sizeof buf, "%.9g", v);
+  return buf;
+}
+
+// A positive value for a log axis, or NaN (gnuplot skips the point).
+std::string LogNum(double v) { return v > 0 ? Num(v) : "NaN"; }
+
+std::string Printf(const char* format, double value) {
+  char buf[80];
+  std::snprintf(buf, sizeof buf, format, value);
+  return buf;
+}
+
+// "10.00 Hz" -> "10 Hz", "2.500 kHz" -> "2.5 kHz": tic labels need no
+// trailing zeros.
+std::string Short(double value, const std::string& unit) {
+  std::string s = FormatEng(value, unit);
+  const std::size_t space = s.find(' ');
+  std::string number = s.substr(0, space);
+  const std::string rest = space == std::string::npos ? "" : s.substr(space);
+  if (number.find('.') != std::string::npos &&
+      number.find('e') == std::string::npos) {
+    while (number.back() == '0') number.pop_back();
+    if (number.back() == '.') number.pop_back();
+  }
+  return number + rest;
+}
+
+// 0.5, 20, 5000, then 1e4, 2e5: short enough for a tic.
+std::string GainLabel(double value) {
+  if (value >= 1 && value < 1e4) return Printf("%.0f", value);
+  if (value < 1 && value >= 1e-3) return Printf("%g", value);
+  std::string s = Printf("%.0e", value);  // "2e+05"
+  const std::size_t e = s.find('e');
+  std::string exponent = s.substr(e + 1);
+  const bool negative = exponent[0] == '-';
+  exponent.erase(0, 1);
+  while (exponent.size() > 1 && exponent[0] == '0') exponent.erase(0, 1);
+  return s.substr(0, e) + "e" + (negative ? "-" : "") + exponent;
+}
+
+// Log-axis tics over [v_min, v_max]: labelled at each decade, unlabelled
+// minor tics at 2..9 times each decade; when fewer than three decades fall
+// inside, 2 and 5 times each decade are labelled too, so a short axis still
+// reads.
+template <typename Label>
+std::string LogTics(const char* axis, double v_min, double v_max, Label label) {
+  const double lo_v = v_min * (1 - 1e-9), hi_v = v_max * (1 + 1e-9);
+  const int lo = static_cast<int>(std::floor(std::log10(lo_v)));
+  const int hi = static_cast<int>(std::ceil(std::log10(hi_v)));
+  int decades_inside = 0;
+  for (int d = lo; d <= hi; ++d) {
+    const double v = std::pow(10.0, d);
+    if (v >= lo_v && v <= hi_v) ++decades_inside;
+  }
+  const bool label_2_5 = decades_inside < 3;
+  std::string list;
+  for (int d = lo; d <= hi; ++d) {
+    const double decade = std::pow(10.0, d);
+    for (int m = 1; m <= 9; ++m) {
+      const double v = m * decade;
+      if (v < lo_v || v > hi_v) continue;
+      const bool labelled = m == 1 || (label_2_5 && (m == 2 || m == 5));
+      if (!list.empty()) list += ", ";
+      list += labelled ? GnuplotString(label(v)) + " " + Num(v)
+                       : "\"\" " + Num(v) + " 1";
+    }
+  }
+  return std::string("set ") + axis + "tics (" + list + ")\n";
+}
+
+int FloorDecade(double v) {
+  return static_cast<int>(std::floor(std::log10(v)));
+}
+int CeilDecade(double v) { return static_cast<int>(std::ceil(std::log10(v))); }
+
+// The SI-prefixed unit and its scale for values up to `max`: 3e-4 -> µV.
+std::pair<double, std::string> Scale(double max, const std::string& unit) {
+  if (!(max > 0)) return {1.0, unit};
+  const int exponent3 = 3 * static_cast<int>(std::floor(std::log10(max) / 3.0));
+  const double scale = std::pow(10.0, exponent3);
+  const std::string s = FormatEng(scale, unit);
+  const std::size_t space = s.find(' ');
+  return {scale, space == std::string::npos ? unit : s.substr(space + 1)};
+}
+
+struct Frame {
+  double top = 0, bottom = 0;  // screen fractions of the plot area
+};
+
+class ScriptWriter {
+ public:
+  ScriptWriter(const Budget& b, const PlotData& d, const PlotScriptOptions& o)
+      : b_(b), d_(d), o_(o) {
+    for (const Contributor& c : b.contributors)
+      if (int k = d.samples.Find(c.name); k >= 0) order_.push_back(k);
+    for (std::size_t k = 0; k < d.samples.names.size(); ++k)
+      if (std::find(order_.begin(), order_.end(), static_cast<int>(k)) ==
+          order_.end())
+        order_.push_back(static_cast<int>(k));
+    const auto range = PlotFrequencyRangeHz(b);
+    f_min_ = range.first;
+    f_max_ = range.second;
+    height_px_ = kHeadingPx;
+    for (PlotPanel p : o.panels)
+      height_px_ += kPanelTopPx + PlotHeightPx(p) + kPanelBottomPx;
+  }
+
+  std::string Write() {
+    Terminal();
+    Data();
+    out_ += "set multiplot\n";
+    Heading();
+    int y_px = kHeadingPx;
+    bool first = true;
+    for (PlotPanel p : o_.panels) {
+      Frame f;
+      f.top = 1.0 - static_cast<double>(y_px + kPanelTopPx) / height_px_;
+      f.bottom =
+          1.0 - static_cast<double>(y_px + kPanelTopPx + PlotHeightPx(p)) /
+                    height_px_;
+      y_px += kPanelTopPx + PlotHeightPx(p) + kPanelBottomPx;
+      Reset(f);
+      switch (p) {
+        case PlotPanel::kSpectrum:
+          Spectrum(f);
+          break;
+        case PlotPanel::kCumulative:
+          Cumulative(f);
+          break;
+        case PlotPanel::kGain:
+          Gain(f);
+          break;
+      }
+      if (first) out_ += "unset label 1\nunset label 2\n";
+      first = false;
+    }
+    out_ += "unset multiplot\nset output\n";
+    return out_;
+  }
+
+ private:
+  void Terminal() {
+    const std::string size =
+        std::to_string(kWidthPx) + "," + std::to_string(height_px_);
+    if (o_.format == PlotFormat::kSvg)
+      out_ += "set terminal svg size " + size +
+              " font 'DejaVu Sans,11' noenhanced background rgb 'white'\n";
+    else
+      out_ += "set terminal pngcairo size " + size +
+              " font 'DejaVu Sans,11' noenhanced background rgb 'white'\n";
+    out_ += "set encoding utf8\n";
+    out_ += "set output " + GnuplotString(o_.output_path) + "\n";
+  }
+
+  // Datablocks hold numbers only. $samples: f, one column per contributor
+  // (budget order), total, |signal gain|, |noise gain|, |loop gain|.
+  void Data() {
+    const SpectrumSamples& s = d_.samples;
+    out_ += "$samples << EOD\n";
+    for (std::size_t i = 0; i < s.f_hz.size(); ++i) {
+      out_ += Num(s.f_hz[i]);
+      for (int k : order_) out_ += " " + LogNum(s.density_v_per_rthz[k][i]);
+      out_ += " " + LogNum(s.total_v_per_rthz[i]) + " " +
+              LogNum(s.signal_gain_abs[i]) + " " + LogNum(s.noise_gain_abs[i]) +
+              " " + LogNum(s.loop_gain_abs[i]) + "\n";
+    }
+    out_ += "EOD\n";
+    out_ += "$cumulative << EOD\n";
+    for (std::size_t i = 0; i < d_.cumulative_f_hz.size(); ++i)
+      out_ +=
+          Num(d_.cumulative_f_hz[i]) + " " + Num(d_.cumulative_rms_v[i]) + "\n";
+    out_ += "EOD\n";
+    // The band total (from the band integral) as a level across the band.
+    const double total = b_.output_rms_v;
+    out_ += "$band_total << EOD\n" + Num(b_.band_low_hz) + " " + Num(total) +
+            "\n" + Num(b_.band_high_hz) + " " + Num(total) + "\nEOD\n";
+  }
+
+  void Heading() {
+    const std::string summary =
+        Printf("%.2f", b_.temperature_k - kZeroCelsiusK) +
+        " \xC2\xB0"
+        "C, band " +
+        FormatEng(b_.band_low_hz, "Hz") + " to " +
+        FormatEng(b_.band_high_hz, "Hz") +
+        (b_.input_unit == "A"
+             ? ", transimpedance " + FormatEng(b_.signal_gain_dc, "\xCE\xA9")
+             : ", signal gain " + Printf("%.4g", b_.signal_gain_dc) + " V/V") +
+        " at DC;  output " + FormatEng(b_.output_rms_v, "V") + " rms (" +
+        FormatEng(b_.output_peak_to_peak_v, "V") + " p-p), input-referred " +
+        FormatEng(b_.input_rms, b_.input_unit) + " rms";
+    out_ += "set label 1 " + GnuplotString(b_.stage_name) +
+            " at screen 0.5, screen " + Num(1.0 - 32.0 / height_px_) +
+            " center font ',16'\n";
+    out_ += "set label 2 " + GnuplotString(summary) +
+            " at screen 0.5, screen " + Num(1.0 - 64.0 / height_px_) +
+            " center\n";
+  }
+
+  void Reset(const Frame& f) {
+    out_ +=
+        "unset object\nunset arrow\nunset label 10\nunset label 11\n"
+        "unset label 12\nunset label 13\nunset label 14\n"
+        "unset logscale\nunset y2tics\nunset y2label\nunset title\n"
+        "set ytics auto nomirror\nset xtics auto\n";
+    out_ += "set lmargin at screen " + Num(double(kLeftPx) / kWidthPx) + "\n";
+    out_ += "set rmargin at screen " +
+            Num(double(kWidthPx - kLegendPx) / kWidthPx) + "\n";
+    out_ += "set tmargin at screen " + Num(f.top) + "\n";
+    out_ += "set bmargin at screen " + Num(f.bottom) + "\n";
+    out_ += "set logscale x\n";
+    out_ += "set xrange [" + Num(f_min_) + ":" + Num(f_max_) + "]\n";
+    out_ +=
+        LogTics("x", f_min_, f_max_, [](double v) { return Short(v, "Hz"); });
+    out_ += "set xlabel 'frequency (Hz)'\n";
+    out_ += "set grid xtics ytics lc rgb '#d8d8d8' lw 1\n";
+    out_ += "set border 3 lw 1\nset xtics nomirror out\nset ytics out\n";
+    // The parts outside the band shaded, the edges drawn and labelled above
+    // the plot.
+    out_ += "set object 1 rect from graph 0, graph 0 to first " +
+            Num(b_.band_low_hz) + ", graph 1 behind fc rgb '" + kBandShade +
+            "' fs solid 1.0 noborder\n";
+    out_ += "set object 2 rect from first " + Num(b_.band_high_hz) +
+            ", graph 0 to graph 1, graph 1 behind fc rgb '" + kBandShade +
+            "' fs solid 1.0 noborder\n";
+    for (double edge : {b_.band_low_hz, b_.band_high_hz})
+      out_ += "set arrow from first " + Num(edge) + ", graph 0 to first " +
+              Num(edge) + ", graph 1 nohead dt 2 lw 1.5 lc rgb '" +
+              kEdgeColour + "' front\n";
+    out_ +=
+        "set label 10 " +
+        GnuplotString("band " + Short(b_.band_low_hz, "Hz") + " \xE2\x96\xB8") +
+        " at first " + Num(b_.band_low_hz) +
+        ", graph 1 right offset 0.4,0.7 tc rgb '" + kEdgeColour + "'\n";
+    out_ += "set label 11 " +
+            GnuplotString("\xE2\x97\x82 " + Short(b_.band_high_hz, "Hz") +
+                          " band") +
+            " at first " + Num(b_.band_high_hz) +
+            ", graph 1 left offset -0.4,0.7 tc rgb '" + kEdgeColour + "'\n";
+    out_ += "set key at screen " +
+            Num(double(kWidthPx - kLegendPx + kKeyGapPx) / kWidthPx) +
+            ", screen " + Num(f.top) +
+            " left top Left reverse samplen 2.5 spacing 1.25 "
+            "box lc rgb '#bbbbbb' width -1\n";
+  }
+
+  void PanelTitle(const std::string& title) {
+    out_ += "set label 12 " + GnuplotString(title) +
+            " at graph 0, graph 1 left offset 0,2.2 font ',13'\n";
+  }
+
+  void Spectrum(const Frame&) {
+    const SpectrumSamples& s = d_.samples;
+    double y_max = 0, y_min = HUGE_VAL;
+    for (double v : s.total_v_per_rthz) y_max = std::max(y_max, v);
+    for (int k : order_)
+      for (double v : s.density_v_per_rthz[k])
+        if (v > 0) y_min = std::min(y_min, v);
+    const int hi = CeilDecade(y_max * 1.05);
+    // Five decades below the top are enough to see what matters; smaller
+    // contributors leave the plot but keep their legend line.
+    const int lo = std::max(FloorDecade(std::min(y_min, y_max)), hi - 4);
+    PanelTitle("Output noise density by contributor");
+    out_ += "set logscale y\n";
+    // The slight padding keeps gnuplot from dropping the end tics.
+    out_ += "set yrange [" + Num(std::pow(10.0, lo) * 0.999) + ":" +
+            Num(std::pow(10.0, hi) * 1.001) + "]\n";
+    out_ += LogTics("y", std::pow(10.0, lo), std::pow(10.0, hi),
+                    [](double v) { return Short(v, "V/\xE2\x88\x9AHz"); });
+    out_ += "set ylabel 'output noise density (V/\xE2\x88\x9AHz)'\n";
+    out_ += "set key title 'in-band output rms, share' left\n";
+    std::string plot =
+        "plot $samples using 1:" + std::to_string(order_.size() + 2) +
+        " with lines lw 3.5 lc rgb '#000000' title " +
+        GnuplotString("total  " + FormatEng(b_.output_rms_v, "V") + ", 100 %");
+    for (std::size_t j = 0; j < order_.size(); ++j) {
+      const std::string& name = s.names[order_[j]];
+      std::string legend = name;
+      for (const Contributor& c : b_.contributors)
+        if (c.name == name)
+          legend += "  " + FormatEng(c.output_rms_v, "V") + ", " +
+                    (c.share < 0.0005 ? std::string("<0.1 %")
+                                      : Printf("%.1f %%", 100.0 * c.share));
+      // A curve that lies on an earlier one (the two i_n of a balanced
+      // stage) is dashed so both stay visible.
+      const int dash =
+          SameAsEarlier(j) ? 2 : 1 + static_cast<int>(j) / kColourCount;
+      plot += ", \\\n  $samples using 1:" + std::to_string(j + 2) +
+              " with lines lw " + (dash == 2 ? "2.5" : "2") + " lc rgb '" +
+              kColours[j % kColourCount] + "' dt " + std::to_string(dash) +
+              " title " + GnuplotString(legend);
+    }
+    out_ += plot + "\n";
+    out_ += "set key notitle\n";
+  }
+
+  // Whether contributor order_[j] is within 1 % of an earlier one at every
+  // frequency.
+  bool SameAsEarlier(std::size_t j) const {
+    const auto& d = d_.samples.density_v_per_rthz;
+    for (std::size_t i = 0; i < j; ++i) {
+      bool same = true;
+      const auto& a = d[order_[i]];
+      const auto& b = d[order_[j]];
+      for (std::size_t n = 0; n < a.size() && same; ++n)
+        same = std::fabs(a[n] - b[n]) <= 0.01 * std::max(a[n], b[n]);
+      if (same) return true;
+    }
+    return false;
+  }
+
+  void Cumulative(const Frame&) {
+    const auto [scale, unit] = Scale(b_.output_rms_v, "V");
+    PanelTitle("Cumulative output noise from the low band edge up");
+    out_ += "set yrange [0:" + Num(1.15 * b_.output_rms_v / scale) + "]\n";
+    out_ += "set ytics auto\nset format y '%g'\n";
+    out_ += "set ylabel " + GnuplotString("output rms (" + unit + ")") + "\n";
+    out_ += "plot $cumulative using 1:($2/" + Num(scale) +
+            ") with lines lw 3 lc rgb '" + kColours[0] + "' title " +
+            GnuplotString("rms from " + Short(b_.band_low_hz, "Hz") + " to f") +
+            ", \\\n  $band_total using 1:($2/" + Num(scale) +
+            ") with lines dt 3 lw 1.5 lc rgb '#000000' title " +
+            GnuplotString("band total " + FormatEng(b_.output_rms_v, "V") +
+                          " rms") +
+            "\n";
+    out_ += "set format y '% h'\n";
+  }
+
+  // A log range around the curves: a little room above the largest value,
+  // at most `decades` below it, and always the unity line when `with_unity`.
+  static std::pair<double, double> LogRange(
+      const std::vector<const std::vector<double>*>& curves, double decades,
+      bool with_unity) {
+    double y_max = 0, y_min = HUGE_VAL;
+    for (const auto* v : curves)
+      for (double x : *v)
+        if (x > 0) {
+          y_max = std::max(y_max, x);
+          y_min = std::min(y_min, x);
+        }
+    if (!(y_max > 0)) y_max = y_min = 1;
+    const double top = y_max * 2.5;
+    double bottom = std::max(y_min / 1.5, top * std::pow(10.0, -decades));
+    if (with_unity) bottom = std::min(bottom, 0.3);
+    return {bottom, top};
+  }
+
+  // A vertical marker line; its words go into the legend (a key entry in
+  // the same colour and dash), so no text ever crosses a curve.
+  std::string Marker(double f, const std::string& text, const char* colour) {
+    out_ += "set arrow from first " + Num(f) + ", graph 0 to first " + Num(f) +
+            ", graph 1 nohead dt 4 lw 1.5 lc rgb '" + colour + "' front\n";
+    return ", \\\n  keyentry with lines dt 4 lw 1.5 lc rgb '" +
+           std::string(colour) + "' title " + GnuplotString(text);
+  }
+
+  void Gain(const Frame&) {
+    const SpectrumSamples& s = d_.samples;
+    // A current source's signal gain is a transimpedance (V/A): it gets the
+    // left axis alone, the V/V gains the right one. Otherwise every gain is
+    // V/V on the left and the right axis reads the same in dB.
+    const bool transimpedance = b_.input_unit == "A";
+    std::vector<const std::vector<double>*> ratio_curves = {&s.noise_gain_abs,
+                                                            &s.loop_gain_abs};
+    if (!transimpedance) ratio_curves.push_back(&s.signal_gain_abs);
+    const auto [r_bottom, r_top] = LogRange(ratio_curves, 6, true);
+    PanelTitle("Signal gain, e_n noise gain and loop gain (magnitude)");
+    out_ += "set logscale y\n";
+    const char* ratio_axis = "x1y1";
+    if (transimpedance) {
+      const auto [z_bottom, z_top] = LogRange({&s.signal_gain_abs}, 4, false);
+      out_ += "set yrange [" + Num(z_bottom) + ":" + Num(z_top) + "]\n";
+      out_ += LogTics("y", z_bottom, z_top,
+                      [](double v) { return Short(v, "\xCE\xA9"); });
+      out_ += "set ylabel " + GnuplotString("transimpedance (V/A = \xCE\xA9)") +
+              "\n";
+      out_ += "set logscale y2\n";
+      out_ += "set y2range [" + Num(r_bottom) + ":" + Num(r_top) + "]\n";
+      out_ += "set y2tics out\n";
+      out_ += LogTics("y2", r_bottom, r_top, GainLabel);
+      out_ += "set y2label 'noise gain, loop gain (V/V)'\n";
+      ratio_axis = "x1y2";
+    } else {
+      out_ += "set yrange [" + Num(r_bottom) + ":" + Num(r_top) + "]\n";
+      out_ += LogTics("y", r_bottom, r_top, GainLabel);
+      out_ += "set ylabel 'gain (V/V)'\n";
+      out_ += "set y2range [" + Num(20.0 * std::log10(r_bottom)) + ":" +
+              Num(20.0 * std::log10(r_top)) + "]\n";
+      out_ += "set y2tics 20 out\nset y2label 'dB'\n";
+    }
+    out_ += "set border 11 lw 1\n";
+    // The unity line, where the loop gain crosses over.
+    out_ += std::string("set arrow from graph 0, ") +
+            (transimpedance ? "second" : "first") + " 1 to graph 1, " +
+            (transimpedance ? "second" : "first") +
+            " 1 nohead dt 3 lw 1 lc rgb '#888888'\n";
+
+    // The -3 dB bandwidth and the loop crossover, named in the legend.
+    const double bw = b_.bandwidth_3db_hz;
+    const bool crossover = b_.loop.crossover_found &&
+                           b_.loop.crossover_hz > f_min_ &&
+                           b_.loop.crossover_hz < f_max_;
+    std::string markers;
+    if (bw > 0)
+      markers += Marker(bw, "-3 dB at " + FormatEng(bw, "Hz"), kColours[1]);
+    if (crossover)
+      markers +=
+          Marker(b_.loop.crossover_hz,
+                 "crossover " + FormatEng(b_.loop.crossover_hz, "Hz") +
+                     ", PM " +
+                     Printf("%.1f", b_.loop.phase_margin_deg) + "\xC2\xB0",
+                 kColours[4]);
+
+    const int cols = static_cast<int>(order_.size());
+    out_ += "plot $samples using 1:" + std::to_string(cols + 3) +
+            " axes x1y1 with lines lw 2.5 lc rgb '" + kColours[0] + "' title " +
+            GnuplotString("|signal gain| (" +
+                          std::string(transimpedance ? "V/A" : "V/V") + ")") +
+            ", \\\n  $samples using 1:" + std::to_string(cols + 4) + " axes " +
+            ratio_axis + " with lines lw 2.5 dt 2 lc rgb '" + kColours[2] +
+            "' title " + GnuplotString("|e_n noise gain| (V/V)") +
+            ", \\\n  $samples using 1:" + std::to_string(cols + 5) + " axes " +
+            ratio_axis + " with lines lw 2 dt 5 lc rgb '" + kColours[4] +
+            "' title " + GnuplotString("|loop gain| (V/V)") + markers + "\n";
+    out_ += "set border 3\nunset logscale y2\n";
+  }
+
+  const Budget& b_;
+  const PlotData& d_;
+  const PlotScriptOptions& o_;
+  std::vector<int> order_;
+  double f_min_ = 1, f_max_ = 10;
+  int height_px_ = 0;
+  std::string out_;
+};
+
+}  // namespace
+
+std::pair<double, double> PlotFrequencyRangeHz(const Budget& b) {
+  const double top = std::max(b.band_high_hz, b.bandwidth_3db_hz);
+  return {b.band_low_hz / 10.0, top * 10.0};
+}
+
+std::string BuildPlotScript(const Budget& budget, const PlotData& data,
+                            const PlotScriptOptions& options) {
+  assert(data.samples.f_hz.size() >= 2 && !options.panels.empty());
+  assert(data.cumulative_f_hz.size() == data.cumulative_rms_v.size());
+  return ScriptWriter(budget, data, options).Write();
+}
+
+}  // namespace hushgain

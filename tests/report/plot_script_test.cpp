@@ -1,0 +1,128 @@
+#include "report/plot_script.h"
+
+#include <doctest/doctest.h>
+
+#include <sstream>
+#include <string>
+
+#include "report/csv_report.h"
+#include "report/text_escape.h"
+
+namespace hushgain {
+namespace {
+
+// A small budget and its samples, built by hand: two contributors, a band
+// of 10 Hz .. 1 kHz, a -3 dB bandwidth of 5 kHz.
+Budget SmallBudget() {
+  Budget b;
+  b.stage_name = "bench stage";
+  b.temperature_k = 298.15;
+  b.band_low_hz = 10;
+  b.band_high_hz = 1e3;
+  b.reference_hz = 100;
+  b.bandwidth_3db_hz = 5e3;
+  b.signal_gain_dc = -100;
+  b.output_rms_v = 5e-6;
+  b.loop.crossover_found = true;
+  b.loop.crossover_hz = 6e3;
+  b.loop.phase_margin_deg = 80;
+  Contributor big;
+  big.name = "R_in";
+  big.output_rms_v = 4e-6;
+  big.share = 0.64;
+  Contributor small;
+  small.name = "e_n";
+  small.output_rms_v = 3e-6;
+  small.share = 0.36;
+  b.contributors = {big, small};
+  return b;
+}
+
+PlotData SmallData() {
+  PlotData d;
+  SpectrumSamples& s = d.samples;
+  s.f_hz = {1, 10, 100, 1e3, 1e4, 5e4};
+  // Evaluator order differs from the budget's (largest share first).
+  s.names = {"e_n", "R_in"};
+  s.kinds = {"voltage_noise", "thermal"};
+  s.density_v_per_rthz = {{3e-8, 3e-8, 3e-8, 3e-8, 1e-8, 1e-9},
+                          {4e-8, 4e-8, 4e-8, 4e-8, 2e-8, 2e-9}};
+  s.total_v_per_rthz = {5e-8, 5e-8, 5e-8, 5e-8, 2.2e-8, 2.2e-9};
+  s.signal_gain_abs = {100, 100, 100, 100, 50, 10};
+  s.noise_gain_abs = {101, 101, 101, 101, 50, 10};
+  s.loop_gain_abs = {1e4, 1e4, 1e3, 1e2, 1, 0.1};
+  d.cumulative_f_hz = {10, 100, 1e3};
+  d.cumulative_rms_v = {0, 3e-6, 5e-6};
+  return d;
+}
+
+int CountLines(const std::string& text, const std::string& start) {
+  std::istringstream in(text);
+  std::string line;
+  int n = 0;
+  while (std::getline(in, line)) n += line.rfind(start, 0) == 0;
+  return n;
+}
+
+TEST_CASE("the plot range spans a decade around the band and the bandwidth") {
+  const auto [lo, hi] = PlotFrequencyRangeHz(SmallBudget());
+  CHECK(lo == doctest::Approx(1.0));
+  CHECK(hi == doctest::Approx(5e4));  // 10 x the 5 kHz bandwidth
+}
+
+TEST_CASE("the plot script draws three panels from inline data") {
+  PlotScriptOptions options;
+  options.format = PlotFormat::kSvg;
+  options.output_path = "/tmp/out.svg.tmp-1";
+  const std::string gp = BuildPlotScript(SmallBudget(), SmallData(), options);
+  CHECK(gp.rfind("set terminal svg ", 0) == 0);
+  CHECK(gp.find("noenhanced") != std::string::npos);
+  // The output path as an escaped literal: "/" is \057, "." \056, "-" \055,
+  // digits are escaped too.
+  CHECK(gp.find("set output \"\\057tmp\\057out\\056svg\\056tmp\\055\\061\"") !=
+        std::string::npos);
+  CHECK(CountLines(gp, "plot ") == 3);
+  // The datablock: one line per frequency; columns f, R_in, e_n (budget
+  // order), total, signal, noise and loop gain.
+  const std::size_t start = gp.find("$samples << EOD\n");
+  REQUIRE(start != std::string::npos);
+  const std::size_t end = gp.find("EOD\n", start + 16);
+  const std::string block = gp.substr(start + 16, end - start - 16);
+  CHECK(CountLines(block, "") == 6);
+  CHECK(block.rfind("1 4e-08 3e-08 5e-08 100 101 10000\n", 0) == 0);
+  // Both band edges are drawn, and the legend names each contributor with
+  // its rms and share.
+  CHECK(gp.find("set arrow from first 10, graph 0 to first 10, graph 1") !=
+        std::string::npos);
+  CHECK(gp.find("set arrow from first 1000, graph 0 to first 1000, graph 1") !=
+        std::string::npos);
+  // (GnuplotString itself is checked in text_escape_test.cpp.)
+  CHECK(gp.find("title " + GnuplotString("R_in  4.000 \xC2\xB5V, 64.0 %")) !=
+        std::string::npos);
+  CHECK(gp.find("title " + GnuplotString("e_n  3.000 \xC2\xB5V, 36.0 %")) !=
+        std::string::npos);
+  CHECK(gp.find("unset multiplot") != std::string::npos);
+}
+
+TEST_CASE("--only panels give one plot each") {
+  for (PlotPanel p :
+       {PlotPanel::kSpectrum, PlotPanel::kCumulative, PlotPanel::kGain}) {
+    PlotScriptOptions options;
+    options.output_path = "x.png";
+    options.panels = {p};
+    const std::string gp = BuildPlotScript(SmallBudget(), SmallData(), options);
+    CHECK(gp.rfind("set terminal pngcairo ", 0) == 0);
+    CHECK(CountLines(gp, "plot ") == 1);
+  }
+}
+
+TEST_CASE("the spectrum csv lists contributors in the budget's order") {
+  const std::string csv = SpectrumToCsv(SmallBudget(), SmallData().samples);
+  CHECK(csv.rfind("f_Hz,R_in_V_per_rtHz,e_n_V_per_rtHz,total_V_per_rtHz,"
+                  "signal_gain_V_per_V,noise_gain_V_per_V,loop_gain_V_per_V"
+                  "\r\n1,4e-08,3e-08,5e-08,100,101,10000\r\n",
+                  0) == 0);
+}
+
+}  // namespace
+}  // namespace hushgain
