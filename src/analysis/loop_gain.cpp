@@ -8,12 +8,6 @@
 namespace hushgain {
 namespace {
 
-std::string Hz(double f_hz) {
-  char buf[48];
-  std::snprintf(buf, sizeof buf, "%.6g Hz", f_hz);
-  return buf;
-}
-
 }  // namespace
 
 LoopGainSolver::LoopGainSolver(const MnaSystem& system, int opamp, const OpAmpModel& model)
@@ -43,7 +37,7 @@ Status LoopGainSolver::LoopGainAt(double f_hz, Complex* loop_gain) {
   x_.noalias() = lu_.solve(b_);
   const double smallest_pivot = lu_.matrixLU().diagonal().cwiseAbs().minCoeff();
   if (!x_.allFinite() || !(smallest_pivot > 0))
-    return Status::Fail("the loop cannot be solved at " + Hz(f_hz));
+    return Status::Fail("the loop cannot be solved at " + HzText(f_hz));
   Complex vd = 0;
   if (plus_ >= 0) vd += x_[plus_];
   if (minus_ >= 0) vd -= x_[minus_];

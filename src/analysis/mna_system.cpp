@@ -35,12 +35,6 @@ void Union(std::vector<int>& parent, int a, int b) {
   parent[Find(parent, a)] = Find(parent, b);
 }
 
-std::string Hz(double f_hz) {
-  char buf[48];
-  std::snprintf(buf, sizeof buf, "%.6g Hz", f_hz);
-  return buf;
-}
-
 }  // namespace
 
 Status MnaSystem::Build(const Netlist& net, MnaSystem* system) {
@@ -182,7 +176,7 @@ Status AdjointSolver::SolveAt(double f_hz) {
   if (!(smallest_pivot >= kMinReciprocalCondition) ||
       (suspicious && !(lu_.rcond() >= kMinReciprocalCondition)))
     return Status::Fail("the network is singular or too ill-conditioned to "
-                        "solve at " + Hz(f_hz));
+                        "solve at " + HzText(f_hz));
   scaled_rhs_ = row_scale_.asDiagonal() * rhs_;
   z_.noalias() = lu_.solve(scaled_rhs_);
   z_.array() *= column_scale_.array();
@@ -196,7 +190,7 @@ Status AdjointSolver::SolveAt(double f_hz) {
     return Status::Fail(
         "the network is singular or too ill-conditioned to "
         "solve at " +
-        Hz(f_hz));
+        HzText(f_hz));
   return Status::Ok();
 }
 
@@ -212,7 +206,7 @@ Status DirectSolve(const MnaSystem& system, double f_hz, Port port,
   ComplexLu lu(y);
   *x = lu.solve(b);
   if (!x->allFinite())
-    return Status::Fail("the network is singular at " + Hz(f_hz));
+    return Status::Fail("the network is singular at " + HzText(f_hz));
   return Status::Ok();
 }
 

@@ -4,9 +4,17 @@
 #ifndef HUSHGAIN_ANALYSIS_STATUS_H_
 #define HUSHGAIN_ANALYSIS_STATUS_H_
 
+#include <cstdio>
 #include <string>
 
 namespace hushgain {
+
+// A frequency for a status message: "1234.5 Hz" (6 significant digits).
+inline std::string HzText(double f_hz) {
+  char buf[48];
+  std::snprintf(buf, sizeof buf, "%.6g Hz", f_hz);
+  return buf;
+}
 
 struct Status {
   bool ok = true;

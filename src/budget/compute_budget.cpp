@@ -32,8 +32,6 @@ std::string Printf(const char* format, double a, double b = 0) {
   return buf;
 }
 
-std::string Hz(double f_hz) { return Printf("%.6g Hz", f_hz); }
-
 // Fails when `value` is not finite; names the quantity.
 Status CheckFinite(double value, const std::string& what) {
   if (std::isfinite(value)) return Status::Ok();
@@ -164,8 +162,8 @@ Status ResponseFigures(const Stage& stage, const Ports& p, SpectrumEvaluator& ev
   b.peaking_db = response.peaking_db;
   b.peak_hz = response.peak_hz;
   if (b.bandwidth_3db_hz > 0 && b.bandwidth_3db_hz < b.band_high_hz)
-    b.warnings.push_back("the closed-loop -3 dB bandwidth (" + Hz(b.bandwidth_3db_hz) +
-                         ") is below the band's upper edge (" + Hz(b.band_high_hz) + ")");
+    b.warnings.push_back("the closed-loop -3 dB bandwidth (" + HzText(b.bandwidth_3db_hz) +
+                         ") is below the band's upper edge (" + HzText(b.band_high_hz) + ")");
   return Status::Ok();
 }
 
@@ -285,7 +283,7 @@ BudgetOutcome ComputeBudget(const Stage& requested, const BudgetOptions& options
 
   for (double v : {b.signal_gain_ref, b.noise_gain_ref, b.output_rms_v, b.input_rms,
                    b.offset.worst_case_v, b.input_density_ref_per_rthz}) {
-    s = CheckFinite(v, "a budget figure at " + Hz(b.reference_hz));
+    s = CheckFinite(v, "a budget figure at " + HzText(b.reference_hz));
     if (!s.ok) return {s, b};
   }
 
