@@ -291,6 +291,7 @@ SpreadRun RunSpread(const Stage& stage, const SpreadOptions& options, const Spre
     return run;
   }
   run.nominal = nominal.budget;
+  run.gaussian_offsets = stage.opamp.offset_distribution == OffsetDistribution::kGaussian;
   Model model;
   run.status = BuildModel(stage, nominal, &model);
   if (!run.status.ok) return run;

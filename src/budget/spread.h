@@ -61,6 +61,7 @@ struct SpreadRun {
   bool interrupted = false;
   Budget nominal;  // the budget at the nominal temperature
   double nominal_gain = 0;  // the DC gain the errors are relative to
+  bool gaussian_offsets = false;  // the op-amp's offset_distribution
   std::vector<SpreadSample> samples;  // index order
   std::vector<std::string> resistor_names;  // netlist order
   std::vector<double> resistor_ohms;  // samples x names, row-major

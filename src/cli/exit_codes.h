@@ -7,6 +7,7 @@ namespace hushgain {
 inline constexpr int kExitOk = 0;
 inline constexpr int kExitAnalysisRefused = 1;  // singular network, ...
 inline constexpr int kExitUsage = 2;            // bad command line or input
+inline constexpr int kExitInterrupted = 130;    // stopped by SIGINT (128 + 2)
 
 }  // namespace hushgain
 
