@@ -65,7 +65,8 @@ void RunSpreadBenchmarks() {
     const SpreadRun result = RunSpread(stage, options);
     const auto stop = std::chrono::steady_clock::now();
     if (!result.status.ok) {
-      std::fprintf(stderr, "spread benchmark failed: %s\n", result.status.message.c_str());
+      std::fprintf(stderr, "spread benchmark failed: %s\n",
+                   result.status.message.c_str());
       return;
     }
     seconds.push_back(std::chrono::duration<double>(stop - start).count());

@@ -15,7 +15,8 @@ Status SolveDc(const MnaSystem& system, const std::vector<DcStimulus>& stimuli,
   RealLu lu(system.g());
   RealVector x = lu.solve(b);
   const double residual = (system.g() * x - b).cwiseAbs().maxCoeff();
-  const double scale = system.g().cwiseAbs().rowwise().sum().maxCoeff() * x.cwiseAbs().maxCoeff() +
+  const double scale = system.g().cwiseAbs().rowwise().sum().maxCoeff() *
+                           x.cwiseAbs().maxCoeff() +
                        b.cwiseAbs().maxCoeff();
   if (!x.allFinite() || !(residual <= 1e-9 * scale))
     return Status::Fail("the network is singular at DC (0 Hz)");
@@ -23,7 +24,8 @@ Status SolveDc(const MnaSystem& system, const std::vector<DcStimulus>& stimuli,
   return Status::Ok();
 }
 
-double NodeVoltage(const MnaSystem& system, const std::vector<double>& unknowns, NodeId node) {
+double NodeVoltage(const MnaSystem& system, const std::vector<double>& unknowns,
+                   NodeId node) {
   const int i = system.NodeIndex(node);
   return i >= 0 ? unknowns[i] : 0.0;
 }

@@ -13,8 +13,8 @@
 namespace hushgain {
 
 struct DcStimulus {
-  Port port;          // from MnaSystem::Compile
-  double value = 0;   // V for a voltage excitation, A for a current one
+  Port port;         // from MnaSystem::Compile
+  double value = 0;  // V for a voltage excitation, A for a current one
 };
 
 // Writes every unknown of `system` into `unknowns` (node voltages at
@@ -23,7 +23,8 @@ Status SolveDc(const MnaSystem& system, const std::vector<DcStimulus>& stimuli,
                std::vector<double>* unknowns);
 
 // The voltage of `node` in a solution (0 for ground).
-double NodeVoltage(const MnaSystem& system, const std::vector<double>& unknowns, NodeId node);
+double NodeVoltage(const MnaSystem& system, const std::vector<double>& unknowns,
+                   NodeId node);
 
 }  // namespace hushgain
 

@@ -31,9 +31,11 @@ std::string Hz(double f_hz) {
 // The factorization and both triangular solves, for a size known at
 // compile time (N > 0: the loops unroll) or at run time (N = 0).
 template <int N>
-bool FactorAndSolve(int runtime_n, double w, const double* __restrict g_t, const double* __restrict c_t,
-                    int output, double* __restrict ar, double* __restrict ai, int* __restrict pivot,
-                    double* __restrict row_scale, double* __restrict zr, double* __restrict zi) {
+bool FactorAndSolve(int runtime_n, double w, const double* __restrict g_t,
+                    const double* __restrict c_t, int output,
+                    double* __restrict ar, double* __restrict ai,
+                    int* __restrict pivot, double* __restrict row_scale,
+                    double* __restrict zr, double* __restrict zi) {
   const int n = N > 0 ? N : runtime_n;
   const bool real_only = w == 0;
   // Form A = Y^T and equilibrate its rows to a largest entry of 1.
@@ -145,7 +147,8 @@ RestampSolver::RestampSolver(const MnaSystem& system, const Netlist& netlist)
   }
   // Entries that held only resistor stamps are left with rounding residue.
   for (int i = 0; i < n * n; ++i)
-    if (std::fabs(g_base_t_[i]) <= 1e-12 * std::fabs(magnitude[i])) g_base_t_[i] = 0;
+    if (std::fabs(g_base_t_[i]) <= 1e-12 * std::fabs(magnitude[i]))
+      g_base_t_[i] = 0;
   // Split C^T = P Q^T by elimination with complete pivoting.
   std::vector<double> rest = c_t_;
   double largest = 0;
@@ -155,7 +158,8 @@ RestampSolver::RestampSolver(const MnaSystem& system, const Netlist& netlist)
     double best = 0;
     for (int i = 0; i < n; ++i)
       for (int j = 0; j < n; ++j)
-        if (std::fabs(rest[i * n + j]) > best) best = std::fabs(rest[i * n + j]), bi = i, bj = j;
+        if (std::fabs(rest[i * n + j]) > best)
+          best = std::fabs(rest[i * n + j]), bi = i, bj = j;
     if (best <= 1e-13 * largest) break;
     const double pivot = rest[bi * n + bj];
     std::vector<double> col(n), row(n);
@@ -253,13 +257,17 @@ Status RestampSolver::SolveAdjoint(double f_hz) {
         const double m = std::fabs(mr[i * r + k]) + std::fabs(mi[i * r + k]);
         if (m > best) best = m, p = i;
       }
-      if (!(best > 1e-300)) return Status::Fail("the network is singular at " + Hz(f_hz));
+      if (!(best > 1e-300))
+        return Status::Fail("the network is singular at " + Hz(f_hz));
       if (p != k) {
-        for (int j = 0; j < r; ++j) std::swap(mr[k * r + j], mr[p * r + j]), std::swap(mi[k * r + j], mi[p * r + j]);
+        for (int j = 0; j < r; ++j)
+          std::swap(mr[k * r + j], mr[p * r + j]),
+              std::swap(mi[k * r + j], mi[p * r + j]);
         std::swap(yr[k], yr[p]);
         std::swap(yi[k], yi[p]);
       }
-      const double pr = mr[k * r + k], pi = mi[k * r + k], d = pr * pr + pi * pi;
+      const double pr = mr[k * r + k], pi = mi[k * r + k],
+                   d = pr * pr + pi * pi;
       for (int i = k + 1; i < r; ++i) {
         const double xr = mr[i * r + k], xi = mi[i * r + k];
         const double lr = (xr * pr + xi * pi) / d, li = (xi * pr - xr * pi) / d;
@@ -277,14 +285,16 @@ Status RestampSolver::SolveAdjoint(double f_hz) {
         sr -= mr[i * r + j] * yr[j] - mi[i * r + j] * yi[j];
         si -= mr[i * r + j] * yi[j] + mi[i * r + j] * yr[j];
       }
-      const double pr = mr[i * r + i], pi = mi[i * r + i], d = pr * pr + pi * pi;
+      const double pr = mr[i * r + i], pi = mi[i * r + i],
+                   d = pr * pr + pi * pi;
       yr[i] = (sr * pr + si * pi) / d;
       yi[i] = (si * pr - sr * pi) / d;
     }
     // z = z0 - j w W y.
     for (int m = 0; m < n; ++m) {
       double ar = 0, ai = 0;
-      for (int c = 0; c < r; ++c) ar += w_[c * n + m] * yr[c], ai += w_[c * n + m] * yi[c];
+      for (int c = 0; c < r; ++c)
+        ar += w_[c * n + m] * yr[c], ai += w_[c * n + m] * yi[c];
       zr_[m] = dc_z0_[m] + w * ai;
       zi_[m] = -w * ar;
     }
@@ -292,20 +302,36 @@ Status RestampSolver::SolveAdjoint(double f_hz) {
   }
   real_only_ = w == 0;
   auto run = [&](auto size) {
-    return FactorAndSolve<decltype(size)::value>(n_, w, g_t_.data(), c_t_.data(), output_,
-                                                 ar_.data(), ai_.data(), pivot_.data(),
-                                                 row_scale_.data(), zr_.data(), zi_.data());
+    return FactorAndSolve<decltype(size)::value>(
+        n_, w, g_t_.data(), c_t_.data(), output_, ar_.data(), ai_.data(),
+        pivot_.data(), row_scale_.data(), zr_.data(), zi_.data());
   };
   bool ok = false;
   switch (n_) {
-    case 4: ok = run(std::integral_constant<int, 4>{}); break;
-    case 5: ok = run(std::integral_constant<int, 5>{}); break;
-    case 6: ok = run(std::integral_constant<int, 6>{}); break;
-    case 7: ok = run(std::integral_constant<int, 7>{}); break;
-    case 8: ok = run(std::integral_constant<int, 8>{}); break;
-    case 9: ok = run(std::integral_constant<int, 9>{}); break;
-    case 10: ok = run(std::integral_constant<int, 10>{}); break;
-    default: ok = run(std::integral_constant<int, 0>{}); break;
+    case 4:
+      ok = run(std::integral_constant<int, 4>{});
+      break;
+    case 5:
+      ok = run(std::integral_constant<int, 5>{});
+      break;
+    case 6:
+      ok = run(std::integral_constant<int, 6>{});
+      break;
+    case 7:
+      ok = run(std::integral_constant<int, 7>{});
+      break;
+    case 8:
+      ok = run(std::integral_constant<int, 8>{});
+      break;
+    case 9:
+      ok = run(std::integral_constant<int, 9>{});
+      break;
+    case 10:
+      ok = run(std::integral_constant<int, 10>{});
+      break;
+    default:
+      ok = run(std::integral_constant<int, 0>{});
+      break;
   }
   if (!ok) return Status::Fail("the network is singular at " + Hz(f_hz));
   if (w == 0 && rank_ >= 0) KeepDcFactorization();

@@ -64,9 +64,9 @@ class RestampSolver {
  private:
   int n_ = 0;
   int output_ = -1;
-  std::vector<double> g_base_t_;  // G^T without resistors, row-major
-  std::vector<double> c_t_;       // C^T, row-major
-  std::vector<double> g_t_;       // G^T with the current resistors
+  std::vector<double> g_base_t_;            // G^T without resistors, row-major
+  std::vector<double> c_t_;                 // C^T, row-major
+  std::vector<double> g_t_;                 // G^T with the current resistors
   std::vector<std::pair<int, int>> nodes_;  // unknown indices (-1 = ground)
   // Working storage of the factorization: real and imaginary parts.
   std::vector<double> ar_, ai_;
@@ -82,7 +82,7 @@ class RestampSolver {
   std::vector<double> dc_lu_, dc_scale_, dc_z0_, w_, k_, y0_;
   std::vector<int> dc_pivot_;
   Status Prepare();
-  void KeepDcFactorization();  // after a dense DC solve: z0, W, K, y0
+  void KeepDcFactorization();     // after a dense DC solve: z0, W, K, y0
   void SolveDc(double* b) const;  // G^T x = b with the DC factorization
 };
 

@@ -4,7 +4,8 @@
 
 namespace hushgain {
 
-Status ComputeCompensationBlock(const Stage& stage, const BudgetOptions& options,
+Status ComputeCompensationBlock(const Stage& stage,
+                                const BudgetOptions& options,
                                 CompensationBlock* block) {
   BudgetOptions plain = options;
   plain.compare_tee = false;
@@ -30,7 +31,8 @@ Status ComputeCompensationBlock(const Stage& stage, const BudgetOptions& options
   const double without_sq = block->noise_without_v * block->noise_without_v;
   block->added_share = with_sq > 0 ? (with_sq - without_sq) / with_sq : 0;
   block->bypass_f = stage.plus_resistor_bypass_f;
-  block->noise_matters = block->added_share > kCompensationNoiseShare && block->bypass_f == 0;
+  block->noise_matters =
+      block->added_share > kCompensationNoiseShare && block->bypass_f == 0;
   return Status::Ok();
 }
 

@@ -15,7 +15,8 @@
 namespace hushgain {
 
 // `stage` is at its temperature with its feedback capacitor fixed.
-Status ComputeCompensationBlock(const Stage& stage, const BudgetOptions& options,
+Status ComputeCompensationBlock(const Stage& stage,
+                                const BudgetOptions& options,
                                 CompensationBlock* block);
 
 }  // namespace hushgain

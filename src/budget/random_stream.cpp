@@ -5,7 +5,9 @@
 namespace hushgain {
 namespace {
 
-std::uint64_t RotateLeft(std::uint64_t x, int k) { return (x << k) | (x >> (64 - k)); }
+std::uint64_t RotateLeft(std::uint64_t x, int k) {
+  return (x << k) | (x >> (64 - k));
+}
 
 }  // namespace
 
@@ -34,7 +36,9 @@ std::uint64_t RandomStream::Next() {
   return result;
 }
 
-double RandomStream::Uniform01() { return static_cast<double>(Next() >> 11) * 0x1.0p-53; }
+double RandomStream::Uniform01() {
+  return static_cast<double>(Next() >> 11) * 0x1.0p-53;
+}
 
 double RandomStream::UniformSymmetric(double half_width) {
   return half_width * (2.0 * Uniform01() - 1.0);

@@ -23,26 +23,30 @@
 namespace hushgain {
 
 // The stimuli above, for `opamp` and `dc_input` (a sample may change them).
-std::vector<DcStimulus> StageDcStimuli(const Netlist& netlist, const MnaSystem& system,
-                                       const OpAmpModel& opamp, double dc_input);
+std::vector<DcStimulus> StageDcStimuli(const Netlist& netlist,
+                                       const MnaSystem& system,
+                                       const OpAmpModel& opamp,
+                                       double dc_input);
 
 // Every netlist resistor with a technology (ResistorSpecFor), with its drop
 // from the solution `unknowns` of the stimuli above.
-std::vector<ResistorExcess> ResistorExcessList(const Stage& stage, const Netlist& netlist,
-                                               const MnaSystem& system,
-                                               const std::vector<double>& unknowns);
+std::vector<ResistorExcess> ResistorExcessList(
+    const Stage& stage, const Netlist& netlist, const MnaSystem& system,
+    const std::vector<double>& unknowns);
 
 // Solves the DC point, fills `drops` and returns the excess sources.
-Status ExcessNoiseOfStage(const Stage& stage, const Netlist& netlist, const MnaSystem& system,
-                          std::vector<ResistorDrop>* drops, std::vector<NoiseSource>* sources);
+Status ExcessNoiseOfStage(const Stage& stage, const Netlist& netlist,
+                          const MnaSystem& system,
+                          std::vector<ResistorDrop>* drops,
+                          std::vector<NoiseSource>* sources);
 
 // The excess contributor with the largest share, when there is one, and
 // the total output rms with its resistor in each candidate technology that
 // is quieter (lower noise index). `contributors` must carry every excess
 // contributor (before negligible ones are left out).
-std::optional<ExcessAdvice> AdviseExcess(const std::vector<Contributor>& contributors,
-                                         double output_rms_v, const Stage& stage,
-                                         const std::vector<ResistorSpec>& candidates);
+std::optional<ExcessAdvice> AdviseExcess(
+    const std::vector<Contributor>& contributors, double output_rms_v,
+    const Stage& stage, const std::vector<ResistorSpec>& candidates);
 
 }  // namespace hushgain
 

@@ -78,7 +78,8 @@ struct Workspace {
   std::vector<double> rhs;
 };
 
-double DcOffset(const Model& m, const RestampSolver& s, const Draw& d, double* gain) {
+double DcOffset(const Model& m, const RestampSolver& s, const Draw& d,
+                double* gain) {
   *gain = s.TransferReal(m.signal);
   const double te = s.TransferReal(m.e_n);
   const double hp = s.TransferReal(m.i_plus);
@@ -87,12 +88,14 @@ double DcOffset(const Model& m, const RestampSolver& s, const Draw& d, double* g
   double h_sum = hp + hm;
   if (std::fabs(h_sum) < 1e-9 * (std::fabs(hp) + std::fabs(hm))) h_sum = 0;
   double offset = d.vos_v * te - d.ib_a * h_sum - 0.5 * d.ios_a * (hp - hm);
-  for (const auto& [port, amperes] : m.junctions) offset += amperes * s.TransferReal(port);
+  for (const auto& [port, amperes] : m.junctions)
+    offset += amperes * s.TransferReal(port);
   return offset;
 }
 
 // Evaluates one sample whose resistor values are already in w.ohms.
-Status EvaluateAt(const Model& m, const Draw& d, Workspace& w, SpreadSample* out) {
+Status EvaluateAt(const Model& m, const Draw& d, Workspace& w,
+                  SpreadSample* out) {
   RestampSolver& s = w.solver;
   s.SetResistors(w.ohms.data());
   Status st = s.SolveAdjoint(0.0);
@@ -124,7 +127,8 @@ Status EvaluateAt(const Model& m, const Draw& d, Workspace& w, SpreadSample* out
       const double va = r.a >= 0 ? w.rhs[r.a] : 0.0;
       const double vb = r.b >= 0 ? w.rhs[r.b] : 0.0;
       const double ohms = w.ohms[slot.excess_of];
-      slot.flicker = ExcessNoiseCoefficient(r.noise_index_db, va - vb) / (ohms * ohms);
+      slot.flicker =
+          ExcessNoiseCoefficient(r.noise_index_db, va - vb) / (ohms * ohms);
     }
   }
   double power = 0;
@@ -134,7 +138,8 @@ Status EvaluateAt(const Model& m, const Draw& d, Workspace& w, SpreadSample* out
     const double f = node.f_hz;
     double psd = 0;
     for (const SourceSlot& slot : w.slots)
-      psd += s.TransferNorm(slot.port) * (slot.white * (1.0 + slot.corner / f) + slot.flicker / f);
+      psd += s.TransferNorm(slot.port) *
+             (slot.white * (1.0 + slot.corner / f) + slot.flicker / f);
     power += node.weight_hz * psd;
   }
   out->noise_rms_v = std::sqrt(power);
@@ -144,16 +149,22 @@ Status EvaluateAt(const Model& m, const Draw& d, Workspace& w, SpreadSample* out
 Draw DrawSample(const Model& m, RandomStream& rng, std::vector<double>* ohms) {
   Draw d;
   d.temperature_k = m.nominal_k;
-  if (m.range) d.temperature_k = m.range->min_k + (m.range->max_k - m.range->min_k) * rng.Uniform01();
+  if (m.range)
+    d.temperature_k =
+        m.range->min_k + (m.range->max_k - m.range->min_k) * rng.Uniform01();
   for (std::size_t k = 0; k < m.resistors.size(); ++k) {
     const ResistorInfo& r = m.resistors[k];
     const double e = rng.UniformSymmetric(r.tolerance);
-    (*ohms)[k] = r.ohms_25 * (1.0 + e) * ResistorTemperatureFactor(r.tempco_per_k, d.temperature_k);
+    (*ohms)[k] = r.ohms_25 * (1.0 + e) *
+                 ResistorTemperatureFactor(r.tempco_per_k, d.temperature_k);
   }
-  const bool gaussian = m.opamp.offset_distribution == OffsetDistribution::kGaussian;
-  const double vos_25 = gaussian ? rng.Gaussian(m.opamp.vos_v) : rng.UniformSymmetric(m.opamp.vos_v);
+  const bool gaussian =
+      m.opamp.offset_distribution == OffsetDistribution::kGaussian;
+  const double vos_25 = gaussian ? rng.Gaussian(m.opamp.vos_v)
+                                 : rng.UniformSymmetric(m.opamp.vos_v);
   const double drift = rng.UniformSymmetric(m.opamp.vos_drift_v_per_k);
-  const double ios_25 = gaussian ? rng.Gaussian(m.opamp.ios_a) : rng.UniformSymmetric(m.opamp.ios_a);
+  const double ios_25 = gaussian ? rng.Gaussian(m.opamp.ios_a)
+                                 : rng.UniformSymmetric(m.opamp.ios_a);
   const double k = BiasCurrentFactor(m.opamp, d.temperature_k);
   d.vos_v = vos_25 + drift * (d.temperature_k - kDeviceReferenceK);
   d.ios_a = ios_25 * k;
@@ -191,10 +202,13 @@ Status BuildModel(const Stage& stage, const BudgetOutcome& nominal, Model* m) {
   }
   m->signal = m->system.Compile(net.signal);
   m->e_n = m->system.Compile(Excitation{OpAmpInputVoltage{0}});
-  m->i_plus = m->system.Compile(Excitation{CurrentInjection{net.opamps[0].plus, kGround}});
-  m->i_minus = m->system.Compile(Excitation{CurrentInjection{net.opamps[0].minus, kGround}});
+  m->i_plus = m->system.Compile(
+      Excitation{CurrentInjection{net.opamps[0].plus, kGround}});
+  m->i_minus = m->system.Compile(
+      Excitation{CurrentInjection{net.opamps[0].minus, kGround}});
   for (const JunctionCurrent& j : net.junction_currents)
-    m->junctions.push_back({m->system.Compile(Excitation{CurrentInjection{j.b, j.a}}), j.amperes});
+    m->junctions.push_back(
+        {m->system.Compile(Excitation{CurrentInjection{j.b, j.a}}), j.amperes});
   // The budget's sources, in its order (noise/noise_source.h), then one
   // excess source per resistor with a technology.
   std::vector<int> noisy;
@@ -206,13 +220,15 @@ Status BuildModel(const Stage& stage, const BudgetOutcome& nominal, Model* m) {
     slot.port = m->system.Compile(src.excitation);
     slot.white = src.white_psd;
     slot.corner = src.corner_hz;
-    if (src.kind == NoiseKind::kThermal) slot.thermal_of = noisy[next_thermal++];
+    if (src.kind == NoiseKind::kThermal)
+      slot.thermal_of = noisy[next_thermal++];
     m->sources.push_back(slot);
   }
   for (std::size_t k = 0; k < net.resistors.size(); ++k) {
     if (!m->resistors[k].excess) continue;
     SourceSlot slot;
-    slot.port = m->system.Compile(Excitation{CurrentInjection{net.resistors[k].a, net.resistors[k].b}});
+    slot.port = m->system.Compile(
+        Excitation{CurrentInjection{net.resistors[k].a, net.resistors[k].b}});
     slot.excess_of = static_cast<int>(k);
     m->sources.push_back(slot);
   }
@@ -229,13 +245,16 @@ double WorstCaseOffset(const Model& m, Workspace& w) {
   if (m.range) {
     temperatures.push_back(m.range->min_k);
     temperatures.push_back(m.range->max_k);
-    if (m.range->min_k < kDeviceReferenceK && kDeviceReferenceK < m.range->max_k)
+    if (m.range->min_k < kDeviceReferenceK &&
+        kDeviceReferenceK < m.range->max_k)
       temperatures.push_back(kDeviceReferenceK);
   }
   double bound = 0;
   for (double t : temperatures) {
     const double k = BiasCurrentFactor(m.opamp, t);
-    const double vos = std::fabs(m.opamp.vos_v) + std::fabs(m.opamp.vos_drift_v_per_k) * std::fabs(t - kDeviceReferenceK);
+    const double vos =
+        std::fabs(m.opamp.vos_v) +
+        std::fabs(m.opamp.vos_drift_v_per_k) * std::fabs(t - kDeviceReferenceK);
     const double ios = std::fabs(m.opamp.ios_a * k);
     const double ib = m.opamp.ib_a * k;
     double vos_term = 0, ib_term = 0, ios_term = 0, dark_term = 0;
@@ -247,7 +266,8 @@ double WorstCaseOffset(const Model& m, Workspace& w) {
       for (std::size_t v = 0; v < varied.size(); ++v) {
         const ResistorInfo& r = m.resistors[varied[v]];
         const double e = (corner >> v) & 1 ? r.tolerance : -r.tolerance;
-        w.ohms[varied[v]] = r.ohms_25 * (1.0 + e) * ResistorTemperatureFactor(r.tempco_per_k, t);
+        w.ohms[varied[v]] = r.ohms_25 * (1.0 + e) *
+                            ResistorTemperatureFactor(r.tempco_per_k, t);
       }
       w.solver.SetResistors(w.ohms.data());
       if (!w.solver.SolveAdjoint(0.0).ok) return 0;
@@ -257,7 +277,8 @@ double WorstCaseOffset(const Model& m, Workspace& w) {
       double h_sum = hp + hm;
       if (std::fabs(h_sum) < 1e-9 * (std::fabs(hp) + std::fabs(hm))) h_sum = 0;
       double dark = 0;
-      for (const auto& [port, amperes] : m.junctions) dark += amperes * w.solver.TransferReal(port);
+      for (const auto& [port, amperes] : m.junctions)
+        dark += amperes * w.solver.TransferReal(port);
       vos_term = std::max(vos_term, vos * std::fabs(te));
       ib_term = std::max(ib_term, std::fabs(ib * h_sum));
       ios_term = std::max(ios_term, 0.5 * ios * std::fabs(hp - hm));
@@ -273,13 +294,17 @@ double WorstCaseOffset(const Model& m, Workspace& w) {
 
 std::string SpreadOptions::Validate() const {
   std::ostringstream out;
-  if (samples < 1) out << "samples is " << samples << ", must be at least 1";
-  else if (threads < 0) out << "threads is " << threads << ", must be 0 (all) or more";
-  else out << budget.Validate();
+  if (samples < 1)
+    out << "samples is " << samples << ", must be at least 1";
+  else if (threads < 0)
+    out << "threads is " << threads << ", must be 0 (all) or more";
+  else
+    out << budget.Validate();
   return out.str();
 }
 
-SpreadRun RunSpread(const Stage& stage, const SpreadOptions& options, const SpreadControl& control) {
+SpreadRun RunSpread(const Stage& stage, const SpreadOptions& options,
+                    const SpreadControl& control) {
   SpreadRun run;
   BudgetOptions budget_options = options.budget;
   budget_options.temperature_corners = false;
@@ -291,11 +316,13 @@ SpreadRun RunSpread(const Stage& stage, const SpreadOptions& options, const Spre
     return run;
   }
   run.nominal = nominal.budget;
-  run.gaussian_offsets = stage.opamp.offset_distribution == OffsetDistribution::kGaussian;
+  run.gaussian_offsets =
+      stage.opamp.offset_distribution == OffsetDistribution::kGaussian;
   Model model;
   run.status = BuildModel(stage, nominal, &model);
   if (!run.status.ok) return run;
-  for (const Resistor& r : model.netlist.resistors) run.resistor_names.push_back(r.name);
+  for (const Resistor& r : model.netlist.resistors)
+    run.resistor_names.push_back(r.name);
   const std::size_t m = model.resistors.size();
 
   // The nominal point: every resistor exact at the nominal temperature.
@@ -303,7 +330,8 @@ SpreadRun RunSpread(const Stage& stage, const SpreadOptions& options, const Spre
     Workspace w(model);
     for (std::size_t k = 0; k < m; ++k)
       w.ohms[k] = model.resistors[k].ohms_25 *
-                  ResistorTemperatureFactor(model.resistors[k].tempco_per_k, model.nominal_k);
+                  ResistorTemperatureFactor(model.resistors[k].tempco_per_k,
+                                            model.nominal_k);
     w.solver.SetResistors(w.ohms.data());
     run.status = w.solver.SolveAdjoint(0.0);
     if (!run.status.ok) return run;
@@ -314,14 +342,19 @@ SpreadRun RunSpread(const Stage& stage, const SpreadOptions& options, const Spre
   const long total = options.samples;
   run.samples.resize(total);
   run.resistor_ohms.resize(static_cast<std::size_t>(total) * m);
-  int threads = options.threads > 0 ? options.threads
-                                    : static_cast<int>(std::max(1u, std::thread::hardware_concurrency()));
-  threads = static_cast<int>(std::min<long>(threads, (total + kBlock - 1) / kBlock));
+  int threads =
+      options.threads > 0
+          ? options.threads
+          : static_cast<int>(std::max(1u, std::thread::hardware_concurrency()));
+  threads =
+      static_cast<int>(std::min<long>(threads, (total + kBlock - 1) / kBlock));
   std::atomic<long> next{0}, done{0};
   std::atomic<int> running{threads};
   std::atomic<bool> failed{false};
   std::vector<Status> failures(threads);
-  auto stopped = [&] { return control.stop && control.stop->load(std::memory_order_relaxed); };
+  auto stopped = [&] {
+    return control.stop && control.stop->load(std::memory_order_relaxed);
+  };
   auto worker = [&](int id) {
     Workspace w(model);
     while (!failed.load(std::memory_order_relaxed) && !stopped()) {
@@ -331,7 +364,8 @@ SpreadRun RunSpread(const Stage& stage, const SpreadOptions& options, const Spre
       for (long i = begin; i < end; ++i) {
         RandomStream rng(options.seed, static_cast<std::uint64_t>(i));
         const Draw d = DrawSample(model, rng, &w.ohms);
-        std::copy(w.ohms.begin(), w.ohms.end(), run.resistor_ohms.begin() + i * static_cast<long>(m));
+        std::copy(w.ohms.begin(), w.ohms.end(),
+                  run.resistor_ohms.begin() + i * static_cast<long>(m));
         SpreadSample& out = run.samples[i];
         Status s = EvaluateAt(model, d, w, &out);
         if (!s.ok) {

@@ -59,12 +59,12 @@ struct SpreadSample {
 struct SpreadRun {
   Status status;
   bool interrupted = false;
-  Budget nominal;  // the budget at the nominal temperature
-  double nominal_gain = 0;  // the DC gain the errors are relative to
-  bool gaussian_offsets = false;  // the op-amp's offset_distribution
+  Budget nominal;                     // the budget at the nominal temperature
+  double nominal_gain = 0;            // the DC gain the errors are relative to
+  bool gaussian_offsets = false;      // the op-amp's offset_distribution
   std::vector<SpreadSample> samples;  // index order
   std::vector<std::string> resistor_names;  // netlist order
-  std::vector<double> resistor_ohms;  // samples x names, row-major
+  std::vector<double> resistor_ohms;        // samples x names, row-major
   // Max over the range ends (and 25 °C) of the sum of each offset term's
   // largest magnitude over the corners of the tolerance box, with |Vos| +
   // |drift| |T - 25 °C| and |Ios| k(T): a bound on every sample when the

@@ -11,7 +11,8 @@ double Percentile(const std::vector<double>& sorted, double p) {
   const double h = (static_cast<double>(sorted.size()) - 1.0) * p;
   const std::size_t lo = static_cast<std::size_t>(std::floor(h));
   if (lo + 1 >= sorted.size()) return sorted.back();
-  return sorted[lo] + (h - static_cast<double>(lo)) * (sorted[lo + 1] - sorted[lo]);
+  return sorted[lo] +
+         (h - static_cast<double>(lo)) * (sorted[lo + 1] - sorted[lo]);
 }
 
 Distribution Describe(std::vector<double> values) {
@@ -32,13 +33,16 @@ Distribution Describe(std::vector<double> values) {
   return d;
 }
 
-SpreadYield Yield(const std::vector<SpreadSample>& samples, const SpreadLimits& limits) {
+SpreadYield Yield(const std::vector<SpreadSample>& samples,
+                  const SpreadLimits& limits) {
   SpreadYield y;
   if (samples.empty()) return y;
   long gain = 0, offset = 0, noise = 0, all = 0;
   for (const SpreadSample& s : samples) {
-    const bool g = !limits.gain_error || std::fabs(s.gain_error) <= *limits.gain_error;
-    const bool o = !limits.offset_v || std::fabs(s.offset_v) <= *limits.offset_v;
+    const bool g =
+        !limits.gain_error || std::fabs(s.gain_error) <= *limits.gain_error;
+    const bool o =
+        !limits.offset_v || std::fabs(s.offset_v) <= *limits.offset_v;
     const bool n = !limits.noise_v || s.noise_rms_v <= *limits.noise_v;
     gain += g;
     offset += o;
@@ -49,11 +53,13 @@ SpreadYield Yield(const std::vector<SpreadSample>& samples, const SpreadLimits& 
   if (limits.gain_error) y.gain_error = gain / count;
   if (limits.offset_v) y.offset = offset / count;
   if (limits.noise_v) y.noise = noise / count;
-  if (limits.gain_error || limits.offset_v || limits.noise_v) y.all = all / count;
+  if (limits.gain_error || limits.offset_v || limits.noise_v)
+    y.all = all / count;
   return y;
 }
 
-SpreadSummary Summarize(const std::vector<SpreadSample>& samples, const SpreadLimits& limits) {
+SpreadSummary Summarize(const std::vector<SpreadSample>& samples,
+                        const SpreadLimits& limits) {
   SpreadSummary out;
   std::vector<double> g, o, n;
   g.reserve(samples.size());

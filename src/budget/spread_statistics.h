@@ -48,7 +48,8 @@ struct SpreadYield {
   std::optional<double> all;  // inside every given limit; none without limits
 };
 
-SpreadYield Yield(const std::vector<SpreadSample>& samples, const SpreadLimits& limits);
+SpreadYield Yield(const std::vector<SpreadSample>& samples,
+                  const SpreadLimits& limits);
 
 struct SpreadSummary {
   Distribution gain_error;
@@ -57,7 +58,8 @@ struct SpreadSummary {
   SpreadYield yield;
 };
 
-SpreadSummary Summarize(const std::vector<SpreadSample>& samples, const SpreadLimits& limits);
+SpreadSummary Summarize(const std::vector<SpreadSample>& samples,
+                        const SpreadLimits& limits);
 
 }  // namespace hushgain
 

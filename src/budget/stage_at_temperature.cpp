@@ -28,13 +28,16 @@ Stage StageAtTemperature(const Stage& stage, double temperature_k) {
   out.temperature_k = temperature_k;
   const double delta = temperature_k - kDeviceReferenceK;
   OpAmpModel& m = out.opamp;
-  m.vos_v = std::fabs(m.vos_v) + std::fabs(m.vos_drift_v_per_k) * std::fabs(delta);
+  m.vos_v =
+      std::fabs(m.vos_v) + std::fabs(m.vos_drift_v_per_k) * std::fabs(delta);
   const double k = BiasCurrentFactor(stage.opamp, temperature_k);
   m.ib_a *= k;
   m.ios_a *= k;
   for (auto& [name, ohms] : StageResistors(out)) {
     const ResistorSpec* spec = ResistorSpecFor(stage, name);
-    if (spec) *ohms *= ResistorTemperatureFactor(spec->technology.tempco_per_k, temperature_k);
+    if (spec)
+      *ohms *= ResistorTemperatureFactor(spec->technology.tempco_per_k,
+                                         temperature_k);
   }
   return out;
 }

@@ -34,8 +34,9 @@ TemperatureCorner CornerOf(const Budget& b) {
   return c;
 }
 
-Status ComputeTemperatureBlock(const Stage& stage, const Budget& nominal, double capacitor_f,
-                               const BudgetOptions& options, TemperatureBlock* block) {
+Status ComputeTemperatureBlock(const Stage& stage, const Budget& nominal,
+                               double capacitor_f, const BudgetOptions& options,
+                               TemperatureBlock* block) {
   BudgetOptions corner_options = options;
   corner_options.compare_tee = false;
   corner_options.temperature_corners = false;
@@ -47,7 +48,8 @@ Status ComputeTemperatureBlock(const Stage& stage, const Budget& nominal, double
   for (auto [temperature_k, corner] :
        {std::pair{stage.temperature_range->min_k, &block->min},
         std::pair{stage.temperature_range->max_k, &block->max}}) {
-    BudgetOutcome end = ComputeBudgetAsGiven(StageAtTemperature(fixed, temperature_k), corner_options);
+    BudgetOutcome end = ComputeBudgetAsGiven(
+        StageAtTemperature(fixed, temperature_k), corner_options);
     if (!end.status.ok) return end.status;
     *corner = CornerOf(end.budget);
   }

@@ -23,8 +23,9 @@ TemperatureCorner CornerOf(const Budget& budget);
 // `stage` has 25 °C values and a temperature range; `nominal` is its budget
 // at the nominal temperature; `capacitor_f` the feedback capacitor that
 // budget used (an "auto" one is not chosen again at each end).
-Status ComputeTemperatureBlock(const Stage& stage, const Budget& nominal, double capacitor_f,
-                               const BudgetOptions& options, TemperatureBlock* block);
+Status ComputeTemperatureBlock(const Stage& stage, const Budget& nominal,
+                               double capacitor_f, const BudgetOptions& options,
+                               TemperatureBlock* block);
 
 }  // namespace hushgain
 

@@ -5,7 +5,8 @@ namespace hushgain {
 std::vector<std::pair<std::string, double*>> StageResistors(Stage& stage) {
   std::vector<std::pair<std::string, double*>> out;
   if (stage.topology == Topology::kInverting) {
-    if (stage.source.resistance_ohm > 0) out.push_back({"R_source", &stage.source.resistance_ohm});
+    if (stage.source.resistance_ohm > 0)
+      out.push_back({"R_source", &stage.source.resistance_ohm});
     out.push_back({"R_in", &stage.input_resistor_ohm});
   } else if (stage.photodiode.shunt_resistance_ohm > 0) {
     out.push_back({"R_sh", &stage.photodiode.shunt_resistance_ohm});

@@ -25,16 +25,20 @@ std::atomic<bool> g_interrupted{false};
 
 extern "C" void OnInterrupt(int) { g_interrupted.store(true); }
 
-std::optional<double> Limit(const std::string& text, const char* option, Quantity quantity) {
+std::optional<double> Limit(const std::string& text, const char* option,
+                            Quantity quantity) {
   if (text.empty()) return std::nullopt;
   std::string why;
   std::optional<double> v = ParseQuantity(text, quantity, &why);
   if (!v)
     throw Error("command line", "",
-                std::string(option) + ": expected " + std::string(QuantityName(quantity)) +
-                    ", got \"" + text + "\" (" + why + ")");
+                std::string(option) + ": expected " +
+                    std::string(QuantityName(quantity)) + ", got \"" + text +
+                    "\" (" + why + ")");
   if (!(*v > 0))
-    throw Error("command line", "", std::string(option) + ": expected a positive limit, got \"" + text + "\"");
+    throw Error("command line", "",
+                std::string(option) + ": expected a positive limit, got \"" +
+                    text + "\"");
   return v;
 }
 
@@ -56,14 +60,22 @@ int RunSpreadCommand(const SpreadCommandOptions& options) {
   spread.seed = options.seed;
   spread.threads = options.threads;
   if (options.samples < 1)
-    throw Error("command line", "", "--samples: expected at least 1, got " + std::to_string(options.samples));
+    throw Error("command line", "",
+                "--samples: expected at least 1, got " +
+                    std::to_string(options.samples));
   if (options.threads < 0)
-    throw Error("command line", "", "--threads: expected 0 (all) or more, got " + std::to_string(options.threads));
-  if (std::string why = spread.Validate(); !why.empty()) throw Error("command line", "", why);
+    throw Error("command line", "",
+                "--threads: expected 0 (all) or more, got " +
+                    std::to_string(options.threads));
+  if (std::string why = spread.Validate(); !why.empty())
+    throw Error("command line", "", why);
   SpreadLimits limits;
-  limits.gain_error = Limit(options.gain_error_limit, "--gain-error-limit", Quantity::kRatio);
-  limits.offset_v = Limit(options.offset_limit, "--offset-limit", Quantity::kVoltage);
-  limits.noise_v = Limit(options.noise_limit, "--noise-limit", Quantity::kVoltage);
+  limits.gain_error =
+      Limit(options.gain_error_limit, "--gain-error-limit", Quantity::kRatio);
+  limits.offset_v =
+      Limit(options.offset_limit, "--offset-limit", Quantity::kVoltage);
+  limits.noise_v =
+      Limit(options.noise_limit, "--noise-limit", Quantity::kVoltage);
 
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
   const Stage stage = LoadStageFile(options.stage_path, library);
@@ -80,11 +92,13 @@ int RunSpreadCommand(const SpreadCommandOptions& options) {
     return kExitInterrupted;
   }
   if (!run.status.ok) {
-    std::cerr << "error: " << options.stage_path << ": analysis refused: " << run.status.message << "\n";
+    std::cerr << "error: " << options.stage_path
+              << ": analysis refused: " << run.status.message << "\n";
     return kExitAnalysisRefused;
   }
   const SpreadSummary summary = Summarize(run.samples, limits);
-  if (!options.csv_path.empty()) WriteFileAtomically(options.csv_path, SpreadToCsv(run));
+  if (!options.csv_path.empty())
+    WriteFileAtomically(options.csv_path, SpreadToCsv(run));
   std::cout << SpreadToText(run, summary, limits, options.seed) << std::flush;
   return kExitOk;
 }

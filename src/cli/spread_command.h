@@ -12,10 +12,10 @@ namespace hushgain {
 struct SpreadCommandOptions {
   std::string stage_path;
   std::string devices_dir;
-  long samples = 10000;    // at least 1
+  long samples = 10000;  // at least 1
   std::uint64_t seed = 1;
-  int threads = 0;         // 0 = every hardware thread
-  std::string csv_path;    // empty = no CSV
+  int threads = 0;       // 0 = every hardware thread
+  std::string csv_path;  // empty = no CSV
   // Limits as typed ("0.5%", "5m", "100u"); empty = none.
   std::string gain_error_limit;
   std::string offset_limit;

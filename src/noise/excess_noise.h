@@ -22,8 +22,10 @@ double ExcessNoiseCoefficient(double noise_index_db, double v_dc);
 // e_ex(f) in V/rtHz.
 double ExcessNoiseDensity(double noise_index_db, double v_dc, double f_hz);
 
-// The rms over [f_low, f_high]: 10^(NI/20) 1e-6 V_DC sqrt(log10(f_high / f_low)).
-double ExcessNoiseRms(double noise_index_db, double v_dc, double f_low_hz, double f_high_hz);
+// The rms over [f_low, f_high]: 10^(NI/20) 1e-6 V_DC sqrt(log10(f_high /
+// f_low)).
+double ExcessNoiseRms(double noise_index_db, double v_dc, double f_low_hz,
+                      double f_high_hz);
 
 // One resistor of a netlist with its noise index and DC drop.
 struct ResistorExcess {
@@ -33,8 +35,8 @@ struct ResistorExcess {
 };
 
 // One kExcess source per entry with a non-zero drop, named "<R> excess".
-std::vector<NoiseSource> ExcessNoiseSources(const Netlist& netlist,
-                                            const std::vector<ResistorExcess>& resistors);
+std::vector<NoiseSource> ExcessNoiseSources(
+    const Netlist& netlist, const std::vector<ResistorExcess>& resistors);
 
 }  // namespace hushgain
 

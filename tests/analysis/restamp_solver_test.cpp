@@ -62,7 +62,8 @@ TEST_CASE("restamped resistor values give the adjoint solver's transfers") {
     for (const NoiseSource& s : sources) {
       CAPTURE(s.name);
       const Port port = system.Compile(s.excitation);
-      CHECK(RelErr(fast.TransferNorm(port), std::norm(reference.Transfer(port))) < kRelSolve);
+      CHECK(RelErr(fast.TransferNorm(port),
+                   std::norm(reference.Transfer(port))) < kRelSolve);
     }
   }
 }
@@ -81,7 +82,9 @@ TEST_CASE("the DC node voltages of a restamped network match a direct solve") {
   const std::vector<DcStimulus> stimuli = {
       {system.Compile(net.signal), 1e-3},
       {system.Compile(Excitation{OpAmpInputVoltage{0}}), 25e-6},
-      {system.Compile(Excitation{CurrentInjection{net.opamps[0].minus, kGround}}), -1e-9}};
+      {system.Compile(
+           Excitation{CurrentInjection{net.opamps[0].minus, kGround}}),
+       -1e-9}};
   std::vector<double> expected;
   REQUIRE(SolveDc(system, stimuli, &expected).ok);
   std::vector<double> x(system.size(), 0.0);
@@ -92,7 +95,8 @@ TEST_CASE("the DC node voltages of a restamped network match a direct solve") {
   fast.SolveDirectDc(x.data());
   for (int i = 0; i < system.size(); ++i) {
     CAPTURE(system.UnknownName(i));
-    CHECK(std::fabs(x[i] - expected[i]) <= kRelSolve * (std::fabs(expected[i]) + 1e-6));
+    CHECK(std::fabs(x[i] - expected[i]) <=
+          kRelSolve * (std::fabs(expected[i]) + 1e-6));
   }
 }
 

@@ -41,11 +41,13 @@ Stage TeeWithFiniteGbw() {
   s.source.resistance_ohm = 1e3;
   s.load_ohm = 2e3;
   s.dc_input = 1e-3;
-  s.resistors = ResistorSpec{"thin-film", {"thin film", -35, 25e-6, 0.001}, 0.0};
+  s.resistors =
+      ResistorSpec{"thin-film", {"thin film", -35, 25e-6, 0.001}, 0.0};
   return s;
 }
 
-SpreadRun Run(const Stage& stage, long samples, int threads = 2, std::uint64_t seed = 7) {
+SpreadRun Run(const Stage& stage, long samples, int threads = 2,
+              std::uint64_t seed = 7) {
   SpreadOptions options;
   options.samples = samples;
   options.seed = seed;
@@ -71,7 +73,9 @@ TEST_CASE("with every tolerance zero each sample equals the nominal budget") {
   }
 }
 
-TEST_CASE("gain error of two 1 % uniform resistors: sigma from the ratio of two uniforms") {
+TEST_CASE(
+    "gain error of two 1 % uniform resistors: sigma from the ratio of two "
+    "uniforms") {
   // G = Rf/Rin; with Rf = Rf0 (1 + a), Rin = Rin0 (1 + b), a and b uniform on
   // [-t, t], the relative error is (1 + a)/(1 + b) - 1. Exactly:
   //   E[(1 + a)^2] = 1 + t^2/3,  E[1/(1 + b)] = ln((1 + t)/(1 - t)) / (2t),
@@ -84,7 +88,8 @@ TEST_CASE("gain error of two 1 % uniform resistors: sigma from the ratio of two 
       std::sqrt((1 + t * t / 3) / (1 - t * t) - mean_inverse * mean_inverse);
   const double first_order = t * std::sqrt(2.0 / 3.0);
   CHECK(RelErr(exact_sigma, first_order) < 1e-3);
-  Stage stage = test::InvertingStage(10e3, 100e3, test::IdealOpAmp(1e-9, 0), 300.0);
+  Stage stage =
+      test::InvertingStage(10e3, 100e3, test::IdealOpAmp(1e-9, 0), 300.0);
   stage.resistors = ResistorSpec{"x", {"test film", -40, 0, t}, t};
   const SpreadRun run = Run(stage, 100000);
   const SpreadSummary summary = Summarize(run.samples, {});
@@ -94,7 +99,9 @@ TEST_CASE("gain error of two 1 % uniform resistors: sigma from the ratio of two 
   CHECK(summary.gain_error.min >= (1 - t) / (1 + t) - 1);
 }
 
-TEST_CASE("output offset at the nominal temperature equals the budget's offset block") {
+TEST_CASE(
+    "output offset at the nominal temperature equals the budget's offset "
+    "block") {
   // Zero tolerance, no range: the offset of a sample is its Vos times the
   // budget's DC noise gain plus the budget's Ib term (signed), and with Vos
   // = 0 its Ios term is the budget's |Ios term| scaled by |Ios_sample| / Ios.
@@ -103,13 +110,15 @@ TEST_CASE("output offset at the nominal temperature equals the budget's offset b
   const SpreadRun with_vos = Run(stage, 500);
   const OffsetBlock& o = with_vos.nominal.offset;
   for (const SpreadSample& s : with_vos.samples)
-    CHECK(std::fabs(s.offset_v - (s.vos_v * o.noise_gain_dc + o.ib_v)) <= kRelRounding * o.worst_case_v);
+    CHECK(std::fabs(s.offset_v - (s.vos_v * o.noise_gain_dc + o.ib_v)) <=
+          kRelRounding * o.worst_case_v);
   stage.opamp.vos_v = 0;
   stage.opamp.ios_a = 2e-12;
   const SpreadRun with_ios = Run(stage, 500);
   const OffsetBlock& p = with_ios.nominal.offset;
   for (const SpreadSample& s : with_ios.samples)
-    CHECK(RelErr(std::fabs(s.offset_v - p.ib_v), std::fabs(s.ios_a) / 2e-12 * p.ios_v) < 1e-9);
+    CHECK(RelErr(std::fabs(s.offset_v - p.ib_v),
+                 std::fabs(s.ios_a) / 2e-12 * p.ios_v) < 1e-9);
 }
 
 TEST_CASE("the worst-case offset bounds every sample with the same limits") {
@@ -124,18 +133,21 @@ TEST_CASE("the worst-case offset bounds every sample with the same limits") {
   stage.plus_resistor.mode = PlusResistor::Mode::kAuto;
   stage.temperature_range = TemperatureRange{253.15, 343.15};
   stage.resistors->tolerance = 0.001;
-  stage.resistor_overrides["R3"] = {"thick-film", {"thick film", -10, 100e-6, 0.01}, 0.01};
+  stage.resistor_overrides["R3"] = {
+      "thick-film", {"thick film", -10, 100e-6, 0.01}, 0.01};
   const SpreadRun run = Run(stage, 20000);
   REQUIRE(run.worst_case_offset_v > 0);
   double largest = 0;
-  for (const SpreadSample& s : run.samples) largest = std::max(largest, std::fabs(s.offset_v));
+  for (const SpreadSample& s : run.samples)
+    largest = std::max(largest, std::fabs(s.offset_v));
   CHECK(largest <= run.worst_case_offset_v);
   // Not vacuous: the samples reach well into the bound (Vos dominates; a
   // uniform Vos reaches 90 % of its range in 10 % of the samples).
   CHECK(largest > 0.8 * run.worst_case_offset_v);
 }
 
-TEST_CASE("samples do not depend on the thread count, and the seed changes them") {
+TEST_CASE(
+    "samples do not depend on the thread count, and the seed changes them") {
   Stage stage = TeeWithFiniteGbw();
   stage.opamp.vos_v = 300e-6;
   stage.resistors->tolerance = 0.01;
@@ -148,7 +160,8 @@ TEST_CASE("samples do not depend on the thread count, and the seed changes them"
     same = same && one.samples[i].offset_v == two.samples[i].offset_v &&
            one.samples[i].noise_rms_v == two.samples[i].noise_rms_v &&
            one.samples[i].gain == two.samples[i].gain;
-    differs = differs || one.samples[i].offset_v != other_seed.samples[i].offset_v;
+    differs =
+        differs || one.samples[i].offset_v != other_seed.samples[i].offset_v;
   }
   CHECK(same);
   CHECK(differs);
@@ -163,7 +176,8 @@ TEST_CASE("percentiles interpolate between order statistics") {
   CHECK(RelErr(Percentile(sorted, 0.1), 1.4) < test::kRelTight);
   const Distribution d = Describe({2, 4, 4, 4, 5, 5, 7, 9});
   CHECK(d.mean == 5);
-  CHECK(RelErr(d.sigma, std::sqrt(32.0 / 7.0)) < test::kRelTight);  // divisor n - 1
+  CHECK(RelErr(d.sigma, std::sqrt(32.0 / 7.0)) <
+        test::kRelTight);  // divisor n - 1
 }
 
 TEST_CASE("yield counts the samples inside every given limit") {

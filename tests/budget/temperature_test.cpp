@@ -42,8 +42,10 @@ TEST_CASE("FET bias current doubles every 10 °C: x4 at 45 °C, x1/4 at 5 °C") 
   CHECK(RelErr(b.temperature->min.offset.ib_v, at_25 / 4) < test::kRelIdeal);
   CHECK(b.temperature->max.offset_dominant == "Ib");
   // Drift of the worst case toward each end: (wc(T) - wc(25)) / (T - 25).
-  CHECK(RelErr(b.temperature->drift_to_max_v_per_k, (4 * at_25 - at_25) / 20) < test::kRelIdeal);
-  CHECK(RelErr(b.temperature->drift_to_min_v_per_k, (at_25 / 4 - at_25) / -20) < test::kRelIdeal);
+  CHECK(RelErr(b.temperature->drift_to_max_v_per_k, (4 * at_25 - at_25) / 20) <
+        test::kRelIdeal);
+  CHECK(RelErr(b.temperature->drift_to_min_v_per_k, (at_25 / 4 - at_25) / -20) <
+        test::kRelIdeal);
 }
 
 TEST_CASE("a bipolar coefficient law, Vos drift and Ios scaled like Ib") {
@@ -56,11 +58,13 @@ TEST_CASE("a bipolar coefficient law, Vos drift and Ios scaled like Ib") {
   m.vos_drift_v_per_k = 0.3e-6;
   m.ib_law = BiasTemperatureLaw::kCoefficient;
   m.ib_law_value = -0.005;
-  const Stage at_70 = StageAtTemperature(test::InvertingStage(1e3, 100e3, m), C(70));
+  const Stage at_70 =
+      StageAtTemperature(test::InvertingStage(1e3, 100e3, m), C(70));
   CHECK(RelErr(at_70.opamp.ib_a, 50e-9 * 0.775) < test::kRelTight);
   CHECK(RelErr(at_70.opamp.ios_a, 10e-9 * 0.775) < test::kRelTight);
   CHECK(RelErr(at_70.opamp.vos_v, 30e-6 + 0.3e-6 * 45) < test::kRelTight);
-  const Stage at_m20 = StageAtTemperature(test::InvertingStage(1e3, 100e3, m), C(-20));
+  const Stage at_m20 =
+      StageAtTemperature(test::InvertingStage(1e3, 100e3, m), C(-20));
   CHECK(RelErr(at_m20.opamp.vos_v, 30e-6 + 0.3e-6 * 45) < test::kRelTight);
   CHECK(RelErr(at_m20.opamp.ib_a, 50e-9 * 1.225) < test::kRelTight);
 }
@@ -73,22 +77,28 @@ TEST_CASE("resistor tempco and 4kT at each end of the range") {
   stage.temperature_range = TemperatureRange{C(-40), C(85)};
   stage.resistors = ResistorSpec{"x", {"test film", -40, 100e-6, 0}, 0};
   const Stage hot = StageAtTemperature(stage, C(85));
-  CHECK(RelErr(hot.feedback.resistor_ohm, 1e6 * (1 + 100e-6 * 60)) < test::kRelTight);
-  CHECK(RelErr(hot.input_resistor_ohm, 10e3 * (1 + 100e-6 * 60)) < test::kRelTight);
+  CHECK(RelErr(hot.feedback.resistor_ohm, 1e6 * (1 + 100e-6 * 60)) <
+        test::kRelTight);
+  CHECK(RelErr(hot.input_resistor_ohm, 10e3 * (1 + 100e-6 * 60)) <
+        test::kRelTight);
   BudgetOptions options;
   const BudgetOutcome hot_budget = ComputeBudgetAsGiven(hot, options);
   REQUIRE(hot_budget.status.ok);
   const double rf = 1e6 * (1 + 100e-6 * 60);
-  CHECK(RelErr(test::FindContributor(hot_budget.budget, "R_f").output_density_ref_v_per_rthz,
+  CHECK(RelErr(test::FindContributor(hot_budget.budget, "R_f")
+                   .output_density_ref_v_per_rthz,
                std::sqrt(test::FourKT(C(85)) * rf)) < test::kRelIdeal);
   const Budget b = Compute(stage);
   REQUIRE(b.temperature.has_value());
-  CHECK(RelErr(b.temperature->max.output_rms_v, hot_budget.budget.output_rms_v) < test::kRelTight);
+  CHECK(RelErr(b.temperature->max.output_rms_v,
+               hot_budget.budget.output_rms_v) < test::kRelTight);
   CHECK(b.temperature->max.output_rms_v > b.temperature->nominal.output_rms_v);
   CHECK(b.temperature->nominal.output_rms_v > b.temperature->min.output_rms_v);
 }
 
-TEST_CASE("compensation resistor on the section 6 T network: 33.912 21 mV without, Ios Req with") {
+TEST_CASE(
+    "compensation resistor on the section 6 T network: 33.912 21 mV without, "
+    "Ios Req with") {
   // REFERENCES.md section 6 worked example: Rin 4.7k, R1 47k, R2 220k,
   // R3 2.2k, 300 K, Vos 25 uV, Ib- 1.0 nA, Ib+ 0.9 nA, e_n 5 nV, i_n 0.5 pA.
   // Without R_plus: Vos NG_T + Ib- Req = 33.912 21 mV. At the balance
@@ -110,15 +120,18 @@ TEST_CASE("compensation resistor on the section 6 T network: 33.912 21 mV withou
   CHECK(std::fabs(c.ib_with_v) < 1e-12);
   // The noise R_plus adds: its 4kTRp and i_n+ Rp, both through NG_T, white,
   // over the 0.1 .. 10 Hz band of the test stage.
-  const double added_density_sq =
-      (test::FourKT(300.0) * c.balance_ohm + 0.25e-24 * c.balance_ohm * c.balance_ohm) * ng * ng;
-  CHECK(RelErr(c.noise_with_v * c.noise_with_v - c.noise_without_v * c.noise_without_v,
+  const double added_density_sq = (test::FourKT(300.0) * c.balance_ohm +
+                                   0.25e-24 * c.balance_ohm * c.balance_ohm) *
+                                  ng * ng;
+  CHECK(RelErr(c.noise_with_v * c.noise_with_v -
+                   c.noise_without_v * c.noise_without_v,
                added_density_sq * 9.9) < 1e-5);
   CHECK(RelErr(c.noise_without_v, 11617.20e-9 * std::sqrt(9.9)) < 1e-6);
   CHECK(c.noise_matters);  // about 40 % of the power, no bypass
 }
 
-TEST_CASE("a bypass capacitor across R_plus removes its noise above 1/(2 pi R C)") {
+TEST_CASE(
+    "a bypass capacitor across R_plus removes its noise above 1/(2 pi R C)") {
   OpAmpModel m = test::IdealOpAmp(5e-9, 0.5e-12);
   Stage stage = test::TeeStage(4.7e3, 47e3, 220e3, 2.2e3, m, 300.0);
   stage.plus_resistor.mode = PlusResistor::Mode::kAuto;
