@@ -35,6 +35,8 @@ class RestampSolver {
 
   int size() const { return n_; }
   int resistor_count() const { return static_cast<int>(nodes_.size()); }
+  // r of the low-rank split of C, or -1 when the dense complex LU is used.
+  int capacitance_rank() const { return rank_; }
 
   // New values for every resistor (ohms, netlist order).
   void SetResistors(const double* ohms);

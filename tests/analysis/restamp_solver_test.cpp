@@ -37,12 +37,14 @@ Stage NetworkStage() {
   return stage;
 }
 
-TEST_CASE("restamped resistor values give the adjoint solver's transfers") {
-  const Stage base = NetworkStage();
+// Checks every noise source's |transfer|^2 against AdjointSolver after
+// moving every resistor by a different few per cent.
+void CheckAgainstAdjoint(const Stage& base, int expected_rank) {
   const Netlist net = ExpandStage(base);
   MnaSystem system;
   REQUIRE(MnaSystem::Build(net, &system).ok);
   RestampSolver fast(system, net);
+  CHECK(fast.capacitance_rank() == expected_rank);
   // New values: every resistor moved by a different few per cent.
   Netlist changed = net;
   std::vector<double> ohms;
@@ -66,6 +68,34 @@ TEST_CASE("restamped resistor values give the adjoint solver's transfers") {
                    std::norm(reference.Transfer(port))) < kRelSolve);
     }
   }
+}
+
+TEST_CASE("restamped values give the adjoint solver's transfers: rank 4 of 9") {
+  // C_f, C_plus, both pin capacitances and the GBW term: the + pin, - pin
+  // and output block has rank 3, the GBW term adds 1.
+  CheckAgainstAdjoint(NetworkStage(), 4);
+}
+
+TEST_CASE(
+    "restamped values give the adjoint solver's transfers: low-rank path") {
+  // Without C_f and R_plus: the - pin's capacitance and the GBW term, rank 2
+  // of n = 8: the Woodbury update runs.
+  Stage stage = NetworkStage();
+  stage.feedback.capacitor_f = 0;
+  stage.plus_resistor = {};
+  stage.plus_resistor_bypass_f = 0;
+  CheckAgainstAdjoint(stage, 2);
+  // A photodiode stage (C_d, C_f, the GBW term: rank 3 of n = 3, above
+  // n / 2): the dense complex LU runs.
+  Stage tia = stage;
+  tia.topology = Topology::kTransimpedance;
+  tia.photodiode = {47e-12, 500e6, 100e-12, 0.5};
+  tia.feedback.kind = Feedback::Kind::kResistor;
+  tia.feedback.resistor_ohm = 10e6;
+  tia.feedback.capacitor_f = 0.4e-12;
+  tia.opamp.output_resistance_ohm = 0;
+  tia.load_ohm.reset();
+  CheckAgainstAdjoint(tia, -1);
 }
 
 TEST_CASE("the DC node voltages of a restamped network match a direct solve") {
