@@ -294,7 +294,8 @@ std::string ExcessSection(const Budget& b) {
     const ExcessAdvice& a = *b.excess_advice;
     out += "  largest excess noise: " + a.resistor + " (" + a.technology + ", " +
            Printf("%.0f dB", a.noise_index_db) + "), " + Percent(a.share) +
-           " of the output noise power\n";
+           " of the output noise power" +
+           (a.share < 0.01 ? ": below 1 %, no upgrade is worth it\n" : "\n");
     for (const ExcessAdvice::Alternative& alt : a.alternatives)
       out += "    as " + alt.technology + " (" + Printf("%.0f dB", alt.noise_index_db) +
              "): total output noise " + FormatEng(alt.output_rms_v, "V") + " rms (now " +

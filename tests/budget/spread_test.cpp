@@ -168,6 +168,22 @@ TEST_CASE(
   CHECK(one.resistor_ohms == two.resistor_ohms);
 }
 
+TEST_CASE("Gaussian offsets take the device's value as sigma") {
+  // Zero tolerance, Ib = 0: offset = Vos NG with Vos ~ N(0, 100 uV). The
+  // sample sigma of 2e4 draws has a relative standard error of
+  // 1 / sqrt(2 n) = 0.5 %.
+  Stage stage = TeeWithFiniteGbw();
+  stage.opamp.ib_a = 0;
+  stage.opamp.vos_v = 100e-6;
+  stage.opamp.offset_distribution = OffsetDistribution::kGaussian;
+  const SpreadRun run = Run(stage, 20000);
+  const SpreadSummary summary = Summarize(run.samples, {});
+  CHECK(RelErr(summary.offset.sigma,
+               100e-6 * run.nominal.offset.noise_gain_dc) < 0.02);
+  // Unbounded: some samples pass the 1-sigma "worst case" of the budget.
+  CHECK(summary.offset.max > run.nominal.offset.worst_case_v);
+}
+
 TEST_CASE("percentiles interpolate between order statistics") {
   // Hyndman and Fan (1996) definition 7: x[(n - 1) p], linear in between.
   const std::vector<double> sorted = {1, 2, 3, 4, 5};
