@@ -30,7 +30,8 @@ struct ResistorInfo {
   double tempco_per_k = 0;
   bool excess = false;  // has a technology (and is noisy)
   double noise_index_db = 0;
-  int a = -1, b = -1;  // unknown indices
+  double excess_per_v2 = 0;  // K of S = K / f per volt^2 of drop
+  int a = -1, b = -1;        // unknown indices
 };
 
 // One noise source with the parts of its density that change per sample.
@@ -196,6 +197,7 @@ Status BuildModel(const Stage& stage, const BudgetOutcome& nominal, Model* m) {
       info.tempco_per_k = spec->technology.tempco_per_k;
       info.excess = r.noisy;
       info.noise_index_db = spec->technology.noise_index_db;
+      info.excess_per_v2 = ExcessNoiseCoefficient(info.noise_index_db, 1.0);
       m->any_excess = m->any_excess || r.noisy;
     }
     m->resistors.push_back(info);

@@ -70,7 +70,10 @@ std::string SpreadToText(const SpreadRun& run, const SpreadSummary& s,
         "  worst-case offset over the tolerance corners and the range: "
         "\xC2\xB1" +
         FormatEng(run.worst_case_offset_v, "V") +
-        " (bounds every sample when Vos and Ios are uniform)\n";
+        (run.gaussian_offsets
+             ? " (Vos and Ios at their 1-sigma values: Gaussian "
+               "samples may go beyond it)\n"
+             : " (bounds every sample: Vos and Ios are uniform)\n");
   if (s.yield.all) {
     out += "\nYield\n";
     Table y;
