@@ -5,6 +5,7 @@
 #include <atomic>
 #include <csignal>
 #include <cstdio>
+#include <filesystem>
 #include <iostream>
 #include <optional>
 
@@ -77,6 +78,12 @@ int RunSpreadCommand(const SpreadCommandOptions& options) {
   limits.noise_v =
       Limit(options.noise_limit, "--noise-limit", Quantity::kVoltage);
 
+  if (!options.csv_path.empty()) {
+    // Refuse an unwritable place before the run, not after it.
+    const std::filesystem::path folder = std::filesystem::path(options.csv_path).parent_path();
+    if (!folder.empty() && !std::filesystem::is_directory(folder))
+      throw Error(options.csv_path, "", "cannot write: no such folder");
+  }
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
   const Stage stage = LoadStageFile(options.stage_path, library);
 
