@@ -113,6 +113,16 @@ TEST_CASE(
                         0) == 0);
 }
 
+TEST_CASE("spread refuses a CSV in a missing folder before running") {
+  Scratch s;
+  const fs::path stage = s.Write("stage.json", StageText("25", "0.1%"));
+  const std::string csv = (s.dir() / "missing" / "x.csv").string();
+  const Result r =
+      s.Run("spread " + stage.string() + " --samples 10 --csv " + csv);
+  CHECK(r.code == 2);
+  CHECK(r.err == "error: " + csv + ": cannot write: no such folder\n");
+}
+
 TEST_CASE(
     "spread writes every sample to the CSV, the same for any thread count") {
   Scratch s;
