@@ -1,5 +1,5 @@
 // The one place Eigen enters hushgain: the matrix aliases and the one
-// decomposition used (LU with partial pivoting, complex). Only analysis
+// decomposition used (LU with partial pivoting, complex, and real for DC). Only analysis
 // includes this header; io and report never see an Eigen type.
 #ifndef HUSHGAIN_ANALYSIS_LINEAR_ALGEBRA_H_
 #define HUSHGAIN_ANALYSIS_LINEAR_ALGEBRA_H_
@@ -14,6 +14,8 @@ using RealMatrix = Eigen::MatrixXd;
 using ComplexMatrix = Eigen::MatrixXcd;
 using ComplexVector = Eigen::VectorXcd;
 using ComplexLu = Eigen::PartialPivLU<ComplexMatrix>;
+using RealVector = Eigen::VectorXd;
+using RealLu = Eigen::PartialPivLU<RealMatrix>;
 
 }  // namespace hushgain
 

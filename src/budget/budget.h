@@ -13,7 +13,8 @@ namespace hushgain {
 
 struct Contributor {
   std::string name;  // "R_in", "R3", "e_n", "i_n-"
-  std::string kind;  // "thermal", "shot", "voltage_noise", "current_noise"
+  // "thermal", "shot", "voltage_noise", "current_noise", "excess"
+  std::string kind;
   double output_rms_v = 0;  // sqrt(integral of S_out,k over the band)
   double share = 0;         // fraction of the total output noise power
   double output_density_ref_v_per_rthz = 0;  // at the reference frequency
@@ -95,6 +96,73 @@ struct CapacitorChoice {
   std::string estimate_rule;   // "sqrt(C / (pi Rf GBW))"
 };
 
+// The DC drop across a resistor with a technology, from the DC solution at
+// the stage's DC input level with Vos, Ib+-, Ios (taken positive) and the
+// dark current as stimuli (budget/resistor_excess.h).
+struct ResistorDrop {
+  std::string name;        // "R_f"
+  std::string technology;  // class name, "thick film"
+  double noise_index_db = 0;
+  double v_dc = 0;  // signed, node a to node b
+};
+
+// Which resistor's technology is worth upgrading: the one whose excess
+// noise has the largest share of the output noise power, and what the
+// total would be with each quieter technology of the device library.
+struct ExcessAdvice {
+  std::string resistor;
+  std::string technology;
+  double noise_index_db = 0;
+  double share = 0;  // of the total output noise power
+  struct Alternative {
+    std::string technology;
+    double noise_index_db = 0;
+    double output_rms_v = 0;  // the stage's total with that resistor changed
+  };
+  std::vector<Alternative> alternatives;  // quietest first
+};
+
+// The output offset and noise at one temperature.
+struct TemperatureCorner {
+  double temperature_k = 0;
+  OffsetBlock offset;
+  std::string offset_dominant;  // "Vos", "Ib", "Ios" or "dark current"
+  double output_rms_v = 0;
+  std::string noise_dominant;  // the contributor with the largest share
+  double noise_dominant_share = 0;
+};
+
+// The budget at the ends of the stage's temperature range. Drift is the
+// change of the worst-case offset per kelvin (= per °C) from the nominal
+// temperature to each end: (wc(T_end) - wc(T_nom)) / (T_end - T_nom), 0 when
+// the end is the nominal.
+struct TemperatureBlock {
+  TemperatureCorner min, nominal, max;
+  double drift_to_min_v_per_k = 0;
+  double drift_to_max_v_per_k = 0;
+};
+
+// The bias-current compensation resistor R_plus at the balance value,
+// against the + input grounded; both budgets computed through the engine.
+struct CompensationBlock {
+  double balance_ohm = 0;
+  double offset_without_v = 0;  // worst case, + input grounded
+  double offset_with_v = 0;     // worst case, R_plus = balance_ohm
+  double ib_without_v = 0;
+  double ib_with_v = 0;
+  double noise_without_v = 0;  // output rms
+  double noise_with_v = 0;
+  double added_share = 0;       // (with^2 - without^2) / with^2
+  double bypass_f = 0;          // the stage's C_plus, 0 = none
+  bool noise_matters = false;   // added_share > 10 % without a bypass
+};
+
+// Above this share of the total output noise power R_plus's noise "matters".
+inline constexpr double kCompensationNoiseShare = 0.10;
+// Excess contributors below this share are folded into one row of the
+// printed tables (the budget and its JSON keep every one).
+inline constexpr double kNegligibleExcessShare = 1e-4;
+
 struct Budget {
   std::string stage_name;
   std::string opamp_class;  // "JFET input", or "inline parameters"
@@ -140,6 +208,11 @@ struct Budget {
   std::optional<double> dynamic_range_db;  // 2 x full scale / noise p-p
 
   std::optional<TeeComparison> tee;
+
+  std::vector<ResistorDrop> resistor_drops;
+  std::optional<ExcessAdvice> excess_advice;
+  std::optional<TemperatureBlock> temperature;
+  std::optional<CompensationBlock> compensation;
 
   int integration_evaluations = 0;
   double integration_relative_error = 0;  // estimate

@@ -9,8 +9,13 @@
 #include "analysis/frequency_response.h"
 #include "analysis/loop_gain.h"
 #include "budget/feedback_capacitor.h"
+#include "budget/compensation_resistor.h"
 #include "budget/offset.h"
+#include "budget/resistor_excess.h"
+#include "budget/stage_evaluator.h"
+#include "budget/stage_at_temperature.h"
 #include "budget/tee_comparison.h"
+#include "budget/temperature_corners.h"
 #include "circuit/expand_stage.h"
 #include "circuit/feedback_network.h"
 #include "noise/physical_constants.h"
@@ -73,7 +78,7 @@ Status DcFigures(const Stage& stage, const Netlist& net, const Ports& p, Spectru
 }
 
 // Gains and every contributor's densities at the reference frequency.
-Status ReferenceFigures(const Stage& stage, const Ports& p, SpectrumEvaluator& ev, Budget& b) {
+Status ReferenceFigures(const Stage& /*stage*/, const Ports& p, SpectrumEvaluator& ev, Budget& b) {
   const int n = ev.source_count();
   std::vector<double> psd(n);
   Status s = ev.Densities(b.reference_hz, psd.data());
@@ -92,9 +97,10 @@ Status ReferenceFigures(const Stage& stage, const Ports& p, SpectrumEvaluator& e
     c.output_density_ref_v_per_rthz = std::sqrt(psd[k]);
     c.gain_to_output_ref = std::abs(ev.SourceTransfer(k));
     double source_psd = source.PsdAt(b.reference_hz);
-    // A resistor's thermal noise is reported as its voltage density 4kTR.
-    if (source.kind == NoiseKind::kThermal) {
-      const double ohms = 4.0 * kBoltzmannJPerK * stage.temperature_k / source.white_psd;
+    // A resistor's thermal and excess noise are reported as voltage
+    // densities in series with it (4kTR; e_ex).
+    if (source.resistor_ohm > 0) {
+      const double ohms = source.resistor_ohm;
       source_psd *= ohms * ohms;
       c.gain_to_output_ref /= ohms;
     }
@@ -108,7 +114,7 @@ Status ReferenceFigures(const Stage& stage, const Ports& p, SpectrumEvaluator& e
 
 // The band integral of every contributor at once.
 Status BandNoise(const Stage& stage, const BudgetOptions& options, SpectrumEvaluator& ev,
-                 Budget& b) {
+                 Budget& b, std::vector<LogInterval>* partition) {
   const int n = ev.source_count();
   IntegrationResult integral = IntegrateBand(
       stage.band_low_hz, stage.band_high_hz, n,
@@ -126,6 +132,9 @@ Status BandNoise(const Stage& stage, const BudgetOptions& options, SpectrumEvalu
   }
   std::stable_sort(b.contributors.begin(), b.contributors.end(),
                    [](const Contributor& l, const Contributor& r) { return l.share > r.share; });
+  b.excess_advice = AdviseExcess(b.contributors, std::sqrt(total_power), stage,
+                                 options.upgrade_candidates);
+  *partition = integral.partition;
   b.output_rms_v = std::sqrt(total_power);
   b.output_peak_to_peak_v = kPeakToPeakPerRms * b.output_rms_v;
   b.input_rms = b.output_rms_v / b.signal_gain_ref;
@@ -237,13 +246,13 @@ Stage PlainEquivalent(const Stage& tee_stage) {
   return plain;
 }
 
-BudgetOutcome ComputeBudget(const Stage& requested, const BudgetOptions& options) {
+BudgetOutcome ComputeBudgetAsGiven(const Stage& requested, const BudgetOptions& options) {
   BudgetOutcome outcome;
   Budget& b = outcome.budget;
   Stage stage = requested;
   if (stage.capacitor_target) {
     CapacitorOutcome cap = ChooseFeedbackCapacitor(stage, *stage.capacitor_target);
-    if (!cap.status.ok) return {cap.status, b};
+    if (!cap.status.ok) return {cap.status, b, {}, {}};
     b.capacitor_choice = cap.choice;
     stage.feedback.capacitor_f = cap.choice.chosen_f;
     stage.capacitor_target.reset();
@@ -260,19 +269,19 @@ BudgetOutcome ComputeBudget(const Stage& requested, const BudgetOptions& options
   b.feedback_capacitor_f = stage.feedback.capacitor_f;
   b.input_unit = stage.topology == Topology::kTransimpedance ? "A" : "V";
 
-  const Netlist netlist = ExpandStage(stage);
+  Netlist netlist;
   SpectrumEvaluator evaluator;
-  Status s = SpectrumEvaluator::Create(netlist, stage.temperature_k, &evaluator);
-  if (!s.ok) return {s, b};
+  Status s = PrepareStageEvaluator(stage, &netlist, &evaluator, &b.resistor_drops);
+  if (!s.ok) return {s, b, {}, {}};
   const Ports ports = CompilePorts(netlist, evaluator);
 
   s = LoopFigures(stage, evaluator.system(), b);
   if (s.ok) s = DcFigures(stage, netlist, ports, evaluator, b);
   if (s.ok) s = ReferenceFigures(stage, ports, evaluator, b);
-  if (s.ok) s = BandNoise(stage, options, evaluator, b);
+  if (s.ok) s = BandNoise(stage, options, evaluator, b, &outcome.noise_partition);
   if (s.ok) s = ResponseFigures(stage, ports, evaluator, b);
   if (s.ok) s = OutputDrive(stage, evaluator.system(), ports, b);
-  if (!s.ok) return {s, b};
+  if (!s.ok) return {s, b, {}, {}};
 
   if (stage.full_scale_output_v && b.output_rms_v > 0) {
     const double fs = *stage.full_scale_output_v;
@@ -284,17 +293,42 @@ BudgetOutcome ComputeBudget(const Stage& requested, const BudgetOptions& options
   for (double v : {b.signal_gain_ref, b.noise_gain_ref, b.output_rms_v, b.input_rms,
                    b.offset.worst_case_v, b.input_density_ref_per_rthz}) {
     s = CheckFinite(v, "a budget figure at " + HzText(b.reference_hz));
-    if (!s.ok) return {s, b};
+    if (!s.ok) return {s, b, {}, {}};
   }
 
   if (options.compare_tee && stage.feedback.kind == Feedback::Kind::kTee) {
     BudgetOptions plain_options = options;
     plain_options.compare_tee = false;
-    BudgetOutcome plain = ComputeBudget(PlainEquivalent(stage), plain_options);
-    if (!plain.status.ok) return {plain.status, b};
+    plain_options.temperature_corners = false;
+    plain_options.compensation = false;
+    BudgetOutcome plain = ComputeBudgetAsGiven(PlainEquivalent(stage), plain_options);
+    if (!plain.status.ok) return {plain.status, b, {}, {}};
     b.tee = CompareTee(b, plain.budget, FeedbackEquivalentOhm(stage.feedback));
   }
+  if (options.compensation) {
+    CompensationBlock block;
+    s = ComputeCompensationBlock(stage, options, &block);
+    if (!s.ok) return {s, b, {}, {}};
+    b.compensation = block;
+  }
+  outcome.stage_used = stage;
   outcome.status = Status::Ok();
+  return outcome;
+}
+
+BudgetOutcome ComputeBudget(const Stage& requested, const BudgetOptions& options) {
+  BudgetOutcome outcome =
+      ComputeBudgetAsGiven(StageAtTemperature(requested, requested.temperature_k), options);
+  if (!outcome.status.ok || !options.temperature_corners || !requested.temperature_range)
+    return outcome;
+  TemperatureBlock block;
+  Status s = ComputeTemperatureBlock(requested, outcome.budget,
+                                     outcome.stage_used.feedback.capacitor_f, options, &block);
+  if (!s.ok) {
+    outcome.status = s;
+    return outcome;
+  }
+  outcome.budget.temperature = block;
   return outcome;
 }
 

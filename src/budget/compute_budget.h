@@ -8,6 +8,9 @@
 #define HUSHGAIN_BUDGET_COMPUTE_BUDGET_H_
 
 #include <string>
+#include <vector>
+
+#include "integrate/band_integral.h"
 
 #include "analysis/status.h"
 #include "budget/budget.h"
@@ -21,6 +24,13 @@ struct BudgetOptions {
   IntegrationOptions integration;
   // For a T network, also compute the plain-resistor stage (default on).
   bool compare_tee = true;
+  // With a temperature range, the budget at each end (default on).
+  bool temperature_corners = true;
+  // The compensation-resistor report (default on).
+  bool compensation = true;
+  // Quieter technologies the excess-noise advice may propose (the device
+  // library's resistor technologies; empty = no alternatives).
+  std::vector<ResistorSpec> upgrade_candidates;
 
   std::string Validate() const { return integration.Validate(); }
 };
@@ -28,10 +38,22 @@ struct BudgetOptions {
 struct BudgetOutcome {
   Status status;  // numerical trouble: singular network, non-finite result
   Budget budget;
+  // The converged partition of the noise integral (for re-integration on
+  // the same nodes, integrate/band_integral.h).
+  std::vector<LogInterval> noise_partition;
+  // The stage as computed: at its nominal temperature, with an "auto"
+  // feedback capacitor chosen.
+  Stage stage_used;
 };
 
-// The stage must be valid (io validates user input). Never prints.
+// The stage must be valid (io validates user input). Its device and
+// resistor values are at 25 °C; the budget is computed at the stage's
+// temperature (budget/stage_at_temperature.h). Never prints.
 BudgetOutcome ComputeBudget(const Stage& stage, const BudgetOptions& options);
+
+// The same for a stage already moved to its temperature (no further
+// temperature laws applied).
+BudgetOutcome ComputeBudgetAsGiven(const Stage& stage, const BudgetOptions& options);
 
 // The plain stage that a T network stands in for: the same stage with one
 // feedback resistor equal to the tee's equivalent resistance.

@@ -6,7 +6,8 @@
 
 #include "analysis/loop_gain.h"
 #include "budget/feedback_capacitor.h"
-#include "circuit/expand_stage.h"
+#include "budget/stage_at_temperature.h"
+#include "budget/stage_evaluator.h"
 #include "noise/spectrum_evaluator.h"
 
 namespace hushgain {
@@ -39,7 +40,7 @@ SpectrumOutcome SampleSpectra(const Stage& requested,
                               const std::vector<double>& f_hz) {
   SpectrumOutcome outcome;
   SpectrumSamples& out = outcome.samples;
-  Stage stage = requested;
+  Stage stage = StageAtTemperature(requested, requested.temperature_k);
   if (stage.capacitor_target) {
     const CapacitorOutcome cap =
         ChooseFeedbackCapacitor(stage, *stage.capacitor_target);
@@ -47,10 +48,9 @@ SpectrumOutcome SampleSpectra(const Stage& requested,
     stage.feedback.capacitor_f = cap.choice.chosen_f;
     stage.capacitor_target.reset();
   }
-  const Netlist netlist = ExpandStage(stage);
+  Netlist netlist;
   SpectrumEvaluator evaluator;
-  Status s =
-      SpectrumEvaluator::Create(netlist, stage.temperature_k, &evaluator);
+  Status s = PrepareStageEvaluator(stage, &netlist, &evaluator, nullptr);
   if (!s.ok) return {s, out};
   const int n = evaluator.source_count();
   const Port signal = evaluator.Compile(netlist.signal);

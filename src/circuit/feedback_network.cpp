@@ -36,6 +36,8 @@ void AddOpAmpWithLoad(const Stage& stage, NodeId summing, NodeId output, double 
     double ohms = stage.plus_resistor.mode == PlusResistor::Mode::kAuto ? balance_ohm
                                                                         : stage.plus_resistor.ohms;
     net->resistors.push_back({"R_plus", plus, kGround, ohms, true});
+    if (stage.plus_resistor_bypass_f > 0)
+      net->capacitors.push_back({"C_plus", plus, kGround, stage.plus_resistor_bypass_f});
   }
   if (stage.load_ohm) net->resistors.push_back({"R_load", output, kGround, *stage.load_ohm, true});
   net->opamps.push_back({"op-amp", plus, summing, output, stage.opamp});

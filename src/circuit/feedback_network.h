@@ -21,7 +21,8 @@ double FeedbackDcOhm(const Feedback& feedback);
 // `output`.
 void AddFeedback(const Feedback& feedback, NodeId summing, NodeId output, Netlist* net);
 
-// Adds R_plus (none, a value, or `balance_ohm` for "auto"), the load and
+// Adds R_plus (none, a value, or `balance_ohm` for "auto") with its bypass
+// capacitor C_plus when the stage sets one, the load and
 // the op-amp with its - input at `summing` and its output at `output`.
 void AddOpAmpWithLoad(const Stage& stage, NodeId summing, NodeId output, double balance_ohm,
                       Netlist* net);

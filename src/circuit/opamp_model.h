@@ -22,6 +22,14 @@ enum class BiasTemperatureLaw {
   kCoefficient,  // Ib(T) = Ib(25 °C) * (1 + coefficient * (T - 25 °C))
 };
 
+// How Vos and Ios spread from part to part (the Monte Carlo, budget/spread.h):
+// uniform within +-offset_voltage and +-offset_current (read as maxima), or
+// Gaussian with them as sigma (read as typical values). Default uniform.
+enum class OffsetDistribution {
+  kUniform,
+  kGaussian,
+};
+
 struct OpAmpModel {
   std::string class_name;       // "precision bipolar"; shown in reports
   double e_w_v_per_rthz = 0;    // white voltage noise density
@@ -39,6 +47,7 @@ struct OpAmpModel {
   double ios_a = 0;  // input offset current, magnitude (sign unknown)
   BiasTemperatureLaw ib_law = BiasTemperatureLaw::kNone;
   double ib_law_value = 0;  // doubling interval in K, or coefficient per K
+  OffsetDistribution offset_distribution = OffsetDistribution::kUniform;
   double output_current_limit_a = 0.02;
   double supply_v = 30;  // total supply span, V
 };

@@ -4,10 +4,12 @@
 #ifndef HUSHGAIN_CIRCUIT_STAGE_H_
 #define HUSHGAIN_CIRCUIT_STAGE_H_
 
+#include <map>
 #include <optional>
 #include <string>
 
 #include "circuit/opamp_model.h"
+#include "circuit/resistor_technology.h"
 
 namespace hushgain {
 
@@ -64,9 +66,27 @@ struct Photodiode {
   double responsivity_a_per_w = 0;  // 0 = not given (no NEP)
 };
 
+// The working temperature range; the stage's temperature_k is the nominal.
+struct TemperatureRange {
+  double min_k = 298.15;
+  double max_k = 298.15;
+};
+
+// The technology of a resistor (or of all the stage's resistors): its noise
+// index, temperature coefficient and tolerance (the tolerance may be set
+// apart from the technology's class-typical value).
+struct ResistorSpec {
+  std::string technology_name;  // the device name, "thin-film"
+  ResistorTechnology technology;
+  double tolerance = 0;  // relative, >= 0
+};
+
 struct Stage {
   std::string name;
+  // The nominal temperature. Device and resistor values are at 25 °C; the
+  // budget evaluates the stage at this temperature (budget/stage_at_temperature.h).
   double temperature_k = 298.15;
+  std::optional<TemperatureRange> temperature_range;
   double band_low_hz = 0;
   double band_high_hz = 0;
   std::optional<double> reference_hz;  // default: sqrt(low * high)
@@ -79,9 +99,23 @@ struct Stage {
   // When set, feedback.capacitor_f is chosen by the budget for this target.
   std::optional<CapacitorTarget> capacitor_target;
   PlusResistor plus_resistor;
+  double plus_resistor_bypass_f = 0;  // a capacitor across R_plus; 0 = none
   std::optional<double> load_ohm;
   std::optional<double> full_scale_output_v;  // peak output swing, ±V
+  // The technology of the stage's own resistors (R_in, R_f, R1, R2, R3,
+  // R_plus, R_load), and per-resistor overrides keyed by contributor name
+  // (these may also give R_source and R_sh one). None = ideal parts: no
+  // excess noise, no tempco, no tolerance.
+  std::optional<ResistorSpec> resistors;
+  std::map<std::string, ResistorSpec> resistor_overrides;
+  // The DC level at the input for the DC solution (excess noise): volts of
+  // the voltage source, or amperes of photocurrent; default 0.
+  double dc_input = 0;
 };
+
+// The spec of the netlist resistor named `name` ("R_in", "R1", ...): the
+// override, else the stage's technology for its own parts, else nullptr.
+const ResistorSpec* ResistorSpecFor(const Stage& stage, const std::string& name);
 
 // sqrt(low * high) unless the stage sets it.
 double ReferenceFrequencyHz(const Stage& stage);

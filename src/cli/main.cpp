@@ -12,6 +12,7 @@
 #include "cli/tee_command.h"
 #include "cli/tia_command.h"
 #include "cli/plot_command.h"
+#include "cli/spread_command.h"
 #include "io/error.h"
 #include "io/suggest.h"
 
@@ -191,6 +192,22 @@ std::function<int()> DefinePlot(CLI::App* app, const GlobalOptions& global) {
   };
 }
 
+std::function<int()> DefineSpread(CLI::App* app, const GlobalOptions& global) {
+  auto o = std::make_shared<SpreadCommandOptions>();
+  app->add_option("stage", o->stage_path, "stage file (JSON)")->required();
+  app->add_option("--samples", o->samples, "number of Monte Carlo samples (default 10000)");
+  app->add_option("--seed", o->seed, "seed of the random streams (default 1)");
+  app->add_option("--threads", o->threads, "worker threads (default 0: all)");
+  app->add_option("--csv", o->csv_path, "write every sample to this CSV file");
+  app->add_option("--gain-error-limit", o->gain_error_limit, "yield limit on |gain error|, e.g. 0.5%");
+  app->add_option("--offset-limit", o->offset_limit, "yield limit on |output offset|, e.g. 5m");
+  app->add_option("--noise-limit", o->noise_limit, "yield limit on the output noise rms, e.g. 100u");
+  return [o, &global] {
+    o->devices_dir = global.devices_dir;
+    return RunSpreadCommand(*o);
+  };
+}
+
 const std::vector<Command>& Commands() {
   static const std::vector<Command> commands = {
       {"budget", "noise and offset budget of a stage", DefineBudget},
@@ -199,6 +216,7 @@ const std::vector<Command>& Commands() {
       {"tia", "photodiode stages: suggest R_f and C_f for a bandwidth", DefineTia},
       {"plot", "noise spectra, cumulative noise and gains as a picture",
        DefinePlot},
+      {"spread", "Monte Carlo over tolerances, offsets and temperature", DefineSpread},
   };
   return commands;
 }

@@ -16,6 +16,8 @@
 #include "circuit/inverting_topology.h"
 #include "circuit/preferred_series.h"
 #include "cli/exit_codes.h"
+#include "cli/interrupt.h"
+#include "cli/progress_bar.h"
 #include "io/device_library.h"
 #include "io/error.h"
 #include "io/stage_parser.h"
@@ -28,15 +30,6 @@ namespace {
 
 constexpr const char* kOhm = "\xCE\xA9";
 
-// Set by the SIGINT handler; the search polls it. The one global of the
-// program, and only here: a signal handler can reach nothing else.
-std::atomic<bool> g_interrupted{false};
-
-extern "C" void OnInterrupt(int) {
-  g_interrupted.store(true);
-  // A second Ctrl-C ends the program the ordinary way.
-  std::signal(SIGINT, SIG_DFL);
-}
 
 Error OptionError(const std::string& option, const std::string& message) {
   return Error("command line", "", option + ": " + message);
@@ -80,34 +73,6 @@ int Refused(const std::string& path, const Status& status) {
 }
 
 // A progress bar on stderr, drawn only when stderr is a terminal.
-class ProgressBar {
- public:
-  ProgressBar() : enabled_(isatty(STDERR_FILENO) == 1) {}
-  ~ProgressBar() { Clear(); }
-  bool enabled() const { return enabled_; }
-
-  void Show(double fraction) {
-    if (!enabled_) return;
-    constexpr int kWidth = 40;
-    const int filled = static_cast<int>(fraction * kWidth + 0.5);
-    std::string bar(filled, '#');
-    bar += std::string(kWidth - filled, '.');
-    std::fprintf(stderr, "\rsearching [%s] %3d %%", bar.c_str(),
-                 static_cast<int>(100 * fraction + 0.5));
-    std::fflush(stderr);
-    drawn_ = true;
-  }
-  void Clear() {
-    if (!drawn_) return;
-    std::fprintf(stderr, "\r%60s\r", "");
-    std::fflush(stderr);
-    drawn_ = false;
-  }
-
- private:
-  bool enabled_;
-  bool drawn_ = false;
-};
 
 TeeRanking ParseRanking(const std::string& text) {
   if (text == "noise") return TeeRanking::kNoise;
@@ -266,13 +231,14 @@ int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
           "--gain", "expected a positive gain, got \"" + options.gain + "\"");
   }
 
-  ProgressBar bar;
+  ProgressBar bar("searching");
   if (bar.enabled()) search.progress = [&bar](double f) { bar.Show(f); };
-  g_interrupted.store(false);
-  search.cancel = &g_interrupted;
-  auto previous = std::signal(SIGINT, OnInterrupt);
-  const TeeSearchResult result = SearchTee(stage, search);
-  std::signal(SIGINT, previous == SIG_ERR ? SIG_DFL : previous);
+  TeeSearchResult result;
+  {
+    InterruptScope interrupt;
+    search.cancel = interrupt.flag();
+    result = SearchTee(stage, search);
+  }
   bar.Clear();
 
   if (!result.status.ok) return Refused(options.stage_path, result.status);

@@ -182,7 +182,27 @@ IntegrationResult IntegrateBand(double f_low_hz, double f_high_hz, int n,
   result.error_estimate = err;
   result.evaluations = rule.evaluations();
   result.intervals = static_cast<int>(intervals.size());
+  result.partition.reserve(intervals.size());
+  for (const Interval& iv : intervals) result.partition.push_back({iv.a, iv.b});
   return result;
+}
+
+std::vector<QuadratureNode> QuadratureNodes(const std::vector<LogInterval>& partition) {
+  std::vector<QuadratureNode> nodes;
+  nodes.reserve(partition.size() * 15);
+  for (const LogInterval& iv : partition) {
+    const double center = 0.5 * (iv.a + iv.b);
+    const double half = 0.5 * (iv.b - iv.a);
+    // The same node order and arithmetic as Integrator::Rule.
+    for (int j = 0; j < 15; ++j) {
+      const int i = j < 8 ? j : 14 - j;
+      const double x = j < 8 ? -kXk[i] : kXk[i];
+      if (j > 7 && i == 7) continue;
+      const double f = std::exp(center + half * x);
+      nodes.push_back({f, half * kWk[i] * f});
+    }
+  }
+  return nodes;
 }
 
 }  // namespace hushgain

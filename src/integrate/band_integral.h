@@ -32,6 +32,12 @@ struct IntegrationOptions {
   std::string Validate() const;
 };
 
+// One interval of the partition, in u = ln f.
+struct LogInterval {
+  double a = 0;
+  double b = 0;
+};
+
 struct IntegrationResult {
   Status status;                  // a failing integrand stops the integration
   std::vector<double> integrals;  // one per component, units of S times Hz
@@ -39,6 +45,8 @@ struct IntegrationResult {
   int evaluations = 0;            // integrand calls
   int intervals = 0;
   bool converged = false;  // error_estimate met the tolerance
+  // The final partition, in the order the integral sums it.
+  std::vector<LogInterval> partition;
 };
 
 // Fills `values[0 .. n-1]` with the densities at `f_hz` (all >= 0).
@@ -49,6 +57,19 @@ using BandIntegrand = std::function<Status(double f_hz, double* values)>;
 IntegrationResult IntegrateBand(double f_low_hz, double f_high_hz, int n,
                                 const BandIntegrand& integrand,
                                 const IntegrationOptions& options);
+
+// A fixed quadrature node: integral of S(f) df ~ sum of weight_hz * S(f_hz).
+struct QuadratureNode {
+  double f_hz = 0;
+  double weight_hz = 0;
+};
+
+// The Kronrod-15 nodes of every interval of `partition` with their weights
+// (half-width x Kronrod weight x f, the Jacobian of u = ln f): re-integrating
+// a changed integrand on the nodes a converged adaptive run chose, at a fixed
+// cost. Applied to the integrand of that run it gives the same integral to
+// rounding.
+std::vector<QuadratureNode> QuadratureNodes(const std::vector<LogInterval>& partition);
 
 }  // namespace hushgain
 

@@ -110,6 +110,14 @@ void ApplyOpAmpParameters(ObjectReader& reader, OpAmpModel* model) {
     model->*k.member = value;
   }
   ApplyBiasTemperature(reader, model);
+  if (auto spread = reader.OptionalString("offset_distribution")) {
+    if (*spread == "uniform") model->offset_distribution = OffsetDistribution::kUniform;
+    else if (*spread == "gaussian") model->offset_distribution = OffsetDistribution::kGaussian;
+    else
+      throw reader.ErrorAt("offset_distribution",
+                           "expected \"uniform\" (within the values, read as maxima) or "
+                           "\"gaussian\" (the values as sigma), got \"" + *spread + "\"");
+  }
   reader.Finish();
 }
 

@@ -1,7 +1,10 @@
 #include "io/stage_parser.h"
 
+#include <algorithm>
 #include <cmath>
 #include <filesystem>
+
+#include "circuit/stage_resistors.h"
 
 #include "io/json_reader.h"
 #include "io/read_file.h"
@@ -175,6 +178,102 @@ Photodiode ParsePhotodiode(ObjectReader& reader) {
   return pd;
 }
 
+double Celsius(ObjectReader& reader, const std::string& key) {
+  const double celsius = reader.Quantity(key, Quantity::kTemperature);
+  if (!(celsius > -kZeroCelsiusK && celsius < 1000))
+    throw reader.ErrorAt(key, "expected a temperature above -273.15 °C and below 1000 °C, got " +
+                                  Dump(reader.Get(key)));
+  return celsius;
+}
+
+std::string Number(double value) {
+  char buf[32];
+  std::snprintf(buf, sizeof buf, "%g", value);
+  return buf;
+}
+
+// "temperature_C": a number (the nominal), or {"min", "nominal", "max"}
+// (nominal defaults to 25).
+void ParseTemperature(ObjectReader& top, Stage* stage) {
+  if (!top.Has("temperature_C")) return;
+  if (!top.Get("temperature_C").is_object()) {
+    stage->temperature_k = Celsius(top, "temperature_C") + kZeroCelsiusK;
+    return;
+  }
+  ObjectReader t = top.Object("temperature_C");
+  const double lo = Celsius(t, "min");
+  const double hi = Celsius(t, "max");
+  const double nominal = t.Has("nominal") ? Celsius(t, "nominal") : 25.0;
+  if (!(lo <= nominal && nominal <= hi))
+    throw top.ErrorAt("temperature_C", "expected min <= nominal <= max, got min " + Number(lo) +
+                                           ", nominal " + Number(nominal) + ", max " + Number(hi));
+  t.Finish();
+  stage->temperature_k = nominal + kZeroCelsiusK;
+  stage->temperature_range = TemperatureRange{lo + kZeroCelsiusK, hi + kZeroCelsiusK};
+}
+
+double Tolerance(ObjectReader& reader) {
+  const double t = reader.Quantity("tolerance", Quantity::kRatio);
+  if (!(t >= 0 && t < 1))
+    throw reader.ErrorAt("tolerance", "expected a tolerance from 0 to below 100 %, got " +
+                                          Dump(reader.Get("tolerance")));
+  return t;
+}
+
+// {"technology": name, "tolerance": ratio}; the technology may be inherited.
+ResistorSpec ParseResistorSpec(ObjectReader& reader, const DeviceLibrary& library,
+                               const ResistorSpec* inherit) {
+  ResistorSpec spec;
+  if (reader.Has("technology") || !inherit) {
+    spec.technology_name = reader.String("technology");
+    auto it = library.resistors.find(spec.technology_name);
+    if (it == library.resistors.end())
+      throw reader.ErrorAt("technology", "unknown resistor technology \"" + spec.technology_name +
+                                             "\"" +
+                                             DidYouMean(spec.technology_name, library.ResistorNames()));
+    spec.technology = it->second;
+    spec.tolerance = spec.technology.tolerance;
+  } else {
+    spec = *inherit;
+  }
+  if (reader.Has("tolerance")) spec.tolerance = Tolerance(reader);
+  return spec;
+}
+
+const std::vector<std::string>& ResistorNames() {
+  static const std::vector<std::string> names = {"R_source", "R_in",   "R_f",    "R1",  "R2",
+                                                 "R3",       "R_plus", "R_load", "R_sh"};
+  return names;
+}
+
+// "resistors": {"technology", "tolerance", "<R name>": {...}, ...}.
+void ParseResistors(ObjectReader& top, const DeviceLibrary& library, Stage* stage) {
+  if (!top.Has("resistors")) return;
+  ObjectReader r = top.Object("resistors");
+  if (r.Has("technology")) stage->resistors = ParseResistorSpec(r, library, nullptr);
+  else if (r.Has("tolerance"))
+    throw r.ErrorAt("tolerance", "needs a \"technology\" beside it");
+  std::vector<std::string> present;
+  for (auto& [name, ohms] : StageResistors(*stage)) present.push_back(name);
+  if (stage->plus_resistor.mode == PlusResistor::Mode::kAuto) present.push_back("R_plus");
+  for (auto it = r.json().begin(); it != r.json().end(); ++it) {
+    const std::string& key = it.key();
+    if (key == "technology" || key == "tolerance") continue;
+    const auto& names = ResistorNames();
+    if (std::find(names.begin(), names.end(), key) == names.end())
+      throw r.ErrorAt(key, "unknown resistor name" + DidYouMean(key, names) +
+                               " (expected \"technology\", \"tolerance\" or a resistor: R_in, R_f, "
+                               "R1, R2, R3, R_plus, R_load, R_source, R_sh)");
+    if (std::find(present.begin(), present.end(), key) == present.end())
+      throw r.ErrorAt(key, "this stage has no " + key);
+    ObjectReader o = r.Object(key);
+    stage->resistor_overrides[key] =
+        ParseResistorSpec(o, library, stage->resistors ? &*stage->resistors : nullptr);
+    o.Finish();
+  }
+  r.Finish();
+}
+
 }  // namespace
 
 Stage ParseStage(std::string_view json_text, std::string_view source_name,
@@ -185,14 +284,7 @@ Stage ParseStage(std::string_view json_text, std::string_view source_name,
   Stage stage;
   stage.name = top.String("name");
 
-  double celsius = top.OptionalQuantity("temperature_C", Quantity::kTemperature)
-                       .value_or(25.0);
-  if (!(celsius > -kZeroCelsiusK && celsius < 1000))
-    throw top.ErrorAt(
-        "temperature_C",
-        "expected a temperature above -273.15 °C and below 1000 °C, got " +
-            Dump(top.Get("temperature_C")));
-  stage.temperature_k = celsius + kZeroCelsiusK;
+  ParseTemperature(top, &stage);
 
   ObjectReader band = top.Object("band_Hz");
   stage.band_low_hz = band.Quantity("low", Quantity::kFrequency);
@@ -254,8 +346,17 @@ Stage ParseStage(std::string_view json_text, std::string_view source_name,
   ObjectReader fb = st.Object("feedback");
   stage.feedback = ParseFeedback(fb, &stage.capacitor_target);
   stage.plus_resistor = ParsePlusResistor(st);
+  if (st.Has("plus_resistor_bypass")) {
+    if (stage.plus_resistor.mode == PlusResistor::Mode::kNone)
+      throw st.ErrorAt("plus_resistor_bypass", "needs a \"plus_resistor\" to bypass");
+    stage.plus_resistor_bypass_f = NonNegativeCapacitance(st, "plus_resistor_bypass");
+  }
   if (st.Has("load")) stage.load_ohm = PositiveResistance(st, "load");
   st.Finish();
+
+  if (top.Has("dc_input"))
+    stage.dc_input = top.Quantity("dc_input", photodiode ? Quantity::kCurrent : Quantity::kVoltage);
+  ParseResistors(top, *context.library, &stage);
 
   if (auto fs =
           top.OptionalQuantity("full_scale_output_V", Quantity::kVoltage)) {

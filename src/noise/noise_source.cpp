@@ -16,6 +16,8 @@ const char* NoiseKindName(NoiseKind kind) {
       return "voltage_noise";
     case NoiseKind::kOpAmpCurrent:
       return "current_noise";
+    case NoiseKind::kExcess:
+      return "excess";
   }
   return "noise";
 }
@@ -27,7 +29,7 @@ std::vector<NoiseSource> CollectNoiseSources(const Netlist& net,
   for (const Resistor& r : net.resistors) {
     if (!r.noisy) continue;
     sources.push_back({r.name, NoiseKind::kThermal, CurrentInjection{r.a, r.b},
-                       four_kt / r.ohms, 0.0});
+                       four_kt / r.ohms, 0.0, 0.0, r.ohms});
   }
   for (const JunctionCurrent& j : net.junction_currents) {
     // Schottky 1918: 2 q I, white.

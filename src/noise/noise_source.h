@@ -1,12 +1,14 @@
 // Noise sources of a netlist, each a stimulus at an excitation point with a
 // one-sided power spectral density
-//   S(f) = white_psd * (1 + corner_hz / f)
+//   S(f) = white_psd * (1 + corner_hz / f) + flicker_psd / f
 // in V^2/Hz (a voltage excitation) or A^2/Hz (a current excitation):
 //   resistor thermal noise  4kT/R as a current across the resistor
 //                           (Johnson 1928, Nyquist 1928)
 //   op-amp voltage noise    e_w^2 (1 + f_cv/f) in series with the + input
 //   op-amp current noise    i_w^2 (1 + f_ci/f) from each input pin to ground
 //   junction shot noise     2 q I across the junction (Schottky 1918)
+//   resistor excess noise   a 1/f current across the resistor from its noise
+//                           index and DC drop (noise/excess_noise.h)
 // Sources are uncorrelated: their output powers add.
 #ifndef HUSHGAIN_NOISE_NOISE_SOURCE_H_
 #define HUSHGAIN_NOISE_NOISE_SOURCE_H_
@@ -23,9 +25,11 @@ enum class NoiseKind {
   kShot,          // 2qI of a current
   kOpAmpVoltage,  // e_n
   kOpAmpCurrent,  // i_n at one pin
+  kExcess,        // current (excess) noise of a resistor with a DC drop
 };
 
-// "thermal", "shot", "voltage_noise", "current_noise": the JSON names.
+// "thermal", "shot", "voltage_noise", "current_noise", "excess": the JSON
+// names.
 const char* NoiseKindName(NoiseKind kind);
 
 struct NoiseSource {
@@ -34,9 +38,13 @@ struct NoiseSource {
   Excitation excitation;
   double white_psd = 0;  // V^2/Hz or A^2/Hz
   double corner_hz = 0;  // 1/f corner; 0 = white
+  double flicker_psd = 0;  // a pure 1/f part: flicker_psd / f, (V^2 or A^2)
+  // For a resistor's sources (thermal, excess): its resistance, so the
+  // budget can quote the source as a voltage density; 0 otherwise.
+  double resistor_ohm = 0;
 
   double PsdAt(double f_hz) const {
-    return white_psd * (1.0 + corner_hz / f_hz);
+    return white_psd * (1.0 + corner_hz / f_hz) + flicker_psd / f_hz;
   }
 };
 

@@ -16,6 +16,13 @@ Status SpectrumEvaluator::Create(const Netlist& netlist, double temperature_k,
   return Status::Ok();
 }
 
+void SpectrumEvaluator::AddSources(const std::vector<NoiseSource>& sources) {
+  for (const NoiseSource& source : sources) {
+    sources_.push_back(source);
+    ports_.push_back(system_.Compile(source.excitation));
+  }
+}
+
 Status SpectrumEvaluator::Densities(double f_hz, double* psd) {
   Status s = solver_->SolveAt(f_hz);
   if (!s.ok) return s;

@@ -27,6 +27,10 @@ class SpectrumEvaluator {
   SpectrumEvaluator(const SpectrumEvaluator&) = delete;
   SpectrumEvaluator& operator=(const SpectrumEvaluator&) = delete;
 
+  // Appends sources (e.g. excess noise, which needs the DC solution of the
+  // built system) and compiles their excitations.
+  void AddSources(const std::vector<NoiseSource>& sources);
+
   const std::vector<NoiseSource>& sources() const { return sources_; }
   int source_count() const { return static_cast<int>(sources_.size()); }
   const MnaSystem& system() const { return system_; }

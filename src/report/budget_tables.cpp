@@ -1,5 +1,7 @@
 #include "report/budget_tables.h"
 
+#include <cmath>
+
 #include <cstdio>
 
 #include "io/units.h"
@@ -19,6 +21,7 @@ std::string Printf(const char* format, double value) {
 std::string KindLabel(const std::string& kind) {
   if (kind == "voltage_noise") return "op-amp e_n";
   if (kind == "current_noise") return "op-amp i_n";
+  if (kind == "excess") return "excess 1/f";
   return kind;
 }
 
@@ -64,7 +67,17 @@ Table NoiseTable(const Budget& b) {
   t.align = {Table::Align::kLeft,  Table::Align::kLeft,  Table::Align::kRight,
              Table::Align::kRight, Table::Align::kRight, Table::Align::kRight,
              Table::Align::kRight};
+  // Negligible excess contributors share one row: a table of a dozen
+  // "<0.1 %" excess lines hides the ones that matter.
+  int folded = 0;
+  double folded_power = 0, folded_share = 0;
   for (const Contributor& c : b.contributors) {
+    if (c.kind == "excess" && c.share < kNegligibleExcessShare) {
+      ++folded;
+      folded_power += c.output_rms_v * c.output_rms_v;
+      folded_share += c.share;
+      continue;
+    }
     const bool current = c.kind == "current_noise" || c.kind == "shot";
     t.AddRow({c.name, KindLabel(c.kind),
               FormatDensity(c.source_density_ref, current ? "A" : "V"),
@@ -73,6 +86,9 @@ Table NoiseTable(const Budget& b) {
               FormatDensity(c.output_density_ref_v_per_rthz, "V"),
               FormatEng(c.output_rms_v, "V"), FormatShare(c.share)});
   }
+  if (folded > 0)
+    t.AddRow({"other excess (" + std::to_string(folded) + ")", KindLabel("excess"), "", "", "",
+              FormatEng(std::sqrt(folded_power), "V"), FormatShare(folded_share)});
   t.AddRule();
   t.AddRow({"total", "", "", "",
             FormatDensity(b.output_density_ref_v_per_rthz, "V"),

@@ -2,6 +2,8 @@
 
 #include <nlohmann/json.hpp>
 
+#include "report/real_parts_json.h"
+
 namespace hushgain {
 namespace {
 
@@ -139,6 +141,7 @@ std::string BudgetToJson(const Budget& b) {
         {"contributors", changes},
     };
   }
+  AddRealPartsJson(b, out);
   out["warnings"] = b.warnings;
   return out.dump(2) + "\n";
 }

@@ -6,6 +6,7 @@
 #include "io/units.h"
 #include "noise/physical_constants.h"
 #include "report/budget_tables.h"
+#include "report/real_parts_text.h"
 #include "report/table.h"
 
 namespace hushgain {
@@ -140,6 +141,7 @@ std::string TeeSection(const Budget& b) {
 
 std::string BudgetToText(const Budget& b) {
   std::string out = Header(b) + NoiseSection(b) + OffsetSection(b);
+  out += RealPartsText(b);
   if (b.tee) out += TeeSection(b);
   for (const std::string& w : b.warnings) out += "\nwarning: " + w + "\n";
   return out;

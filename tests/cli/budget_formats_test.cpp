@@ -12,6 +12,7 @@
 
 #include "cli/cli_support.h"
 #include "io/units.h"
+#include "budget/budget.h"
 #include "test_support.h"
 
 namespace hushgain {
@@ -101,9 +102,18 @@ TEST_CASE("the markdown budget's totals equal the JSON budget's totals") {
                  j["noise"]["output_rms_V"]) < kRelFourDigits);
     CHECK(RelErr(Parse(total[4], Quantity::kVoltageDensity),
                  j["noise"]["output_density_V_per_rtHz"]) < kRelFourDigits);
-    // One row per contributor, each with its rms.
+    // One row per contributor, each with its rms; negligible excess
+    // contributors share one "other excess (N)" row, whose rms adds theirs
+    // in power.
+    double folded_power = 0;
+    int folded = 0;
     for (const json& c : j["noise"]["contributors"]) {
       const std::string name = c["name"];
+      if (c["kind"] == "excess" && c["share"].get<double>() < kNegligibleExcessShare) {
+        folded_power += std::pow(c["output_rms_V"].get<double>(), 2);
+        ++folded;
+        continue;
+      }
       std::string escaped;
       for (char ch : name)
         escaped += ch == '_' ? std::string("\\_") : std::string(1, ch);
@@ -113,6 +123,12 @@ TEST_CASE("the markdown budget's totals equal the JSON budget's totals") {
       if (c["output_rms_V"].get<double>() > 1e-15)
         CHECK(RelErr(Parse(row[5], Quantity::kVoltage), c["output_rms_V"]) <
               kRelFourDigits);
+    }
+    if (folded > 0) {
+      const std::vector<std::string> row =
+          MarkdownRow(md, "other excess (" + std::to_string(folded) + ")");
+      REQUIRE(row.size() == 7);
+      CHECK(RelErr(Parse(row[5], Quantity::kVoltage), std::sqrt(folded_power)) < kRelFourDigits);
     }
     const std::vector<std::string> worst = MarkdownRow(md, "worst case");
     const std::vector<std::string> rss = MarkdownRow(md, "root-sum-square");

@@ -97,6 +97,28 @@ TEST_CASE("two cascaded real poles: ENBW = (pi/4) f_p; 1.2203 times f_3dB") {
                1.220331226) < test::kRelTable);
 }
 
+TEST_CASE("the converged partition's quadrature nodes re-integrate a changed density") {
+  // Two real poles (section 3: ENBW = (pi/4) f_p): the adaptive run's
+  // partition, as fixed nodes, gives back its own integral to rounding and
+  // integrates the same density with f_p moved by 0.1 % to the run's accuracy.
+  const double fp = 1.0;
+  auto density = [](double pole) {
+    return [pole](double f) { return 1.0 / std::pow(1 + f * f / (pole * pole), 2); };
+  };
+  auto r = Integrate(1e-12, 1e9, density(fp), 1e-10);
+  REQUIRE(r.converged);
+  REQUIRE(static_cast<int>(r.partition.size()) == r.intervals);
+  const std::vector<QuadratureNode> nodes = QuadratureNodes(r.partition);
+  CHECK(static_cast<int>(nodes.size()) == 15 * r.intervals);
+  double same = 0, moved = 0;
+  for (const QuadratureNode& n : nodes) {
+    same += n.weight_hz * density(fp)(n.f_hz);
+    moved += n.weight_hz * density(1.001 * fp)(n.f_hz);
+  }
+  CHECK(RelErr(same, r.integrals[0]) < 1e-14);
+  CHECK(RelErr(moved, kPi / 4 * 1.001 * fp) < 1e-8);
+}
+
 TEST_CASE("several components share evaluations and keep their own integrals") {
   IntegrationOptions options;
   auto r = IntegrateBand(

@@ -60,5 +60,17 @@ TEST_CASE("a resistor technology reads its noise index; tempco and tolerance") {
   CHECK(t.tolerance == doctest::Approx(1e-3));
 }
 
+TEST_CASE("offset_distribution is uniform by default and may say gaussian") {
+  const std::string core = R"({"kind": "opamp", "class": "c", "illustrative": "x",
+      "parameters": {"voltage_noise": "1n", "current_noise": "1p", "gbw": "1M", "open_loop_gain": "1M")";
+  CHECK(ParseOpAmpDevice(core + "}}", "x.json").offset_distribution == OffsetDistribution::kUniform);
+  CHECK(ParseOpAmpDevice(core + R"(, "offset_distribution": "gaussian"}})", "x.json").offset_distribution ==
+        OffsetDistribution::kGaussian);
+  CHECK_THROWS_WITH_AS(ParseOpAmpDevice(core + R"(, "offset_distribution": "normal"}})", "x.json"),
+                       "x.json: /parameters/offset_distribution: expected \"uniform\" (within the values, "
+                       "read as maxima) or \"gaussian\" (the values as sigma), got \"normal\"",
+                       Error);
+}
+
 }  // namespace
 }  // namespace hushgain

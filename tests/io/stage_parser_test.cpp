@@ -22,6 +22,8 @@ DeviceLibrary Library() {
   m.open_loop_gain = 1e6;
   lib.opamps["precision-bipolar"] = m;
   lib.opamps["low-noise-bipolar"] = m;
+  lib.resistors["thin-film"] = {"thin film", -35, 25e-6, 0.001};
+  lib.resistors["thick-film"] = {"thick film", -10, 100e-6, 0.01};
   return lib;
 }
 
@@ -57,6 +59,13 @@ const char* kGood = R"({
   },
   "full_scale_output_V": 4
 })";
+
+// Replaces the first occurrence of `from` in `text`.
+std::string Replace(std::string text, const std::string& from, const std::string& to) {
+  std::size_t at = text.find(from);
+  REQUIRE(at != std::string::npos);
+  return text.replace(at, from.size(), to);
+}
 
 // Replaces the first occurrence of `from` in kGood.
 std::string Good(const std::string& from, const std::string& to) {
@@ -152,6 +161,62 @@ TEST_CASE("a device path that cannot be read is an error at /opamp/device") {
   CHECK_THROWS_WITH_AS(
       Parse(Good(R"("device": "precision-bipolar")", R"("device": "nowhere/x.json")")),
       R"(stage.json: /opamp/device: cannot read: No such file or directory (nowhere/x.json))", Error);
+}
+
+TEST_CASE("a temperature range, resistor technologies, a DC input and a bypass are read") {
+  const Stage s = Parse(Replace(Good(R"("temperature_C": 25,)",
+                                     R"("temperature_C": {"min": -20, "nominal": 30, "max": 70},
+      "dc_input": "-5m",
+      "resistors": {"technology": "thin-film", "tolerance": "0.05%",
+                    "R3": {"technology": "thick-film"}, "R_plus": {"tolerance": "1%"}},)"),
+                                R"("plus_resistor": "auto",)",
+                                R"("plus_resistor": "auto", "plus_resistor_bypass": "10u",)"));
+  CHECK(RelErr(s.temperature_k, 303.15) < test::kRelTight);
+  REQUIRE(s.temperature_range.has_value());
+  CHECK(RelErr(s.temperature_range->min_k, 253.15) < test::kRelTight);
+  CHECK(RelErr(s.temperature_range->max_k, 343.15) < test::kRelTight);
+  CHECK(RelErr(s.dc_input, -5e-3) < test::kRelTight);
+  CHECK(RelErr(s.plus_resistor_bypass_f, 10e-6) < test::kRelTight);
+  REQUIRE(s.resistors.has_value());
+  CHECK(s.resistors->technology.class_name == "thin film");
+  CHECK(RelErr(s.resistors->tolerance, 5e-4) < test::kRelTight);
+  // R3 takes the thick film's own tolerance; R_plus inherits thin film.
+  CHECK(ResistorSpecFor(s, "R3")->technology.class_name == "thick film");
+  CHECK(RelErr(ResistorSpecFor(s, "R3")->tolerance, 0.01) < test::kRelTight);
+  CHECK(ResistorSpecFor(s, "R_plus")->technology.class_name == "thin film");
+  CHECK(RelErr(ResistorSpecFor(s, "R_plus")->tolerance, 0.01) < test::kRelTight);
+  CHECK(ResistorSpecFor(s, "R1")->technology.class_name == "thin film");
+  // The source's resistance belongs to the sensor: no spec unless named.
+  CHECK(ResistorSpecFor(s, "R_source") == nullptr);
+}
+
+TEST_CASE("bad temperature ranges and resistor blocks are whole-message errors") {
+  struct Case { std::string text; std::string message; };
+  const Case cases[] = {
+      {Good(R"("temperature_C": 25)", R"("temperature_C": {"min": 70, "max": -20})"),
+       R"(stage.json: /temperature_C: expected min <= nominal <= max, got min 70, nominal 25, max -20)"},
+      {Good(R"("temperature_C": 25)", R"("temperature_C": {"min": 0, "nominal": 80, "max": 70})"),
+       R"(stage.json: /temperature_C: expected min <= nominal <= max, got min 0, nominal 80, max 70)"},
+      {Good(R"("temperature_C": 25)", R"("temperature_C": {"min": 0, "max": 70, "typ": 20})"),
+       R"(stage.json: /temperature_C/typ: unknown key)"},
+      {Good(R"("temperature_C": 25,)", R"("resistors": {"technology": "thin-flim"},)"),
+       R"(stage.json: /resistors/technology: unknown resistor technology "thin-flim" (did you mean "thin-film"?))"},
+      {Good(R"("temperature_C": 25,)", R"("resistors": {"technology": "thin-film", "tolerance": "-1%"},)"),
+       R"(stage.json: /resistors/tolerance: expected a tolerance from 0 to below 100 %, got "-1%")"},
+      {Good(R"("temperature_C": 25,)", R"("resistors": {"technology": "thin-film", "R_fb": {}},)"),
+       R"(stage.json: /resistors/R_fb: unknown resistor name (did you mean "R_f"?) (expected "technology", "tolerance" or a resistor: R_in, R_f, R1, R2, R3, R_plus, R_load, R_source, R_sh))"},
+      {Good(R"("temperature_C": 25,)", R"("resistors": {"technology": "thin-film", "R_f": {}},)"),
+       R"(stage.json: /resistors/R_f: this stage has no R_f)"},
+      {Good(R"("temperature_C": 25,)", R"("resistors": {"R1": {"tolerance": "1%"}},)"),
+       R"(stage.json: /resistors/R1/technology: missing (required))"},
+      {Replace(Good(R"("load": "10k")", R"("load": "10k", "plus_resistor_bypass": "1u")"),
+               R"("plus_resistor": "auto",)", ""),
+       R"(stage.json: /stage/plus_resistor_bypass: needs a "plus_resistor" to bypass)"},
+  };
+  for (const Case& c : cases) {
+    CAPTURE(c.text);
+    CHECK_THROWS_WITH_AS(Parse(c.text), c.message.c_str(), Error);
+  }
 }
 
 }  // namespace

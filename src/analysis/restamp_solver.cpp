@@ -1,0 +1,362 @@
+#include "analysis/restamp_solver.h"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+#include <string>
+#include <type_traits>
+
+#include "noise/physical_constants.h"
+
+namespace hushgain {
+namespace {
+
+// Stamps a conductance into a row-major transposed matrix (the stamp is
+// symmetric, so transposing changes nothing).
+void Stamp(std::vector<double>& m, int n, int a, int b, double g) {
+  if (a >= 0) m[a * n + a] += g;
+  if (b >= 0) m[b * n + b] += g;
+  if (a >= 0 && b >= 0) {
+    m[a * n + b] -= g;
+    m[b * n + a] -= g;
+  }
+}
+
+std::string Hz(double f_hz) {
+  char buf[48];
+  std::snprintf(buf, sizeof buf, "%.6g Hz", f_hz);
+  return buf;
+}
+
+// The factorization and both triangular solves, for a size known at
+// compile time (N > 0: the loops unroll) or at run time (N = 0).
+template <int N>
+bool FactorAndSolve(int runtime_n, double w, const double* __restrict g_t,
+                    const double* __restrict c_t, int output,
+                    double* __restrict ar, double* __restrict ai,
+                    int* __restrict pivot, double* __restrict row_scale,
+                    double* __restrict zr, double* __restrict zi) {
+  const int n = N > 0 ? N : runtime_n;
+  const bool real_only = w == 0;
+  // Form A = Y^T and equilibrate its rows to a largest entry of 1.
+  for (int i = 0; i < n; ++i) {
+    double largest = 0;
+    for (int j = 0; j < n; ++j) {
+      const double re = g_t[i * n + j];
+      const double im = w * c_t[i * n + j];
+      ar[i * n + j] = re;
+      ai[i * n + j] = im;
+      largest = std::fmax(largest, std::fabs(re) + std::fabs(im));
+    }
+    const double s = largest > 0 ? 1.0 / largest : 1.0;
+    row_scale[i] = s;
+    for (int j = 0; j < n; ++j) {
+      ar[i * n + j] *= s;
+      ai[i * n + j] *= s;
+    }
+  }
+  // LU with partial pivoting (by |re| + |im|), in place.
+  for (int k = 0; k < n; ++k) {
+    int p = k;
+    double best = std::fabs(ar[k * n + k]) + std::fabs(ai[k * n + k]);
+    for (int i = k + 1; i < n; ++i) {
+      const double m = std::fabs(ar[i * n + k]) + std::fabs(ai[i * n + k]);
+      if (m > best) best = m, p = i;
+    }
+    if (!(best > 1e-300) || !std::isfinite(best)) return false;
+    pivot[k] = p;
+    if (p != k)
+      for (int j = 0; j < n; ++j) {
+        std::swap(ar[k * n + j], ar[p * n + j]);
+        std::swap(ai[k * n + j], ai[p * n + j]);
+      }
+    // 1 / pivot.
+    const double pr = ar[k * n + k], pi = ai[k * n + k];
+    const double d = pr * pr + pi * pi;
+    const double inv_r = pr / d, inv_i = -pi / d;
+    for (int i = k + 1; i < n; ++i) {
+      const double xr = ar[i * n + k], xi = ai[i * n + k];
+      if (xr == 0 && xi == 0) continue;
+      const double lr = xr * inv_r - xi * inv_i;
+      const double li = xr * inv_i + xi * inv_r;
+      ar[i * n + k] = lr;
+      ai[i * n + k] = li;
+      if (real_only) {
+        for (int j = k + 1; j < n; ++j) ar[i * n + j] -= lr * ar[k * n + j];
+      } else {
+        for (int j = k + 1; j < n; ++j) {
+          const double ur = ar[k * n + j], ui = ai[k * n + j];
+          ar[i * n + j] -= lr * ur - li * ui;
+          ai[i * n + j] -= lr * ui + li * ur;
+        }
+      }
+    }
+  }
+  // Right-hand side: e_out, row-scaled and permuted.
+  for (int i = 0; i < n; ++i) zr[i] = zi[i] = 0;
+  if (output >= 0) zr[output] = row_scale[output];
+  for (int k = 0; k < n; ++k)
+    if (pivot[k] != k) {
+      std::swap(zr[k], zr[pivot[k]]);
+      std::swap(zi[k], zi[pivot[k]]);
+    }
+  for (int i = 1; i < n; ++i) {  // L y = b (unit lower)
+    double sr = zr[i], si = zi[i];
+    for (int j = 0; j < i; ++j) {
+      const double lr = ar[i * n + j], li = ai[i * n + j];
+      sr -= lr * zr[j] - li * zi[j];
+      si -= lr * zi[j] + li * zr[j];
+    }
+    zr[i] = sr, zi[i] = si;
+  }
+  for (int i = n - 1; i >= 0; --i) {  // U z = y
+    double sr = zr[i], si = zi[i];
+    for (int j = i + 1; j < n; ++j) {
+      const double ur = ar[i * n + j], ui = ai[i * n + j];
+      sr -= ur * zr[j] - ui * zi[j];
+      si -= ur * zi[j] + ui * zr[j];
+    }
+    const double pr = ar[i * n + i], pi = ai[i * n + i];
+    const double d = pr * pr + pi * pi;
+    zr[i] = (sr * pr + si * pi) / d;
+    zi[i] = (si * pr - sr * pi) / d;
+  }
+  for (int i = 0; i < n; ++i)
+    if (!std::isfinite(zr[i]) || !std::isfinite(zi[i])) return false;
+  return true;
+}
+
+}  // namespace
+
+RestampSolver::RestampSolver(const MnaSystem& system, const Netlist& netlist)
+    : n_(system.size()), output_(system.output_index()) {
+  const int n = n_;
+  g_base_t_.assign(n * n, 0.0);
+  c_t_.assign(n * n, 0.0);
+  for (int i = 0; i < n; ++i)
+    for (int j = 0; j < n; ++j) {
+      g_base_t_[i * n + j] = system.g()(j, i);
+      c_t_[i * n + j] = system.c()(j, i);
+    }
+  std::vector<double> magnitude(n * n, 0.0);
+  for (const Resistor& r : netlist.resistors) {
+    const int a = system.NodeIndex(r.a), b = system.NodeIndex(r.b);
+    nodes_.push_back({a, b});
+    Stamp(g_base_t_, n, a, b, -1.0 / r.ohms);
+    Stamp(magnitude, n, a, b, 1.0 / r.ohms);
+  }
+  // Entries that held only resistor stamps are left with rounding residue.
+  for (int i = 0; i < n * n; ++i)
+    if (std::fabs(g_base_t_[i]) <= 1e-12 * std::fabs(magnitude[i]))
+      g_base_t_[i] = 0;
+  // Split C^T = P Q^T by elimination with complete pivoting.
+  std::vector<double> rest = c_t_;
+  double largest = 0;
+  for (double v : rest) largest = std::fmax(largest, std::fabs(v));
+  while (largest > 0 && rank_ <= std::min(n / 2, 8)) {
+    int bi = 0, bj = 0;
+    double best = 0;
+    for (int i = 0; i < n; ++i)
+      for (int j = 0; j < n; ++j)
+        if (std::fabs(rest[i * n + j]) > best)
+          best = std::fabs(rest[i * n + j]), bi = i, bj = j;
+    if (best <= 1e-13 * largest) break;
+    const double pivot = rest[bi * n + bj];
+    std::vector<double> col(n), row(n);
+    for (int i = 0; i < n; ++i) col[i] = rest[i * n + bj] / pivot;
+    for (int j = 0; j < n; ++j) row[j] = rest[bi * n + j];
+    for (int i = 0; i < n; ++i)
+      for (int j = 0; j < n; ++j) rest[i * n + j] -= col[i] * row[j];
+    p_.insert(p_.end(), col.begin(), col.end());
+    q_.insert(q_.end(), row.begin(), row.end());
+    ++rank_;
+  }
+  if (rank_ > std::min(n / 2, 8)) {  // not worth it: the dense path
+    rank_ = -1;
+    p_.clear();
+    q_.clear();
+  }
+  g_t_ = g_base_t_;
+  ar_.assign(n * n, 0.0);
+  ai_.assign(n * n, 0.0);
+  pivot_.assign(n, 0);
+  row_scale_.assign(n, 1.0);
+  zr_.assign(n, 0.0);
+  zi_.assign(n, 0.0);
+}
+
+void RestampSolver::SetResistors(const double* ohms) {
+  prepared_ = false;
+  g_t_ = g_base_t_;
+  for (std::size_t k = 0; k < nodes_.size(); ++k)
+    Stamp(g_t_, n_, nodes_[k].first, nodes_[k].second, 1.0 / ohms[k]);
+}
+
+void RestampSolver::SolveDc(double* b) const {
+  const int n = n_;
+  const double* lu = dc_lu_.data();
+  for (int i = 0; i < n; ++i) b[i] *= dc_scale_[i];
+  for (int k = 0; k < n; ++k)
+    if (dc_pivot_[k] != k) std::swap(b[k], b[dc_pivot_[k]]);
+  for (int i = 1; i < n; ++i)
+    for (int j = 0; j < i; ++j) b[i] -= lu[i * n + j] * b[j];
+  for (int i = n - 1; i >= 0; --i) {
+    for (int j = i + 1; j < n; ++j) b[i] -= lu[i * n + j] * b[j];
+    b[i] /= lu[i * n + i];
+  }
+}
+
+Status RestampSolver::Prepare() { return SolveAdjoint(0.0); }
+
+void RestampSolver::KeepDcFactorization() {
+  const int n = n_, r = rank_;
+  dc_lu_ = ar_;
+  dc_scale_ = row_scale_;
+  dc_pivot_ = pivot_;
+  dc_z0_ = zr_;
+  w_.assign(p_.begin(), p_.end());
+  for (int c = 0; c < r; ++c) SolveDc(&w_[c * n]);
+  k_.assign(r * r, 0.0);
+  y0_.assign(r, 0.0);
+  for (int i = 0; i < r; ++i) {
+    for (int j = 0; j < r; ++j) {
+      double sum = 0;
+      for (int m = 0; m < n; ++m) sum += q_[i * n + m] * w_[j * n + m];
+      k_[i * r + j] = sum;
+    }
+    double sum = 0;
+    for (int m = 0; m < n; ++m) sum += q_[i * n + m] * dc_z0_[m];
+    y0_[i] = sum;
+  }
+  prepared_ = true;
+}
+
+Status RestampSolver::SolveAdjoint(double f_hz) {
+  const double w = 2.0 * kPi * f_hz;
+  if (w != 0 && rank_ >= 0) {
+    if (!prepared_) {
+      Status s = Prepare();
+      if (!s.ok) return s;
+    }
+    // (I + j w K) y = y0, by Gaussian elimination with partial pivoting
+    // (r is at most n / 2).
+    const int r = rank_, n = n_;
+    double mr[64], mi[64], yr[8], yi[8];
+    for (int i = 0; i < r; ++i) {
+      for (int j = 0; j < r; ++j) {
+        mr[i * r + j] = i == j ? 1.0 : 0.0;
+        mi[i * r + j] = w * k_[i * r + j];
+      }
+      yr[i] = y0_[i];
+      yi[i] = 0;
+    }
+    for (int k = 0; k < r; ++k) {
+      int p = k;
+      double best = std::fabs(mr[k * r + k]) + std::fabs(mi[k * r + k]);
+      for (int i = k + 1; i < r; ++i) {
+        const double m = std::fabs(mr[i * r + k]) + std::fabs(mi[i * r + k]);
+        if (m > best) best = m, p = i;
+      }
+      if (!(best > 1e-300))
+        return Status::Fail("the network is singular at " + Hz(f_hz));
+      if (p != k) {
+        for (int j = 0; j < r; ++j)
+          std::swap(mr[k * r + j], mr[p * r + j]),
+              std::swap(mi[k * r + j], mi[p * r + j]);
+        std::swap(yr[k], yr[p]);
+        std::swap(yi[k], yi[p]);
+      }
+      const double pr = mr[k * r + k], pi = mi[k * r + k],
+                   d = pr * pr + pi * pi;
+      for (int i = k + 1; i < r; ++i) {
+        const double xr = mr[i * r + k], xi = mi[i * r + k];
+        const double lr = (xr * pr + xi * pi) / d, li = (xi * pr - xr * pi) / d;
+        for (int j = k + 1; j < r; ++j) {
+          mr[i * r + j] -= lr * mr[k * r + j] - li * mi[k * r + j];
+          mi[i * r + j] -= lr * mi[k * r + j] + li * mr[k * r + j];
+        }
+        yr[i] -= lr * yr[k] - li * yi[k];
+        yi[i] -= lr * yi[k] + li * yr[k];
+      }
+    }
+    for (int i = r - 1; i >= 0; --i) {
+      double sr = yr[i], si = yi[i];
+      for (int j = i + 1; j < r; ++j) {
+        sr -= mr[i * r + j] * yr[j] - mi[i * r + j] * yi[j];
+        si -= mr[i * r + j] * yi[j] + mi[i * r + j] * yr[j];
+      }
+      const double pr = mr[i * r + i], pi = mi[i * r + i],
+                   d = pr * pr + pi * pi;
+      yr[i] = (sr * pr + si * pi) / d;
+      yi[i] = (si * pr - sr * pi) / d;
+    }
+    // z = z0 - j w W y.
+    for (int m = 0; m < n; ++m) {
+      double ar = 0, ai = 0;
+      for (int c = 0; c < r; ++c)
+        ar += w_[c * n + m] * yr[c], ai += w_[c * n + m] * yi[c];
+      zr_[m] = dc_z0_[m] + w * ai;
+      zi_[m] = -w * ar;
+    }
+    return Status::Ok();
+  }
+  real_only_ = w == 0;
+  auto run = [&](auto size) {
+    return FactorAndSolve<decltype(size)::value>(
+        n_, w, g_t_.data(), c_t_.data(), output_, ar_.data(), ai_.data(),
+        pivot_.data(), row_scale_.data(), zr_.data(), zi_.data());
+  };
+  bool ok = false;
+  switch (n_) {
+    case 4:
+      ok = run(std::integral_constant<int, 4>{});
+      break;
+    case 5:
+      ok = run(std::integral_constant<int, 5>{});
+      break;
+    case 6:
+      ok = run(std::integral_constant<int, 6>{});
+      break;
+    case 7:
+      ok = run(std::integral_constant<int, 7>{});
+      break;
+    case 8:
+      ok = run(std::integral_constant<int, 8>{});
+      break;
+    case 9:
+      ok = run(std::integral_constant<int, 9>{});
+      break;
+    case 10:
+      ok = run(std::integral_constant<int, 10>{});
+      break;
+    default:
+      ok = run(std::integral_constant<int, 0>{});
+      break;
+  }
+  if (!ok) return Status::Fail("the network is singular at " + Hz(f_hz));
+  if (w == 0 && rank_ >= 0) KeepDcFactorization();
+  return Status::Ok();
+}
+
+void RestampSolver::SolveDirectDc(double* b) {
+  // The factorization is P D G^T = L U (D the row scaling, P the row
+  // exchanges), so G = U^T L^T P D^-1 and G x = b is U^T y = b, L^T w = y,
+  // x = D P^T w.
+  const int n = n_;
+  const double* ar = ar_.data();
+  for (int i = 0; i < n; ++i) {  // U^T y = b: lower triangular
+    double s = b[i];
+    for (int j = 0; j < i; ++j) s -= ar[j * n + i] * b[j];
+    b[i] = s / ar[i * n + i];
+  }
+  for (int i = n - 1; i >= 0; --i) {  // L^T w = y: unit upper
+    double s = b[i];
+    for (int j = i + 1; j < n; ++j) s -= ar[j * n + i] * b[j];
+    b[i] = s;
+  }
+  for (int k = n - 1; k >= 0; --k)  // undo the row exchanges: P^T
+    if (pivot_[k] != k) std::swap(b[k], b[pivot_[k]]);
+  for (int i = 0; i < n; ++i) b[i] *= row_scale_[i];  // D
+}
+
+}  // namespace hushgain

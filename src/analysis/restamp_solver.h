@@ -1,0 +1,93 @@
+// Many solves of one network whose resistor values change between solves
+// (a Monte Carlo): the MNA matrices of MnaSystem with the resistors'
+// conductance stamps taken out, so new values are stamped into preallocated
+// storage, and a small dense LU with partial pivoting (row-equilibrated)
+// written for this size (n of about 5 to 15): nothing allocates per solve.
+//
+//   SetResistors  G = G_without_resistors + sum of (1/R_k) stamps
+//   SolveAdjoint  (G + j w C)^T z = e_out, then Transfer(port) = z^T b
+//   SolveDirect   G x = b at DC, with the LU of the last DC adjoint solve
+//
+// C is stamped by few capacitors and the op-amp's GBW term, so its rank r
+// is small. C^T = P Q^T is split once (elimination with complete pivoting,
+// exact for these sums of rank-one stamps); after one real LU of G^T per
+// set of resistor values, each frequency is a Woodbury update:
+//   z0 = G^-T e_out, W = G^-T P, K = Q^T W,
+//   (I + j w K) y = Q^T z0,  z = z0 - j w W y
+// an r x r complex solve instead of an n x n one. With r > n / 2 the dense
+// complex LU is used instead.
+#ifndef HUSHGAIN_ANALYSIS_RESTAMP_SOLVER_H_
+#define HUSHGAIN_ANALYSIS_RESTAMP_SOLVER_H_
+
+#include <vector>
+
+#include "analysis/mna_system.h"
+#include "analysis/status.h"
+#include "circuit/netlist.h"
+
+namespace hushgain {
+
+class RestampSolver {
+ public:
+  // `system` was built from `netlist`; every resistor of the netlist becomes
+  // restampable, in the netlist's order.
+  RestampSolver(const MnaSystem& system, const Netlist& netlist);
+
+  int size() const { return n_; }
+  int resistor_count() const { return static_cast<int>(nodes_.size()); }
+  // r of the low-rank split of C, or -1 when the dense complex LU is used.
+  int capacitance_rank() const { return rank_; }
+
+  // New values for every resistor (ohms, netlist order).
+  void SetResistors(const double* ohms);
+
+  // Factors Y(j 2 pi f)^T and solves for z. Fails on a zero or non-finite
+  // pivot (names the frequency).
+  Status SolveAdjoint(double f_hz);
+
+  // |z^T b|^2 and Re(z^T b) after SolveAdjoint.
+  double TransferNorm(Port port) const {
+    double re = 0, im = 0;
+    if (port.plus >= 0) re += zr_[port.plus], im += zi_[port.plus];
+    if (port.minus >= 0) re -= zr_[port.minus], im -= zi_[port.minus];
+    return re * re + im * im;
+  }
+  double TransferReal(Port port) const {
+    double re = 0;
+    if (port.plus >= 0) re += zr_[port.plus];
+    if (port.minus >= 0) re -= zr_[port.minus];
+    return re;
+  }
+
+  // After SolveAdjoint(0): solves G x = b (b given as unknown-sized vector,
+  // overwritten by x). Uses the DC factorization.
+  void SolveDirectDc(double* b);
+
+ private:
+  int n_ = 0;
+  int output_ = -1;
+  std::vector<double> g_base_t_;            // G^T without resistors, row-major
+  std::vector<double> c_t_;                 // C^T, row-major
+  std::vector<double> g_t_;                 // G^T with the current resistors
+  std::vector<std::pair<int, int>> nodes_;  // unknown indices (-1 = ground)
+  // Working storage of the factorization: real and imaginary parts.
+  std::vector<double> ar_, ai_;
+  std::vector<int> pivot_;
+  std::vector<double> row_scale_;
+  std::vector<double> zr_, zi_;
+  bool real_only_ = false;  // the last factorization was at DC
+  // The low-rank split of C^T (n x r each, column-major) and the per-values
+  // data of the Woodbury update.
+  int rank_ = 0;
+  std::vector<double> p_, q_;
+  bool prepared_ = false;  // dc_* below match the current resistors
+  std::vector<double> dc_lu_, dc_scale_, dc_z0_, w_, k_, y0_;
+  std::vector<int> dc_pivot_;
+  Status Prepare();
+  void KeepDcFactorization();     // after a dense DC solve: z0, W, K, y0
+  void SolveDc(double* b) const;  // G^T x = b with the DC factorization
+};
+
+}  // namespace hushgain
+
+#endif  // HUSHGAIN_ANALYSIS_RESTAMP_SOLVER_H_

@@ -1,0 +1,45 @@
+#include "budget/stage_at_temperature.h"
+
+#include <cmath>
+
+#include "circuit/stage_resistors.h"
+
+namespace hushgain {
+
+double BiasCurrentFactor(const OpAmpModel& opamp, double temperature_k) {
+  const double delta = temperature_k - kDeviceReferenceK;
+  switch (opamp.ib_law) {
+    case BiasTemperatureLaw::kNone:
+      return 1.0;
+    case BiasTemperatureLaw::kDoubling:
+      return std::exp2(delta / opamp.ib_law_value);
+    case BiasTemperatureLaw::kCoefficient:
+      return 1.0 + opamp.ib_law_value * delta;
+  }
+  return 1.0;
+}
+
+double ResistorTemperatureFactor(double tempco_per_k, double temperature_k) {
+  return 1.0 + tempco_per_k * (temperature_k - kDeviceReferenceK);
+}
+
+Stage StageAtTemperature(const Stage& stage, double temperature_k) {
+  Stage out = stage;
+  out.temperature_k = temperature_k;
+  const double delta = temperature_k - kDeviceReferenceK;
+  OpAmpModel& m = out.opamp;
+  m.vos_v =
+      std::fabs(m.vos_v) + std::fabs(m.vos_drift_v_per_k) * std::fabs(delta);
+  const double k = BiasCurrentFactor(stage.opamp, temperature_k);
+  m.ib_a *= k;
+  m.ios_a *= k;
+  for (auto& [name, ohms] : StageResistors(out)) {
+    const ResistorSpec* spec = ResistorSpecFor(stage, name);
+    if (spec)
+      *ohms *= ResistorTemperatureFactor(spec->technology.tempco_per_k,
+                                         temperature_k);
+  }
+  return out;
+}
+
+}  // namespace hushgain

@@ -1,0 +1,36 @@
+// A stage evaluated at a temperature. Device and resistor values are taken
+// as given at 25 °C (the datasheet convention) and moved to T:
+//   resistors  R(T) = R (1 + tc (T - 25 °C)), tc from the resistor's
+//              technology (none: unchanged)
+//   Vos        |Vos(T)| = |Vos| + |drift| |T - 25 °C|: the magnitude's worst
+//              case, as the sign of the drift is unknown
+//   Ib, Ios    Ib(T) = Ib k(T), Ios(T) = Ios k(T), with k(T) from the
+//              class's law (OpAmpModel::ib_law): 2^((T - 25 °C)/interval) or
+//              1 + coefficient (T - 25 °C). Ios scales like Ib (an offset
+//              current is a mismatch of the two bias currents).
+//   noise      4kT at T (the stage's temperature_k becomes T)
+// An "auto" R_plus stays automatic: its balance value is computed from the
+// resistor values at T. The photodiode's dark current is left as given.
+#ifndef HUSHGAIN_BUDGET_STAGE_AT_TEMPERATURE_H_
+#define HUSHGAIN_BUDGET_STAGE_AT_TEMPERATURE_H_
+
+#include "circuit/opamp_model.h"
+#include "circuit/stage.h"
+
+namespace hushgain {
+
+// 25 °C in kelvin: the temperature at which device values are given.
+inline constexpr double kDeviceReferenceK = 298.15;
+
+// k(T) of the bias-current law; 1 at 25 °C.
+double BiasCurrentFactor(const OpAmpModel& opamp, double temperature_k);
+
+// The resistance factor 1 + tc (T - 25 °C).
+double ResistorTemperatureFactor(double tempco_per_k, double temperature_k);
+
+// The stage at `temperature_k` (the range, if any, is kept).
+Stage StageAtTemperature(const Stage& stage, double temperature_k);
+
+}  // namespace hushgain
+
+#endif  // HUSHGAIN_BUDGET_STAGE_AT_TEMPERATURE_H_

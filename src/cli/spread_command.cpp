@@ -1,0 +1,104 @@
+#include "cli/spread_command.h"
+
+#include <unistd.h>
+
+#include <atomic>
+#include <csignal>
+#include <cstdio>
+#include <filesystem>
+#include <iostream>
+#include <optional>
+
+#include "budget/spread.h"
+#include "budget/spread_statistics.h"
+#include "cli/exit_codes.h"
+#include "cli/interrupt.h"
+#include "cli/progress_bar.h"
+#include "io/device_library.h"
+#include "io/error.h"
+#include "io/read_file.h"
+#include "io/stage_parser.h"
+#include "io/units.h"
+#include "report/spread_report.h"
+
+namespace hushgain {
+namespace {
+
+std::optional<double> Limit(const std::string& text, const char* option,
+                            Quantity quantity) {
+  if (text.empty()) return std::nullopt;
+  std::string why;
+  std::optional<double> v = ParseQuantity(text, quantity, &why);
+  if (!v)
+    throw Error("command line", "",
+                std::string(option) + ": expected " +
+                    std::string(QuantityName(quantity)) + ", got \"" + text +
+                    "\" (" + why + ")");
+  if (!(*v > 0))
+    throw Error("command line", "",
+                std::string(option) + ": expected a positive limit, got \"" +
+                    text + "\"");
+  return v;
+}
+
+}  // namespace
+
+int RunSpreadCommand(const SpreadCommandOptions& options) {
+  SpreadOptions spread;
+  spread.samples = options.samples;
+  spread.seed = options.seed;
+  spread.threads = options.threads;
+  if (options.samples < 1)
+    throw Error("command line", "",
+                "--samples: expected at least 1, got " +
+                    std::to_string(options.samples));
+  if (options.threads < 0)
+    throw Error("command line", "",
+                "--threads: expected 0 (all) or more, got " +
+                    std::to_string(options.threads));
+  if (std::string why = spread.Validate(); !why.empty())
+    throw Error("command line", "", why);
+  SpreadLimits limits;
+  limits.gain_error =
+      Limit(options.gain_error_limit, "--gain-error-limit", Quantity::kRatio);
+  limits.offset_v =
+      Limit(options.offset_limit, "--offset-limit", Quantity::kVoltage);
+  limits.noise_v =
+      Limit(options.noise_limit, "--noise-limit", Quantity::kVoltage);
+
+  if (!options.csv_path.empty()) {
+    // Refuse an unwritable place before the run, not after it.
+    const std::filesystem::path folder = std::filesystem::path(options.csv_path).parent_path();
+    if (!folder.empty() && !std::filesystem::is_directory(folder))
+      throw Error(options.csv_path, "", "cannot write: no such folder");
+  }
+  const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
+  const Stage stage = LoadStageFile(options.stage_path, library);
+
+  SpreadControl control;
+  ProgressBar bar("sampling");
+  if (bar.enabled())
+    control.progress = [&bar](long done, long total) {
+      bar.Show(static_cast<double>(done) / static_cast<double>(total > 0 ? total : 1));
+    };
+  InterruptScope interrupt;
+  control.stop = interrupt.flag();
+  const SpreadRun run = RunSpread(stage, spread, control);
+  bar.Clear();
+  if (run.interrupted) {
+    std::cerr << "\ninterrupted: no report and no CSV written\n";
+    return kExitInterrupted;
+  }
+  if (!run.status.ok) {
+    std::cerr << "error: " << options.stage_path
+              << ": analysis refused: " << run.status.message << "\n";
+    return kExitAnalysisRefused;
+  }
+  const SpreadSummary summary = Summarize(run.samples, limits);
+  if (!options.csv_path.empty())
+    WriteFileAtomically(options.csv_path, SpreadToCsv(run));
+  std::cout << SpreadToText(run, summary, limits, options.seed) << std::flush;
+  return kExitOk;
+}
+
+}  // namespace hushgain

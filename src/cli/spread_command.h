@@ -1,0 +1,32 @@
+// `hushgain spread STAGE.json --samples N --seed S`: the Monte Carlo of a
+// stage over resistor tolerances, op-amp offsets and temperature
+// (budget/spread.h), with yields against limits and the samples as CSV.
+#ifndef HUSHGAIN_CLI_SPREAD_COMMAND_H_
+#define HUSHGAIN_CLI_SPREAD_COMMAND_H_
+
+#include <cstdint>
+#include <string>
+
+namespace hushgain {
+
+struct SpreadCommandOptions {
+  std::string stage_path;
+  std::string devices_dir;
+  long samples = 10000;  // at least 1
+  std::uint64_t seed = 1;
+  int threads = 0;       // 0 = every hardware thread
+  std::string csv_path;  // empty = no CSV
+  // Limits as typed ("0.5%", "5m", "100u"); empty = none.
+  std::string gain_error_limit;
+  std::string offset_limit;
+  std::string noise_limit;
+};
+
+// Prints the summary on stdout; a progress bar on stderr when it is a
+// terminal. Returns an exit code (cli/exit_codes.h); 130 when interrupted
+// by SIGINT (nothing written). Throws Error for bad input.
+int RunSpreadCommand(const SpreadCommandOptions& options);
+
+}  // namespace hushgain
+
+#endif  // HUSHGAIN_CLI_SPREAD_COMMAND_H_
