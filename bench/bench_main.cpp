@@ -8,6 +8,7 @@
 #include <cstring>
 
 #include "bench/budget_bench.h"
+#include "bench/spread_bench.h"
 #include "bench/tee_search_bench.h"
 #include "bench/report_bench.h"
 
@@ -22,6 +23,7 @@ struct BenchmarkGroup {
 constexpr BenchmarkGroup kGroups[] = {
     {"budget", hushgain::bench::RunBudgetBenchmarks},
     {"tee", hushgain::RunTeeSearchBenchmarks},
+    {"spread", hushgain::RunSpreadBenchmarks},
     {"report", hushgain::bench::RunReportBenchmarks},
 };
 

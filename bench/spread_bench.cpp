@@ -6,6 +6,7 @@
 #include <cstdio>
 #include <vector>
 
+#include "bench/spread_bench.h"
 #include "budget/spread.h"
 #include "circuit/stage.h"
 

@@ -11,6 +11,7 @@ Status ComputeCompensationBlock(const Stage& stage,
   plain.compare_tee = false;
   plain.temperature_corners = false;
   plain.compensation = false;
+  plain.noise_and_offset_only = true;
   Stage without = stage;
   without.plus_resistor = {};
   without.plus_resistor_bypass_f = 0;

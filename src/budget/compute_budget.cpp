@@ -275,12 +275,13 @@ BudgetOutcome ComputeBudgetAsGiven(const Stage& requested, const BudgetOptions& 
   if (!s.ok) return {s, b, {}, {}};
   const Ports ports = CompilePorts(netlist, evaluator);
 
-  s = LoopFigures(stage, evaluator.system(), b);
+  const bool full = !options.noise_and_offset_only;
+  if (full) s = LoopFigures(stage, evaluator.system(), b);
   if (s.ok) s = DcFigures(stage, netlist, ports, evaluator, b);
   if (s.ok) s = ReferenceFigures(stage, ports, evaluator, b);
   if (s.ok) s = BandNoise(stage, options, evaluator, b, &outcome.noise_partition);
-  if (s.ok) s = ResponseFigures(stage, ports, evaluator, b);
-  if (s.ok) s = OutputDrive(stage, evaluator.system(), ports, b);
+  if (s.ok && full) s = ResponseFigures(stage, ports, evaluator, b);
+  if (s.ok && full) s = OutputDrive(stage, evaluator.system(), ports, b);
   if (!s.ok) return {s, b, {}, {}};
 
   if (stage.full_scale_output_v && b.output_rms_v > 0) {

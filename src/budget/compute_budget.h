@@ -28,6 +28,9 @@ struct BudgetOptions {
   bool temperature_corners = true;
   // The compensation-resistor report (default on).
   bool compensation = true;
+  // Noise and offset only: no loop, response or output-drive figures (for
+  // the auxiliary budgets of a comparison, which read nothing else).
+  bool noise_and_offset_only = false;
   // Quieter technologies the excess-noise advice may propose (the device
   // library's resistor technologies; empty = no alternatives).
   std::vector<ResistorSpec> upgrade_candidates;
