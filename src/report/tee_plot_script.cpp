@@ -386,9 +386,14 @@ std::string BuildSearchPlotScript(const TeeSearchResult& s,
   const char* names[] = {"R1 (summing node to tee)", "R2 (tee to output)",
                          "R3 (tee to ground)", "R_in"};
   const int points[] = {7, 5, 9, 13};
-  for (int k = 0; k < (q.input_min_ohm ? 4 : 3); ++k) {
+  // Each resistor a little beside the rank, so equal values (R1 = R2) do
+  // not hide each other.
+  const int count = q.input_min_ohm ? 4 : 3;
+  for (int k = 0; k < count; ++k) {
     const int column = k < 3 ? 5 + k : 4;
-    plot += ", \\\n  $best using 1:" + std::to_string(column) +
+    const double dodge = 0.15 * (k - (count - 1) / 2.0);
+    plot += ", \\\n  $best using ($1" + (dodge < 0 ? std::string("") : "+") +
+            Num(dodge) + "):" + std::to_string(column) +
             " with points pt " + std::to_string(points[k]) +
             " ps 1.6 lc rgb '" + kPartColours[k] + "' title " +
             GnuplotString(names[k]);

@@ -70,9 +70,8 @@ std::string SearchCounts(const TeeSearchResult& s) {
          " verified by the full engine";
 }
 
-const char* kSearchNote =
-    "gain err: the full engine's DC gain against the target; noise cost: "
-    "output rms / one resistor of the same Req";
+const char* kGainErrorNote = "the full engine's DC gain against the target";
+const char* kNoiseCostNote = "output rms / one resistor of the same Req";
 
 std::string Item(const std::string& label, const std::string& text) {
   return "- " + label + ": " + EscapeMarkdown(text) + "\n";
@@ -157,7 +156,8 @@ std::string SearchToText(const TeeSearchResult& s, const TeeSearchQuery& q) {
     out += "  interrupted: the best of the part searched so far\n";
   out += "\n";
   out += RenderText(SearchTable(s, q, TeeCells::kDisplay));
-  out += std::string("  ") + kSearchNote + "\n";
+  out += std::string("  gain err: ") + kGainErrorNote + "; noise cost: " +
+         kNoiseCostNote + "\n";
   return out;
 }
 
@@ -175,12 +175,13 @@ std::string SearchToMarkdown(const TeeSearchResult& s,
     out += Item("band", Band(*first));
   }
   out += Item("target gain", SearchGain(q));
-  out += Item("values", SearchSpace(q));
+  out += Item("search space", SearchSpace(q));
   out += Item("searched", SearchCounts(s));
   if (s.cancelled)
     out += Item("interrupted", "the best of the part searched so far");
   out += "\n" + RenderMarkdown(SearchTable(s, q, TeeCells::kDisplay)) + "\n";
-  out += Item("notes", kSearchNote);
+  out += Item("gain err", kGainErrorNote);
+  out += Item("noise cost", kNoiseCostNote);
   return out;
 }
 
