@@ -88,7 +88,7 @@ class Sheet {
     if (index > 0) out_ += "unset label 1\nunset label 2\n";
     out_ +=
         "unset object\nunset arrow\nunset label 12\nunset logscale\n"
-        "unset link y2\nunset y2tics\nunset y2label\n"
+        "unset y2tics\nunset y2label\n"
         "set ytics auto nomirror out\nset xtics auto nomirror out\n"
         "set format y '%g'\nset format x '%g'\n";
     out_ += "set lmargin at screen " + Num(double(kLeftPx) / kWidthPx) + "\n";
@@ -132,36 +132,63 @@ std::string RatioTics(const char* axis, double lo, double hi) {
   const int decimals =
       std::max(0, -static_cast<int>(std::floor(std::log10(step) + 1e-9)));
   std::string list;
-  for (double v = std::ceil(lo / step - 1e-9) * step; v <= hi + 1e-9 * step;
-       v += step) {
+  auto add = [&](double v) {
     char label[32];
     std::snprintf(label, sizeof label, "x%.*f", decimals, v);
     list += (list.empty() ? "" : ", ") + GnuplotString(label) + " " + Num(v);
+  };
+  bool one = false;
+  for (long k = static_cast<long>(std::ceil(lo / step - 1e-9));
+       k * step <= hi + 1e-9 * step; ++k) {
+    add(k * step);
+    one = one || std::fabs(k * step - 1) < 1e-9;
   }
+  // The plain resistor's level, x1, is always labelled.
+  if (!one && lo <= 1 && hi >= 1) add(1);
   return std::string("set ") + axis + "tics out (" + list + ")\n";
 }
 
-// A linear left axis for `values` with an SI unit, the right axis linked
-// as the ratio to `reference` ("x1.05" tics).
+// The left axis for `values` (data scaled to the SI prefix of the largest),
+// the right axis the ratio to `reference` (tics "x1.05"). Linear
+// while the values stay within a factor of 3; log beyond, so the region
+// near the plain resistor is not squashed by a steep end.
 void RatioAxes(std::string& out, const std::vector<double>& values,
                double reference, const std::string& unit,
                const std::string& left_label, const std::string& right_label) {
   const double lo = *std::min_element(values.begin(), values.end());
   const double hi = *std::max_element(values.begin(), values.end());
   const auto [scale, prefixed] = UnitScale(hi, unit);
-  // Room above and below the curve; never below zero.
-  const double span = std::max(hi - lo, 0.02 * hi);
-  const double y_lo = std::max(0.0, lo - 0.08 * span) / scale;
-  const double y_hi = (hi + 0.12 * span) / scale;
   const double ref = reference / scale;
-  out += "set yrange [" + Num(y_lo) + ":" + Num(y_hi) + "]\n";
-  out += "set ylabel " + GnuplotString(left_label + " (" + prefixed + ")") +
-         "\n";
-  if (ref > 0) {
-    out += "set link y2 via y/" + Num(ref) + " inverse y*" + Num(ref) + "\n";
-    out += RatioTics("y2", y_lo / ref, y_hi / ref);
-    out += "set y2label " + GnuplotString(right_label) + "\n";
+  const bool log = lo > 0 && hi > 3 * lo;
+  double y_lo, y_hi;
+  if (log) {
+    y_lo = lo / 1.15 / scale;
+    y_hi = hi * 1.3 / scale;
+    out += "set logscale y\nset logscale y2\n";
+    out += LogTicsCommand("y", y_lo, y_hi, [&, s = scale](double v) {
+      return ShortEng(v * s, unit);
+    });
+    out += "set ylabel " + GnuplotString(left_label + " (" + unit + ")") +
+           "\n";
+  } else {
+    // Room above and below the curve; never below zero.
+    const double span = std::max(hi - lo, 0.02 * hi);
+    y_lo = std::max(0.0, lo - 0.08 * span) / scale;
+    y_hi = (hi + 0.12 * span) / scale;
+    out += "set ylabel " + GnuplotString(left_label + " (" + prefixed + ")") +
+           "\n";
   }
+  out += "set yrange [" + Num(y_lo) + ":" + Num(y_hi) + "]\n";
+  if (!(ref > 0)) return;
+  // The right axis spans the left one divided by the reference: on a
+  // linear or a log pair of axes alike, each point reads as its ratio.
+  out += "set y2range [" + Num(y_lo / ref) + ":" + Num(y_hi / ref) + "]\n";
+  out += log ? LogTicsCommand("y2", y_lo / ref, y_hi / ref,
+                              [](double v) {
+                                return Printf("x%g", v);
+                              })
+             : RatioTics("y2", y_lo / ref, y_hi / ref);
+  out += "set y2label " + GnuplotString(right_label) + "\n";
 }
 
 // The log axis of the largest resistor.

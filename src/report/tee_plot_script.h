@@ -6,11 +6,12 @@
 // with the plain-resistor end (L = Req) ringed and named, and the stage
 // file's own network (its largest resistor) drawn as a dashed line:
 //   noise   total output noise rms over the band (left, V with an SI
-//           prefix) and the noise cost ratio on the right axis, linked to
-//           the left one (cost = rms / the plain row's rms), so one curve
-//           reads in both;
+//           prefix) and the noise cost ratio on the right axis, whose
+//           range is the left one over the plain row's rms (cost = rms /
+//           the plain row's rms), so one curve reads in both;
 //   offset  worst-case output offset at DC (left) and its ratio to the
-//           plain resistor's on the right, linked the same way.
+//           plain resistor's on the right, the same way.
+// Both axes turn logarithmic when the values span more than a factor 3.
 // Search sheet, by rank (best first) on the x axis:
 //   noise   each network's total output noise rms (left) and worst-case
 //           offset (right axis), the noise cost range in the legend;
