@@ -3,12 +3,12 @@
 #ifndef HUSHGAIN_TESTS_TEST_SUPPORT_H_
 #define HUSHGAIN_TESTS_TEST_SUPPORT_H_
 
+#include <doctest/doctest.h>
+
 #include <cmath>
 #include <stdexcept>
 #include <string>
 #include <vector>
-
-#include <doctest/doctest.h>
 
 #include "budget/budget.h"
 #include "budget/compute_budget.h"

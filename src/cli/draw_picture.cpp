@@ -53,8 +53,7 @@ int DrawPicture(
   // gnuplot writes a temporary file beside the target, created here first
   // so an unwritable place is reported as such; it is renamed when whole.
   const std::string temporary = target + ".tmp-" + std::to_string(::getpid());
-  const int fd =
-      ::open(temporary.c_str(), O_WRONLY | O_CREAT | O_EXCL, 0644);
+  const int fd = ::open(temporary.c_str(), O_WRONLY | O_CREAT | O_EXCL, 0644);
   if (fd < 0)
     throw Error(target, "",
                 std::string("cannot write: ") + std::strerror(errno));

@@ -28,8 +28,9 @@ std::string GnuplotOrExplain(const std::string& who);
 // kExitToolFailed after printing "error: <target>: <why>" when gnuplot
 // fails or draws nothing. Throws Error when the target's folder cannot be
 // written.
-int DrawPicture(const std::string& gnuplot, const std::string& target,
-                const std::function<std::string(const std::string&)>& script_for);
+int DrawPicture(
+    const std::string& gnuplot, const std::string& target,
+    const std::function<std::string(const std::string&)>& script_for);
 
 }  // namespace hushgain
 

@@ -16,8 +16,7 @@ const std::vector<std::string>& OutputFormats();
 // an unknown format ("--format: expected text, json, markdown or csv, got
 // "x" (did you mean ...)"), --json beside --csv, or a flag beside a
 // --format other than text and its own ("--json contradicts --format csv").
-std::string ResolveOutputFormat(const std::string& format, bool json,
-                                bool csv);
+std::string ResolveOutputFormat(const std::string& format, bool json, bool csv);
 
 }  // namespace hushgain
 

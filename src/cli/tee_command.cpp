@@ -198,8 +198,7 @@ int RunTeeSweepCommand(const TeeSweepCommandOptions& options) {
   std::string gnuplot;
   if (!PreparePlot(options.plot_path, "tee sweep --plot", &plot, &gnuplot))
     return kExitToolFailed;
-  plot.stage_largest_ohm =
-      std::max({given.r1_ohm, given.r2_ohm, given.r3_ohm});
+  plot.stage_largest_ohm = std::max({given.r1_ohm, given.r2_ohm, given.r3_ohm});
 
   const TeeSweepResult result = SweepTee(stage, sweep);
   if (!result.status.ok) return Refused(options.stage_path, result.status);

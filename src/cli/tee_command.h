@@ -41,7 +41,7 @@ struct TeeSearchCommandOptions {
   std::string rank = "noise";  // noise, offset, weighted
   double offset_weight = 0.5;
   int top = 10;
-  int threads = 0;  // 0: one per core
+  int threads = 0;              // 0: one per core
   std::string format = "text";  // as for the sweep
   bool csv = false;
   bool json = false;

@@ -202,8 +202,8 @@ class ScriptWriter {
     out_ += "set bmargin at screen " + Num(f.bottom) + "\n";
     out_ += "set logscale x\n";
     out_ += "set xrange [" + Num(f_min_) + ":" + Num(f_max_) + "]\n";
-    out_ +=
-        LogTicsCommand("x", f_min_, f_max_, [](double v) { return Short(v, "Hz"); });
+    out_ += LogTicsCommand("x", f_min_, f_max_,
+                           [](double v) { return Short(v, "Hz"); });
     out_ += "set xlabel 'frequency (Hz)'\n";
     out_ += "set grid xtics ytics lc rgb '#d8d8d8' lw 1\n";
     out_ += "set border 3 lw 1\nset xtics nomirror out\nset ytics out\n";
@@ -257,8 +257,9 @@ class ScriptWriter {
     // The slight padding keeps gnuplot from dropping the end tics.
     out_ += "set yrange [" + Num(std::pow(10.0, lo) * 0.999) + ":" +
             Num(std::pow(10.0, hi) * 1.001) + "]\n";
-    out_ += LogTicsCommand("y", std::pow(10.0, lo), std::pow(10.0, hi),
-                    [](double v) { return Short(v, "V/\xE2\x88\x9AHz"); });
+    out_ +=
+        LogTicsCommand("y", std::pow(10.0, lo), std::pow(10.0, hi),
+                       [](double v) { return Short(v, "V/\xE2\x88\x9AHz"); });
     out_ += "set ylabel 'output noise density (V/\xE2\x88\x9AHz)'\n";
     out_ += "set key title 'in-band output rms, share' left\n";
     std::string plot =
@@ -363,7 +364,7 @@ class ScriptWriter {
       const auto [z_bottom, z_top] = LogRange({&s.signal_gain_abs}, 4, false);
       out_ += "set yrange [" + Num(z_bottom) + ":" + Num(z_top) + "]\n";
       out_ += LogTicsCommand("y", z_bottom, z_top,
-                      [](double v) { return Short(v, "\xCE\xA9"); });
+                             [](double v) { return Short(v, "\xCE\xA9"); });
       out_ += "set ylabel " + GnuplotString("transimpedance (V/A = \xCE\xA9)") +
               "\n";
       out_ += "set logscale y2\n";
@@ -396,12 +397,11 @@ class ScriptWriter {
     if (bw > 0)
       markers += Marker(bw, "-3 dB at " + FormatEng(bw, "Hz"), kColours[1]);
     if (crossover)
-      markers +=
-          Marker(b_.loop.crossover_hz,
-                 "crossover " + FormatEng(b_.loop.crossover_hz, "Hz") +
-                     ", PM " +
-                     Printf("%.1f", b_.loop.phase_margin_deg) + "\xC2\xB0",
-                 kColours[4]);
+      markers += Marker(b_.loop.crossover_hz,
+                        "crossover " + FormatEng(b_.loop.crossover_hz, "Hz") +
+                            ", PM " + Printf("%.1f", b_.loop.phase_margin_deg) +
+                            "\xC2\xB0",
+                        kColours[4]);
 
     const int cols = static_cast<int>(order_.size());
     out_ += "plot $samples using 1:" + std::to_string(cols + 3) +

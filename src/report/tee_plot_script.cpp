@@ -43,7 +43,9 @@ std::string Printf(const char* format, double value) {
 }
 
 std::string Temperature(const Budget& b) {
-  return Printf("%.2f", b.temperature_k - kZeroCelsiusK) + " \xC2\xB0" "C";
+  return Printf("%.2f", b.temperature_k - kZeroCelsiusK) +
+         " \xC2\xB0"
+         "C";
 }
 
 std::string Band(const Budget& b) {
@@ -79,9 +81,9 @@ class Sheet {
 
   // Margins, grid, legend place and title of panel `index` (from 0).
   void Panel(int index, const std::string& title) {
-    const int top_px =
-        kHeadingPx + index * (kPanelTopPx + kPanelPx + kPanelBottomPx) +
-        kPanelTopPx;
+    const int top_px = kHeadingPx +
+                       index * (kPanelTopPx + kPanelPx + kPanelBottomPx) +
+                       kPanelTopPx;
     const double top = 1.0 - static_cast<double>(top_px) / height_px_;
     const double bottom =
         1.0 - static_cast<double>(top_px + kPanelPx) / height_px_;
@@ -168,8 +170,7 @@ void RatioAxes(std::string& out, const std::vector<double>& values,
     out += LogTicsCommand("y", y_lo, y_hi, [&, s = scale](double v) {
       return ShortEng(v * s, unit);
     });
-    out += "set ylabel " + GnuplotString(left_label + " (" + unit + ")") +
-           "\n";
+    out += "set ylabel " + GnuplotString(left_label + " (" + unit + ")") + "\n";
   } else {
     // Room above and below the curve; never below zero.
     const double span = std::max(hi - lo, 0.02 * hi);
@@ -184,9 +185,7 @@ void RatioAxes(std::string& out, const std::vector<double>& values,
   // linear or a log pair of axes alike, each point reads as its ratio.
   out += "set y2range [" + Num(y_lo / ref) + ":" + Num(y_hi / ref) + "]\n";
   out += log ? LogTicsCommand("y2", y_lo / ref, y_hi / ref,
-                              [](double v) {
-                                return Printf("x%g", v);
-                              })
+                              [](double v) { return Printf("x%g", v); })
              : RatioTics("y2", y_lo / ref, y_hi / ref);
   out += "set y2label " + GnuplotString(right_label) + "\n";
 }
@@ -195,11 +194,11 @@ void RatioAxes(std::string& out, const std::vector<double>& values,
 void LargestAxis(std::string& out, double lo_ohm, double hi_ohm) {
   const double lo = lo_ohm / 1.6, hi = hi_ohm * 1.6;
   out += "set logscale x\nset xrange [" + Num(lo) + ":" + Num(hi) + "]\n";
-  out += LogTicsCommand("x", lo, hi,
-                        [](double v) { return ShortEng(v, kOhm); });
+  out +=
+      LogTicsCommand("x", lo, hi, [](double v) { return ShortEng(v, kOhm); });
   out += "set xlabel " +
-         GnuplotString(std::string("largest resistor of the network (") +
-                       kOhm + ")") +
+         GnuplotString(std::string("largest resistor of the network (") + kOhm +
+                       ")") +
          "\n";
 }
 
@@ -234,11 +233,12 @@ std::string BuildSweepPlotScript(const TeeSweepResult& s,
          Num(plain.output_rms_v / noise_scale) + " " +
          Num(plain.offset.worst_case_v / offset_scale) + "\nEOD\n";
 
-  sheet.Heading(plain.stage_name,
-                "T-network sweep at Req = " + FormatEng(s.equivalent_ohm, kOhm) +
-                    " (gain kept);  " + Band(plain) + ", " + Temperature(plain) +
-                    ";  largest resistor " + FormatEng(l_hi, kOhm) +
-                    " (plain) down to " + FormatEng(l_lo, kOhm));
+  sheet.Heading(
+      plain.stage_name,
+      "T-network sweep at Req = " + FormatEng(s.equivalent_ohm, kOhm) +
+          " (gain kept);  " + Band(plain) + ", " + Temperature(plain) +
+          ";  largest resistor " + FormatEng(l_hi, kOhm) + " (plain) down to " +
+          FormatEng(l_lo, kOhm));
 
   const std::string plain_title =
       "plain R_f = " + FormatEng(s.equivalent_ohm, kOhm);
@@ -265,8 +265,9 @@ std::string BuildSweepPlotScript(const TeeSweepResult& s,
            " center offset 0,1.6 tc rgb '#000000'\n";
   };
 
-  sheet.Panel(0, "Total output noise and noise cost against the largest "
-                 "resistor");
+  sheet.Panel(0,
+              "Total output noise and noise cost against the largest "
+              "resistor");
   LargestAxis(out, l_lo, l_hi);
   RatioAxes(out, rms, plain.output_rms_v, "V", "output noise rms over the band",
             "noise cost (output rms / plain R_f's)");
@@ -280,8 +281,9 @@ std::string BuildSweepPlotScript(const TeeSweepResult& s,
       GnuplotString(plain_title + ": " + FormatEng(plain.output_rms_v, "V"));
   out += plot + markers() + "\n";
 
-  sheet.Panel(1, "Worst-case output offset at DC against the largest "
-                 "resistor");
+  sheet.Panel(1,
+              "Worst-case output offset at DC against the largest "
+              "resistor");
   out += "unset label 13\n";
   LargestAxis(out, l_lo, l_hi);
   RatioAxes(out, offset, plain.offset.worst_case_v, "V",
@@ -329,11 +331,10 @@ std::string BuildSearchPlotScript(const TeeSearchResult& s,
   }
   out += "EOD\n";
 
-  std::string summary = q.series + " T networks for gain " +
-                        Printf("%.6g", q.target_gain) + " within " +
-                        Printf("%.3g %%", 100 * q.gain_tolerance) +
-                        ", ranked by " + q.ranking + ";  " + Band(first) +
-                        ", " + Temperature(first);
+  std::string summary =
+      q.series + " T networks for gain " + Printf("%.6g", q.target_gain) +
+      " within " + Printf("%.3g %%", 100 * q.gain_tolerance) + ", ranked by " +
+      q.ranking + ";  " + Band(first) + ", " + Temperature(first);
   if (s.cancelled) summary += ";  interrupted: best so far";
   sheet.Heading(first.stage_name, summary);
 
@@ -358,9 +359,10 @@ std::string BuildSearchPlotScript(const TeeSearchResult& s,
     const double span = std::max(hi - lo, 0.02 * hi);
     out += "set yrange [" + Num(std::max(0.0, lo - 0.1 * span) / noise_scale) +
            ":" + Num((hi + 0.15 * span) / noise_scale) + "]\n";
-    out += "set ylabel " +
-           GnuplotString("output noise rms over the band (" + noise_unit + ")") +
-           "\n";
+    out +=
+        "set ylabel " +
+        GnuplotString("output noise rms over the band (" + noise_unit + ")") +
+        "\n";
     const double olo = *std::min_element(offset.begin(), offset.end());
     const double ohi = *std::max_element(offset.begin(), offset.end());
     const double ospan = std::max(ohi - olo, 0.02 * ohi);
@@ -373,19 +375,19 @@ std::string BuildSearchPlotScript(const TeeSearchResult& s,
   }
   const double cost_lo = *std::min_element(cost.begin(), cost.end());
   const double cost_hi = *std::max_element(cost.begin(), cost.end());
-  out += "plot $best using 1:2 axes x1y1 with linespoints lw 2 pt 7 ps 1.4 "
-         "lc rgb '" +
-         std::string(kNoiseColour) + "' title " +
-         GnuplotString("output noise rms (left)") +
-         ", \\\n  keyentry with points pt 7 ps 0 lc rgb '#ffffff' title " +
-         GnuplotString("noise cost " +
-                       Printf("x%.4f", cost_lo) +
-                       (cost_hi > cost_lo ? " to " + Printf("x%.4f", cost_hi)
-                                          : std::string())) +
-         ", \\\n  $best using 1:3 axes x1y2 with linespoints lw 1.5 dt 2 pt 4 "
-         "ps 1.4 lc rgb '" +
-         kOffsetColour + "' title " +
-         GnuplotString("worst-case offset (right)") + "\n";
+  out +=
+      "plot $best using 1:2 axes x1y1 with linespoints lw 2 pt 7 ps 1.4 "
+      "lc rgb '" +
+      std::string(kNoiseColour) + "' title " +
+      GnuplotString("output noise rms (left)") +
+      ", \\\n  keyentry with points pt 7 ps 0 lc rgb '#ffffff' title " +
+      GnuplotString("noise cost " + Printf("x%.4f", cost_lo) +
+                    (cost_hi > cost_lo ? " to " + Printf("x%.4f", cost_hi)
+                                       : std::string())) +
+      ", \\\n  $best using 1:3 axes x1y2 with linespoints lw 1.5 dt 2 pt 4 "
+      "ps 1.4 lc rgb '" +
+      kOffsetColour + "' title " + GnuplotString("worst-case offset (right)") +
+      "\n";
 
   sheet.Panel(1, "The resistors of each network");
   rank_axis();
@@ -395,8 +397,8 @@ std::string BuildSearchPlotScript(const TeeSearchResult& s,
     lo = std::min(lo, q.min_ohm) / 2;
     hi = std::max(hi, q.max_ohm) * 2;
     out += "set logscale y\nset yrange [" + Num(lo) + ":" + Num(hi) + "]\n";
-    out += LogTicsCommand("y", lo, hi,
-                          [](double v) { return ShortEng(v, kOhm); });
+    out +=
+        LogTicsCommand("y", lo, hi, [](double v) { return ShortEng(v, kOhm); });
     out += "set ylabel " +
            GnuplotString(std::string("resistance (") + kOhm + ")") + "\n";
     out += "set border 3 lw 1\n";
@@ -407,9 +409,8 @@ std::string BuildSearchPlotScript(const TeeSearchResult& s,
   }
   std::string plot =
       "plot keyentry with lines dt 3 lw 1.5 lc rgb '#666666' title " +
-      GnuplotString("allowed: " + q.series + ", " +
-                    FormatEng(q.min_ohm, kOhm) + " to " +
-                    FormatEng(q.max_ohm, kOhm));
+      GnuplotString("allowed: " + q.series + ", " + FormatEng(q.min_ohm, kOhm) +
+                    " to " + FormatEng(q.max_ohm, kOhm));
   const char* names[] = {"R1 (summing node to tee)", "R2 (tee to output)",
                          "R3 (tee to ground)", "R_in"};
   const int points[] = {7, 5, 9, 13};
@@ -420,10 +421,9 @@ std::string BuildSearchPlotScript(const TeeSearchResult& s,
     const int column = k < 3 ? 5 + k : 4;
     const double dodge = 0.15 * (k - (count - 1) / 2.0);
     plot += ", \\\n  $best using ($1" + (dodge < 0 ? std::string("") : "+") +
-            Num(dodge) + "):" + std::to_string(column) +
-            " with points pt " + std::to_string(points[k]) +
-            " ps 1.6 lc rgb '" + kPartColours[k] + "' title " +
-            GnuplotString(names[k]);
+            Num(dodge) + "):" + std::to_string(column) + " with points pt " +
+            std::to_string(points[k]) + " ps 1.6 lc rgb '" + kPartColours[k] +
+            "' title " + GnuplotString(names[k]);
   }
   out += plot + "\n";
   return sheet.Finish();

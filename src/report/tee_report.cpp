@@ -56,8 +56,8 @@ std::string SearchSpace(const TeeSearchQuery& q) {
 
 std::string SearchGain(const TeeSearchQuery& q) {
   std::string out = Printf("%.6g", q.target_gain) + " within " +
-                    Printf("%.3g %%", 100 * q.gain_tolerance) +
-                    "; ranked by " + q.ranking;
+                    Printf("%.3g %%", 100 * q.gain_tolerance) + "; ranked by " +
+                    q.ranking;
   if (q.ranking == "weighted")
     out += Printf(" (offset weight %.3g)", q.offset_weight);
   return out;
@@ -156,8 +156,8 @@ std::string SearchToText(const TeeSearchResult& s, const TeeSearchQuery& q) {
     out += "  interrupted: the best of the part searched so far\n";
   out += "\n";
   out += RenderText(SearchTable(s, q, TeeCells::kDisplay));
-  out += std::string("  gain err: ") + kGainErrorNote + "; noise cost: " +
-         kNoiseCostNote + "\n";
+  out += std::string("  gain err: ") + kGainErrorNote +
+         "; noise cost: " + kNoiseCostNote + "\n";
   return out;
 }
 
@@ -168,8 +168,9 @@ std::string SearchToCsv(const TeeSearchResult& s, const TeeSearchQuery& q) {
 std::string SearchToMarkdown(const TeeSearchResult& s,
                              const TeeSearchQuery& q) {
   const Budget* first = s.best.empty() ? nullptr : &s.best.front().budget;
-  std::string out = "## T-network search: " +
-                    EscapeMarkdown(first ? first->stage_name : "") + "\n\n";
+  std::string out =
+      "## T-network search: " + EscapeMarkdown(first ? first->stage_name : "") +
+      "\n\n";
   if (first) {
     out += Item("temperature", Temperature(*first));
     out += Item("band", Band(*first));

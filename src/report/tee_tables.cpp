@@ -57,8 +57,8 @@ Table Build(const std::vector<Column<Row>>& columns,
 // The columns every budget row shares: e_n noise gain, output and input
 // rms, worst-case offset.
 template <typename Row, typename BudgetOf>
-void AddBudgetColumns(std::vector<Column<Row>>& columns, const std::string& unit,
-                      BudgetOf budget_of) {
+void AddBudgetColumns(std::vector<Column<Row>>& columns,
+                      const std::string& unit, BudgetOf budget_of) {
   columns.push_back(
       {"e_n NG", "noise_gain_dc",
        [=](const Row& r) { return Printf("%.4g", budget_of(r).noise_gain_dc); },
@@ -115,9 +115,8 @@ Table SweepTable(const TeeSweepResult& s, TeeCells cells) {
       {"", "plain", nullptr,
        [](Row r) { return std::string(r->plain ? "1" : "0"); }},
   };
-  AddBudgetColumns(columns, unit, [](Row r) -> const Budget& {
-    return r->budget;
-  });
+  AddBudgetColumns(columns, unit,
+                   [](Row r) -> const Budget& { return r->budget; });
   columns.push_back({"noise cost", "noise_cost_ratio",
                      [](Row r) { return Ratio(r->noise_cost_ratio); },
                      [](Row r) { return CsvNumber(r->noise_cost_ratio); }});
@@ -134,11 +133,9 @@ Table SearchTable(const TeeSearchResult& s, const TeeSearchQuery& q,
   const double target = q.target_gain;
   auto ohm_column = [](const char* display, const char* csv,
                        double TeeCandidate::*field) {
-    return Column<Row>{display, csv,
-                       [=](const Row& r) { return Ohms(r.candidate->*field); },
-                       [=](const Row& r) {
-                         return CsvNumber(r.candidate->*field);
-                       }};
+    return Column<Row>{
+        display, csv, [=](const Row& r) { return Ohms(r.candidate->*field); },
+        [=](const Row& r) { return CsvNumber(r.candidate->*field); }};
   };
   std::vector<Column<Row>> columns = {
       {"#", "rank", [](const Row& r) { return std::to_string(r.rank); },

@@ -8,11 +8,11 @@
 
 #include <algorithm>
 #include <cstring>
-#include <utility>
 #include <filesystem>
 #include <fstream>
 #include <sstream>
 #include <string>
+#include <utility>
 #include <vector>
 
 #include "cli/run_binary.h"

@@ -167,7 +167,8 @@ TEST_CASE("names from the stage file reach gnuplot as text and never as code") {
   }
 }
 
-TEST_CASE("without gnuplot the plot command names the package and writes nothing") {
+TEST_CASE(
+    "without gnuplot the plot command names the package and writes nothing") {
   ScratchDir dir("nognuplot");
   const std::string png = dir / "out.png";
   const auto r =

@@ -34,7 +34,7 @@ constexpr double kRelCsv = 1e-8;
 // A two-panel sheet is far above this; an empty or cut picture below.
 constexpr std::size_t kMinPictureBytes = 20000;
 
-const std::vector<std::string> kSearch = {"--series", "E96",  "--max", "100k",
+const std::vector<std::string> kSearch = {"--series",   "E96",  "--max", "100k",
                                           "--gain-tol", "0.5%", "--top", "6"};
 
 std::string Example() { return test::ExamplePath("hydrophone-preamp"); }
@@ -96,8 +96,8 @@ TEST_CASE("tee sweep markdown holds the JSON's figures, one row per network") {
   for (std::size_t i = 0; i < rows.size(); ++i) {
     INFO("row " << i);
     REQUIRE(rows[i].size() == 9);
-    CHECK(RelErr(Cell(rows[i][0], Quantity::kResistance), jr[i]["largest_ohm"]) <
-          kRelFourDigits);
+    CHECK(RelErr(Cell(rows[i][0], Quantity::kResistance),
+                 jr[i]["largest_ohm"]) < kRelFourDigits);
     CHECK(RelErr(Cell(rows[i][1], Quantity::kResistance), jr[i]["r1_ohm"]) <
           kRelFourDigits);
     if (!jr[i]["plain"].get<bool>()) {
@@ -148,7 +148,8 @@ TEST_CASE("tee search markdown holds the JSON's figures in rank order") {
   }
 }
 
-TEST_CASE("tee sweep and search CSV parse as RFC 4180 with the JSON's numbers") {
+TEST_CASE(
+    "tee sweep and search CSV parse as RFC 4180 with the JSON's numbers") {
   const json sweep = TeeJson("sweep");
   const auto r = Tee("sweep", {"--format", "csv"});
   REQUIRE(r.exit_code == 0);
@@ -161,9 +162,9 @@ TEST_CASE("tee sweep and search CSV parse as RFC 4180 with the JSON's numbers") 
     const json& row = sweep["rows"][i - 1];
     INFO("row " << i);
     REQUIRE(records[i].size() == h.size());
-    for (const char* key : {"largest_ohm", "r1_ohm", "noise_gain_dc",
-                            "output_rms_V", "offset_worst_case_V",
-                            "noise_cost_ratio"}) {
+    for (const char* key :
+         {"largest_ohm", "r1_ohm", "noise_gain_dc", "output_rms_V",
+          "offset_worst_case_V", "noise_cost_ratio"}) {
       const auto at = std::find(h.begin(), h.end(), key);
       REQUIRE(at != h.end());
       CHECK(RelErr(std::stod(records[i][at - h.begin()]), row[key]) < kRelCsv);
@@ -172,8 +173,8 @@ TEST_CASE("tee sweep and search CSV parse as RFC 4180 with the JSON's numbers") 
     if (records[i][4] == "0") {
       const double r1 = std::stod(records[i][1]), r2 = std::stod(records[i][2]),
                    r3 = std::stod(records[i][3]);
-      CHECK(RelErr(r1 + r2 + r1 * r2 / r3,
-                   sweep["equivalent_resistance_ohm"]) < 1e-6);
+      CHECK(RelErr(r1 + r2 + r1 * r2 / r3, sweep["equivalent_resistance_ohm"]) <
+            1e-6);
     }
   }
 
@@ -196,7 +197,8 @@ TEST_CASE("tee format options conflict in one line, exit code 2") {
   };
   const std::vector<Case> cases = {
       {{"--csv", "--json"}, "--csv: cannot be combined with --json"},
-      {{"--json", "--format", "markdown"}, "--json contradicts --format markdown"},
+      {{"--json", "--format", "markdown"},
+       "--json contradicts --format markdown"},
       {{"--csv", "--format", "json"}, "--csv contradicts --format json"},
       {{"--format", "markdwn"},
        "--format: expected text, json, markdown or csv, got \"markdwn\" (did "
@@ -239,9 +241,10 @@ TEST_CASE("tee sweep and search --plot write a valid PNG and a valid SVG") {
     std::string why;
     CHECK_MESSAGE(test::WellFormedXml(text, &why), why);
     const std::string decoded = test::DecodeXmlEntities(text);
-    CHECK(decoded.find(
-              ">hydrophone preamp, 10 M equivalent feedback from 100 k parts<") !=
-          std::string::npos);
+    CHECK(
+        decoded.find(
+            ">hydrophone preamp, 10 M equivalent feedback from 100 k parts<") !=
+        std::string::npos);
     CHECK(decoded.find(std::string(sub) == "sweep"
                            ? ">Total output noise and noise cost against the "
                              "largest resistor<"
@@ -274,8 +277,8 @@ TEST_CASE("tee --plot draws a hostile stage name as text and runs nothing") {
     for (const char* sub : {"sweep", "search"}) {
       INFO(sub);
       const std::string svg = dir / "out.svg";
-      const auto r = Tee(sub, {"--plot", svg, "--format", "markdown"},
-                         stage_path);
+      const auto r =
+          Tee(sub, {"--plot", svg, "--format", "markdown"}, stage_path);
       INFO("stderr: " << r.err);
       REQUIRE(r.exit_code == 0);
       CHECK_FALSE(std::filesystem::exists(pwned));

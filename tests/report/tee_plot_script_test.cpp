@@ -132,9 +132,8 @@ TEST_CASE("stage names reach the T-network scripts only as escaped text") {
   q.target_gain = 909;
   q.gain_tolerance = 0.005;
   q.ranking = "noise";
-  for (const std::string& gp :
-       {BuildSweepPlotScript(SmallSweep(), o),
-        BuildSearchPlotScript(search, q, o)}) {
+  for (const std::string& gp : {BuildSweepPlotScript(SmallSweep(), o),
+                                BuildSearchPlotScript(search, q, o)}) {
     // The name once, as the heading's literal (GnuplotString is checked in
     // text_escape_test.cpp); none of its quotes, backquotes or calls raw.
     CHECK(Count(gp, "set label 1 " + GnuplotString(kHostile) + " ") == 1);

@@ -73,8 +73,8 @@ double DisplayValue(const std::string& cell, Quantity q) {
 TEST_CASE("the RFC 4180 reader reads the RFC's own examples") {
   // RFC 4180 section 2, rules 6 and 7: "aaa","b""bb","ccc" and a quoted
   // line break.
-  const auto r = test::ReadCsv(
-      "\"aaa\",\"b\"\"bb\",\"ccc\"\r\nzzz,\"x\r\ny\",\r\n");
+  const auto r =
+      test::ReadCsv("\"aaa\",\"b\"\"bb\",\"ccc\"\r\nzzz,\"x\r\ny\",\r\n");
   REQUIRE(r.size() == 2);
   CHECK(r[0] == std::vector<std::string>{"aaa", "b\"bb", "ccc"});
   CHECK(r[1] == std::vector<std::string>{"zzz", "x\r\ny", ""});
@@ -84,10 +84,10 @@ TEST_CASE("sweep tables in display and CSV cells hold the same figures") {
   const TeeSweepResult s = SmallSweep();
   const Table display = SweepTable(s, TeeCells::kDisplay);
   const Table csv = SweepTable(s, TeeCells::kCsv);
-  CHECK(display.header ==
-        std::vector<std::string>{"largest", "R1", "R2", "R3", "e_n NG",
-                                 "output rms", "input rms", "offset worst",
-                                 "noise cost"});
+  CHECK(display.header == std::vector<std::string>{"largest", "R1", "R2", "R3",
+                                                   "e_n NG", "output rms",
+                                                   "input rms", "offset worst",
+                                                   "noise cost"});
   CHECK(csv.header == std::vector<std::string>{
                           "largest_ohm", "r1_ohm", "r2_ohm", "r3_ohm", "plain",
                           "noise_gain_dc", "output_rms_V", "input_rms_V",
@@ -101,9 +101,8 @@ TEST_CASE("sweep tables in display and CSV cells hold the same figures") {
   CHECK(csv.rows[1][4] == "0");
   // Column by column, display and CSV agree (display column d is CSV
   // column c).
-  const std::vector<std::pair<int, int>> pairs = {{0, 0}, {1, 1}, {4, 5},
-                                                  {5, 6}, {6, 7}, {7, 8},
-                                                  {8, 9}};
+  const std::vector<std::pair<int, int>> pairs = {
+      {0, 0}, {1, 1}, {4, 5}, {5, 6}, {6, 7}, {7, 8}, {8, 9}};
   const Quantity kinds[] = {Quantity::kResistance, Quantity::kResistance,
                             Quantity::kGain,       Quantity::kVoltage,
                             Quantity::kVoltage,    Quantity::kVoltage,
@@ -139,8 +138,8 @@ TEST_CASE("sweep markdown is a heading, a list and one row per network") {
   // and < stay text and cannot open a cell, emphasis or a tag.
   CHECK(md.rfind("## T-network sweep: bench \\| \\*tee\\* \\<b\\>\n\n", 0) ==
         0);
-  CHECK(md.find("- temperature: 25.00 \xC2\xB0" "C (298.15 K)\n") !=
-        std::string::npos);
+  CHECK(md.find("- temperature: 25.00 \xC2\xB0"
+                "C (298.15 K)\n") != std::string::npos);
   CHECK(md.find("- band: 10.00 Hz to 5.000 kHz\n") != std::string::npos);
   CHECK(md.find("- gain kept: 909 V/V at DC") != std::string::npos);
   CHECK(md.find(RenderMarkdown(SweepTable(SmallSweep(), TeeCells::kDisplay))) !=
