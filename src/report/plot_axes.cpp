@@ -47,7 +47,8 @@ std::string LogTicsCommand(const char* axis, double v_min, double v_max,
     for (int m = 1; m <= 9; ++m) {
       const double v = m * decade;
       if (v < lo_v || v > hi_v) continue;
-      const bool labelled = m == 1 || (label_2_5 && (m == 2 || m == 5));
+      const bool labelled =
+          m == 1 || decades_inside == 0 || (label_2_5 && (m == 2 || m == 5));
       if (!list.empty()) list += ", ";
       list += labelled ? GnuplotString(label(v)) + " " + PlotNumber(v)
                        : "\"\" " + PlotNumber(v) + " 1";

@@ -23,7 +23,8 @@ std::string ShortEng(double value, const std::string& unit);
 // A gnuplot `set <axis>tics (...)` command for a log axis over
 // [v_min, v_max]: labelled at each decade, unlabelled minor tics at 2..9
 // times each decade; when fewer than three decades fall inside, 2 and 5
-// times each decade are labelled too, so a short axis still reads.
+// times each decade are labelled too, so a short axis still reads; with
+// no decade inside, every tic is labelled.
 std::string LogTicsCommand(const char* axis, double v_min, double v_max,
                            const std::function<std::string(double)>& label);
 

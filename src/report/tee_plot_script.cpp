@@ -53,6 +53,12 @@ std::string Band(const Budget& b) {
          FormatEng(b.band_high_hz, "Hz");
 }
 
+// "noise", "offset", or for the weighted ranking what it weighs.
+std::string RankingWords(const TeeSearchQuery& q) {
+  if (q.ranking != "weighted") return q.ranking;
+  return "noise and offset, offset weight " + Printf("%.3g", q.offset_weight);
+}
+
 class Sheet {
  public:
   Sheet(const TeePlotOptions& o, int panels)
@@ -348,7 +354,8 @@ std::string BuildSearchPlotScript(const TeeSearchResult& s,
               GnuplotString("#" + std::to_string(k)) + " " + std::to_string(k);
     out += "set xtics (" + tics + ")\n";
     out += "set xlabel " +
-           GnuplotString("rank (best first, by " + q.ranking + ")") + "\n";
+           GnuplotString("rank (best first, by " + RankingWords(q) + ")") +
+           "\n";
   };
 
   sheet.Panel(0, "Output noise and worst-case offset of each network");
