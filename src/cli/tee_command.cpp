@@ -64,13 +64,19 @@ double PositiveResistance(const std::string& option, const std::string& text) {
   return ohms;
 }
 
-std::string Render(const std::string& format, const std::string& text,
-                   const std::string& csv, const std::string& json,
-                   const std::string& markdown) {
-  if (format == "csv") return csv;
-  if (format == "json") return json;
-  if (format == "markdown") return markdown;
-  return text;
+std::string SweepOutput(const std::string& format, const TeeSweepResult& r) {
+  if (format == "csv") return SweepToCsv(r);
+  if (format == "json") return SweepToJson(r);
+  if (format == "markdown") return SweepToMarkdown(r);
+  return SweepToText(r);
+}
+
+std::string SearchOutput(const std::string& format, const TeeSearchResult& r,
+                         const TeeSearchQuery& q) {
+  if (format == "csv") return SearchToCsv(r, q);
+  if (format == "json") return SearchToJson(r, q);
+  if (format == "markdown") return SearchToMarkdown(r, q);
+  return SearchToText(r, q);
 }
 
 // The picture's format and gnuplot, checked before any work. Returns false
@@ -215,9 +221,7 @@ int RunTeeSweepCommand(const TeeSweepCommandOptions& options) {
         });
     if (drawn != kExitOk) return drawn;
   }
-  std::cout << Render(format, SweepToText(result), SweepToCsv(result),
-                      SweepToJson(result), SweepToMarkdown(result))
-            << std::flush;
+  std::cout << SweepOutput(format, result) << std::flush;
   return kExitOk;
 }
 
@@ -367,10 +371,7 @@ int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
         });
     if (drawn != kExitOk) return drawn;
   }
-  std::cout << Render(format, SearchToText(result, query),
-                      SearchToCsv(result, query), SearchToJson(result, query),
-                      SearchToMarkdown(result, query))
-            << std::flush;
+  std::cout << SearchOutput(format, result, query) << std::flush;
   return result.cancelled ? kExitInterrupted : kExitOk;
 }
 
