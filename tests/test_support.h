@@ -3,11 +3,12 @@
 #ifndef HUSHGAIN_TESTS_TEST_SUPPORT_H_
 #define HUSHGAIN_TESTS_TEST_SUPPORT_H_
 
+#include <doctest/doctest.h>
+
 #include <cmath>
 #include <stdexcept>
 #include <string>
-
-#include <doctest/doctest.h>
+#include <vector>
 
 #include "budget/budget.h"
 #include "budget/compute_budget.h"
@@ -80,6 +81,57 @@ inline const Contributor& FindContributor(const Budget& b,
   for (const Contributor& c : b.contributors)
     if (c.name == name) return c;
   throw std::runtime_error("no contributor " + name);
+}
+
+// An RFC 4180 reader: records end in CRLF (rule 1), fields may be quoted
+// (rule 5), a quoted field may hold commas, CR and LF (rule 6) and a
+// doubled quote stands for one (rule 7). Fails the test on a bad record.
+inline std::vector<std::vector<std::string>> ReadCsv(const std::string& text) {
+  std::vector<std::vector<std::string>> records;
+  std::vector<std::string> record;
+  std::string field;
+  std::size_t i = 0;
+  while (i < text.size()) {
+    if (text[i] == '"' && field.empty()) {
+      ++i;
+      for (;;) {
+        REQUIRE(i < text.size());
+        if (text[i] == '"') {
+          if (i + 1 < text.size() && text[i + 1] == '"') {
+            field += '"';
+            i += 2;
+            continue;
+          }
+          ++i;
+          break;
+        }
+        field += text[i++];
+      }
+      REQUIRE((i == text.size() || text[i] == ',' || text[i] == '\r'));
+      continue;
+    }
+    if (text[i] == ',') {
+      record.push_back(field);
+      field.clear();
+      ++i;
+      continue;
+    }
+    if (text[i] == '\r') {
+      REQUIRE(i + 1 < text.size());
+      REQUIRE(text[i + 1] == '\n');
+      record.push_back(field);
+      field.clear();
+      records.push_back(record);
+      record.clear();
+      i += 2;
+      continue;
+    }
+    REQUIRE(text[i] != '\n');  // a bare LF outside quotes is not a record end
+    field += text[i++];
+  }
+  REQUIRE(field.empty());
+  REQUIRE(record.empty());  // the last record ends in CRLF too
+  return records;
 }
 
 }  // namespace hushgain::test

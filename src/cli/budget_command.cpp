@@ -8,11 +8,11 @@
 #include "budget/frequency_grid.h"
 #include "budget/sample_spectra.h"
 #include "cli/exit_codes.h"
+#include "cli/output_format.h"
 #include "io/device_library.h"
 #include "io/error.h"
 #include "io/read_file.h"
 #include "io/stage_parser.h"
-#include "io/suggest.h"
 #include "report/csv_report.h"
 #include "report/json_report.h"
 #include "report/markdown_report.h"
@@ -20,27 +20,6 @@
 
 namespace hushgain {
 namespace {
-
-const std::vector<std::string>& Formats() {
-  static const std::vector<std::string> formats = {"text", "json", "markdown",
-                                                   "csv"};
-  return formats;
-}
-
-// The format asked for, after --json; throws Error naming the option.
-std::string ResolveFormat(const BudgetCommandOptions& options) {
-  bool known = false;
-  for (const std::string& f : Formats()) known = known || f == options.format;
-  if (!known)
-    throw Error("command line", "",
-                "--format: expected text, json, markdown or csv, got \"" +
-                    options.format + "\"" +
-                    DidYouMean(options.format, Formats()));
-  if (options.json && options.format != "text" && options.format != "json")
-    throw Error("command line", "",
-                "--json contradicts --format " + options.format);
-  return options.json ? "json" : options.format;
-}
 
 std::string Render(const Budget& budget, const std::string& format) {
   if (format == "json") return BudgetToJson(budget);
@@ -52,7 +31,8 @@ std::string Render(const Budget& budget, const std::string& format) {
 }  // namespace
 
 int RunBudgetCommand(const BudgetCommandOptions& options) {
-  const std::string format = ResolveFormat(options);
+  const std::string format =
+      ResolveOutputFormat(options.format, options.json, false);
   BudgetOptions budget_options;
   budget_options.integration.relative_tolerance = options.tolerance;
   if (!budget_options.Validate().empty()) {

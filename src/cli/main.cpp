@@ -104,8 +104,13 @@ std::function<int()> DefineTee(CLI::App* app, const GlobalOptions& global) {
   s->add_option("--points", sweep->points, "rows, both ends included (13)");
   s->add_option("--ratio", sweep->ratio,
                 "fix R1/R2 to a number, or to the stage's (\"stage\")");
-  s->add_flag("--csv", sweep->csv, "print CSV");
-  s->add_flag("--json", sweep->json, "print JSON");
+  s->add_option("--format", sweep->format,
+                "text, json, markdown or csv (default text)");
+  s->add_flag("--csv", sweep->csv, "the same as --format csv");
+  s->add_flag("--json", sweep->json, "the same as --format json");
+  s->add_option("--plot", sweep->plot_path,
+                "also draw noise and offset against the largest resistor "
+                "(.png or .svg)");
   s->add_option("--tolerance", sweep->tolerance,
                 "relative error target of the noise integral (default 1e-4)");
   s->callback([sweep, chosen, &global] {
@@ -140,8 +145,13 @@ std::function<int()> DefineTee(CLI::App* app, const GlobalOptions& global) {
   q->add_option("--top", search->top, "how many networks to show (10)");
   q->add_option("--threads", search->threads,
                 "worker threads (0: one per core)");
-  q->add_flag("--csv", search->csv, "print CSV");
-  q->add_flag("--json", search->json, "print JSON");
+  q->add_option("--format", search->format,
+                "text, json, markdown or csv (default text)");
+  q->add_flag("--csv", search->csv, "the same as --format csv");
+  q->add_flag("--json", search->json, "the same as --format json");
+  q->add_option("--plot", search->plot_path,
+                "also draw the networks' noise, offset and resistors by rank "
+                "(.png or .svg)");
   q->add_option("--tolerance", search->tolerance,
                 "relative error target of the noise integral (default 1e-4)");
   q->callback([search, chosen, &global] {

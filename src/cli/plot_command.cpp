@@ -1,20 +1,14 @@
 #include "cli/plot_command.h"
 
-#include <fcntl.h>
-#include <sys/stat.h>
-#include <unistd.h>
-
-#include <cctype>
-#include <cerrno>
 #include <cmath>
 #include <cstdio>
-#include <cstring>
 #include <iostream>
 #include <vector>
 
 #include "budget/compute_budget.h"
 #include "budget/frequency_grid.h"
 #include "budget/sample_spectra.h"
+#include "cli/draw_picture.h"
 #include "cli/exit_codes.h"
 #include "integrate/cumulative_power.h"
 #include "io/device_library.h"
@@ -23,30 +17,13 @@
 #include "io/stage_parser.h"
 #include "io/suggest.h"
 #include "report/plot_script.h"
-#include "report/run_gnuplot.h"
 
 namespace hushgain {
 namespace {
 
-bool EndsWith(const std::string& s, const std::string& suffix) {
-  if (s.size() < suffix.size()) return false;
-  for (std::size_t i = 0; i < suffix.size(); ++i)
-    if (std::tolower(static_cast<unsigned char>(
-            s[s.size() - suffix.size() + i])) != suffix[i])
-      return false;
-  return true;
-}
-
 PlotScriptOptions ScriptOptions(const PlotCommandOptions& options) {
   PlotScriptOptions script;
-  if (EndsWith(options.output_path, ".png"))
-    script.format = PlotFormat::kPng;
-  else if (EndsWith(options.output_path, ".svg"))
-    script.format = PlotFormat::kSvg;
-  else
-    throw Error("command line", "",
-                "-o: expected a file name ending in .png or .svg, got \"" +
-                    options.output_path + "\"");
+  script.format = PictureFormat("-o", options.output_path);
   const std::vector<std::string> panels = {"spectrum", "cumulative", "gain"};
   if (options.only == "spectrum")
     script.panels = {PlotPanel::kSpectrum};
@@ -91,14 +68,8 @@ int RunPlotCommand(const PlotCommandOptions& options) {
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
   const Stage stage = LoadStageFile(options.stage_path, library);
 
-  const std::string gnuplot = FindGnuplot();
-  if (gnuplot.empty()) {
-    std::cerr << "error: plot needs gnuplot, which is not on PATH; install "
-                 "the Debian package "
-              << kGnuplotPackage << " (apt-get install " << kGnuplotPackage
-              << ")\n";
-    return kExitToolFailed;
-  }
+  const std::string gnuplot = GnuplotOrExplain("plot");
+  if (gnuplot.empty()) return kExitToolFailed;
 
   const BudgetOutcome outcome = ComputeBudget(stage, BudgetOptions{});
   if (!outcome.status.ok) return Refused(options, outcome.status.message);
@@ -114,32 +85,14 @@ int RunPlotCommand(const PlotCommandOptions& options) {
   if (!spectrum.status.ok) return Refused(options, spectrum.status.message);
   const PlotData data = CumulativeOnBand(budget, std::move(spectrum.samples));
 
-  // gnuplot writes a temporary file beside the target, created here first
-  // so an unwritable place is reported as such; it is renamed when whole.
   const std::string& target = options.output_path;
-  script_options.output_path = target + ".tmp-" + std::to_string(::getpid());
-  const int fd = ::open(script_options.output_path.c_str(),
-                        O_WRONLY | O_CREAT | O_EXCL, 0644);
-  if (fd < 0)
-    throw Error(target, "",
-                std::string("cannot write: ") + std::strerror(errno));
-  ::close(fd);
-  const std::string& temporary = script_options.output_path;
-
-  const GnuplotRun run =
-      RunGnuplot(gnuplot, BuildPlotScript(budget, data, script_options));
-  struct stat st;
-  if (!run.ok || ::stat(temporary.c_str(), &st) != 0 || st.st_size == 0) {
-    std::remove(temporary.c_str());
-    std::cerr << "error: " << target << ": "
-              << (run.ok ? "gnuplot wrote no picture" : run.message) << "\n";
-    return kExitToolFailed;
-  }
-  if (std::rename(temporary.c_str(), target.c_str()) != 0) {
-    const std::string why = std::strerror(errno);
-    std::remove(temporary.c_str());
-    throw Error(target, "", "cannot write: " + why);
-  }
+  const int drawn =
+      DrawPicture(gnuplot, target, [&](const std::string& temporary) {
+        PlotScriptOptions drawing = script_options;
+        drawing.output_path = temporary;
+        return BuildPlotScript(budget, data, drawing);
+      });
+  if (drawn != kExitOk) return drawn;
   if (!options.script_path.empty()) {
     PlotScriptOptions saved = script_options;
     saved.output_path = target;

@@ -15,14 +15,17 @@
 #include "budget/tee_sweep.h"
 #include "circuit/inverting_topology.h"
 #include "circuit/preferred_series.h"
+#include "cli/draw_picture.h"
 #include "cli/exit_codes.h"
 #include "cli/interrupt.h"
+#include "cli/output_format.h"
 #include "cli/progress_bar.h"
 #include "io/device_library.h"
 #include "io/error.h"
 #include "io/stage_parser.h"
 #include "io/suggest.h"
 #include "io/units.h"
+#include "report/tee_plot_script.h"
 #include "report/tee_report.h"
 
 namespace hushgain {
@@ -54,8 +57,29 @@ double PositiveResistance(const std::string& option, const std::string& text) {
   return ohms;
 }
 
-void CheckOutputFlags(bool csv, bool json) {
-  if (csv && json) throw OptionError("--csv", "cannot be combined with --json");
+std::string SweepOutput(const std::string& format, const TeeSweepResult& r) {
+  if (format == "csv") return SweepToCsv(r);
+  if (format == "json") return SweepToJson(r);
+  if (format == "markdown") return SweepToMarkdown(r);
+  return SweepToText(r);
+}
+
+std::string SearchOutput(const std::string& format, const TeeSearchResult& r,
+                         const TeeSearchQuery& q) {
+  if (format == "csv") return SearchToCsv(r, q);
+  if (format == "json") return SearchToJson(r, q);
+  if (format == "markdown") return SearchToMarkdown(r, q);
+  return SearchToText(r, q);
+}
+
+// The picture's format and gnuplot, checked before any work. Returns false
+// after gnuplot's absence was explained.
+bool PreparePlot(const std::string& plot_path, const std::string& who,
+                 TeePlotOptions* plot, std::string* gnuplot) {
+  if (plot_path.empty()) return true;
+  plot->format = PictureFormat("--plot", plot_path);
+  *gnuplot = GnuplotOrExplain(who);
+  return !gnuplot->empty();
 }
 
 BudgetOptions BudgetWithTolerance(double tolerance) {
@@ -102,7 +126,8 @@ std::vector<double> SeriesRange(PreferredSeries series, double min_ohm,
 }  // namespace
 
 int RunTeeSweepCommand(const TeeSweepCommandOptions& options) {
-  CheckOutputFlags(options.csv, options.json);
+  const std::string format =
+      ResolveOutputFormat(options.format, options.json, options.csv);
   TeeSweepOptions sweep;
   sweep.budget = BudgetWithTolerance(options.tolerance);
   sweep.points = options.points;
@@ -140,21 +165,34 @@ int RunTeeSweepCommand(const TeeSweepCommandOptions& options) {
     sweep.min_largest_ohm = *min_ohm;
   }
 
+  TeePlotOptions plot;
+  std::string gnuplot;
+  if (!PreparePlot(options.plot_path, "tee sweep --plot", &plot, &gnuplot))
+    return kExitToolFailed;
+  plot.stage_largest_ohm = std::max({given.r1_ohm, given.r2_ohm, given.r3_ohm});
+
   const TeeSweepResult result = SweepTee(stage, sweep);
   if (!result.status.ok) return Refused(options.stage_path, result.status);
   for (const TeeSweepRow& row : result.rows)
     for (const std::string& w : row.budget.warnings)
       std::cerr << "warning: largest " << FormatEng(row.largest_ohm, kOhm)
                 << ": " << w << "\n";
-  std::cout << (options.csv    ? SweepToCsv(result)
-                : options.json ? SweepToJson(result)
-                               : SweepToText(result))
-            << std::flush;
+  if (!options.plot_path.empty()) {
+    const int drawn = DrawPicture(
+        gnuplot, options.plot_path, [&](const std::string& temporary) {
+          TeePlotOptions drawing = plot;
+          drawing.output_path = temporary;
+          return BuildSweepPlotScript(result, drawing);
+        });
+    if (drawn != kExitOk) return drawn;
+  }
+  std::cout << SweepOutput(format, result) << std::flush;
   return kExitOk;
 }
 
 int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
-  CheckOutputFlags(options.csv, options.json);
+  const std::string format =
+      ResolveOutputFormat(options.format, options.json, options.csv);
   TeeSearchOptions search;
   search.budget = BudgetWithTolerance(options.tolerance);
 
@@ -231,6 +269,11 @@ int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
           "--gain", "expected a positive gain, got \"" + options.gain + "\"");
   }
 
+  TeePlotOptions plot;
+  std::string gnuplot;
+  if (!PreparePlot(options.plot_path, "tee search --plot", &plot, &gnuplot))
+    return kExitToolFailed;
+
   ProgressBar bar("searching");
   if (bar.enabled()) search.progress = [&bar](double f) { bar.Show(f); };
   TeeSearchResult result;
@@ -285,10 +328,16 @@ int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
       seen.push_back(w);
       std::cerr << "warning: #" << i + 1 << ": " << w << "\n";
     }
-  std::cout << (options.csv    ? SearchToCsv(result, query)
-                : options.json ? SearchToJson(result, query)
-                               : SearchToText(result, query))
-            << std::flush;
+  if (!options.plot_path.empty()) {
+    const int drawn = DrawPicture(
+        gnuplot, options.plot_path, [&](const std::string& temporary) {
+          TeePlotOptions drawing = plot;
+          drawing.output_path = temporary;
+          return BuildSearchPlotScript(result, query, drawing);
+        });
+    if (drawn != kExitOk) return drawn;
+  }
+  std::cout << SearchOutput(format, result, query) << std::flush;
   return result.cancelled ? kExitInterrupted : kExitOk;
 }
 

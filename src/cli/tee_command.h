@@ -16,9 +16,15 @@ struct TeeSweepCommandOptions {
   std::string min;  // smallest "largest resistor"; empty: Req / 1000
   int points = 13;
   std::string ratio;  // R1/R2: a number, "stage", or empty (the default rule)
+  // text (default), json, markdown or csv; --csv and --json are synonyms
+  // (cli/output_format.h).
+  std::string format = "text";
   bool csv = false;
   bool json = false;
   double tolerance = 1e-4;  // relative, on the total output noise power
+  // When set, also draw the sweep (report/tee_plot_script.h) to this .png
+  // or .svg file, written to a temporary name and renamed.
+  std::string plot_path;
 };
 
 struct TeeSearchCommandOptions {
@@ -35,15 +41,20 @@ struct TeeSearchCommandOptions {
   std::string rank = "noise";  // noise, offset, weighted
   double offset_weight = 0.5;
   int top = 10;
-  int threads = 0;  // 0: one per core
+  int threads = 0;              // 0: one per core
+  std::string format = "text";  // as for the sweep
   bool csv = false;
   bool json = false;
   double tolerance = 1e-4;
+  // When set, also draw the ranked networks (report/tee_plot_script.h).
+  std::string plot_path;
 };
 
 // Print on stdout and return an exit code (cli/exit_codes.h): 0, or 1 when
 // the analysis is refused or a search finds no network in tolerance, or 130
-// when Ctrl-C stopped a search (the best found so far is printed).
+// when Ctrl-C stopped a search (the best found so far is printed and
+// plotted), or 3 when --plot is given and gnuplot is missing (checked
+// before any work; the message names gnuplot-nox) or fails.
 // Throw Error for bad input (the caller prints it; exit code 2).
 int RunTeeSweepCommand(const TeeSweepCommandOptions& options);
 int RunTeeSearchCommand(const TeeSearchCommandOptions& options);

@@ -7,10 +7,17 @@
 
 #include "io/units.h"
 #include "noise/physical_constants.h"
+#include "report/plot_axes.h"
 #include "report/text_escape.h"
 
 namespace hushgain {
 namespace {
+
+std::string Num(double v) { return PlotNumber(v); }
+std::string LogNum(double v) { return PlotLogNumber(v); }
+std::string Short(double v, const std::string& unit) {
+  return ShortEng(v, unit);
+}
 
 // Sheet geometry in pixels. The legend column on the right holds names
 // with their rms and share; the left margin holds tic labels with units.
@@ -44,35 +51,10 @@ constexpr int kColourCount = sizeof kColours / sizeof kColours[0];
 constexpr const char* kBandShade = "#e4e4e4";
 constexpr const char* kEdgeColour = "#444444";
 
-std::string Num(double v) {
-  if (!std::isfinite(v)) return "NaN";
-  char buf[40];
-  std::snprintf(buf, sizeof buf, "%.9g", v);
-  return buf;
-}
-
-// A positive value for a log axis, or NaN (gnuplot skips the point).
-std::string LogNum(double v) { return v > 0 ? Num(v) : "NaN"; }
-
 std::string Printf(const char* format, double value) {
   char buf[80];
   std::snprintf(buf, sizeof buf, format, value);
   return buf;
-}
-
-// "10.00 Hz" -> "10 Hz", "2.500 kHz" -> "2.5 kHz": tic labels need no
-// trailing zeros.
-std::string Short(double value, const std::string& unit) {
-  std::string s = FormatEng(value, unit);
-  const std::size_t space = s.find(' ');
-  std::string number = s.substr(0, space);
-  const std::string rest = space == std::string::npos ? "" : s.substr(space);
-  if (number.find('.') != std::string::npos &&
-      number.find('e') == std::string::npos) {
-    while (number.back() == '0') number.pop_back();
-    if (number.back() == '.') number.pop_back();
-  }
-  return number + rest;
 }
 
 // 0.5, 20, 5000, then 1e4, 2e5: short enough for a tic.
@@ -88,50 +70,10 @@ std::string GainLabel(double value) {
   return s.substr(0, e) + "e" + (negative ? "-" : "") + exponent;
 }
 
-// Log-axis tics over [v_min, v_max]: labelled at each decade, unlabelled
-// minor tics at 2..9 times each decade; when fewer than three decades fall
-// inside, 2 and 5 times each decade are labelled too, so a short axis still
-// reads.
-template <typename Label>
-std::string LogTics(const char* axis, double v_min, double v_max, Label label) {
-  const double lo_v = v_min * (1 - 1e-9), hi_v = v_max * (1 + 1e-9);
-  const int lo = static_cast<int>(std::floor(std::log10(lo_v)));
-  const int hi = static_cast<int>(std::ceil(std::log10(hi_v)));
-  int decades_inside = 0;
-  for (int d = lo; d <= hi; ++d) {
-    const double v = std::pow(10.0, d);
-    if (v >= lo_v && v <= hi_v) ++decades_inside;
-  }
-  const bool label_2_5 = decades_inside < 3;
-  std::string list;
-  for (int d = lo; d <= hi; ++d) {
-    const double decade = std::pow(10.0, d);
-    for (int m = 1; m <= 9; ++m) {
-      const double v = m * decade;
-      if (v < lo_v || v > hi_v) continue;
-      const bool labelled = m == 1 || (label_2_5 && (m == 2 || m == 5));
-      if (!list.empty()) list += ", ";
-      list += labelled ? GnuplotString(label(v)) + " " + Num(v)
-                       : "\"\" " + Num(v) + " 1";
-    }
-  }
-  return std::string("set ") + axis + "tics (" + list + ")\n";
-}
-
 int FloorDecade(double v) {
   return static_cast<int>(std::floor(std::log10(v)));
 }
 int CeilDecade(double v) { return static_cast<int>(std::ceil(std::log10(v))); }
-
-// The SI-prefixed unit and its scale for values up to `max`: 3e-4 -> µV.
-std::pair<double, std::string> Scale(double max, const std::string& unit) {
-  if (!(max > 0)) return {1.0, unit};
-  const int exponent3 = 3 * static_cast<int>(std::floor(std::log10(max) / 3.0));
-  const double scale = std::pow(10.0, exponent3);
-  const std::string s = FormatEng(scale, unit);
-  const std::size_t space = s.find(' ');
-  return {scale, space == std::string::npos ? unit : s.substr(space + 1)};
-}
 
 struct Frame {
   double top = 0, bottom = 0;  // screen fractions of the plot area
@@ -260,8 +202,8 @@ class ScriptWriter {
     out_ += "set bmargin at screen " + Num(f.bottom) + "\n";
     out_ += "set logscale x\n";
     out_ += "set xrange [" + Num(f_min_) + ":" + Num(f_max_) + "]\n";
-    out_ +=
-        LogTics("x", f_min_, f_max_, [](double v) { return Short(v, "Hz"); });
+    out_ += LogTicsCommand("x", f_min_, f_max_,
+                           [](double v) { return Short(v, "Hz"); });
     out_ += "set xlabel 'frequency (Hz)'\n";
     out_ += "set grid xtics ytics lc rgb '#d8d8d8' lw 1\n";
     out_ += "set border 3 lw 1\nset xtics nomirror out\nset ytics out\n";
@@ -315,8 +257,9 @@ class ScriptWriter {
     // The slight padding keeps gnuplot from dropping the end tics.
     out_ += "set yrange [" + Num(std::pow(10.0, lo) * 0.999) + ":" +
             Num(std::pow(10.0, hi) * 1.001) + "]\n";
-    out_ += LogTics("y", std::pow(10.0, lo), std::pow(10.0, hi),
-                    [](double v) { return Short(v, "V/\xE2\x88\x9AHz"); });
+    out_ +=
+        LogTicsCommand("y", std::pow(10.0, lo), std::pow(10.0, hi),
+                       [](double v) { return Short(v, "V/\xE2\x88\x9AHz"); });
     out_ += "set ylabel 'output noise density (V/\xE2\x88\x9AHz)'\n";
     out_ += "set key title 'in-band output rms, share' left\n";
     std::string plot =
@@ -360,7 +303,7 @@ class ScriptWriter {
   }
 
   void Cumulative(const Frame&) {
-    const auto [scale, unit] = Scale(b_.output_rms_v, "V");
+    const auto [scale, unit] = UnitScale(b_.output_rms_v, "V");
     PanelTitle("Cumulative output noise from the low band edge up");
     out_ += "set yrange [0:" + Num(1.15 * b_.output_rms_v / scale) + "]\n";
     out_ += "set ytics auto\nset format y '%g'\n";
@@ -420,19 +363,19 @@ class ScriptWriter {
     if (transimpedance) {
       const auto [z_bottom, z_top] = LogRange({&s.signal_gain_abs}, 4, false);
       out_ += "set yrange [" + Num(z_bottom) + ":" + Num(z_top) + "]\n";
-      out_ += LogTics("y", z_bottom, z_top,
-                      [](double v) { return Short(v, "\xCE\xA9"); });
+      out_ += LogTicsCommand("y", z_bottom, z_top,
+                             [](double v) { return Short(v, "\xCE\xA9"); });
       out_ += "set ylabel " + GnuplotString("transimpedance (V/A = \xCE\xA9)") +
               "\n";
       out_ += "set logscale y2\n";
       out_ += "set y2range [" + Num(r_bottom) + ":" + Num(r_top) + "]\n";
       out_ += "set y2tics out\n";
-      out_ += LogTics("y2", r_bottom, r_top, GainLabel);
+      out_ += LogTicsCommand("y2", r_bottom, r_top, GainLabel);
       out_ += "set y2label 'noise gain, loop gain (V/V)'\n";
       ratio_axis = "x1y2";
     } else {
       out_ += "set yrange [" + Num(r_bottom) + ":" + Num(r_top) + "]\n";
-      out_ += LogTics("y", r_bottom, r_top, GainLabel);
+      out_ += LogTicsCommand("y", r_bottom, r_top, GainLabel);
       out_ += "set ylabel 'gain (V/V)'\n";
       out_ += "set y2range [" + Num(20.0 * std::log10(r_bottom)) + ":" +
               Num(20.0 * std::log10(r_top)) + "]\n";
@@ -454,12 +397,11 @@ class ScriptWriter {
     if (bw > 0)
       markers += Marker(bw, "-3 dB at " + FormatEng(bw, "Hz"), kColours[1]);
     if (crossover)
-      markers +=
-          Marker(b_.loop.crossover_hz,
-                 "crossover " + FormatEng(b_.loop.crossover_hz, "Hz") +
-                     ", PM " +
-                     Printf("%.1f", b_.loop.phase_margin_deg) + "\xC2\xB0",
-                 kColours[4]);
+      markers += Marker(b_.loop.crossover_hz,
+                        "crossover " + FormatEng(b_.loop.crossover_hz, "Hz") +
+                            ", PM " + Printf("%.1f", b_.loop.phase_margin_deg) +
+                            "\xC2\xB0",
+                        kColours[4]);
 
     const int cols = static_cast<int>(order_.size());
     out_ += "plot $samples using 1:" + std::to_string(cols + 3) +

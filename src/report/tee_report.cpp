@@ -5,7 +5,9 @@
 #include <nlohmann/json.hpp>
 
 #include "io/units.h"
+#include "noise/physical_constants.h"
 #include "report/table.h"
+#include "report/text_escape.h"
 
 namespace hushgain {
 namespace {
@@ -18,19 +20,7 @@ std::string Printf(const char* format, double value) {
   return buf;
 }
 
-std::string Number(double value) { return Printf("%.9g", value); }
-
 std::string Ohms(double value) { return FormatEng(value, kOhm); }
-
-std::string Ratio(double value) { return Printf("x%.4f", value); }
-
-double NoiseCost(const Budget& b) {
-  return b.tee ? b.tee->noise_cost_ratio : 1.0;
-}
-
-double GainError(const Budget& b, double target) {
-  return std::fabs(b.signal_gain_dc) / target - 1;
-}
 
 nlohmann::json BudgetFigures(const Budget& b) {
   return {
@@ -49,54 +39,87 @@ const Budget* FirstBudget(const TeeSweepResult& s) {
   return s.rows.empty() ? nullptr : &s.rows.front().budget;
 }
 
+std::string Band(const Budget& b) {
+  return FormatEng(b.band_low_hz, "Hz") + " to " +
+         FormatEng(b.band_high_hz, "Hz");
+}
+
+// The lines above a search table, shared by text and Markdown: the values
+// searched, the gain window and ranking, and how much was evaluated.
+std::string SearchSpace(const TeeSearchQuery& q) {
+  std::string out = q.series + " values " + Ohms(q.min_ohm) + " to " +
+                    Ohms(q.max_ohm) + " for R1, R2, R3";
+  if (q.input_min_ohm)
+    out += "; R_in " + Ohms(*q.input_min_ohm) + " to " + Ohms(*q.input_max_ohm);
+  return out;
+}
+
+std::string SearchGain(const TeeSearchQuery& q) {
+  std::string out = Printf("%.6g", q.target_gain) + " within " +
+                    Printf("%.3g %%", 100 * q.gain_tolerance) + "; ranked by " +
+                    q.ranking;
+  if (q.ranking == "weighted")
+    out += Printf(" (offset weight %.3g)", q.offset_weight);
+  return out;
+}
+
+std::string SearchCounts(const TeeSearchResult& s) {
+  return Printf("%.4g", static_cast<double>(s.combinations)) +
+         " combinations, " + std::to_string(s.in_tolerance) +
+         " evaluated in closed form, " + std::to_string(s.verified) +
+         " verified by the full engine";
+}
+
+const char* kGainErrorNote = "the full engine's DC gain against the target";
+const char* kNoiseCostNote = "output rms / one resistor of the same Req";
+
+std::string Item(const std::string& label, const std::string& text) {
+  return "- " + label + ": " + EscapeMarkdown(text) + "\n";
+}
+
+std::string Temperature(const Budget& b) {
+  return Printf("%.2f", b.temperature_k - kZeroCelsiusK) +
+         " \xC2\xB0"
+         "C (" +
+         Printf("%.2f", b.temperature_k) + " K)";
+}
+
 }  // namespace
 
 std::string SweepToText(const TeeSweepResult& s) {
   const Budget* first = FirstBudget(s);
   if (!first) return "";
-  const std::string unit = first->input_unit;
   std::string out = first->stage_name + "\n";
   out += "  T-network sweep at Req = " + Ohms(s.equivalent_ohm) +
          " (gain kept), largest resistor " + Ohms(s.rows.front().largest_ohm) +
          " down to " + Ohms(s.rows.back().largest_ohm) + "\n";
-  out += "  band " + FormatEng(first->band_low_hz, "Hz") + " to " +
-         FormatEng(first->band_high_hz, "Hz") +
+  out += "  band " + Band(*first) +
          "; the first row is the plain resistor; noise cost = output rms / "
          "the plain row's\n\n";
-  Table t;
-  t.header = {"largest",    "R1",        "R2",           "R3",        "e_n NG",
-              "output rms", "input rms", "offset worst", "noise cost"};
-  t.align.assign(t.header.size(), Table::Align::kRight);
-  for (const TeeSweepRow& r : s.rows) {
-    const Budget& b = r.budget;
-    t.AddRow({Ohms(r.largest_ohm), Ohms(r.tee.r1_ohm),
-              r.plain ? std::string("-") : Ohms(r.tee.r2_ohm),
-              r.plain ? std::string("(plain)") : Ohms(r.tee.r3_ohm),
-              Printf("%.4g", b.noise_gain_dc), FormatEng(b.output_rms_v, "V"),
-              FormatEng(b.input_rms, unit),
-              FormatEng(b.offset.worst_case_v, "V"),
-              Ratio(r.noise_cost_ratio)});
-  }
-  out += RenderText(t);
+  out += RenderText(SweepTable(s, TeeCells::kDisplay));
   return out;
 }
 
 std::string SweepToCsv(const TeeSweepResult& s) {
+  return RenderCsv(SweepTable(s, TeeCells::kCsv));
+}
+
+std::string SweepToMarkdown(const TeeSweepResult& s) {
   const Budget* first = FirstBudget(s);
-  const std::string unit = first ? first->input_unit : "V";
+  if (!first) return "";
   std::string out =
-      "largest_ohm,r1_ohm,r2_ohm,r3_ohm,plain,noise_gain_dc,output_rms_V,"
-      "input_rms_" +
-      unit + ",offset_worst_case_V,noise_cost_ratio\n";
-  for (const TeeSweepRow& r : s.rows) {
-    const Budget& b = r.budget;
-    out += Number(r.largest_ohm) + "," + Number(r.tee.r1_ohm) + "," +
-           Number(r.tee.r2_ohm) + "," + Number(r.tee.r3_ohm) + "," +
-           (r.plain ? "1" : "0") + "," + Number(b.noise_gain_dc) + "," +
-           Number(b.output_rms_v) + "," + Number(b.input_rms) + "," +
-           Number(b.offset.worst_case_v) + "," + Number(r.noise_cost_ratio) +
-           "\n";
-  }
+      "## T-network sweep: " + EscapeMarkdown(first->stage_name) + "\n\n";
+  out += Item("temperature", Temperature(*first));
+  out += Item("band", Band(*first));
+  out += Item("gain kept", Printf("%.4g", std::fabs(first->signal_gain_dc)) +
+                               (first->input_unit == "A" ? " V/A" : " V/V") +
+                               " at DC (the plain resistor's), Req = " +
+                               Ohms(s.equivalent_ohm));
+  out += Item("largest resistor", Ohms(s.rows.front().largest_ohm) +
+                                      " (the plain resistor) down to " +
+                                      Ohms(s.rows.back().largest_ohm));
+  out += "\n" + RenderMarkdown(SweepTable(s, TeeCells::kDisplay)) + "\n";
+  out += Item("noise cost", "output rms / the plain resistor's (first row)");
   return out;
 }
 
@@ -125,73 +148,41 @@ std::string SweepToJson(const TeeSweepResult& s) {
 
 std::string SearchToText(const TeeSearchResult& s, const TeeSearchQuery& q) {
   std::string out;
-  const std::string unit =
-      s.best.empty() ? std::string("V") : s.best.front().budget.input_unit;
   if (!s.best.empty()) out += s.best.front().budget.stage_name + "\n";
-  out += "  " + q.series + " values " + Ohms(q.min_ohm) + " to " +
-         Ohms(q.max_ohm) + " for R1, R2, R3";
-  if (q.input_min_ohm)
-    out += "; R_in " + Ohms(*q.input_min_ohm) + " to " + Ohms(*q.input_max_ohm);
-  out += "\n  gain " + Printf("%.6g", q.target_gain) + " within " +
-         Printf("%.3g %%", 100 * q.gain_tolerance) + "; ranked by " + q.ranking;
-  if (q.ranking == "weighted")
-    out += Printf(" (offset weight %.3g)", q.offset_weight);
-  out += "\n  " + Printf("%.4g", static_cast<double>(s.combinations)) +
-         " combinations, " + std::to_string(s.in_tolerance) +
-         " evaluated in closed form, " + std::to_string(s.verified) +
-         " verified by the full engine\n";
+  out += "  " + SearchSpace(q) + "\n";
+  out += "  gain " + SearchGain(q) + "\n";
+  out += "  " + SearchCounts(s) + "\n";
   if (s.cancelled)
     out += "  interrupted: the best of the part searched so far\n";
   out += "\n";
-  Table t;
-  t.header = {"#",         "R_in",         "R1",        "R2",
-              "R3",        "gain err",     "e_n NG",    "output rms",
-              "input rms", "offset worst", "noise cost"};
-  if (q.ranking == "weighted") t.header.push_back("score");
-  t.align.assign(t.header.size(), Table::Align::kRight);
-  int rank = 0;
-  for (const TeeCandidate& c : s.best) {
-    const Budget& b = c.budget;
-    std::vector<std::string> row = {
-        std::to_string(++rank),
-        Ohms(c.r_in_ohm),
-        Ohms(c.r1_ohm),
-        Ohms(c.r2_ohm),
-        Ohms(c.r3_ohm),
-        Printf("%+.3f %%", 100 * GainError(b, q.target_gain)),
-        Printf("%.4g", b.noise_gain_dc),
-        FormatEng(b.output_rms_v, "V"),
-        FormatEng(b.input_rms, unit),
-        FormatEng(b.offset.worst_case_v, "V"),
-        Ratio(NoiseCost(b))};
-    if (q.ranking == "weighted") row.push_back(Printf("%.4f", c.score));
-    t.AddRow(row);
-  }
-  out += RenderText(t);
-  out +=
-      "  gain err: the full engine's DC gain against the target; noise "
-      "cost: output rms / one resistor of the same Req\n";
+  out += RenderText(SearchTable(s, q, TeeCells::kDisplay));
+  out += std::string("  gain err: ") + kGainErrorNote +
+         "; noise cost: " + kNoiseCostNote + "\n";
   return out;
 }
 
 std::string SearchToCsv(const TeeSearchResult& s, const TeeSearchQuery& q) {
-  const std::string unit =
-      s.best.empty() ? std::string("V") : s.best.front().budget.input_unit;
+  return RenderCsv(SearchTable(s, q, TeeCells::kCsv));
+}
+
+std::string SearchToMarkdown(const TeeSearchResult& s,
+                             const TeeSearchQuery& q) {
+  const Budget* first = s.best.empty() ? nullptr : &s.best.front().budget;
   std::string out =
-      "rank,r_in_ohm,r1_ohm,r2_ohm,r3_ohm,signal_gain_dc,gain_error,"
-      "noise_gain_dc,output_rms_V,input_rms_" +
-      unit + ",offset_worst_case_V,noise_cost_ratio,score\n";
-  int rank = 0;
-  for (const TeeCandidate& c : s.best) {
-    const Budget& b = c.budget;
-    out += std::to_string(++rank) + "," + Number(c.r_in_ohm) + "," +
-           Number(c.r1_ohm) + "," + Number(c.r2_ohm) + "," + Number(c.r3_ohm) +
-           "," + Number(b.signal_gain_dc) + "," +
-           Number(GainError(b, q.target_gain)) + "," + Number(b.noise_gain_dc) +
-           "," + Number(b.output_rms_v) + "," + Number(b.input_rms) + "," +
-           Number(b.offset.worst_case_v) + "," + Number(NoiseCost(b)) + "," +
-           Number(c.score) + "\n";
+      "## T-network search: " + EscapeMarkdown(first ? first->stage_name : "") +
+      "\n\n";
+  if (first) {
+    out += Item("temperature", Temperature(*first));
+    out += Item("band", Band(*first));
   }
+  out += Item("target gain", SearchGain(q));
+  out += Item("search space", SearchSpace(q));
+  out += Item("searched", SearchCounts(s));
+  if (s.cancelled)
+    out += Item("interrupted", "the best of the part searched so far");
+  out += "\n" + RenderMarkdown(SearchTable(s, q, TeeCells::kDisplay)) + "\n";
+  out += Item("gain err", kGainErrorNote);
+  out += Item("noise cost", kNoiseCostNote);
   return out;
 }
 
@@ -218,8 +209,8 @@ std::string SearchToJson(const TeeSearchResult& s, const TeeSearchQuery& q) {
     row["r1_ohm"] = c.r1_ohm;
     row["r2_ohm"] = c.r2_ohm;
     row["r3_ohm"] = c.r3_ohm;
-    row["gain_error"] = GainError(c.budget, q.target_gain);
-    row["noise_cost_ratio"] = NoiseCost(c.budget);
+    row["gain_error"] = TeeGainError(c.budget, q.target_gain);
+    row["noise_cost_ratio"] = TeeNoiseCost(c.budget);
     row["score"] = c.score;
     best.push_back(row);
   }

@@ -21,49 +21,11 @@ using nlohmann::json;
 using test::ReadAll;
 using test::RunHushgain;
 using test::ScratchDir;
+using test::WellFormedXml;
 
 // A sheet of three panels is far above this; an empty or truncated
 // picture is far below.
 constexpr std::size_t kMinPictureBytes = 20000;
-
-// A minimal XML well-formedness check (XML 1.0, section 2.1 production
-// "document"): tags balance and nest, with comments, processing
-// instructions, the DOCTYPE and CDATA skipped; one root element.
-bool WellFormedXml(const std::string& xml, std::string* why) {
-  std::vector<std::string> open;
-  int roots = 0;
-  std::size_t i = 0;
-  while ((i = xml.find('<', i)) != std::string::npos) {
-    auto skip = [&](const char* start, const char* end) {
-      if (xml.compare(i, std::strlen(start), start) != 0) return false;
-      const std::size_t e = xml.find(end, i);
-      i = e == std::string::npos ? xml.size() : e + std::strlen(end);
-      return true;
-    };
-    if (skip("<!--", "-->") || skip("<?", "?>") || skip("<![CDATA[", "]]>") ||
-        skip("<!DOCTYPE", ">"))
-      continue;
-    const std::size_t end = xml.find('>', i);
-    if (end == std::string::npos) return *why = "unclosed tag", false;
-    std::string tag = xml.substr(i + 1, end - i - 1);
-    i = end + 1;
-    if (tag.empty()) return *why = "empty tag", false;
-    if (tag[0] == '/') {
-      const std::string name = tag.substr(1, tag.find_first_of(" \t\n") - 1);
-      if (open.empty() || open.back() != name)
-        return *why = "mismatched </" + name + ">", false;
-      open.pop_back();
-      continue;
-    }
-    const bool self_closing = tag.back() == '/';
-    const std::string name = tag.substr(0, tag.find_first_of(" \t\n/"));
-    if (open.empty()) ++roots;
-    if (!self_closing) open.push_back(name);
-  }
-  if (!open.empty()) return *why = "unclosed <" + open.back() + ">", false;
-  if (roots != 1) return *why = "expected one root element", false;
-  return true;
-}
 
 std::vector<std::string> ContributorNames(const std::string& stage) {
   const auto r = RunHushgain({"budget", "--json", stage});
@@ -178,22 +140,7 @@ TEST_CASE("names from the stage file reach gnuplot as text and never as code") {
     const std::string text = ReadAll(svg);
     std::string why;
     CHECK_MESSAGE(WellFormedXml(text, &why), why);
-    std::string decoded;
-    for (std::size_t k = 0; k < text.size(); ++k) {
-      bool replaced = false;
-      for (auto [entity, c] : {std::pair{"&amp;", '&'},
-                               {"&lt;", '<'},
-                               {"&gt;", '>'},
-                               {"&quot;", '"'},
-                               {"&apos;", '\''}})
-        if (text.compare(k, std::strlen(entity), entity) == 0) {
-          decoded += c;
-          k += std::strlen(entity) - 1;
-          replaced = true;
-          break;
-        }
-      if (!replaced) decoded += text[k];
-    }
+    const std::string decoded = test::DecodeXmlEntities(text);
     CHECK(decoded.find(">" + name + "<") != std::string::npos);
     // In the script the name appears once, as a double-quoted literal in
     // which every byte but letters and spaces is an octal escape
@@ -220,7 +167,8 @@ TEST_CASE("names from the stage file reach gnuplot as text and never as code") {
   }
 }
 
-TEST_CASE("without gnuplot the plot command names the package and writes nothing") {
+TEST_CASE(
+    "without gnuplot the plot command names the package and writes nothing") {
   ScratchDir dir("nognuplot");
   const std::string png = dir / "out.png";
   const auto r =

@@ -107,20 +107,6 @@ TEST_CASE("a search with nothing in tolerance says what to relax, exit 1") {
   CHECK(r.out.empty());
 }
 
-std::vector<std::vector<std::string>> ParseCsv(const std::string& text) {
-  std::vector<std::vector<std::string>> rows;
-  std::stringstream lines(text);
-  std::string line;
-  while (std::getline(lines, line)) {
-    std::vector<std::string> cells;
-    std::stringstream cs(line);
-    std::string cell;
-    while (std::getline(cs, cell, ',')) cells.push_back(cell);
-    rows.push_back(cells);
-  }
-  return rows;
-}
-
 TEST_CASE("tee search prints networks in tolerance, least noise first") {
   // The example's own gain is Req / (R_source + R_in) = 10.2 M / 11 k
   // (R1 = R2 = 100k, R3 = 1.02k; Kennelly's Req).
@@ -129,7 +115,8 @@ TEST_CASE("tee search prints networks in tolerance, least noise first") {
                             " --series E96 --max 100k --gain-tol 0.5% "
                             "--top 5 --csv");
   REQUIRE(r.exit_code == 0);
-  const auto rows = ParseCsv(r.out);
+  // RFC 4180 records (CRLF), read by test::ReadCsv.
+  const auto rows = test::ReadCsv(r.out);
   REQUIRE(rows.size() == 6);
   CHECK(rows[0][0] == "rank");
   CHECK(rows[0][8] == "output_rms_V");

@@ -1,0 +1,37 @@
+// Pieces of gnuplot scripts shared by the plot sheets (report/plot_script.h,
+// report/tee_plot_script.h): numbers for datablocks, short tic labels with
+// units, log-axis tic lists and an SI scale for a linear axis. Labels go
+// through GnuplotString (report/text_escape.h).
+#ifndef HUSHGAIN_REPORT_PLOT_AXES_H_
+#define HUSHGAIN_REPORT_PLOT_AXES_H_
+
+#include <functional>
+#include <string>
+#include <utility>
+
+namespace hushgain {
+
+// "%.9g", or "NaN" for a value that is not finite (gnuplot skips it).
+std::string PlotNumber(double value);
+
+// A positive value for a log axis, or "NaN".
+std::string PlotLogNumber(double value);
+
+// Engineering notation without trailing zeros, for tics: "10 Hz", "2.5 kΩ".
+std::string ShortEng(double value, const std::string& unit);
+
+// A gnuplot `set <axis>tics (...)` command for a log axis over
+// [v_min, v_max]: labelled at each decade, unlabelled minor tics at 2..9
+// times each decade; when fewer than three decades fall inside, 2 and 5
+// times each decade are labelled too, so a short axis still reads; with
+// no decade inside, every tic is labelled.
+std::string LogTicsCommand(const char* axis, double v_min, double v_max,
+                           const std::function<std::string(double)>& label);
+
+// The SI-prefixed unit and its scale for values up to `max`:
+// UnitScale(3e-4, "V") == {1e-6, "µV"}; {1, unit} when max is not positive.
+std::pair<double, std::string> UnitScale(double max, const std::string& unit);
+
+}  // namespace hushgain
+
+#endif  // HUSHGAIN_REPORT_PLOT_AXES_H_
