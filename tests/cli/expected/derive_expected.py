@@ -17,12 +17,23 @@ Two independent methods, neither shares code with the C++ engine:
      Ccm on each pin, Cdiff between the pins, Rout in series with the
      output), one direct solve per noise source (not the adjoint the engine
      uses), integrated with scipy.integrate.quad in ln f to 1e-10.
-The expectation for each figure comes from method 2 where the stage leaves
-closed-form territory (finite GBW inside the band, a feedback capacitor on a
-T network); method 1's value is written beside it with the relative
-difference, so the reader sees how far the example is from the closed forms.
-The DC offsets come from method 2 at f = 0 (finite A0), which agrees with
-the section 6 closed forms to about NG/A0.
+The expectation for each figure comes from method 2; method 1's value is
+written beside it with the relative difference, so the reader sees how far
+the example is from the closed forms (finite GBW inside the band mostly),
+and check_closed_form asserts that method 2 with an ideal op-amp
+reproduces method 1 to 1e-8. The DC offsets come from method 2 at f = 0
+(finite A0), which agrees with the section 6 closed forms to about NG/A0.
+
+Temperature (both methods): device and resistor values are given at 25 C
+and moved to the stage's temperature (at_temperature): a resistor with a
+technology (devices/resistors/*.json, the stage's "resistors" block) by
+R (1 + tc (T - 25 C)); |Vos| + |drift| |T - 25 C|; Ib and Ios by the
+class's law, 2^((T - 25 C)/interval) or 1 + coefficient (T - 25 C); 4kT at
+T. A stage with a temperature range also gets its figures at both ends.
+Excess noise (REFERENCES.md section 8): every resistor with a technology
+carries e_ex(f) = 10^(NI/20) 1e-6 V_DC / sqrt(ln(10) f) in series, V_DC its
+drop at the DC operating point, solved here (Network.dc_drops; method 1
+uses the ideal op-amp's DC point, closed_form_drops).
 
 A photodiode (transimpedance) stage: method 2 puts the photodiode's C_d and
 R_sh (noisy) from the - input to ground, the photocurrent and the dark
@@ -66,6 +77,8 @@ def quantity(value):
         return 10 ** (float(text[:-2]) / 20)
     if text.endswith("%"):
         return float(text[:-1]) / 100
+    if text.endswith("ppm"):
+        return float(text[:-3]) * 1e-6
     m = re.match(r"^([-+0-9.eE]+)\s*(.*)$", text)
     number, rest = float(m.group(1)), m.group(2)
     for unit in UNITS:
@@ -86,12 +99,24 @@ def load_stage(path):
     opamp.update(doc["opamp"].get("set", {}))
     p = {k: quantity(v) for k, v in opamp.items()
          if not isinstance(v, dict)}
+    law = opamp.get("bias_current_temperature", {"law": "constant"})
+    p["ib_law"] = (law["law"], quantity(law["interval_C"]) if law["law"] == "doubling"
+                   else quantity(law["per_C"]) if law["law"] == "coefficient" else 0.0)
     st = doc["stage"]
     fb = st["feedback"]
+    temp = doc.get("temperature_C", 25)
+    if isinstance(temp, dict):
+        nominal_c = quantity(temp.get("nominal", 25))
+        t_range = (quantity(temp["min"]) + ZERO_C, quantity(temp["max"]) + ZERO_C)
+    else:
+        nominal_c, t_range = quantity(temp), None
     tia = st.get("topology") == "transimpedance"
     stage = {
         "topology": st.get("topology", "inverting"),
-        "T": quantity(doc.get("temperature_C", 25)) + ZERO_C,
+        "T": nominal_c + ZERO_C,
+        "T_range": t_range,
+        "specs": resistor_specs(doc.get("resistors")),
+        "dc_input": quantity(doc.get("dc_input", 0)),
         "fL": quantity(doc["band_Hz"]["low"]),
         "fH": quantity(doc["band_Hz"]["high"]),
         "Rs": quantity(doc.get("source", {}).get("voltage", {}).get("resistance", 0)),
@@ -117,6 +142,95 @@ def load_stage(path):
     plus = st.get("plus_resistor")
     stage["Rp_mode"] = plus
     return stage
+
+
+def technology(name):
+    """A resistor technology file of devices/resistors: (noise index dB,
+    temperature coefficient 1/K)."""
+    with open(os.path.join(ROOT, "devices", "resistors", name + ".json")) as f:
+        doc = json.load(f)
+    return {"name": name, "NI": quantity(doc["noise_index_dB"]),
+            "tc": quantity(doc["temperature_coefficient_per_C"])}
+
+
+def resistor_specs(block):
+    """The stage file's "resistors" block: {"technology": default for the
+    stage's own parts, "<R name>": {"technology": ...}}. Returns
+    {"default": tech or None, "overrides": {name: tech}} (a tolerance does
+    not enter a budget)."""
+    specs = {"default": None, "overrides": {}}
+    if not block:
+        return specs
+    if "technology" in block:
+        specs["default"] = technology(block["technology"])
+    for key, value in block.items():
+        if isinstance(value, dict):
+            specs["overrides"][key] = (technology(value["technology"])
+                                       if "technology" in value
+                                       else specs["default"])
+    return specs
+
+
+def spec_for(stage, name):
+    """The technology of resistor `name`: its override, else the stage's
+    default for its own parts; the source resistance and the photodiode's
+    shunt are the sensor's, so only an override gives them one."""
+    specs = stage["specs"]
+    if name in specs["overrides"]:
+        return specs["overrides"][name]
+    if name in ("R_source", "R_sh"):
+        return None
+    return specs["default"]
+
+
+def bias_factor(op, T):
+    """k(T) of the class's bias-current law, 1 at 25 C: doubling every
+    interval, or 1 + coefficient (T - 25 C), or constant."""
+    law, value = op["ib_law"]
+    dt = T - (25 + ZERO_C)
+    if law == "doubling":
+        return 2 ** (dt / value)
+    if law == "coefficient":
+        return 1 + value * dt
+    return 1.0
+
+
+def at_temperature(stage, T):
+    """The stage with its 25 C values moved to T by the documented laws:
+    R (1 + tc (T - 25 C)) for a resistor with a technology; |Vos| + |drift|
+    |T - 25 C| (the drift's sign is unknown); Ib and Ios times the bias
+    law's k(T); 4kT at T. An "auto" R_plus is computed from the moved
+    values (plus_resistor below); the dark current stays as given."""
+    s = dict(stage)
+    s["T"] = T
+    dt = T - (25 + ZERO_C)
+    op = dict(stage["op"])
+    op["offset_voltage"] = (abs(op["offset_voltage"])
+                            + abs(op.get("offset_voltage_drift", 0.0)) * abs(dt))
+    k = bias_factor(op, T)
+    op["bias_current"] *= k
+    op["offset_current"] *= k
+    s["op"] = op
+
+    def moved(name, ohms):
+        spec = spec_for(stage, name)
+        return ohms * (1 + spec["tc"] * dt) if spec else ohms
+
+    tia = stage["topology"] == "transimpedance"
+    if not tia:
+        s["Rs"] = moved("R_source", stage["Rs"])
+        s["Rin"] = moved("R_in", stage["Rin"])
+    elif stage["Rsh"]:
+        s["Rsh"] = moved("R_sh", stage["Rsh"])
+    if "tee" in stage:
+        s["tee"] = tuple(moved(n, r) for n, r in zip(("R1", "R2", "R3"), stage["tee"]))
+    else:
+        s["Rf"] = moved("R_f", stage["Rf"])
+    if stage["Rp_mode"] not in (None, 0, "auto"):
+        s["Rp_mode"] = moved("R_plus", quantity(stage["Rp_mode"]))
+    if stage["RL"]:
+        s["RL"] = moved("R_load", stage["RL"])
+    return s
 
 
 def equivalent(stage):
@@ -194,6 +308,52 @@ class Network:
         if stage["RL"]:
             r.append(("R_load", "o", None, stage["RL"]))
         self.resistors = r
+        # Excess noise (REFERENCES.md section 8): a 1/f voltage in series
+        # with each resistor that has a technology, from its DC drop;
+        # name -> (node a, node b, ohms, K) with S_i(f) = K / (R^2 f) as a
+        # current across the resistor.
+        self.drops = self.dc_drops()
+        self.excess = {}
+        for name, a, b, ohms in r:
+            spec = spec_for(stage, name)
+            v = self.drops[name]
+            if spec is None or v == 0:
+                continue
+            k = (10 ** (spec["NI"] / 20) * 1e-6 * v) ** 2 / math.log(10)
+            self.excess[name + " excess"] = (a, b, ohms, k)
+
+    def dc_drops(self):
+        """The DC operating point the excess noise sees, solved here at f = 0
+        (finite A0): the stage's DC input (volts at the source's far end, or
+        amperes of photocurrent into the - input), +Vos at the e_n position,
+        Ib+ = Ib + Ios/2 and Ib- = Ib - Ios/2 drawn out of the pin nodes
+        (Ios taken positive), the dark current beside the photocurrent.
+        Returns {resistor name: V(a) - V(b)}."""
+        Y, src_col, amp_row = self.matrix(0.0)
+        op = self.s["op"]
+        dc = self.s["dc_input"]
+        rhs = np.zeros(self.N, dtype=complex)
+        if self.tia:
+            if amp_row != self.idx["n"]:
+                rhs[self.idx["n"]] += dc + self.s["Idark"]
+        else:
+            rhs += -src_col * dc
+        rhs[amp_row] += op["offset_voltage"]
+        ib_plus = op["bias_current"] + 0.5 * op["offset_current"]
+        ib_minus = op["bias_current"] - 0.5 * op["offset_current"]
+        if "p" in self.idx:
+            rhs[self.idx["p"]] -= ib_plus
+        rhs[self.idx["n"]] -= ib_minus
+        x = np.linalg.solve(Y, rhs).real
+
+        def v(node):
+            if node is None:
+                return 0.0
+            if node == "src":
+                return 0.0 if self.tia else dc
+            return x[self.idx[node]]
+
+        return {name: v(a) - v(b) for name, a, b, _ in self.resistors}
 
     def _index(self, node):
         if node is None or node == "src":
@@ -263,6 +423,9 @@ class Network:
             b = current_into(a) - current_into(b_node)
             cols.append(b)
             names.append((name, 4 * K_B * self.s["T"] / ohms))
+        for name, (a, b_node, ohms, k) in self.excess.items():
+            cols.append(current_into(a) - current_into(b_node))
+            names.append((name, ("1/f", k / ohms ** 2)))
         b = np.zeros(self.N, dtype=complex)
         b[amp_row] = 1
         cols.append(b)
@@ -289,22 +452,25 @@ class Network:
             out[name] = (x[o, k], psd)
         return out
 
-    def psd_total(self, f):
+    def psd_total(self, f, only=None):
+        """The output PSD at f: every source, or only the one named."""
         op = self.s["op"]
         ew, fcv = op["voltage_noise"], op.get("voltage_noise_corner", 0.0)
         iw, fci = op["current_noise"], op.get("current_noise_corner", 0.0)
         total = 0.0
         for name, (h, psd) in self.transfers(f).items():
-            if name == "signal":
+            if name == "signal" or (only is not None and name != only):
                 continue
             if name == "e_n":
                 psd = ew * ew * (1 + fcv / f)
             elif name.startswith("i_n"):
                 psd = iw * iw * (1 + fci / f)
+            elif isinstance(psd, tuple):  # excess: K / (R^2 f)
+                psd = psd[1] / f
             total += abs(h) ** 2 * psd
         return total
 
-    def output_rms(self):
+    def output_rms(self, only=None):
         fL, fH = self.s["fL"], self.s["fH"]
         # In u = ln f the integrand is S(f) f; split at every decade.
         edges = np.unique(np.concatenate((
@@ -314,7 +480,7 @@ class Network:
         edges = edges[(edges >= math.log(fL)) & (edges <= math.log(fH))]
         total = 0.0
         for lo, hi in zip(edges[:-1], edges[1:]):
-            v, _ = integrate.quad(lambda u: self.psd_total(math.exp(u)) * math.exp(u),
+            v, _ = integrate.quad(lambda u: self.psd_total(math.exp(u), only) * math.exp(u),
                                   lo, hi, epsabs=0, epsrel=1e-11, limit=200)
             total += v
         return math.sqrt(total)
@@ -480,14 +646,51 @@ def tia_closed_form(stage):
 
 
 
+def closed_form_drops(stage):
+    """The DC drops of the excess-noise operating point (the stimuli of
+    Network.dc_drops) with an ideal op-amp: V+ = -Ib+ R_plus, V- = V+ + Vos,
+    the input current (V_dc - V-)/(R_source + R_in), Ib- drawn at the - input,
+    the rest down the feedback (through R1 to the tee node, R3 to ground,
+    R2 to the output)."""
+    op = stage["op"]
+    rp = plus_resistor(stage)
+    ib_plus = op["bias_current"] + 0.5 * op["offset_current"]
+    ib_minus = op["bias_current"] - 0.5 * op["offset_current"]
+    v_plus = -ib_plus * rp
+    v_minus = v_plus + op["offset_voltage"]
+    i_in = (stage["dc_input"] - v_minus) / (stage["Rs"] + stage["Rin"])
+    i_fb = i_in - ib_minus
+    drops = {"R_source": i_in * stage["Rs"], "R_in": i_in * stage["Rin"],
+             "R_plus": v_plus}
+    if "tee" in stage:
+        r1, r2, r3 = stage["tee"]
+        v_t = v_minus - i_fb * r1
+        i_2 = i_fb - v_t / r3
+        drops.update({"R1": i_fb * r1, "R3": v_t, "R2": i_2 * r2})
+        drops["R_load"] = v_t - i_2 * r2
+    else:
+        drops["R_f"] = i_fb * stage["Rf"]
+        drops["R_load"] = v_minus - i_fb * stage["Rf"]
+    return drops
+
+
 def closed_form(stage):
     """Ideal op-amp, section 6 noise gains (R_source in series with R_in).
-    Returns (output rms, input-referred rms, worst-case offset); the feedback
-    capacitor of a plain stage is a single pole fp = 1/(2 pi Rf Cf) on every
-    term that flows through the feedback; None where no closed form is
-    written here (a T network with a capacitor)."""
+    Returns (output rms, input-referred rms, worst-case offset, {excess
+    contributor: output rms}). A feedback capacitor C from the - input to
+    the output is a single pole fp = 1/(2 pi R C) on every term that flows
+    through the feedback, R = R_f, or R_eq for a T network: with an ideal
+    op-amp the T network's transfers are exactly its DC gains over
+    (1 + s C R_eq) (KCL at the - input and the tee node), and its noise
+    gain is (NG_T + s C R_eq)/(1 + s C R_eq), the same form as the plain
+    stage's, so |NG|^2 = 1 + (NG0^2 - 1)/(1 + (f/fp)^2). Excess noise
+    (section 8) is a 1/f voltage in series with its resistor, with that
+    resistor's thermal-noise gain, from the drops of closed_form_drops; the
+    load reaches the output only through R_out, 0 here."""
     if stage["topology"] == "transimpedance":
-        return tia_closed_form(stage)
+        assert all(spec_for(stage, n) is None for n in ("R_f", "R_sh", "R_load")), \
+            "no closed form for a photodiode stage's excess noise is written here"
+        return tia_closed_form(stage) + ({},)
     T, fL, fH = stage["T"], stage["fL"], stage["fH"]
     op = stage["op"]
     ew, fcv = op["voltage_noise"], op.get("voltage_noise_corner", 0.0)
@@ -496,59 +699,83 @@ def closed_form(stage):
     rp = plus_resistor(stage)
     kt4 = 4 * K_B * T
 
-    def white_1f(corner, fp=None):
-        """integral over the band of (1 + corner/f) |1/(1 + j f/fp)|^2 df."""
-        if fp is None:
-            return (fH - fL) + corner * math.log(fH / fL)
-        white = fp * (math.atan(fH / fp) - math.atan(fL / fp))
-        # integral of 1/(f (1 + (f/fp)^2)) = ln f - ln(1 + (f/fp)^2) / 2
-        def g(f):
-            return math.log(f) - 0.5 * math.log1p((f / fp) ** 2)
-        return white + corner * (g(fH) - g(fL))
-
     if "tee" in stage:
-        if stage["Cf"] > 0:
-            return None
         r1, r2, r3 = stage["tee"]
-        req = equivalent(stage)
-        ng = 1 + r2 / r3 + req / rin  # NG_T
-        gain = req / rin
-        band = white_1f(0)
-        power = kt4 * (stage["Rs"] + stage["Rin"]) * gain ** 2 * band
-        power += kt4 * r1 * (1 + r2 / r3) ** 2 * band
-        power += kt4 * r2 * band
-        power += kt4 * r3 * (r2 / r3) ** 2 * band
-        power += (ew * ng) ** 2 * white_1f(fcv)
-        power += (iw * req) ** 2 * white_1f(fci)
-        power += (kt4 * rp * ng ** 2 + (iw * rp * ng) ** 2) * band if rp else 0
-        vos = op["offset_voltage"] * ng
-        ib = op["bias_current"] * (req - rp * ng)
-        ios = 0.5 * op["offset_current"] * (req + rp * ng)
+        rfb = equivalent(stage)
+        ng0 = 1 + r2 / r3 + rfb / rin  # NG_T
+        paths = [("R1", r1, 1 + r2 / r3), ("R2", r2, 1.0), ("R3", r3, r2 / r3)]
     else:
-        rf, cf = stage["Rf"], stage["Cf"]
-        fp = 1 / (2 * math.pi * rf * cf) if cf > 0 else None
-        ng0 = 1 + rf / rin
-        gain = rf / rin
-        # |NG(f)|^2 = 1 + (NG0^2 - 1) / (1 + (f/fp)^2): the flat 1 plus the
-        # feedback pole on the rest.
-        def ng2_integral(corner):
-            return white_1f(corner) + (ng0 ** 2 - 1) * white_1f(corner, fp) \
-                if fp else ng0 ** 2 * white_1f(corner)
-        power = kt4 * rin * gain ** 2 * white_1f(0, fp)
-        power += kt4 * rf * white_1f(0, fp)
-        power += (ew ** 2) * ng2_integral(fcv)
-        power += (iw * rf) ** 2 * white_1f(fci, fp)
-        if rp:
-            power += kt4 * rp * ng2_integral(0)
-            power += iw ** 2 * rp ** 2 * ng2_integral(fci)
-        ng = ng0
-        if fp:  # the input-referred figure divides by |gain(f_ref)|
-            gain /= math.sqrt(1 + (stage["fref"] / fp) ** 2)
-        vos = op["offset_voltage"] * ng
-        ib = op["bias_current"] * (rf - rp * ng)
-        ios = 0.5 * op["offset_current"] * (rf + rp * ng)
+        rfb = stage["Rf"]
+        ng0 = 1 + rfb / rin
+        paths = [("R_f", rfb, 1.0)]
+    gain = rfb / rin
+    paths = [("R_source", stage["Rs"], gain), ("R_in", stage["Rin"], gain)] + paths
+    paths = [(n, r, g, "pole") for n, r, g in paths if r > 0]
+    if rp:
+        paths.append(("R_plus", rp, ng0, "ng"))
+    fp = 1 / (2 * math.pi * rfb * stage["Cf"]) if stage["Cf"] > 0 else None
+
+    def pole(flicker, at_fp):
+        """integral over the band of |1/(1 + j f/fp)|^2 df, or of that / f."""
+        if at_fp is None:
+            return math.log(fH / fL) if flicker else fH - fL
+        if flicker:  # integral of 1/(f (1 + (f/fp)^2)) = ln f - ln(1 + (f/fp)^2)/2
+            def g(f):
+                return math.log(f) - 0.5 * math.log1p((f / at_fp) ** 2)
+            return g(fH) - g(fL)
+        return at_fp * (math.atan(fH / at_fp) - math.atan(fL / at_fp))
+
+    def band(shape, white, flicker):
+        """integral of |H/H(0)|^2 (white + flicker/f) over the band."""
+        def part(flick):
+            if shape == "pole":
+                return pole(flick, fp)
+            # |NG|^2 / NG0^2 = (1 + (NG0^2 - 1)|pole|^2) / NG0^2
+            if fp is None:
+                return pole(flick, None)
+            return (pole(flick, None) + (ng0 ** 2 - 1) * pole(flick, fp)) / ng0 ** 2
+        return white * part(False) + flicker * part(True)
+
+    power = 0.0
+    for name, ohms, g, shape in paths:
+        power += kt4 * ohms * g ** 2 * band(shape, 1, 0)
+    power += (ew * ng0) ** 2 * band("ng", 1, fcv)
+    power += (iw * rfb) ** 2 * band("pole", 1, fci)
+    if rp:
+        power += (iw * rp * ng0) ** 2 * band("ng", 1, fci)
+    drops = closed_form_drops(stage)
+    excess = {}
+    for name, ohms, g, shape in paths:
+        spec = spec_for(stage, name)
+        if spec is None or drops[name] == 0:
+            continue
+        k = (10 ** (spec["NI"] / 20) * 1e-6 * drops[name]) ** 2 / math.log(10)
+        excess[name + " excess"] = math.sqrt(k * g ** 2 * band(shape, 0, 1))
+        power += excess[name + " excess"] ** 2
+    if fp:  # the input-referred figure divides by |gain(f_ref)|
+        gain /= math.sqrt(1 + (stage["fref"] / fp) ** 2)
+    vos = op["offset_voltage"] * ng0
+    ib = op["bias_current"] * (rfb - rp * ng0)
+    ios = 0.5 * op["offset_current"] * (rfb + rp * ng0)
     rms = math.sqrt(power)
-    return rms, rms / gain, vos + abs(ib) + ios
+    return rms, rms / gain, vos + abs(ib) + ios, excess
+
+
+def check_closed_form(stage):
+    """The closed forms must be the nodal analysis's limit for an ideal
+    op-amp: A0 = 1e12 with its pole at 1 MHz, no R_out, no pin capacitance.
+    Fails loudly otherwise; returns the largest relative gap."""
+    ideal = dict(stage)
+    ideal["op"] = dict(stage["op"], open_loop_gain=1e12, gbw=1e18,
+                       output_resistance=0.0, input_capacitance_cm=0.0,
+                       input_capacitance_diff=0.0)
+    net = Network(ideal)
+    cf = closed_form(ideal)
+    gaps = [net.output_rms() / cf[0] - 1, net.offsets()[3] / cf[2] - 1]
+    gaps += [net.output_rms(only=c) / cf[3][c] - 1 for c in cf[3]]
+    worst = max(abs(g) for g in gaps)
+    assert worst < 1e-8, gaps
+    return worst
 
 
 def tee_cost(stage):
@@ -561,17 +788,43 @@ def tee_cost(stage):
 # Why each example does or does not sit in closed-form territory.
 NOTES = {
     "hydrophone-preamp.json":
-        "the closed-loop bandwidth (about 19 kHz, GBW / NG_T) is only 4x the "
-        "band's 5 kHz edge, so the ideal closed forms are about 1 % high; the "
-        "nodal analysis with the finite GBW is the expectation",
+        "at 15 C: V_os = 300 uV + 3 uV/C x 10 C, I_b and I_os halved "
+        "(doubling every 10 C), 4kT at 288.15 K; no resistors block, so no "
+        "tempco and no excess noise. The closed-loop bandwidth (about 19 "
+        "kHz, GBW / NG_T) is only 4x the band's 5 kHz edge, so the ideal "
+        "closed forms are about 1 % high; the nodal analysis with the finite "
+        "GBW is the expectation. Offset: the closed form is high by about "
+        "NG_T/A0 = 1e-3",
     "load-cell-bridge.json":
-        "closed-form territory: 0.1-10 Hz, far below GBW / NG; the closed "
+        "at 25 C, where every temperature law is the identity. Closed-form "
+        "territory: 0.1-10 Hz, far below GBW / NG; the closed "
         "forms carry the feedback capacitor's pole exactly and differ by "
         "about 1e-4 only through the finite GBW seen through that pole's "
         "phase (Re(NG/A) = |NG| f/GBW sin(phase of NG))",
+    "pressure-bridge-outdoor.json":
+        "a T network with a capacitor over -20/25/70 C, thin film with a "
+        "thick-film R3 and R_plus, a -5 mV DC input. Nominal figures at 25 C "
+        "(laws the identity); the _at_min/_at_max figures move the 25 C "
+        "values to each end (R (1 + tc dT), |V_os| + |drift| |dT|, I_b and "
+        "I_os x (1 - 0.3 %/C dT), 4kT at T, the auto R_plus rebalanced "
+        "from the moved values, as budget/stage_at_temperature.h states; a "
+        "thick-film part fixed at its 25 C balance value and moved by its "
+        "own 100 ppm/C would leave an I_b term of +20 uV at -20 C and -15 uV "
+        "at 70 C, +5e-4 on those worst cases). Excess noise: section 8's 1/f density from "
+        "each resistor's DC drop (+V_os, I_b +- I_os/2 drawn at the pins, "
+        "the DC input); each excess contributor is listed on its own, as "
+        "together they are about 1e-4 of the output rms, under the total's "
+        "tolerance. Closed forms (ideal op-amp, every feedback transfer over "
+        "1 + s C R_eq, drops from the ideal DC point) are reproduced to "
+        "2e-9 by the nodal analysis of an ideal op-amp (check_closed_form); "
+        "against the real one they are about 1 % high, all of it the 1 MHz "
+        "GBW seen through the feedback pole's phase (GBW / NG_T about 1 kHz, "
+        "the pole at 320 Hz); the excess terms, weighted to low frequency, "
+        "0.26 %. Offsets: high by about NG_T/A0 = 1.7e-4",
     "smoke-chamber-receiver.json":
-        "a photodiode transimpedance stage with C_f chosen for a "
-        "Butterworth response. Noise: the section 7 model (integrator "
+        "a photodiode transimpedance stage at 40 C with C_f chosen for a "
+        "Butterworth response on the stage at 40 C. Noise: the section 7 "
+        "model (integrator "
         "op-amp, no R_out, no load, C = C_d + C_cm + C_diff) integrated "
         "here sits 5e-4 below the nodal analysis, which keeps A0, R_out "
         "and the load. C_f: the nodal response's Q = 1/sqrt 2 point is "
@@ -582,19 +835,38 @@ NOTES = {
         "closed form is the model's limit and the nodal value is the "
         "expectation. Offset: ideal-op-amp closed form V_os (1 + R_f/R_sh) "
         "+ (I_b + I_os/2 + I_dark) R_f, 1e-6 from the finite-A0 solve; "
-        "bias current as stated (the device's temperature law is not "
-        "applied, as in the engine)",
+        "V_os = 300 uV + 3 uV/C x 15 C, I_b and I_os x 2^1.5 (doubling every "
+        "10 C), the dark current as given",
     "thermopile-stage.json":
-        "a capacitor across a T network: no closed form is written here; the "
-        "nodal analysis is the only expectation",
+        "a capacitor across a T network at 35 C (V_os + 0.2 uV/C x 10 C, "
+        "I_b and I_os x 0.97; no resistors block). With an ideal op-amp "
+        "every feedback transfer is its DC gain over 1 + s C R_eq and the "
+        "noise gain (NG_T + s C R_eq)/(1 + s C R_eq); those closed forms "
+        "are 1e-4 above the nodal analysis, which is the expectation",
 }
+
+
+NODAL = ("nodal analysis in derive_expected.py, direct solve per source, "
+         "scipy quad to 1e-11")
+NODAL_DC = "nodal analysis at DC (finite A0) in derive_expected.py"
+
+
+def entry(value, method, closed=None):
+    out = {"value": float("%.10g" % value), "method": method}
+    if closed is not None:
+        out["closed_form"] = float("%.10g" % closed)
+        out["closed_form_rel_diff"] = float("%.3g" % (value / closed - 1))
+    return out
 
 
 def main():
     examples = sorted(f for f in os.listdir(os.path.join(ROOT, "examples"))
                       if f.endswith(".json"))
     for name in examples:
-        stage = load_stage(os.path.join(ROOT, "examples", name))
+        given = load_stage(os.path.join(ROOT, "examples", name))
+        # Every budget is of the stage moved from its 25 C values to its
+        # (nominal) temperature.
+        stage = at_temperature(given, given["T"])
         closed = {}
         cap = None
         if stage["Cf_target"]:
@@ -610,8 +882,11 @@ def main():
         net = Network(stage)
         rms = net.output_rms()
         gain_ref = net.signal_gain(stage["fref"])
-        vos, ib, ios, worst = net.offsets()
+        worst = net.offsets()[3]
         cf = closed_form(stage)
+        if stage["topology"] != "transimpedance":
+            print(name, "closed forms against the nodal analysis of an ideal "
+                  "op-amp: %.2g" % check_closed_form(stage))
         figures = {
             "output_rms_V": rms,
             "input_referred_rms": rms / gain_ref,
@@ -619,40 +894,59 @@ def main():
         }
         if cap is not None:
             figures["feedback_capacitor_F"] = cap
-        if cf:
-            closed.update({"output_rms_V": cf[0], "input_referred_rms": cf[1],
-                           "worst_case_V": cf[2]})
+        if cf[0] is not None:
+            closed.update({"output_rms_V": cf[0], "input_referred_rms": cf[1]})
+        closed["worst_case_V"] = cf[2]
         if "tee" in stage:
             ratio, plain = tee_cost(stage)
             figures["noise_cost_ratio"] = ratio
             cp = closed_form(plain)
-            if cf and cp:
-                closed["noise_cost_ratio"] = cf[0] / cp[0]
+            closed["noise_cost_ratio"] = cf[0] / cp[0]
+        if stage["T_range"]:
+            # The ends of the range: the 25 C stage moved to each end, the
+            # feedback capacitor as at the nominal temperature.
+            fixed = dict(given, Cf=stage["Cf"], Cf_target=None)
+            for end, t_end in zip(("min", "max"), stage["T_range"]):
+                corner = at_temperature(fixed, t_end)
+                corner_net = Network(corner)
+                corner_cf = closed_form(corner)
+                figures["output_rms_V_at_" + end] = corner_net.output_rms()
+                figures["worst_case_V_at_" + end] = corner_net.offsets()[3]
+                closed["output_rms_V_at_" + end] = corner_cf[0]
+                closed["worst_case_V_at_" + end] = corner_cf[2]
         out = {"example": "examples/" + name, "note": NOTES.get(name, ""),
+               "temperature_C": round(stage["T"] - ZERO_C, 10),
                "figures": {}}
         for key, value in figures.items():
-            entry = {"value": float("%.10g" % value),
-                     "method": "nodal analysis in derive_expected.py, direct "
-                               "solve per source, scipy quad to 1e-11"}
-            if key == "worst_case_V":
-                entry["method"] = ("nodal analysis at DC (finite A0) in "
-                                   "derive_expected.py")
+            method = NODAL
+            if key.startswith("worst_case_V"):
+                method = NODAL_DC
             if key == "feedback_capacitor_F":
-                entry["method"] = ("Q = 1/sqrt 2 at the -90 degree point of "
-                                   "this file's nodal closed-loop response, "
-                                   "brentq in ln C_f; closed_form is "
-                                   "REFERENCES.md section 7's exact "
-                                   "sqrt(2 wt Rf C - 1)/(wt Rf)")
-            if key in closed:
-                entry["closed_form"] = float("%.10g" % closed[key])
-                entry["closed_form_rel_diff"] = float(
-                    "%.3g" % (value / closed[key] - 1))
-            out["figures"][key] = entry
+                method = ("Q = 1/sqrt 2 at the -90 degree point of "
+                          "this file's nodal closed-loop response, "
+                          "brentq in ln C_f; closed_form is "
+                          "REFERENCES.md section 7's exact "
+                          "sqrt(2 wt Rf C - 1)/(wt Rf)")
+            out["figures"][key] = entry(value, method, closed.get(key))
+        # Each resistor's excess noise on its own: in the total it may sit
+        # far below the total's tolerance.
+        if net.excess:
+            out["contributors_output_rms_V"] = {
+                c: entry(net.output_rms(only=c),
+                         NODAL + "; 1/f density from REFERENCES.md section 8 "
+                         "on this file's own DC solve of the resistor's drop"
+                         + ("" if c in cf[3] else "; no closed form: with an "
+                            "ideal op-amp (no R_out) it does not reach the "
+                            "output"),
+                         cf[3].get(c))
+                for c in sorted(net.excess)}
         target = os.path.join(HERE, name)
         with open(target, "w") as f:
             json.dump(out, f, indent=2, sort_keys=True)
             f.write("\n")
         print(name, json.dumps(out["figures"], sort_keys=True))
+        for c, e in out.get("contributors_output_rms_V", {}).items():
+            print("   ", c, json.dumps(e, sort_keys=True))
 
 
 if __name__ == "__main__":
