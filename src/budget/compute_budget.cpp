@@ -297,15 +297,6 @@ BudgetOutcome ComputeBudgetAsGiven(const Stage& requested, const BudgetOptions& 
     if (!s.ok) return {s, b, {}, {}};
   }
 
-  if (options.compare_tee && stage.feedback.kind == Feedback::Kind::kTee) {
-    BudgetOptions plain_options = options;
-    plain_options.compare_tee = false;
-    plain_options.temperature_corners = false;
-    plain_options.compensation = false;
-    BudgetOutcome plain = ComputeBudgetAsGiven(PlainEquivalent(stage), plain_options);
-    if (!plain.status.ok) return {plain.status, b, {}, {}};
-    b.tee = CompareTee(b, plain.budget, FeedbackEquivalentOhm(stage.feedback));
-  }
   if (options.compensation) {
     CompensationBlock block;
     s = ComputeCompensationBlock(stage, options, &block);
@@ -320,8 +311,25 @@ BudgetOutcome ComputeBudgetAsGiven(const Stage& requested, const BudgetOptions& 
 BudgetOutcome ComputeBudget(const Stage& requested, const BudgetOptions& options) {
   BudgetOutcome outcome =
       ComputeBudgetAsGiven(StageAtTemperature(requested, requested.temperature_k), options);
-  if (!outcome.status.ok || !options.temperature_corners || !requested.temperature_range)
-    return outcome;
+  if (!outcome.status.ok) return outcome;
+  if (options.compare_tee && requested.feedback.kind == Feedback::Kind::kTee) {
+    // The plain stage is the designer's alternative: built from the stage as
+    // given (its own "auto" R_plus fitted to it), with the same capacitor,
+    // then moved to the same temperature.
+    Stage given = requested;
+    given.feedback.capacitor_f = outcome.stage_used.feedback.capacitor_f;
+    given.capacitor_target.reset();
+    BudgetOptions plain_options = options;
+    plain_options.compare_tee = false;
+    plain_options.temperature_corners = false;
+    plain_options.compensation = false;
+    const Stage plain_stage = StageAtTemperature(PlainEquivalent(given), requested.temperature_k);
+    BudgetOutcome plain = ComputeBudgetAsGiven(plain_stage, plain_options);
+    if (!plain.status.ok) return {plain.status, outcome.budget, {}, {}};
+    outcome.budget.tee = CompareTee(outcome.budget, plain.budget,
+                                    FeedbackEquivalentOhm(outcome.stage_used.feedback));
+  }
+  if (!options.temperature_corners || !requested.temperature_range) return outcome;
   TemperatureBlock block;
   Status s = ComputeTemperatureBlock(requested, outcome.budget,
                                      outcome.stage_used.feedback.capacitor_f, options, &block);

@@ -55,7 +55,8 @@ struct BudgetOutcome {
 BudgetOutcome ComputeBudget(const Stage& stage, const BudgetOptions& options);
 
 // The same for a stage already moved to its temperature (no further
-// temperature laws applied).
+// temperature laws applied), without the tee comparison and the temperature
+// block (which need the stage as given).
 BudgetOutcome ComputeBudgetAsGiven(const Stage& stage, const BudgetOptions& options);
 
 // The plain stage that a T network stands in for: the same stage with one

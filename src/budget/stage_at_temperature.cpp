@@ -2,6 +2,7 @@
 
 #include <cmath>
 
+#include "circuit/expand_stage.h"
 #include "circuit/stage_resistors.h"
 
 namespace hushgain {
@@ -33,6 +34,10 @@ Stage StageAtTemperature(const Stage& stage, double temperature_k) {
   const double k = BiasCurrentFactor(stage.opamp, temperature_k);
   m.ib_a *= k;
   m.ios_a *= k;
+  // An "auto" R_plus is a real part: fitted at 25 °C, then it drifts with
+  // its own technology like every other resistor.
+  if (out.plus_resistor.mode == PlusResistor::Mode::kAuto)
+    out.plus_resistor = {PlusResistor::Mode::kValue, BalanceResistorOhm(stage)};
   for (auto& [name, ohms] : StageResistors(out)) {
     const ResistorSpec* spec = ResistorSpecFor(stage, name);
     if (spec)

@@ -9,8 +9,10 @@
 //              1 + coefficient (T - 25 °C). Ios scales like Ib (an offset
 //              current is a mismatch of the two bias currents).
 //   noise      4kT at T (the stage's temperature_k becomes T)
-// An "auto" R_plus stays automatic: its balance value is computed from the
-// resistor values at T. The photodiode's dark current is left as given.
+// An "auto" R_plus is a real part: its value is the balance value at 25 °C,
+// and at T it drifts with its own technology like the others (so the Ib term
+// cancels exactly only where the resistors' tempcos agree). The photodiode's
+// dark current is left as given.
 #ifndef HUSHGAIN_BUDGET_STAGE_AT_TEMPERATURE_H_
 #define HUSHGAIN_BUDGET_STAGE_AT_TEMPERATURE_H_
 

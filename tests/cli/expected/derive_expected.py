@@ -199,8 +199,9 @@ def at_temperature(stage, T):
     """The stage with its 25 C values moved to T by the documented laws:
     R (1 + tc (T - 25 C)) for a resistor with a technology; |Vos| + |drift|
     |T - 25 C| (the drift's sign is unknown); Ib and Ios times the bias
-    law's k(T); 4kT at T. An "auto" R_plus is computed from the moved
-    values (plus_resistor below); the dark current stays as given."""
+    law's k(T); 4kT at T. An "auto" R_plus is fitted at 25 C (plus_resistor
+    below) and then drifts like any resistor; the dark current stays as
+    given."""
     s = dict(stage)
     s["T"] = T
     dt = T - (25 + ZERO_C)
@@ -226,7 +227,10 @@ def at_temperature(stage, T):
         s["tee"] = tuple(moved(n, r) for n, r in zip(("R1", "R2", "R3"), stage["tee"]))
     else:
         s["Rf"] = moved("R_f", stage["Rf"])
-    if stage["Rp_mode"] not in (None, 0, "auto"):
+    if stage["Rp_mode"] == "auto":
+        # A real part: fitted to the balance value at 25 C, then it drifts.
+        s["Rp_mode"] = moved("R_plus", plus_resistor(stage))
+    elif stage["Rp_mode"] not in (None, 0):
         s["Rp_mode"] = moved("R_plus", quantity(stage["Rp_mode"]))
     if stage["RL"]:
         s["RL"] = moved("R_load", stage["RL"])
@@ -778,10 +782,14 @@ def check_closed_form(stage):
     return worst
 
 
-def tee_cost(stage):
-    plain = dict(stage)
+def tee_cost(stage, given):
+    """The tee stage (at its temperature) against the plain stage built
+    from the stage as given (25 C values, its own "auto" R_plus fitted to
+    it) and then moved to the same temperature, with the same C_f."""
+    plain = dict(given, Cf=stage["Cf"], Cf_target=None)
     plain.pop("tee")
-    plain["Rf"] = equivalent(stage)
+    plain["Rf"] = equivalent(given)
+    plain = at_temperature(plain, stage["T"])
     return Network(stage).output_rms() / Network(plain).output_rms(), plain
 
 
@@ -898,7 +906,7 @@ def main():
             closed.update({"output_rms_V": cf[0], "input_referred_rms": cf[1]})
         closed["worst_case_V"] = cf[2]
         if "tee" in stage:
-            ratio, plain = tee_cost(stage)
+            ratio, plain = tee_cost(stage, given)
             figures["noise_cost_ratio"] = ratio
             cp = closed_form(plain)
             closed["noise_cost_ratio"] = cf[0] / cp[0]
