@@ -1,22 +1,16 @@
 #include "report/budget_tables.h"
 
 #include <cmath>
-
 #include <cstdio>
 
 #include "io/units.h"
+#include "report/printf.h"
 
 namespace hushgain {
 namespace {
 
 constexpr const char* kPerRtHz = "/\xE2\x88\x9AHz";  // "/√Hz"
 constexpr const char* kOhm = "\xCE\xA9";             // "Ω"
-
-std::string Printf(const char* format, double value) {
-  char buf[64];
-  std::snprintf(buf, sizeof buf, format, value);
-  return buf;
-}
 
 std::string KindLabel(const std::string& kind) {
   if (kind == "voltage_noise") return "op-amp e_n";
@@ -87,8 +81,10 @@ Table NoiseTable(const Budget& b) {
               FormatEng(c.output_rms_v, "V"), FormatShare(c.share)});
   }
   if (folded > 0)
-    t.AddRow({"other excess (" + std::to_string(folded) + ")", KindLabel("excess"), "", "", "",
-              FormatEng(std::sqrt(folded_power), "V"), FormatShare(folded_share)});
+    t.AddRow({"other excess (" + std::to_string(folded) + ")",
+              KindLabel("excess"), "", "", "",
+              FormatEng(std::sqrt(folded_power), "V"),
+              FormatShare(folded_share)});
   t.AddRule();
   t.AddRow({"total", "", "", "",
             FormatDensity(b.output_density_ref_v_per_rthz, "V"),

@@ -6,17 +6,12 @@
 #include "io/units.h"
 #include "noise/physical_constants.h"
 #include "report/budget_tables.h"
+#include "report/printf.h"
 #include "report/table.h"
 #include "report/text_escape.h"
 
 namespace hushgain {
 namespace {
-
-std::string Printf(const char* format, double value) {
-  char buf[64];
-  std::snprintf(buf, sizeof buf, format, value);
-  return buf;
-}
 
 std::string Item(const std::string& label, const std::string& text) {
   return "- " + label + ": " + EscapeMarkdown(text) + "\n";

@@ -8,6 +8,7 @@
 #include "io/units.h"
 #include "noise/physical_constants.h"
 #include "report/plot_axes.h"
+#include "report/printf.h"
 #include "report/text_escape.h"
 
 namespace hushgain {
@@ -50,12 +51,6 @@ constexpr const char* kColours[] = {"#1f5fa8", "#d1495b", "#2e933c", "#e09f1f",
 constexpr int kColourCount = sizeof kColours / sizeof kColours[0];
 constexpr const char* kBandShade = "#e4e4e4";
 constexpr const char* kEdgeColour = "#444444";
-
-std::string Printf(const char* format, double value) {
-  char buf[80];
-  std::snprintf(buf, sizeof buf, format, value);
-  return buf;
-}
 
 // 0.5, 20, 5000, then 1e4, 2e5: short enough for a tic.
 std::string GainLabel(double value) {

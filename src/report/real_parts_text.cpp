@@ -6,16 +6,11 @@
 
 #include "io/units.h"
 #include "noise/physical_constants.h"
+#include "report/printf.h"
 #include "report/table.h"
 
 namespace hushgain {
 namespace {
-
-std::string Printf(const char* format, double value) {
-  char buf[64];
-  std::snprintf(buf, sizeof buf, format, value);
-  return buf;
-}
 
 std::string Percent(double fraction) {
   if (fraction > 0 && fraction < 0.0005) return "<0.1 %";

@@ -5,16 +5,11 @@
 
 #include "io/units.h"
 #include "noise/physical_constants.h"
+#include "report/printf.h"
 #include "report/table.h"
 
 namespace hushgain {
 namespace {
-
-std::string Printf(const char* format, double value) {
-  char buf[64];
-  std::snprintf(buf, sizeof buf, format, value);
-  return buf;
-}
 
 std::string Ppm(double relative) { return Printf("%.1f ppm", relative * 1e6); }
 

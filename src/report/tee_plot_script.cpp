@@ -9,6 +9,7 @@
 #include "io/units.h"
 #include "noise/physical_constants.h"
 #include "report/plot_axes.h"
+#include "report/printf.h"
 #include "report/text_escape.h"
 
 namespace hushgain {
@@ -35,12 +36,6 @@ constexpr const char* kPartColours[] = {"#1f5fa8", "#d1495b", "#2e933c",
                                         "#7b4b94"};
 
 std::string Num(double v) { return PlotNumber(v); }
-
-std::string Printf(const char* format, double value) {
-  char buf[80];
-  std::snprintf(buf, sizeof buf, format, value);
-  return buf;
-}
 
 std::string Temperature(const Budget& b) {
   return Printf("%.2f", b.temperature_k - kZeroCelsiusK) +

@@ -6,6 +6,7 @@
 
 #include "io/units.h"
 #include "noise/physical_constants.h"
+#include "report/printf.h"
 #include "report/table.h"
 #include "report/text_escape.h"
 
@@ -13,12 +14,6 @@ namespace hushgain {
 namespace {
 
 constexpr const char* kOhm = "\xCE\xA9";
-
-std::string Printf(const char* format, double value) {
-  char buf[64];
-  std::snprintf(buf, sizeof buf, format, value);
-  return buf;
-}
 
 std::string Ohms(double value) { return FormatEng(value, kOhm); }
 

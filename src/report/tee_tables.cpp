@@ -7,17 +7,12 @@
 
 #include "io/units.h"
 #include "report/csv_report.h"
+#include "report/printf.h"
 
 namespace hushgain {
 namespace {
 
 constexpr const char* kOhm = "\xCE\xA9";
-
-std::string Printf(const char* format, double value) {
-  char buf[64];
-  std::snprintf(buf, sizeof buf, format, value);
-  return buf;
-}
 
 std::string Ohms(double value) { return FormatEng(value, kOhm); }
 std::string Ratio(double value) { return Printf("x%.4f", value); }

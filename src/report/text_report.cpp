@@ -6,6 +6,7 @@
 #include "io/units.h"
 #include "noise/physical_constants.h"
 #include "report/budget_tables.h"
+#include "report/printf.h"
 #include "report/real_parts_text.h"
 #include "report/table.h"
 
@@ -18,12 +19,6 @@ std::string Gain(double value) { return FormatGain(value); }
 
 std::string Density(double value, const std::string& unit) {
   return FormatDensity(value, unit);
-}
-
-std::string Printf(const char* format, double value) {
-  char buf[64];
-  std::snprintf(buf, sizeof buf, format, value);
-  return buf;
 }
 
 std::string Header(const Budget& b) {
