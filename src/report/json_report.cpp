@@ -40,9 +40,27 @@ std::string BudgetToJson(const Budget& b) {
       {"unit", b.input_unit == "A" ? "V/A" : "V/V"},
   };
   out["noise_gain"] = {{"at_reference", b.noise_gain_ref},
-                       {"dc", b.noise_gain_dc}};
+                       {"dc", b.noise_gain_dc},
+                       {"peak", b.noise_gain_peak},
+                       {"peak_Hz", b.noise_gain_peak_hz}};
   out["response"] = {{"bandwidth_3db_Hz", b.bandwidth_3db_hz},
-                     {"peaking_dB", b.peaking_db}};
+                     {"peaking_dB", b.peaking_db},
+                     {"peak_Hz", b.peak_hz}};
+  // Null margin and crossover when the loop gain never falls through 1.
+  out["loop"] = {{"phase_margin_deg", nullptr},
+                 {"crossover_Hz", nullptr},
+                 {"dc_loop_gain", b.loop.dc_loop_gain}};
+  if (b.loop.crossover_found) {
+    out["loop"]["phase_margin_deg"] = b.loop.phase_margin_deg;
+    out["loop"]["crossover_Hz"] = b.loop.crossover_hz;
+  }
+  out["feedback_capacitor_F"] = b.feedback_capacitor_f;
+  if (b.capacitor_choice)
+    out["feedback_capacitor_choice"] = {
+        {"target", b.capacitor_choice->target},
+        {"chosen_F", b.capacitor_choice->chosen_f},
+        {"estimate_F", b.capacitor_choice->estimate_f},
+        {"estimate_rule", b.capacitor_choice->estimate_rule}};
 
   json contributors = json::array();
   for (const Contributor& c : b.contributors) {
@@ -82,9 +100,10 @@ std::string BudgetToJson(const Budget& b) {
   };
   if (b.photodiode) {
     const PhotodiodeBlock& pd = *b.photodiode;
-    out["photodiode"] = {{"input_capacitance_F", pd.input_capacitance_f},
-                         {"noise_gain_plateau_estimate", pd.noise_gain_plateau_estimate},
-                         {"responsivity_A_per_W", pd.responsivity_a_per_w}};
+    out["photodiode"] = {
+        {"input_capacitance_F", pd.input_capacitance_f},
+        {"noise_gain_plateau_estimate", pd.noise_gain_plateau_estimate},
+        {"responsivity_A_per_W", pd.responsivity_a_per_w}};
     if (pd.responsivity_a_per_w > 0) {
       out["noise"]["nep_W_per_rtHz"] = pd.nep_w_per_rthz;
       out["noise"]["nep_rms_W"] = pd.nep_rms_w;

@@ -23,6 +23,17 @@ T network); method 1's value is written beside it with the relative
 difference, so the reader sees how far the example is from the closed forms.
 The DC offsets come from method 2 at f = 0 (finite A0), which agrees with
 the section 6 closed forms to about NG/A0.
+
+A photodiode (transimpedance) stage: method 2 puts the photodiode's C_d and
+R_sh (noisy) from the - input to ground, the photocurrent and the dark
+current's shot noise 2 q I (REFERENCES.md section 2) into the - input;
+method 1 is the section 7 model (A(s) = w_t / s) integrated here. A
+feedback capacitor of "auto" (Butterworth) is found on method 2's own
+closed-loop response: Q = |H(f_90)| / |H(f_ref)| at the -90 degree point
+(the definition of src/analysis/frequency_response.h, SecondOrderQ, coded
+here anew) equal to 1/sqrt 2, by brentq in ln C_f; it is compared with
+section 7's exact C_f = sqrt(2 w_t R_f C - 1)/(w_t R_f), and the search
+is checked to reproduce that closed form on section 7's own model.
 """
 
 import json
@@ -31,9 +42,10 @@ import os
 import re
 
 import numpy as np
-from scipy import integrate
+from scipy import integrate, optimize
 
 K_B = 1.380649e-23  # J/K, exact in the 2019 SI (REFERENCES.md section 1)
+Q_E = 1.602176634e-19  # C, exact in the 2019 SI (REFERENCES.md section 1)
 ZERO_C = 273.15
 
 HERE = os.path.dirname(os.path.abspath(__file__))
@@ -76,16 +88,25 @@ def load_stage(path):
          if not isinstance(v, dict)}
     st = doc["stage"]
     fb = st["feedback"]
+    tia = st.get("topology") == "transimpedance"
     stage = {
+        "topology": st.get("topology", "inverting"),
         "T": quantity(doc.get("temperature_C", 25)) + ZERO_C,
         "fL": quantity(doc["band_Hz"]["low"]),
         "fH": quantity(doc["band_Hz"]["high"]),
         "Rs": quantity(doc.get("source", {}).get("voltage", {}).get("resistance", 0)),
-        "Rin": quantity(st["input_resistor"]),
-        "Cf": quantity(fb.get("capacitor", 0)),
+        "Rin": 0.0 if tia else quantity(st["input_resistor"]),
+        "Cf": 0.0 if fb.get("capacitor") == "auto" else quantity(fb.get("capacitor", 0)),
+        "Cf_target": fb.get("capacitor_target", "butterworth")
+                     if fb.get("capacitor") == "auto" else None,
         "RL": quantity(st["load"]) if "load" in st else None,
         "op": p,
     }
+    if tia:
+        pd = doc["source"]["photodiode"]
+        stage["Cd"] = quantity(pd.get("capacitance", 0))
+        stage["Rsh"] = quantity(pd.get("shunt_resistance", 0))
+        stage["Idark"] = quantity(pd.get("dark_current", 0))
     stage["fref"] = (quantity(doc["reference_frequency_Hz"])
                      if "reference_frequency_Hz" in doc
                      else math.sqrt(stage["fL"] * stage["fH"]))
@@ -109,6 +130,11 @@ def plus_resistor(stage):
     mode = stage["Rp_mode"]
     if mode is None or mode == 0:
         return 0.0
+    if mode == "auto" and stage["topology"] == "transimpedance":
+        # R_f || R_sh: the DC resistance seen by the - input.
+        fb = stage["Rf"]
+        rsh = stage["Rsh"]
+        return fb if rsh == 0 else rsh * fb / (rsh + fb)
     if mode == "auto":
         if "tee" in stage:
             r1, r2, r3 = stage["tee"]
@@ -137,7 +163,8 @@ class Network:
         self.Ccm = op.get("input_capacitance_cm", 0.0)
         self.Cd = op.get("input_capacitance_diff", 0.0)
         self.Rp = plus_resistor(stage)
-        names = (["in"] if stage["Rs"] > 0 else []) + ["n", "o"]
+        self.tia = stage["topology"] == "transimpedance"
+        names = (["in"] if stage["Rs"] > 0 and not self.tia else []) + ["n", "o"]
         if "tee" in stage:
             names.append("t")
         if self.Rp > 0:
@@ -148,7 +175,11 @@ class Network:
         self.N = len(names)
         # (name, node a, node b, ohms); None is ground, "src" the source.
         r = []
-        if stage["Rs"] > 0:
+        if self.tia:
+            # The photodiode: its shunt resistance (noisy) from - to ground.
+            if stage["Rsh"] > 0:
+                r.append(("R_sh", "n", None, stage["Rsh"]))
+        elif stage["Rs"] > 0:
             r.append(("R_source", "src", "in", stage["Rs"]))
             r.append(("R_in", "in", "n", stage["Rin"]))
         else:
@@ -192,6 +223,8 @@ class Network:
             admit(a, b, 1 / ohms)
         if self.s["Cf"] > 0:
             admit("n", "o", 1j * w * self.s["Cf"])
+        if self.tia:
+            admit("n", None, 1j * w * self.s["Cd"])
         plus = "p" if "p" in self.idx else None
         admit("n", None, 1j * w * self.Ccm)
         if plus:
@@ -239,8 +272,16 @@ class Network:
         if "p" in self.idx:
             cols.append(current_into("p"))
             names.append(("i_n+", None))
-        # Signal: V_src = 1 moves -src_col to the right-hand side.
-        cols.append(-src_col)
+        if self.tia and self.s["Idark"] > 0:
+            # Schottky: the dark current's shot noise 2 q I (section 2).
+            cols.append(current_into("n"))
+            names.append(("shot", 2 * Q_E * self.s["Idark"]))
+        if self.tia:
+            # Signal: the photocurrent into the - input (V/A).
+            cols.append(current_into("n"))
+        else:
+            # Signal: V_src = 1 moves -src_col to the right-hand side.
+            cols.append(-src_col)
         names.append(("signal", None))
         rhs = np.array(cols).T
         x = np.linalg.solve(Y, rhs)  # one direct solve per column
@@ -293,10 +334,150 @@ class Network:
         vos = op["offset_voltage"] * ng
         ib = -op["bias_current"] * (hp + hm)
         ios = abs(0.5 * op["offset_current"] * (hp - hm))
-        return vos, ib, ios, vos + abs(ib) + ios
+        # A photodiode's dark current flows through the same DC transfer
+        # as the photocurrent: I_dark times the DC transimpedance.
+        dark = abs(self.s.get("Idark", 0.0) * t["signal"][0].real) if self.tia else 0.0
+        return vos, ib, ios, vos + abs(ib) + ios + dark
+
+
+# ------------------------------------- the automatic feedback capacitor
+
+
+def response_q(stage, cf, f_ref=1e-3, f_max=None):
+    """Q of the closed-loop signal response read as src/analysis/
+    frequency_response.h defines it (SecondOrderQ): at the frequency f_90
+    where the phase has turned by -90 degrees from its value at f_ref,
+    Q = |H(f_90)| / |H(f_ref)|; exact for 1/(1 + s/(Q w0) + s^2/w0^2).
+    Written here on this file's own nodal analysis: a scan at 50 points
+    per decade with numpy's unwrap, then brentq on the turned phase.
+    None when the phase never turns by 90 degrees below f_max."""
+    s = dict(stage)
+    s["Cf"] = cf
+    net = Network(s)
+    if f_max is None:
+        f_max = 1e3 * s["op"]["gbw"]
+
+    def h(f):
+        return net.transfers(f)["signal"][0]
+
+    h_ref = h(f_ref)
+    fs = np.logspace(math.log10(f_ref), math.log10(f_max),
+                     int(50 * math.log10(f_max / f_ref)) + 1)
+    turned = np.unwrap(np.angle([h(f) / h_ref for f in fs]))
+    below = np.nonzero(turned <= -math.pi / 2)[0]
+    if len(below) == 0:
+        return None
+    k = below[0]
+    base = turned[k - 1] - math.atan2((h(fs[k - 1]) / h_ref).imag,
+                                     (h(fs[k - 1]) / h_ref).real)
+
+    def excess(u):
+        z = h(math.exp(u)) / h_ref
+        return base + math.atan2(z.imag, z.real) + math.pi / 2
+
+    u90 = optimize.brentq(excess, math.log(fs[k - 1]), math.log(fs[k]),
+                          xtol=1e-14, rtol=1e-14)
+    return abs(h(math.exp(u90))) / abs(h_ref)
+
+
+def auto_capacitor(stage):
+    """The C_f that makes response_q equal 1/sqrt 2 (a maximally flat,
+    Butterworth, second-order response), by brentq in ln C_f; Q falls as
+    C_f grows. Only the "butterworth" target is derived here."""
+    assert stage["Cf_target"] == "butterworth", stage["Cf_target"]
+    target = 1 / math.sqrt(2)
+
+    def miss(u):
+        q = response_q(stage, math.exp(u))
+        return (q if q is not None else 0.0) - target
+
+    return math.exp(optimize.brentq(miss, math.log(1e-15), math.log(1e-9),
+                                    xtol=1e-12, rtol=1e-13))
+
+
+def butterworth_closed_form(stage):
+    """REFERENCES.md section 7, A(s) = w_t / s: exactly
+    C_f = sqrt(2 w_t R_f C - 1) / (w_t R_f), with C the capacitance at the
+    - input (C_d + C_cm + C_diff, the + input grounded); and the simpler
+    sqrt(C / (pi R_f GBW)) the engine prints as its estimate."""
+    wt = 2 * math.pi * stage["op"]["gbw"]
+    rf = stage["Rf"]
+    c = input_capacitance(stage)
+    return (math.sqrt(2 * wt * rf * c - 1) / (wt * rf),
+            math.sqrt(c / (math.pi * rf * stage["op"]["gbw"])))
+
+
+def check_capacitor_method(stage):
+    """The Q-based search must reproduce section 7's exact Butterworth C_f
+    where section 7's model holds: R_out = 0, no load, no R_sh, A0 -> 1e9
+    (then A(s) = w_t / s above 1 Hz). Fails loudly otherwise."""
+    ideal = dict(stage)
+    ideal["op"] = dict(stage["op"], output_resistance=0.0, open_loop_gain=1e9)
+    ideal["RL"] = None
+    ideal["Rsh"] = 0.0
+    found = auto_capacitor(ideal)
+    exact = butterworth_closed_form(ideal)[0]
+    assert abs(found / exact - 1) < 1e-6, (found, exact)
+    return found / exact - 1
+
+
+def input_capacitance(stage):
+    op = stage["op"]
+    return (stage["Cd"] + op.get("input_capacitance_cm", 0.0)
+            + op.get("input_capacitance_diff", 0.0))
 
 
 # ---------------------------------------------------------------- method 1
+
+
+def tia_closed_form(stage):
+    """REFERENCES.md section 7 model, integrated here: an integrator op-amp
+    A(s) = w_t / s with no output resistance, Y = sC + 1/R_sh at the -
+    input (C = C_d + C_cm + C_diff), Z_f = R_f / (1 + s R_f C_f). The
+    closed-loop transimpedance is Z = -Z_f / (1 + (1 + Z_f Y)/A); every
+    current at the - input (R_f's 4kT/R_f, R_sh's 4kT/R_sh, i_n, the
+    dark current's 2qI) reaches the output through Z, e_n through
+    (1 + Z_f Y) / (1 + (1 + Z_f Y)/A). The load and the finite A0 are left
+    out. Returns (output rms, input-referred rms, worst-case offset)."""
+    T, fL, fH = stage["T"], stage["fL"], stage["fH"]
+    op = stage["op"]
+    ew, fcv = op["voltage_noise"], op.get("voltage_noise_corner", 0.0)
+    iw, fci = op["current_noise"], op.get("current_noise_corner", 0.0)
+    wt = 2 * math.pi * op["gbw"]
+    rf, cf, rsh = stage["Rf"], stage["Cf"], stage["Rsh"]
+    c = input_capacitance(stage)
+    kt4 = 4 * K_B * T
+
+    def parts(f):
+        s = 2j * math.pi * f
+        zf = rf / (1 + s * rf * cf)
+        y = s * c + (1 / rsh if rsh else 0.0)
+        a = wt / s
+        ng = 1 + zf * y
+        z = -zf / (1 + ng / a)
+        return z, ng / (1 + ng / a)
+
+    def psd(f):
+        z, en_gain = parts(f)
+        currents = kt4 / rf + (kt4 / rsh if rsh else 0.0) \
+            + iw * iw * (1 + fci / f) + 2 * Q_E * stage["Idark"]
+        return abs(z) ** 2 * currents + abs(en_gain) ** 2 * ew * ew * (1 + fcv / f)
+
+    total = 0.0
+    edges = np.log(np.geomspace(fL, fH, 2 * int(math.ceil(math.log10(fH / fL))) + 1))
+    for lo, hi in zip(edges[:-1], edges[1:]):
+        v, _ = integrate.quad(lambda u: psd(math.exp(u)) * math.exp(u), lo, hi,
+                              epsabs=0, epsrel=1e-11, limit=200)
+        total += v
+    rms = math.sqrt(total)
+    # DC, ideal op-amp: the - input is a virtual ground, so R_sh carries no
+    # current and Z(0) = -R_f for every current into it (I_b-, I_os/2,
+    # I_dark); V_os sees NG(0) = 1 + R_f / R_sh. The + input is grounded.
+    ng0 = 1 + (rf / rsh if rsh else 0.0)
+    worst = (op["offset_voltage"] * ng0 + abs(op["bias_current"]) * rf
+             + 0.5 * op["offset_current"] * rf + stage["Idark"] * rf)
+    return rms, rms / abs(parts(stage["fref"])[0]), worst
+
 
 
 def closed_form(stage):
@@ -305,6 +486,8 @@ def closed_form(stage):
     capacitor of a plain stage is a single pole fp = 1/(2 pi Rf Cf) on every
     term that flows through the feedback; None where no closed form is
     written here (a T network with a capacitor)."""
+    if stage["topology"] == "transimpedance":
+        return tia_closed_form(stage)
     T, fL, fH = stage["T"], stage["fL"], stage["fH"]
     op = stage["op"]
     ew, fcv = op["voltage_noise"], op.get("voltage_noise_corner", 0.0)
@@ -386,6 +569,21 @@ NOTES = {
         "forms carry the feedback capacitor's pole exactly and differ by "
         "about 1e-4 only through the finite GBW seen through that pole's "
         "phase (Re(NG/A) = |NG| f/GBW sin(phase of NG))",
+    "smoke-chamber-receiver.json":
+        "a photodiode transimpedance stage with C_f chosen for a "
+        "Butterworth response. Noise: the section 7 model (integrator "
+        "op-amp, no R_out, no load, C = C_d + C_cm + C_diff) integrated "
+        "here sits 5e-4 below the nodal analysis, which keeps A0, R_out "
+        "and the load. C_f: the nodal response's Q = 1/sqrt 2 point is "
+        "0.48 % above section 7's exact sqrt(2 wt Rf C - 1)/(wt Rf); "
+        "almost all of that is the op-amp's 100 ohm R_out (with R_out = 0 "
+        "the gap is -2.1e-4, with A0 = 1e9 too -7.5e-5, and without R_sh "
+        "as well 1.5e-7, checked by check_capacitor_method below), so the "
+        "closed form is the model's limit and the nodal value is the "
+        "expectation. Offset: ideal-op-amp closed form V_os (1 + R_f/R_sh) "
+        "+ (I_b + I_os/2 + I_dark) R_f, 1e-6 from the finite-A0 solve; "
+        "bias current as stated (the device's temperature law is not "
+        "applied, as in the engine)",
     "thermopile-stage.json":
         "a capacitor across a T network: no closed form is written here; the "
         "nodal analysis is the only expectation",
@@ -397,6 +595,18 @@ def main():
                       if f.endswith(".json"))
     for name in examples:
         stage = load_stage(os.path.join(ROOT, "examples", name))
+        closed = {}
+        cap = None
+        if stage["Cf_target"]:
+            cap = auto_capacitor(stage)
+            print(name, "Q search on the section 7 model against its exact "
+                  "C_f: %+.2g" % check_capacitor_method(stage))
+            exact, estimate = butterworth_closed_form(stage)
+            stage["Cf"] = cap
+            closed["feedback_capacitor_F"] = exact
+            print(name, "auto C_f %.6g F; section 7 exact %.6g F (%+.3g), "
+                  "estimate sqrt(C/(pi Rf GBW)) %.6g F (%+.3g)"
+                  % (cap, exact, cap / exact - 1, estimate, cap / estimate - 1))
         net = Network(stage)
         rms = net.output_rms()
         gain_ref = net.signal_gain(stage["fref"])
@@ -407,10 +617,11 @@ def main():
             "input_referred_rms": rms / gain_ref,
             "worst_case_V": worst,
         }
-        closed = {}
+        if cap is not None:
+            figures["feedback_capacitor_F"] = cap
         if cf:
-            closed = {"output_rms_V": cf[0], "input_referred_rms": cf[1],
-                      "worst_case_V": cf[2]}
+            closed.update({"output_rms_V": cf[0], "input_referred_rms": cf[1],
+                           "worst_case_V": cf[2]})
         if "tee" in stage:
             ratio, plain = tee_cost(stage)
             figures["noise_cost_ratio"] = ratio
@@ -426,6 +637,12 @@ def main():
             if key == "worst_case_V":
                 entry["method"] = ("nodal analysis at DC (finite A0) in "
                                    "derive_expected.py")
+            if key == "feedback_capacitor_F":
+                entry["method"] = ("Q = 1/sqrt 2 at the -90 degree point of "
+                                   "this file's nodal closed-loop response, "
+                                   "brentq in ln C_f; closed_form is "
+                                   "REFERENCES.md section 7's exact "
+                                   "sqrt(2 wt Rf C - 1)/(wt Rf)")
             if key in closed:
                 entry["closed_form"] = float("%.10g" % closed[key])
                 entry["closed_form_rel_diff"] = float(
