@@ -29,14 +29,16 @@ int RunBudgetCommand(const BudgetCommandOptions& options) {
   const Stage stage = LoadStageFile(options.stage_path, library);
   const BudgetOutcome outcome = ComputeBudget(stage, budget_options);
   if (!outcome.status.ok) {
-    std::cerr << "error: " << options.stage_path
-              << ": analysis refused: " << outcome.status.message << "\n";
+    std::cerr << "error: "
+              << Error::OneLine(options.stage_path +
+                                ": analysis refused: " + outcome.status.message)
+              << "\n";
     return kExitAnalysisRefused;
   }
   const std::string text = options.json ? BudgetToJson(outcome.budget)
                                         : BudgetToText(outcome.budget);
   for (const std::string& w : outcome.budget.warnings)
-    std::cerr << "warning: " << w << "\n";
+    std::cerr << "warning: " << Error::OneLine(w) << "\n";
   std::cout << text << std::flush;
   return kExitOk;
 }

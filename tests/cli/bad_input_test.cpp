@@ -157,6 +157,14 @@ std::vector<BadInputCase> BudgetCases() {
        2,
        "error: stage.json: /stage/input_resistor: expected a resistance, got "
        "\"ten\" (no number)"},
+      // Found by the stage fuzzer: a key holding a newline.
+      {"a key with a control character is shown escaped, on one line",
+       {{"stage.json", With("/source/voltage/resist\nce", "350")}},
+       {"budget", "stage.json"},
+       2,
+       "error: stage.json: /source/voltage/resist\\nce: unknown key (did you "
+       "mean "
+       "\"resistance\"?)"},
       {"a temperature below absolute zero",
        {{"stage.json", With("/temperature_C", -300)}},
        {"budget", "stage.json"},
@@ -229,7 +237,7 @@ TEST_CASE(
     "budget: every bad-input case exits 2 (1 when refused) with one line and "
     "no harm") {
   const std::vector<BadInputCase> cases = BudgetCases();
-  CHECK(cases.size() == 18);  // the count in tests/README.md
+  CHECK(cases.size() == 19);  // the count in tests/README.md
   for (const BadInputCase& c : cases) RunCase(c);
 }
 
