@@ -226,6 +226,13 @@ TEST_CASE(
         CHECK(RelErr(FindContributor(r.budget, "R_f").source_density_ref,
                      std::sqrt(4 * kBoltzmannJPerK * (t_c + kZeroCelsiusK) *
                                rf)) < 1e-9);
+        // The DC loop gain is A0 / NG here; below 1 the budget says the
+        // stage runs open loop.
+        bool open_loop_warned = false;
+        for (const std::string& w : r.budget.warnings)
+          open_loop_warned =
+              open_loop_warned || w.find("runs open loop") != std::string::npos;
+        CHECK(open_loop_warned == (s.opamp.open_loop_gain / ng < 1.0L));
         // Offset (section 6, R_p = 0, finite A0): Vos NG / (1 + NG/A0).
         CHECK(RelErr(r.budget.offset.vos_v,
                      static_cast<double>(

@@ -103,6 +103,10 @@ std::vector<BadInputCase> BudgetCases() {
       {"capacitor_target", {{"phase_margin_deg", 89.99}}}};
   std::string bad_device = kGoodDevice;
   bad_device.replace(bad_device.find("\"1 MHz\""), 7, "\"-1 MHz\"");
+  json far_apart = GoodStage();
+  far_apart["stage"]["input_resistor"] = 1e-100;
+  far_apart["stage"]["feedback"] = {
+      {"tee", {{"r1", 1e100}, {"r2", 1e100}, {"r3", 1e-100}}}};
   return {
       {"no stage file named",
        {},
@@ -226,6 +230,16 @@ std::vector<BadInputCase> BudgetCases() {
        "gives a phase margin "
        "of 89.99 deg (at most ",
        true},
+      // Resistances 200 decades apart: the loop gain underflows to zero.
+      {"a feedback network beyond the range of a double",
+       {{"stage.json", far_apart.dump(2)}},
+       {"budget", "stage.json"},
+       1,
+       "error: stage.json: analysis refused: no usable feedback: the DC loop "
+       "gain is below 1e-06 "
+       "and its sign is lost in rounding (the feedback network attenuates far "
+       "more than the "
+       "op-amp gains)"},
   };
 }
 
@@ -237,7 +251,7 @@ TEST_CASE(
     "budget: every bad-input case exits 2 (1 when refused) with one line and "
     "no harm") {
   const std::vector<BadInputCase> cases = BudgetCases();
-  CHECK(cases.size() == 19);  // the count in tests/README.md
+  CHECK(cases.size() == 20);  // the count in tests/README.md
   for (const BadInputCase& c : cases) RunCase(c);
 }
 
