@@ -207,6 +207,15 @@ Status DirectSolve(const MnaSystem& system, double f_hz, Port port,
   *x = lu.solve(b);
   if (!x->allFinite())
     return Status::Fail("the network is singular at " + HzText(f_hz));
+  // The same residual test as the adjoint solve: a solution that does not
+  // satisfy its own equations is refused, never used.
+  const ComplexVector residual = y * *x - b;
+  const double scale =
+      y.cwiseAbs().rowwise().sum().maxCoeff() * x->cwiseAbs().maxCoeff() + 1.0;
+  if (!(residual.cwiseAbs().maxCoeff() / scale <= kMaxRelativeResidual))
+    return Status::Fail(
+        "the network is singular or too ill-conditioned to solve at " +
+        HzText(f_hz));
   return Status::Ok();
 }
 

@@ -103,8 +103,10 @@ class AdjointSolver {
   ComplexVector scaled_rhs_;
 };
 
-// The direct solve Y x = b for one excitation, returning x[output]. Used to
-// check the adjoint and where node voltages are needed.
+// The direct solve Y x = b for one excitation, writing every unknown into
+// `x`. Used to check the adjoint and where node voltages are needed. Fails
+// when the solution is not finite or its relative residual exceeds 1e-9
+// (as AdjointSolver::SolveAt); the message names the frequency.
 Status DirectSolve(const MnaSystem& system, double f_hz, Port port,
                    ComplexVector* x);
 

@@ -30,6 +30,9 @@ constexpr double kBandwidthSearchPerGbw = 100.0;
 // Phase margins below these draw a warning, and a severe one.
 constexpr double kLowPhaseMarginDeg = 45.0;
 constexpr double kSeverePhaseMarginDeg = 20.0;
+// Below this magnitude a non-positive DC loop gain is taken as rounding
+// noise around zero rather than as positive feedback.
+constexpr double kLoopGainSignFloor = 1e-6;
 
 std::string Printf(const char* format, double a, double b = 0) {
   char buf[200];
@@ -183,8 +186,22 @@ Status LoopFigures(const Stage& stage, const MnaSystem& system, Budget& b) {
   LoopSummary loop = SummarizeLoop(solver, start, 1e3 * stage.opamp.gbw_hz);
   if (!loop.status.ok) return loop.status;
   b.loop = {loop.crossover_found, loop.crossover_hz, loop.phase_margin_deg, loop.dc_loop_gain};
+  // A loop gain far below 1 that is zero or negative is rounding, not
+  // positive feedback: a feedback network attenuating by more than the
+  // double range (1e-100 ohm beside 1e100 ohm) leaves T(0) ~ 1e-400, whose
+  // computed value is noise of either sign. Say so instead.
+  if (!(loop.dc_loop_gain > 0) &&
+      !(std::fabs(loop.dc_loop_gain) >= kLoopGainSignFloor))
+    return Status::Fail(Printf("no usable feedback: the DC loop gain is below %.0e and its sign "
+                               "is lost in rounding (the feedback network attenuates far more "
+                               "than the op-amp gains)",
+                               kLoopGainSignFloor));
   if (!(loop.dc_loop_gain > 0))
     return Status::Fail("the feedback is positive at DC (loop gain " + Printf("%.4g", loop.dc_loop_gain) + ")");
+  if (loop.dc_loop_gain < 1)
+    b.warnings.push_back(Printf("the DC loop gain is %.3g, below 1: the stage runs open loop and "
+                                "its gain is set by the op-amp's A0, not by its resistors",
+                                loop.dc_loop_gain));
   if (!loop.crossover_found) return Status::Ok();
   if (loop.phase_margin_deg <= 0)
     return Status::Fail(Printf("the loop is unstable: phase margin %.1f deg at the %.4g Hz crossover",

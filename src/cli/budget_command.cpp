@@ -50,8 +50,10 @@ int RunBudgetCommand(const BudgetCommandOptions& options) {
     budget_options.upgrade_candidates.push_back({name, technology, technology.tolerance});
   const BudgetOutcome outcome = ComputeBudget(stage, budget_options);
   if (!outcome.status.ok) {
-    std::cerr << "error: " << options.stage_path
-              << ": analysis refused: " << outcome.status.message << "\n";
+    std::cerr << "error: "
+              << Error::OneLine(options.stage_path +
+                                ": analysis refused: " + outcome.status.message)
+              << "\n";
     return kExitAnalysisRefused;
   }
   if (!options.spectrum_path.empty()) {
@@ -69,7 +71,7 @@ int RunBudgetCommand(const BudgetCommandOptions& options) {
   }
   const std::string text = Render(outcome.budget, format);
   for (const std::string& w : outcome.budget.warnings)
-    std::cerr << "warning: " << w << "\n";
+    std::cerr << "warning: " << Error::OneLine(w) << "\n";
   std::cout << text << std::flush;
   return kExitOk;
 }

@@ -263,8 +263,10 @@ int Run(int argc, char** argv) {
     bool known = false;
     for (const std::string& n : names) known = known || n == word;
     if (!known) {
-      std::cerr << "error: unknown command \"" << word << "\""
-                << DidYouMean(word, names) << "; try --help\n";
+      std::cerr << "error: "
+                << Error::OneLine("unknown command \"" + word + "\"" +
+                                  DidYouMean(word, names) + "; try --help")
+                << "\n";
       return kExitUsage;
     }
     break;
@@ -277,7 +279,7 @@ int Run(int argc, char** argv) {
     if (e.get_exit_code() == 0) return app.exit(e);
     std::string why = e.what();  // CLI11 starts its messages upper-case
     if (!why.empty() && why[0] >= 'A' && why[0] <= 'Z') why[0] += 'a' - 'A';
-    std::cerr << "error: command line: " << why << "\n";
+    std::cerr << "error: command line: " << Error::OneLine(why) << "\n";
     return kExitUsage;
   }
   return handler ? handler() : kExitUsage;

@@ -25,9 +25,25 @@ std::string ParseErrorReason(const std::string& what) {
   const std::size_t last_read = reason.find("; last read: '");
   if (last_read != std::string::npos) {
     const std::size_t end = reason.find("'; ", last_read + 14);
-    reason.erase(last_read, end == std::string::npos ? std::string::npos : end + 1 - last_read);
+    reason.erase(last_read, end == std::string::npos ? std::string::npos
+                                                     : end + 1 - last_read);
   }
   return reason;
+}
+
+// "line L, column C" of the byte at 0-based offset `before`.
+std::string LineAndColumn(std::string_view text, std::size_t before) {
+  before = std::min(before, text.size());
+  int line = 1, column = 1;
+  for (std::size_t i = 0; i < before; ++i) {
+    if (text[i] == '\n') {
+      ++line;
+      column = 1;
+    } else {
+      ++column;
+    }
+  }
+  return "line " + std::to_string(line) + ", column " + std::to_string(column);
 }
 
 }  // namespace
@@ -39,22 +55,31 @@ nlohmann::json ParseJsonText(std::string_view text, const std::string& source) {
     // nlohmann reports the 1-based offset of the last byte it read (one
     // past the end when the text ended early); turn it into line and
     // column, so an early end points just after the last character.
-    const std::size_t before =
-        std::min<std::size_t>(e.byte > 0 ? e.byte - 1 : 0, text.size());
-    int line = 1, column = 1;
-    for (std::size_t i = 0; i < before; ++i) {
-      if (text[i] == '\n') {
-        ++line;
-        column = 1;
-      } else {
-        ++column;
-      }
-    }
     const std::string reason = ParseErrorReason(e.what());
     throw Error(source, "",
-                "malformed JSON at line " + std::to_string(line) + ", column " +
-                    std::to_string(column) +
+                "malformed JSON at " +
+                    LineAndColumn(text, e.byte > 0 ? e.byte - 1 : 0) +
                     (reason.empty() ? "" : ": " + reason));
+  } catch (const nlohmann::json::out_of_range& e) {
+    // A number beyond the double range ("1e999"): the parser names the
+    // token ("number overflow parsing '1e999'") but not where it is.
+    const std::string what = e.what();
+    const std::size_t open = what.find(" parsing '");
+    const std::size_t close = what.rfind('\'');
+    std::string where;
+    if (open != std::string::npos && close != std::string::npos &&
+        close > open + 10) {
+      const std::size_t at =
+          text.find(what.substr(open + 10, close - open - 10));
+      if (at != std::string_view::npos)
+        where = " at " + LineAndColumn(text, at);
+    }
+    throw Error(
+        source, "",
+        "malformed JSON" + where + ": a number beyond the range of a double");
+  } catch (const nlohmann::json::exception&) {
+    // Any other refusal of the parser (none is documented for parse).
+    throw Error(source, "", "malformed JSON");
   }
 }
 

@@ -5,6 +5,7 @@
 #include <cerrno>
 #include <cstdio>
 #include <cstring>
+#include <filesystem>
 #include <fstream>
 #include <sstream>
 
@@ -24,6 +25,11 @@ std::string LowercaseReason(int error_number) {
 }  // namespace
 
 std::string ReadTextFile(const std::string& path) {
+  // An ifstream opens a folder without complaint and reads nothing from
+  // it, which would pass for an empty (malformed) file.
+  std::error_code ignored;
+  if (std::filesystem::is_directory(path, ignored))
+    throw Error(path, "", "cannot read: " + LowercaseReason(EISDIR));
   std::ifstream in(path, std::ios::binary);
   if (!in) throw Error(path, "", "cannot read: " + LowercaseReason(errno));
   std::ostringstream out;

@@ -247,7 +247,11 @@ std::optional<double> ParseQuantity(std::string_view text, Quantity quantity,
   if (trimmed.empty()) return Fail(why, "empty value");
 
   if (quantity == Quantity::kResistance) {
-    if (auto coded = ParseLetterCode(trimmed)) return coded;
+    if (auto coded = ParseLetterCode(trimmed)) {
+      // 400 digits before the "R" overflow to infinity.
+      if (!std::isfinite(*coded)) return Fail(why, "out of range");
+      return coded;
+    }
   }
 
   double number = 0;

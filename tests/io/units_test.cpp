@@ -78,6 +78,9 @@ TEST_CASE("bad values are refused with the reason") {
   CHECK_FALSE(ParseQuantity("0x10", Quantity::kResistance, &why));
   CHECK_FALSE(ParseQuantity("1e999", Quantity::kResistance, &why));
   CHECK_FALSE(ParseQuantity("1 pF", Quantity::kResistance, &why));
+  // Found by the quantity fuzzer: a letter code too long for a double.
+  CHECK_FALSE(ParseQuantity(std::string(400, '2') + "R2", Quantity::kResistance, &why));
+  CHECK(why == "out of range");
 }
 
 TEST_CASE("engineering notation prints 4 significant digits and an SI prefix") {
