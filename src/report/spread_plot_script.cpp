@@ -92,12 +92,30 @@ void Panel(std::string& out, int index, int height_px, const Figure& f) {
   std::vector<double> values;
   values.reserve(f.si_values.size());
   for (double v : f.si_values) values.push_back(v * f.factor);
-  const Histogram h = BinValues(
-      values, RiceBinCount(static_cast<long>(values.size()), kSpreadMaxBins));
+  // No spread (every sample equal to 1e-9 relative, e.g. zero tolerances):
+  // one narrow bar at the value on an axis of +-1 % of it (+-1 at zero),
+  // instead of bins a rounding error wide.
+  const auto [v_min, v_max] = std::minmax_element(values.begin(), values.end());
+  const bool flat = !(*v_max - *v_min >
+                      1e-9 * std::max(std::fabs(*v_min), std::fabs(*v_max)));
+  Histogram h;
+  if (flat) {
+    const double centre = *v_min;
+    const double half = centre != 0 ? 0.01 * std::fabs(centre) : 1.0;
+    h.edges = {centre - half / 20, centre + half / 20};
+    h.counts = {static_cast<long>(values.size())};
+  } else {
+    h = BinValues(
+        values, RiceBinCount(static_cast<long>(values.size()), kSpreadMaxBins));
+  }
   assert(h.Bins() >= 1);
 
   // The data's range, widened to hold the limit lines that lie near it.
   double lo = h.edges.front(), hi = h.edges.back();
+  if (flat) {  // the axis: ten bar widths either side of the value
+    lo = *v_min - 10 * h.Width();
+    hi = *v_min + 10 * h.Width();
+  }
   const double span = hi - lo;
   std::vector<double> limit_lines, drawn_limits;
   if (f.limit) {
@@ -137,26 +155,33 @@ void Panel(std::string& out, int index, int height_px, const Figure& f) {
            ", graph 1 nohead " + style + " front\n";
   };
   vertical(f.dist.mean * f.factor, mean_style);
-  vertical(f.dist.p_low * f.factor, percentile_style);
-  vertical(f.dist.p_high * f.factor, percentile_style);
+  if (!flat) {
+    vertical(f.dist.p_low * f.factor, percentile_style);
+    vertical(f.dist.p_high * f.factor, percentile_style);
+  }
   for (double l : drawn_limits) vertical(l, limit_style);
 
   std::string plot =
       "plot " + block + " using 1:2 with boxes fs solid 0.45 border lc rgb '" +
       f.colour + "' lc rgb '" + f.colour + "' title " +
       GnuplotString(std::to_string(values.size()) + " samples, " +
-                    std::to_string(h.Bins()) + " bins");
+                    (flat ? std::string("no spread")
+                          : std::to_string(h.Bins()) + " bins"));
   auto entry = [&](const std::string& style, const std::string& text) {
     plot += ", \\\n  keyentry with lines " + style + " title " +
             GnuplotString(text);
   };
-  entry(mean_style,
-        "mean " + f.text(f.dist.mean) + ", sigma " + f.text(f.dist.sigma));
-  entry(percentile_style, "0.135 % " + f.text(f.dist.p_low) + ", 99.865 % " +
-                              f.text(f.dist.p_high));
+  if (flat) {
+    entry(mean_style, "every sample " + f.text(f.dist.mean));
+  } else {
+    entry(mean_style,
+          "mean " + f.text(f.dist.mean) + ", sigma " + f.text(f.dist.sigma));
+    entry(percentile_style, "0.135 % point " + f.text(f.dist.p_low));
+    entry(percentile_style, "99.865 % point " + f.text(f.dist.p_high));
+  }
   if (f.limit) {
-    std::string text =
-        std::string("limit ") + (f.two_sided ? "+-" : "") + f.text(*f.limit);
+    std::string text = std::string("limit ") + (f.two_sided ? "\xC2\xB1" : "") +
+                       f.text(*f.limit);
     if (f.yield) text += ", yield " + Percent(*f.yield);
     if (drawn_limits.size() < limit_lines.size()) text += " (off the axis)";
     entry(limit_style, text);
@@ -222,7 +247,23 @@ std::string BuildSpreadPlotScript(const SpreadRun& run,
   g.factor = 100;
   g.si_values = std::move(gain);
   g.dist = summary.gain_error;
-  g.text = [](double v) { return Printf("%.4g %%", 100 * v); };
+  // Gain errors in % with the decimals that show sigma to three digits, so
+  // the mean near zero reads "0.000 %" beside a sigma of "0.581 %".
+  const double gain_scale =
+      100 * (summary.gain_error.sigma > 0
+                 ? summary.gain_error.sigma
+                 : std::max(std::fabs(summary.gain_error.min),
+                            std::fabs(summary.gain_error.max)));
+  const int decimals =
+      gain_scale > 0
+          ? std::clamp(2 - static_cast<int>(std::floor(std::log10(gain_scale))),
+                       0, 6)
+          : 3;
+  g.text = [decimals](double v) {
+    char buf[48];
+    std::snprintf(buf, sizeof buf, "%.*f %%", decimals, 100 * v);
+    return std::string(buf);
+  };
   g.limit = limits.gain_error;
   g.yield = summary.yield.gain_error;
   g.colour = kBarColours[0];

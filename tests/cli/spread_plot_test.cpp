@@ -18,6 +18,7 @@ namespace {
 
 using nlohmann::json;
 using test::ReadAll;
+using test::RunResult;
 using test::RunHushgain;
 using test::ScratchDir;
 
