@@ -12,6 +12,9 @@
 // error and offset, +limit for noise) with the yield in the legend. A limit
 // that lies more than the data's span beyond it stays in the legend only,
 // marked "off the axis", so a loose limit does not squash the histogram.
+// A figure with no spread (max - min at most 1e-9 of the largest
+// magnitude) is drawn as one bar on an axis of +-1 % of its value (+-1 at
+// zero), its legend "no spread".
 // Stage names and every other text go through GnuplotString
 // (report/text_escape.h): drawn as text, never run.
 #ifndef HUSHGAIN_REPORT_SPREAD_PLOT_SCRIPT_H_
