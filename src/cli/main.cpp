@@ -209,6 +209,9 @@ std::function<int()> DefineSpread(CLI::App* app, const GlobalOptions& global) {
   app->add_option("--seed", o->seed, "seed of the random streams (default 1)");
   app->add_option("--threads", o->threads, "worker threads (default 0: all)");
   app->add_option("--csv", o->csv_path, "write every sample to this CSV file");
+  app->add_option("--plot", o->plot_path,
+                  "also draw histograms of gain error, offset and noise "
+                  "(.png or .svg)");
   app->add_option("--gain-error-limit", o->gain_error_limit, "yield limit on |gain error|, e.g. 0.5%");
   app->add_option("--offset-limit", o->offset_limit, "yield limit on |output offset|, e.g. 5m");
   app->add_option("--noise-limit", o->noise_limit, "yield limit on the output noise rms, e.g. 100u");

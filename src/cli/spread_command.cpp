@@ -11,6 +11,7 @@
 
 #include "budget/spread.h"
 #include "budget/spread_statistics.h"
+#include "cli/draw_picture.h"
 #include "cli/exit_codes.h"
 #include "cli/interrupt.h"
 #include "cli/progress_bar.h"
@@ -19,6 +20,7 @@
 #include "io/read_file.h"
 #include "io/stage_parser.h"
 #include "io/units.h"
+#include "report/spread_plot_script.h"
 #include "report/spread_report.h"
 
 namespace hushgain {
@@ -72,6 +74,14 @@ int RunSpreadCommand(const SpreadCommandOptions& options) {
     if (!folder.empty() && !std::filesystem::is_directory(folder))
       throw Error(options.csv_path, "", "cannot write: no such folder");
   }
+  SpreadPlotOptions plot;
+  plot.seed = options.seed;
+  std::string gnuplot;
+  if (!options.plot_path.empty()) {
+    plot.format = PictureFormat("--plot", options.plot_path);
+    gnuplot = GnuplotOrExplain("spread --plot");
+    if (gnuplot.empty()) return kExitToolFailed;
+  }
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
   const Stage stage = LoadStageFile(options.stage_path, library);
 
@@ -86,7 +96,7 @@ int RunSpreadCommand(const SpreadCommandOptions& options) {
   const SpreadRun run = RunSpread(stage, spread, control);
   bar.Clear();
   if (run.interrupted) {
-    std::cerr << "\ninterrupted: no report and no CSV written\n";
+    std::cerr << "\ninterrupted: no report, no CSV and no picture written\n";
     return kExitInterrupted;
   }
   if (!run.status.ok) {
@@ -97,6 +107,15 @@ int RunSpreadCommand(const SpreadCommandOptions& options) {
   const SpreadSummary summary = Summarize(run.samples, limits);
   if (!options.csv_path.empty())
     WriteFileAtomically(options.csv_path, SpreadToCsv(run));
+  if (!options.plot_path.empty()) {
+    const int drawn = DrawPicture(
+        gnuplot, options.plot_path, [&](const std::string& temporary) {
+          SpreadPlotOptions drawing = plot;
+          drawing.output_path = temporary;
+          return BuildSpreadPlotScript(run, summary, limits, drawing);
+        });
+    if (drawn != kExitOk) return drawn;
+  }
   std::cout << SpreadToText(run, summary, limits, options.seed) << std::flush;
   return kExitOk;
 }

@@ -1,6 +1,7 @@
 // `hushgain spread STAGE.json --samples N --seed S`: the Monte Carlo of a
 // stage over resistor tolerances, op-amp offsets and temperature
-// (budget/spread.h), with yields against limits and the samples as CSV.
+// (budget/spread.h), with yields against limits, the samples as CSV and,
+// with --plot, the histograms as a picture (report/spread_plot_script.h).
 #ifndef HUSHGAIN_CLI_SPREAD_COMMAND_H_
 #define HUSHGAIN_CLI_SPREAD_COMMAND_H_
 
@@ -16,6 +17,7 @@ struct SpreadCommandOptions {
   std::uint64_t seed = 1;
   int threads = 0;       // 0 = every hardware thread
   std::string csv_path;  // empty = no CSV
+  std::string plot_path;  // .png or .svg histograms; empty = no picture
   // Limits as typed ("0.5%", "5m", "100u"); empty = none.
   std::string gain_error_limit;
   std::string offset_limit;
@@ -24,7 +26,9 @@ struct SpreadCommandOptions {
 
 // Prints the summary on stdout; a progress bar on stderr when it is a
 // terminal. Returns an exit code (cli/exit_codes.h); 130 when interrupted
-// by SIGINT (nothing written). Throws Error for bad input.
+// by SIGINT (nothing written); kExitToolFailed when --plot is given and
+// gnuplot is missing (checked before the run) or fails. Throws Error for
+// bad input.
 int RunSpreadCommand(const SpreadCommandOptions& options);
 
 }  // namespace hushgain

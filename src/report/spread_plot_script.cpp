@@ -1,0 +1,305 @@
+#include "report/spread_plot_script.h"
+
+#include <algorithm>
+#include <cassert>
+#include <cmath>
+#include <cstdio>
+#include <functional>
+#include <optional>
+#include <vector>
+
+#include "io/units.h"
+#include "noise/physical_constants.h"
+#include "report/histogram.h"
+#include "report/plot_axes.h"
+#include "report/text_escape.h"
+
+namespace hushgain {
+namespace {
+
+// Sheet geometry in pixels: tic labels on the left, the legend column on
+// the right.
+constexpr int kWidthPx = 1400;
+constexpr int kLeftPx = 120;
+constexpr int kLegendPx = 440;
+constexpr int kKeyGapPx = 40;
+constexpr int kHeadingPx = 90;
+constexpr int kPanelTopPx = 50;
+constexpr int kPanelPx = 300;
+constexpr int kPanelBottomPx = 75;
+constexpr int kPanels = 3;
+
+// Our own colours (as the other sheets').
+constexpr const char* kBarColours[] = {"#1f5fa8", "#d1495b", "#2e933c"};
+constexpr const char* kMeanColour = "#000000";
+constexpr const char* kPercentileColour = "#555555";
+constexpr const char* kLimitColour = "#e07b00";
+
+std::string Num(double v) { return PlotNumber(v); }
+
+std::string Printf(const char* format, double value) {
+  char buf[80];
+  std::snprintf(buf, sizeof buf, format, value);
+  return buf;
+}
+
+std::string Percent(double fraction) {
+  return Printf("%.3f %%", 100 * fraction);
+}
+
+// One panel: the values in display units (value * factor) and how to
+// print a value given in SI units.
+struct Figure {
+  std::string title;
+  std::string axis_label;  // with the display unit
+  double factor = 1;       // SI value * factor = display value
+  std::vector<double> si_values;
+  Distribution dist;                        // SI units
+  std::function<std::string(double)> text;  // an SI value for the legend
+  std::optional<double> limit;              // SI units
+  bool two_sided = true;                    // limit lines at +-limit
+  std::optional<double> yield;
+  const char* colour = kBarColours[0];
+};
+
+void Panel(std::string& out, int index, int height_px, const Figure& f) {
+  const int top_px = kHeadingPx +
+                     index * (kPanelTopPx + kPanelPx + kPanelBottomPx) +
+                     kPanelTopPx;
+  const double top = 1.0 - static_cast<double>(top_px) / height_px;
+  const double bottom =
+      1.0 - static_cast<double>(top_px + kPanelPx) / height_px;
+  if (index > 0) out += "unset label 1\nunset label 2\n";
+  out +=
+      "unset arrow\nunset label 12\n"
+      "set ytics auto nomirror out\nset xtics auto nomirror out\n"
+      "set format y '%g'\nset format x '%g'\n";
+  out += "set lmargin at screen " + Num(double(kLeftPx) / kWidthPx) + "\n";
+  out += "set rmargin at screen " +
+         Num(double(kWidthPx - kLegendPx) / kWidthPx) + "\n";
+  out += "set tmargin at screen " + Num(top) + "\n";
+  out += "set bmargin at screen " + Num(bottom) + "\n";
+  out += "set grid xtics ytics lc rgb '#d8d8d8' lw 1\n";
+  out += "set border 3 lw 1\n";
+  out += "set key at screen " +
+         Num(double(kWidthPx - kLegendPx + kKeyGapPx) / kWidthPx) +
+         ", screen " + Num(top) +
+         " left top Left reverse samplen 2.5 spacing 1.3 "
+         "box lc rgb '#bbbbbb' width -1\n";
+  out += "set label 12 " + GnuplotString(f.title) +
+         " at graph 0, graph 1 left offset 0,1.4 font ',13'\n";
+
+  std::vector<double> values;
+  values.reserve(f.si_values.size());
+  for (double v : f.si_values) values.push_back(v * f.factor);
+  // No spread (every sample equal to 1e-9 relative, e.g. zero tolerances):
+  // one narrow bar at the value on an axis of +-1 % of it (+-1 at zero),
+  // instead of bins a rounding error wide.
+  const auto [v_min, v_max] = std::minmax_element(values.begin(), values.end());
+  const bool flat = !(*v_max - *v_min >
+                      1e-9 * std::max(std::fabs(*v_min), std::fabs(*v_max)));
+  Histogram h;
+  if (flat) {
+    const double centre = *v_min;
+    const double half = centre != 0 ? 0.01 * std::fabs(centre) : 1.0;
+    h.edges = {centre - half / 20, centre + half / 20};
+    h.counts = {static_cast<long>(values.size())};
+  } else {
+    h = BinValues(
+        values, RiceBinCount(static_cast<long>(values.size()), kSpreadMaxBins));
+  }
+  assert(h.Bins() >= 1);
+
+  // The data's range, widened to hold the limit lines that lie near it.
+  double lo = h.edges.front(), hi = h.edges.back();
+  if (flat) {  // the axis: ten bar widths either side of the value
+    lo = *v_min - 10 * h.Width();
+    hi = *v_min + 10 * h.Width();
+  }
+  const double span = hi - lo;
+  std::vector<double> limit_lines, drawn_limits;
+  if (f.limit) {
+    limit_lines.push_back(*f.limit * f.factor);
+    if (f.two_sided) limit_lines.push_back(-*f.limit * f.factor);
+  }
+  for (double l : limit_lines)
+    if (l >= lo - span && l <= hi + span) {
+      drawn_limits.push_back(l);
+      lo = std::min(lo, l);
+      hi = std::max(hi, l);
+    }
+  const double pad = 0.04 * (hi - lo);
+  out += "set xrange [" + Num(lo - pad) + ":" + Num(hi + pad) + "]\n";
+  long peak = 1;
+  for (long c : h.counts) peak = std::max(peak, c);
+  out += "set yrange [0:" + Num(std::ceil(peak * 1.12)) + "]\n";
+  out += "set xlabel " + GnuplotString(f.axis_label) + "\n";
+  out += "set ylabel " + GnuplotString("samples per bin") + "\n";
+
+  const std::string block = "$hist" + std::to_string(index);
+  out += block + " << EOD\n";
+  for (int k = 0; k < h.Bins(); ++k)
+    out += Num(0.5 * (h.edges[k] + h.edges[k + 1])) + " " +
+           std::to_string(h.counts[k]) + "\n";
+  out += "EOD\n";
+  out += "set boxwidth " + Num(h.Width()) + " absolute\n";
+
+  const std::string mean_style =
+      std::string("lw 2.5 lc rgb '") + kMeanColour + "'";
+  const std::string percentile_style =
+      std::string("dt 2 lw 2 lc rgb '") + kPercentileColour + "'";
+  const std::string limit_style =
+      std::string("dt 3 lw 3 lc rgb '") + kLimitColour + "'";
+  auto vertical = [&](double x, const std::string& style) {
+    out += "set arrow from first " + Num(x) + ", graph 0 to first " + Num(x) +
+           ", graph 1 nohead " + style + " front\n";
+  };
+  vertical(f.dist.mean * f.factor, mean_style);
+  if (!flat) {
+    vertical(f.dist.p_low * f.factor, percentile_style);
+    vertical(f.dist.p_high * f.factor, percentile_style);
+  }
+  for (double l : drawn_limits) vertical(l, limit_style);
+
+  std::string plot =
+      "plot " + block + " using 1:2 with boxes fs solid 0.45 border lc rgb '" +
+      f.colour + "' lc rgb '" + f.colour + "' title " +
+      GnuplotString(std::to_string(values.size()) + " samples, " +
+                    (flat ? std::string("no spread")
+                          : std::to_string(h.Bins()) + " bins"));
+  auto entry = [&](const std::string& style, const std::string& text) {
+    plot += ", \\\n  keyentry with lines " + style + " title " +
+            GnuplotString(text);
+  };
+  if (flat) {
+    entry(mean_style, "every sample " + f.text(f.dist.mean));
+  } else {
+    entry(mean_style,
+          "mean " + f.text(f.dist.mean) + ", sigma " + f.text(f.dist.sigma));
+    entry(percentile_style, "0.135 % point " + f.text(f.dist.p_low));
+    entry(percentile_style, "99.865 % point " + f.text(f.dist.p_high));
+  }
+  if (f.limit) {
+    std::string text = std::string("limit ") + (f.two_sided ? "\xC2\xB1" : "") +
+                       f.text(*f.limit);
+    if (f.yield) text += ", yield " + Percent(*f.yield);
+    if (drawn_limits.size() < limit_lines.size()) text += " (off the axis)";
+    entry(limit_style, text);
+  }
+  out += plot + "\n";
+}
+
+}  // namespace
+
+std::string BuildSpreadPlotScript(const SpreadRun& run,
+                                  const SpreadSummary& summary,
+                                  const SpreadLimits& limits,
+                                  const SpreadPlotOptions& o) {
+  assert(!run.samples.empty());
+  const int height_px =
+      kHeadingPx + kPanels * (kPanelTopPx + kPanelPx + kPanelBottomPx);
+  std::string out = std::string("set terminal ") +
+                    (o.format == PlotFormat::kSvg ? "svg" : "pngcairo") +
+                    " size " + std::to_string(kWidthPx) + "," +
+                    std::to_string(height_px) +
+                    " font 'DejaVu Sans,11' noenhanced background rgb "
+                    "'white'\n";
+  out += "set encoding utf8\n";
+  out += "set output " + GnuplotString(o.output_path) + "\n";
+  out += "set style fill solid 0.45 border\n";
+
+  const Budget& nominal = run.nominal;
+  std::string summary_line =
+      "Monte Carlo: " + std::to_string(run.samples.size()) + " samples, seed " +
+      std::to_string(o.seed) + ";  band " +
+      FormatEng(nominal.band_low_hz, "Hz") + " to " +
+      FormatEng(nominal.band_high_hz, "Hz");
+  double t_lo = run.samples.front().temperature_k, t_hi = t_lo;
+  for (const SpreadSample& s : run.samples) {
+    t_lo = std::min(t_lo, s.temperature_k);
+    t_hi = std::max(t_hi, s.temperature_k);
+  }
+  summary_line += ";  temperature " + Printf("%.1f", t_lo - kZeroCelsiusK) +
+                  (t_hi > t_lo ? " to " + Printf("%.1f", t_hi - kZeroCelsiusK)
+                               : std::string()) +
+                  " \xC2\xB0"
+                  "C";
+  if (summary.yield.all)
+    summary_line += ";  yield " + Percent(*summary.yield.all);
+
+  out += "set multiplot\n";
+  out += "set label 1 " + GnuplotString(nominal.stage_name) +
+         " at screen 0.5, screen " + Num(1.0 - 32.0 / height_px) +
+         " center font ',16'\n";
+  out += "set label 2 " + GnuplotString(summary_line) +
+         " at screen 0.5, screen " + Num(1.0 - 64.0 / height_px) + " center\n";
+
+  std::vector<double> gain, offset, noise;
+  for (const SpreadSample& s : run.samples) {
+    gain.push_back(s.gain_error);
+    offset.push_back(s.offset_v);
+    noise.push_back(s.noise_rms_v);
+  }
+
+  Figure g;
+  g.title = "Closed-loop gain error";
+  g.axis_label = "gain error (%)";
+  g.factor = 100;
+  g.si_values = std::move(gain);
+  g.dist = summary.gain_error;
+  // Gain errors in % with the decimals that show sigma to three digits, so
+  // the mean near zero reads "0.000 %" beside a sigma of "0.581 %".
+  const double gain_scale =
+      100 * (summary.gain_error.sigma > 0
+                 ? summary.gain_error.sigma
+                 : std::max(std::fabs(summary.gain_error.min),
+                            std::fabs(summary.gain_error.max)));
+  const int decimals =
+      gain_scale > 0
+          ? std::clamp(2 - static_cast<int>(std::floor(std::log10(gain_scale))),
+                       0, 6)
+          : 3;
+  g.text = [decimals](double v) {
+    char buf[48];
+    std::snprintf(buf, sizeof buf, "%.*f %%", decimals, 100 * v);
+    return std::string(buf);
+  };
+  g.limit = limits.gain_error;
+  g.yield = summary.yield.gain_error;
+  g.colour = kBarColours[0];
+  Panel(out, 0, height_px, g);
+
+  const auto [offset_scale, offset_unit] = UnitScale(
+      std::max(std::fabs(summary.offset.min), std::fabs(summary.offset.max)),
+      "V");
+  Figure v;
+  v.title = "Output offset at DC";
+  v.axis_label = "output offset (" + offset_unit + ")";
+  v.factor = 1 / offset_scale;
+  v.si_values = std::move(offset);
+  v.dist = summary.offset;
+  v.text = [](double x) { return FormatEng(x, "V"); };
+  v.limit = limits.offset_v;
+  v.yield = summary.yield.offset;
+  v.colour = kBarColours[1];
+  Panel(out, 1, height_px, v);
+
+  const auto [noise_scale, noise_unit] = UnitScale(summary.noise.max, "V");
+  Figure n;
+  n.title = "Total output noise rms over the band";
+  n.axis_label = "output noise rms (" + noise_unit + ")";
+  n.factor = 1 / noise_scale;
+  n.si_values = std::move(noise);
+  n.dist = summary.noise;
+  n.text = [](double x) { return FormatEng(x, "V"); };
+  n.limit = limits.noise_v;
+  n.two_sided = false;
+  n.yield = summary.yield.noise;
+  n.colour = kBarColours[2];
+  Panel(out, 2, height_px, n);
+
+  out += "unset multiplot\nset output\n";
+  return out;
+}
+
+}  // namespace hushgain
