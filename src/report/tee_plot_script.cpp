@@ -57,8 +57,7 @@ std::string RankingWords(const TeeSearchQuery& q) {
 class Sheet {
  public:
   Sheet(const TeePlotOptions& o, int panels)
-      : o_(o),
-        height_px_(kHeadingPx +
+      : height_px_(kHeadingPx +
                    panels * (kPanelTopPx + kPanelPx + kPanelBottomPx)) {
     const std::string size =
         std::to_string(kWidthPx) + "," + std::to_string(height_px_);
@@ -116,7 +115,6 @@ class Sheet {
   }
 
  private:
-  const TeePlotOptions& o_;
   int height_px_;
   std::string out_;
 };

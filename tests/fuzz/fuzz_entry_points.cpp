@@ -46,6 +46,11 @@ constexpr std::string_view kThinFilm = R"({
   "noise_index_dB": -35, "temperature_coefficient_per_C": "25 ppm",
   "tolerance": "0.1%"})";
 
+constexpr std::string_view kThickFilm = R"({"kind": "resistor_technology", "class": "thick film",
+  "illustrative": "class-typical values for budgeting; illustrative, not the data of any real part",
+  "noise_index_dB": -10, "temperature_coefficient_per_C": "100 ppm",
+  "tolerance": "1%"})";
+
 const DeviceLibrary& Library() {
   // Built once per process from the literals above (a test fixture, not a
   // cache of program state).
@@ -56,6 +61,8 @@ const DeviceLibrary& Library() {
         ParseOpAmpDevice(kZeroDriftOpAmp, "zero-drift.json");
     l.resistors["thin-film"] =
         ParseResistorTechnology(kThinFilm, "thin-film.json");
+    l.resistors["thick-film"] =
+        ParseResistorTechnology(kThickFilm, "thick-film.json");
     return l;
   }();
   return library;
