@@ -66,4 +66,37 @@ std::pair<double, std::string> UnitScale(double max, const std::string& unit) {
   return {scale, space == std::string::npos ? unit : s.substr(space + 1)};
 }
 
+std::string PanelFrame(const SheetLayout& l, int index, int height_px,
+                       const std::string& title, int border) {
+  const int top_px = l.heading_px +
+                     index * (l.panel_top_px + l.panel_px + l.panel_bottom_px) +
+                     l.panel_top_px;
+  const double top = 1.0 - static_cast<double>(top_px) / height_px;
+  const double bottom =
+      1.0 - static_cast<double>(top_px + l.panel_px) / height_px;
+  const double width = l.width_px;
+  std::string out;
+  if (index > 0) out += "unset label 1\nunset label 2\n";
+  out +=
+      "unset object\nunset arrow\nunset label 12\nunset logscale\n"
+      "unset y2tics\nunset y2label\n"
+      "set ytics auto nomirror out\nset xtics auto nomirror out\n"
+      "set format y '%g'\nset format x '%g'\n";
+  out += "set lmargin at screen " + PlotNumber(l.left_px / width) + "\n";
+  out += "set rmargin at screen " +
+         PlotNumber((l.width_px - l.legend_px) / width) + "\n";
+  out += "set tmargin at screen " + PlotNumber(top) + "\n";
+  out += "set bmargin at screen " + PlotNumber(bottom) + "\n";
+  out += "set grid xtics ytics lc rgb '#d8d8d8' lw 1\n";
+  out += "set border " + std::to_string(border) + " lw 1\n";
+  out += "set key at screen " +
+         PlotNumber((l.width_px - l.legend_px + l.key_gap_px) / width) +
+         ", screen " + PlotNumber(top) +
+         " left top Left reverse samplen 2.5 spacing 1.3 "
+         "box lc rgb '#bbbbbb' width -1\n";
+  out += "set label 12 " + GnuplotString(title) +
+         " at graph 0, graph 1 left offset 0,1.4 font ',13'\n";
+  return out;
+}
+
 }  // namespace hushgain

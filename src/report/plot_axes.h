@@ -11,6 +11,30 @@
 
 namespace hushgain {
 
+// The pixel geometry of a sheet of stacked panels: tic labels on the left,
+// a legend column on the right, a heading above the first panel.
+struct SheetLayout {
+  int width_px = 1400;
+  int left_px = 140;
+  int legend_px = 430;
+  int key_gap_px = 40;  // between the plot's right edge and the legend
+  int heading_px = 90;
+  int panel_top_px = 50;
+  int panel_px = 300;
+  int panel_bottom_px = 75;
+
+  int HeightPx(int panels) const {
+    return heading_px + panels * (panel_top_px + panel_px + panel_bottom_px);
+  }
+};
+
+// The gnuplot lines that open panel `index` (from 0) of a sheet
+// `height_px` tall: reset what the previous panel set, margins, grid, border
+// (gnuplot's bit mask: 3 = bottom and left, 11 = with the right axis), the
+// legend box in the legend column, and the panel's title (escaped).
+std::string PanelFrame(const SheetLayout& layout, int index, int height_px,
+                       const std::string& title, int border);
+
 // "%.9g", or "NaN" for a value that is not finite (gnuplot skips it).
 std::string PlotNumber(double value);
 

@@ -20,13 +20,11 @@ namespace {
 // Sheet geometry in pixels: tic labels on the left, the legend column on
 // the right.
 constexpr int kWidthPx = 1400;
-constexpr int kLeftPx = 120;
 constexpr int kLegendPx = 440;
 constexpr int kKeyGapPx = 40;
 constexpr int kHeadingPx = 90;
-constexpr int kPanelTopPx = 50;
-constexpr int kPanelPx = 300;
-constexpr int kPanelBottomPx = 75;
+constexpr SheetLayout kLayout{kWidthPx,   120, kLegendPx, kKeyGapPx,
+                              kHeadingPx, 50,  300,       75};
 constexpr int kPanels = 3;
 
 // Our own colours (as the other sheets').
@@ -63,31 +61,7 @@ struct Figure {
 };
 
 void Panel(std::string& out, int index, int height_px, const Figure& f) {
-  const int top_px = kHeadingPx +
-                     index * (kPanelTopPx + kPanelPx + kPanelBottomPx) +
-                     kPanelTopPx;
-  const double top = 1.0 - static_cast<double>(top_px) / height_px;
-  const double bottom =
-      1.0 - static_cast<double>(top_px + kPanelPx) / height_px;
-  if (index > 0) out += "unset label 1\nunset label 2\n";
-  out +=
-      "unset arrow\nunset label 12\n"
-      "set ytics auto nomirror out\nset xtics auto nomirror out\n"
-      "set format y '%g'\nset format x '%g'\n";
-  out += "set lmargin at screen " + Num(double(kLeftPx) / kWidthPx) + "\n";
-  out += "set rmargin at screen " +
-         Num(double(kWidthPx - kLegendPx) / kWidthPx) + "\n";
-  out += "set tmargin at screen " + Num(top) + "\n";
-  out += "set bmargin at screen " + Num(bottom) + "\n";
-  out += "set grid xtics ytics lc rgb '#d8d8d8' lw 1\n";
-  out += "set border 3 lw 1\n";
-  out += "set key at screen " +
-         Num(double(kWidthPx - kLegendPx + kKeyGapPx) / kWidthPx) +
-         ", screen " + Num(top) +
-         " left top Left reverse samplen 2.5 spacing 1.3 "
-         "box lc rgb '#bbbbbb' width -1\n";
-  out += "set label 12 " + GnuplotString(f.title) +
-         " at graph 0, graph 1 left offset 0,1.4 font ',13'\n";
+  out += PanelFrame(kLayout, index, height_px, f.title, 3);
 
   std::vector<double> values;
   values.reserve(f.si_values.size());
@@ -196,8 +170,7 @@ std::string BuildSpreadPlotScript(const SpreadRun& run,
                                   const SpreadLimits& limits,
                                   const SpreadPlotOptions& o) {
   assert(!run.samples.empty());
-  const int height_px =
-      kHeadingPx + kPanels * (kPanelTopPx + kPanelPx + kPanelBottomPx);
+  const int height_px = kLayout.HeightPx(kPanels);
   std::string out = std::string("set terminal ") +
                     (o.format == PlotFormat::kSvg ? "svg" : "pngcairo") +
                     " size " + std::to_string(kWidthPx) + "," +

@@ -18,15 +18,13 @@ namespace {
 constexpr const char* kOhm = "\xCE\xA9";
 
 // Sheet geometry in pixels: tic labels with units on the left, the right
-// axis and then the legend column on the right.
+// axis (room before the legend) and then the legend column on the right.
 constexpr int kWidthPx = 1400;
-constexpr int kLeftPx = 140;
 constexpr int kLegendPx = 430;
-constexpr int kKeyGapPx = 110;  // room for the right axis before the legend
+constexpr int kKeyGapPx = 110;
 constexpr int kHeadingPx = 90;
-constexpr int kPanelTopPx = 50;
-constexpr int kPanelPx = 380;
-constexpr int kPanelBottomPx = 75;
+constexpr SheetLayout kLayout{kWidthPx,   140, kLegendPx, kKeyGapPx,
+                              kHeadingPx, 50,  380,       75};
 
 // Our own colours (as the plot sheet's).
 constexpr const char* kNoiseColour = "#1f5fa8";
@@ -57,8 +55,7 @@ std::string RankingWords(const TeeSearchQuery& q) {
 class Sheet {
  public:
   Sheet(const TeePlotOptions& o, int panels)
-      : height_px_(kHeadingPx +
-                   panels * (kPanelTopPx + kPanelPx + kPanelBottomPx)) {
+      : height_px_(kLayout.HeightPx(panels)) {
     const std::string size =
         std::to_string(kWidthPx) + "," + std::to_string(height_px_);
     out_ += std::string("set terminal ") +
@@ -81,32 +78,7 @@ class Sheet {
 
   // Margins, grid, legend place and title of panel `index` (from 0).
   void Panel(int index, const std::string& title) {
-    const int top_px = kHeadingPx +
-                       index * (kPanelTopPx + kPanelPx + kPanelBottomPx) +
-                       kPanelTopPx;
-    const double top = 1.0 - static_cast<double>(top_px) / height_px_;
-    const double bottom =
-        1.0 - static_cast<double>(top_px + kPanelPx) / height_px_;
-    if (index > 0) out_ += "unset label 1\nunset label 2\n";
-    out_ +=
-        "unset object\nunset arrow\nunset label 12\nunset logscale\n"
-        "unset y2tics\nunset y2label\n"
-        "set ytics auto nomirror out\nset xtics auto nomirror out\n"
-        "set format y '%g'\nset format x '%g'\n";
-    out_ += "set lmargin at screen " + Num(double(kLeftPx) / kWidthPx) + "\n";
-    out_ += "set rmargin at screen " +
-            Num(double(kWidthPx - kLegendPx) / kWidthPx) + "\n";
-    out_ += "set tmargin at screen " + Num(top) + "\n";
-    out_ += "set bmargin at screen " + Num(bottom) + "\n";
-    out_ += "set grid xtics ytics lc rgb '#d8d8d8' lw 1\n";
-    out_ += "set border 11 lw 1\n";
-    out_ += "set key at screen " +
-            Num(double(kWidthPx - kLegendPx + kKeyGapPx) / kWidthPx) +
-            ", screen " + Num(top) +
-            " left top Left reverse samplen 2.5 spacing 1.3 "
-            "box lc rgb '#bbbbbb' width -1\n";
-    out_ += "set label 12 " + GnuplotString(title) +
-            " at graph 0, graph 1 left offset 0,1.4 font ',13'\n";
+    out_ += PanelFrame(kLayout, index, height_px_, title, 11);
   }
 
   std::string Finish() {
