@@ -19,6 +19,7 @@
 
 #include "cli/run_binary.h"
 #include "cli/temp_folder.h"
+#include "cli/base_stage.h"
 
 namespace hushgain::test {
 namespace {
@@ -38,21 +39,7 @@ struct BadInputCase {
 };
 
 // A valid stage; each case changes one thing.
-json GoodStage() {
-  return json::parse(R"({
-    "name": "bad-input table stage",
-    "temperature_C": 25,
-    "band_Hz": {"low": "10", "high": "1k"},
-    "opamp": {"device": "zero-drift"},
-    "source": {"voltage": {"resistance": "100"}},
-    "stage": {
-      "topology": "inverting",
-      "input_resistor": "1k",
-      "feedback": {"resistor": "100k"},
-      "load": "10k"
-    }
-  })");
-}
+json GoodStage() { return json::parse(test::BadInputBaseStageText()); }
 
 std::string With(const std::string& pointer, const json& value) {
   json stage = GoodStage();

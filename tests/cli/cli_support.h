@@ -141,6 +141,16 @@ inline std::string DecodeXmlEntities(const std::string& text) {
 
 // The built binary with `args`; `env` entries ("PATH=...") go through
 // /usr/bin/env when given.
+// Stage names that would run a command if they reached gnuplot unescaped
+// (`pwned` is the file each would create).
+inline std::vector<std::string> HostileStageNames(const std::string& pwned) {
+  return {
+      "\"; system(\"touch " + pwned + "\") ; \"",
+      "'; system('touch " + pwned + "') ; '",
+      "`touch " + pwned + "` @x & <b> | *c* \\",
+  };
+}
+
 inline RunResult RunHushgain(const std::vector<std::string>& args,
                              const std::vector<std::string>& env = {}) {
   if (env.empty()) return RunBinary(HUSHGAIN_BINARY, args);

@@ -19,6 +19,7 @@
 
 #include "cli/run_binary.h"
 #include "test_support.h"
+#include "cli/base_stage.h"
 
 namespace hushgain::test {
 namespace {
@@ -115,21 +116,7 @@ class TempFolder {
 };
 
 // A valid stage; each bad-input case below changes one thing.
-json GoodStage() {
-  return json::parse(R"({
-    "name": "bad-input test stage",
-    "temperature_C": 25,
-    "band_Hz": {"low": "10", "high": "1k"},
-    "opamp": {"device": "zero-drift"},
-    "source": {"voltage": {"resistance": "100"}},
-    "stage": {
-      "topology": "inverting",
-      "input_resistor": "1k",
-      "feedback": {"resistor": "100k"},
-      "load": "10k"
-    }
-  })");
-}
+json GoodStage() { return json::parse(test::BadInputBaseStageText()); }
 
 // Runs `hushgain args...` in a temporary folder holding stage.json with
 // `stage_text`, and checks the bad-input contract: exit code 2, nothing on

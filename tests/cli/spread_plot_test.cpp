@@ -17,6 +17,7 @@ namespace hushgain {
 namespace {
 
 using nlohmann::json;
+using test::HostileStageNames;
 using test::ReadAll;
 using test::RunResult;
 using test::RunHushgain;
@@ -71,11 +72,8 @@ TEST_CASE("spread --plot writes a valid PNG and a well-formed SVG") {
 TEST_CASE("spread --plot draws a hostile stage name as text and runs nothing") {
   ScratchDir dir("spreadinject");
   const std::string pwned = dir / "pwned";
-  const std::vector<std::string> names = {
-      "\"; system(\"touch " + pwned + "\") ; \"",
-      "'; system('touch " + pwned + "') ; '",
-      "`touch " + pwned + "` @x & <b> | *c* \\",
-  };
+  const std::vector<std::string> names = HostileStageNames(pwned);
+
   for (const std::string& name : names) {
     INFO("name " << name);
     json stage = json::parse(ReadAll(Example()));

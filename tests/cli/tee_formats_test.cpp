@@ -20,6 +20,7 @@ namespace hushgain {
 namespace {
 
 using nlohmann::json;
+using test::HostileStageNames;
 using test::ReadAll;
 using test::RelErr;
 using test::RunHushgain;
@@ -260,11 +261,7 @@ TEST_CASE("tee sweep and search --plot write a valid PNG and a valid SVG") {
 TEST_CASE("tee --plot draws a hostile stage name as text and runs nothing") {
   ScratchDir dir("teeinject");
   const std::string pwned = dir / "pwned";
-  const std::vector<std::string> names = {
-      "\"; system(\"touch " + pwned + "\") ; \"",
-      "'; system('touch " + pwned + "') ; '",
-      "`touch " + pwned + "` @x & <b> | *c*",
-  };
+  const std::vector<std::string> names = HostileStageNames(pwned);
   for (const std::string& name : names) {
     INFO("name " << name);
     json stage = json::parse(ReadAll(Example()));
