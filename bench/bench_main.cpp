@@ -8,9 +8,9 @@
 #include <cstring>
 
 #include "bench/budget_bench.h"
+#include "bench/report_bench.h"
 #include "bench/spread_bench.h"
 #include "bench/tee_search_bench.h"
-#include "bench/report_bench.h"
 
 namespace {
 

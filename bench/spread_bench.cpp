@@ -1,12 +1,13 @@
 // The spread benchmark: 1e5 Monte Carlo samples of a T-network stage (gain
 // error, offset and integrated noise per sample, finite GBW), on every
 // hardware thread. Prints `spread_tee_1e5: <s> s`, the median of 5 runs.
+#include "bench/spread_bench.h"
+
 #include <algorithm>
 #include <chrono>
 #include <cstdio>
 #include <vector>
 
-#include "bench/spread_bench.h"
 #include "budget/spread.h"
 #include "circuit/stage.h"
 

@@ -85,8 +85,8 @@ ResponseSummary SummarizeResponse(const GainFunction& gain, double f_ref_hz,
   return out;
 }
 
-QualityFactor SecondOrderQ(const GainFunction& gain, double f_ref_hz, double f_max_hz,
-                           int points_per_decade) {
+QualityFactor SecondOrderQ(const GainFunction& gain, double f_ref_hz,
+                           double f_max_hz, int points_per_decade) {
   QualityFactor out;
   std::complex<double> h;
   out.status = gain(f_ref_hz, &h);

@@ -41,8 +41,8 @@ struct QualityFactor {
   double q = 0;
   double f90_hz = 0;
 };
-QualityFactor SecondOrderQ(const GainFunction& gain, double f_ref_hz, double f_max_hz,
-                           int points_per_decade = 20);
+QualityFactor SecondOrderQ(const GainFunction& gain, double f_ref_hz,
+                           double f_max_hz, int points_per_decade = 20);
 
 }  // namespace hushgain
 

@@ -1,6 +1,6 @@
 // The one place Eigen enters hushgain: the matrix aliases and the one
-// decomposition used (LU with partial pivoting, complex, and real for DC). Only analysis
-// includes this header; io and report never see an Eigen type.
+// decomposition used (LU with partial pivoting, complex, and real for DC). Only
+// analysis includes this header; io and report never see an Eigen type.
 #ifndef HUSHGAIN_ANALYSIS_LINEAR_ALGEBRA_H_
 #define HUSHGAIN_ANALYSIS_LINEAR_ALGEBRA_H_
 

@@ -6,11 +6,10 @@
 #include "analysis/phase.h"
 
 namespace hushgain {
-namespace {
+namespace {}  // namespace
 
-}  // namespace
-
-LoopGainSolver::LoopGainSolver(const MnaSystem& system, int opamp, const OpAmpModel& model)
+LoopGainSolver::LoopGainSolver(const MnaSystem& system, int opamp,
+                               const OpAmpModel& model)
     : g_(system.g()),
       c_(system.c()),
       y_(system.size(), system.size()),
@@ -46,8 +45,8 @@ Status LoopGainSolver::LoopGainAt(double f_hz, Complex* loop_gain) {
   return Status::Ok();
 }
 
-LoopSummary SummarizeLoop(LoopGainSolver& solver, double f_start_hz, double f_max_hz,
-                          int points_per_decade) {
+LoopSummary SummarizeLoop(LoopGainSolver& solver, double f_start_hz,
+                          double f_max_hz, int points_per_decade) {
   LoopSummary out;
   Complex t;
   out.status = solver.LoopGainAt(f_start_hz, &t);

@@ -39,16 +39,16 @@ class LoopGainSolver {
 
 struct LoopSummary {
   Status status;
-  double dc_loop_gain = 0;     // T at the lowest scanned frequency, real part
+  double dc_loop_gain = 0;  // T at the lowest scanned frequency, real part
   bool crossover_found = false;
-  double crossover_hz = 0;     // |T| = 1
+  double crossover_hz = 0;      // |T| = 1
   double phase_margin_deg = 0;  // 180 + arg T(crossover), unwrapped
 };
 
 // Scans f_start_hz .. f_max_hz (log, `points_per_decade`) for the first
 // unity crossing and refines it by bisection in log f.
-LoopSummary SummarizeLoop(LoopGainSolver& solver, double f_start_hz, double f_max_hz,
-                          int points_per_decade = 8);
+LoopSummary SummarizeLoop(LoopGainSolver& solver, double f_start_hz,
+                          double f_max_hz, int points_per_decade = 8);
 
 }  // namespace hushgain
 

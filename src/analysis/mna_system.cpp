@@ -172,11 +172,14 @@ Status AdjointSolver::SolveAt(double f_hz) {
   // pivots spread over more than 1e6, the sign of a badly conditioned system.
   const auto pivots = lu_.matrixLU().diagonal().cwiseAbs();
   const double smallest_pivot = pivots.minCoeff();
-  const bool suspicious = smallest_pivot < kPivotSpreadForConditionCheck * pivots.maxCoeff();
+  const bool suspicious =
+      smallest_pivot < kPivotSpreadForConditionCheck * pivots.maxCoeff();
   if (!(smallest_pivot >= kMinReciprocalCondition) ||
       (suspicious && !(lu_.rcond() >= kMinReciprocalCondition)))
-    return Status::Fail("the network is singular or too ill-conditioned to "
-                        "solve at " + HzText(f_hz));
+    return Status::Fail(
+        "the network is singular or too ill-conditioned to "
+        "solve at " +
+        HzText(f_hz));
   scaled_rhs_ = row_scale_.asDiagonal() * rhs_;
   z_.noalias() = lu_.solve(scaled_rhs_);
   z_.array() *= column_scale_.array();

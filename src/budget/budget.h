@@ -31,9 +31,9 @@ struct Contributor {
 // NG the DC noise gain. Vos and Ios have unknown sign: their terms are
 // magnitudes; the Ib term keeps its sign.
 struct OffsetBlock {
-  double vos_v = 0;         // |Vos| * NG
-  double ib_v = 0;          // signed
-  double ios_v = 0;         // magnitude
+  double vos_v = 0;   // |Vos| * NG
+  double ib_v = 0;    // signed
+  double ios_v = 0;   // magnitude
   double dark_v = 0;  // photodiode dark current x DC transimpedance, signed
   double worst_case_v = 0;  // |vos| + |ib| + |ios| + |dark|
   double rss_v = 0;         // sqrt(vos^2 + ib^2 + ios^2 + dark^2)
@@ -90,10 +90,10 @@ struct PhotodiodeBlock {
 
 // A feedback capacitor chosen for a target ("auto").
 struct CapacitorChoice {
-  std::string target;          // "butterworth" or "phase margin 60 deg"
-  double chosen_f = 0;         // found on the computed loop or response
-  double estimate_f = 0;       // the textbook approximation
-  std::string estimate_rule;   // "sqrt(C / (pi Rf GBW))"
+  std::string target;         // "butterworth" or "phase margin 60 deg"
+  double chosen_f = 0;        // found on the computed loop or response
+  double estimate_f = 0;      // the textbook approximation
+  std::string estimate_rule;  // "sqrt(C / (pi Rf GBW))"
 };
 
 // The DC drop across a resistor with a technology, from the DC solution at
@@ -152,9 +152,9 @@ struct CompensationBlock {
   double ib_with_v = 0;
   double noise_without_v = 0;  // output rms
   double noise_with_v = 0;
-  double added_share = 0;       // (with^2 - without^2) / with^2
-  double bypass_f = 0;          // the stage's C_plus, 0 = none
-  bool noise_matters = false;   // added_share > 10 % without a bypass
+  double added_share = 0;      // (with^2 - without^2) / with^2
+  double bypass_f = 0;         // the stage's C_plus, 0 = none
+  bool noise_matters = false;  // added_share > 10 % without a bypass
 };
 
 // Above this share of the total output noise power R_plus's noise "matters".

@@ -8,12 +8,12 @@
 
 #include "analysis/frequency_response.h"
 #include "analysis/loop_gain.h"
-#include "budget/feedback_capacitor.h"
 #include "budget/compensation_resistor.h"
+#include "budget/feedback_capacitor.h"
 #include "budget/offset.h"
 #include "budget/resistor_excess.h"
-#include "budget/stage_evaluator.h"
 #include "budget/stage_at_temperature.h"
+#include "budget/stage_evaluator.h"
 #include "budget/tee_comparison.h"
 #include "budget/temperature_corners.h"
 #include "circuit/expand_stage.h"
@@ -56,24 +56,29 @@ Ports CompilePorts(const Netlist& net, const SpectrumEvaluator& ev) {
   Ports p;
   p.signal = ev.Compile(net.signal);
   p.e_n = ev.Compile(Excitation{OpAmpInputVoltage{0}});
-  p.i_plus = ev.Compile(Excitation{CurrentInjection{net.opamps[0].plus, kGround}});
-  p.i_minus = ev.Compile(Excitation{CurrentInjection{net.opamps[0].minus, kGround}});
+  p.i_plus =
+      ev.Compile(Excitation{CurrentInjection{net.opamps[0].plus, kGround}});
+  p.i_minus =
+      ev.Compile(Excitation{CurrentInjection{net.opamps[0].minus, kGround}});
   for (const JunctionCurrent& j : net.junction_currents)
-    p.junctions.push_back({ev.Compile(Excitation{CurrentInjection{j.b, j.a}}), j.amperes});
+    p.junctions.push_back(
+        {ev.Compile(Excitation{CurrentInjection{j.b, j.a}}), j.amperes});
   return p;
 }
 
 // DC: signal gain, noise gain and the offset block, with the finite A0.
-Status DcFigures(const Stage& stage, const Netlist& net, const Ports& p, SpectrumEvaluator& ev,
-                 Budget& b) {
+Status DcFigures(const Stage& stage, const Netlist& net, const Ports& p,
+                 SpectrumEvaluator& ev, Budget& b) {
   Status s = ev.SolveAt(0.0);
   if (!s.ok) return s;
   b.signal_gain_dc = ev.Transfer(p.signal).real();
   b.noise_gain_dc = std::abs(ev.Transfer(p.e_n));
   double dark_v = 0;
-  for (const auto& [port, amperes] : p.junctions) dark_v += amperes * ev.Transfer(port).real();
-  b.offset = SumOffsets(stage.opamp, b.noise_gain_dc, ev.Transfer(p.i_plus).real(),
-                        ev.Transfer(p.i_minus).real(), dark_v);
+  for (const auto& [port, amperes] : p.junctions)
+    dark_v += amperes * ev.Transfer(port).real();
+  b.offset =
+      SumOffsets(stage.opamp, b.noise_gain_dc, ev.Transfer(p.i_plus).real(),
+                 ev.Transfer(p.i_minus).real(), dark_v);
   b.offset.balance_resistor_ohm = BalanceResistorOhm(stage);
   for (const Resistor& r : net.resistors)
     if (r.name == "R_plus") b.offset.plus_resistor_ohm = r.ohms;
@@ -81,7 +86,8 @@ Status DcFigures(const Stage& stage, const Netlist& net, const Ports& p, Spectru
 }
 
 // Gains and every contributor's densities at the reference frequency.
-Status ReferenceFigures(const Stage& /*stage*/, const Ports& p, SpectrumEvaluator& ev, Budget& b) {
+Status ReferenceFigures(const Stage& /*stage*/, const Ports& p,
+                        SpectrumEvaluator& ev, Budget& b) {
   const int n = ev.source_count();
   std::vector<double> psd(n);
   Status s = ev.Densities(b.reference_hz, psd.data());
@@ -111,30 +117,37 @@ Status ReferenceFigures(const Stage& /*stage*/, const Ports& p, SpectrumEvaluato
     total_density_sq += psd[k];
   }
   b.output_density_ref_v_per_rthz = std::sqrt(total_density_sq);
-  b.input_density_ref_per_rthz = b.output_density_ref_v_per_rthz / b.signal_gain_ref;
+  b.input_density_ref_per_rthz =
+      b.output_density_ref_v_per_rthz / b.signal_gain_ref;
   return Status::Ok();
 }
 
 // The band integral of every contributor at once.
-Status BandNoise(const Stage& stage, const BudgetOptions& options, SpectrumEvaluator& ev,
-                 Budget& b, std::vector<LogInterval>* partition) {
+Status BandNoise(const Stage& stage, const BudgetOptions& options,
+                 SpectrumEvaluator& ev, Budget& b,
+                 std::vector<LogInterval>* partition) {
   const int n = ev.source_count();
   IntegrationResult integral = IntegrateBand(
       stage.band_low_hz, stage.band_high_hz, n,
-      [&ev](double f, double* out) { return ev.Densities(f, out); }, options.integration);
+      [&ev](double f, double* out) { return ev.Densities(f, out); },
+      options.integration);
   if (!integral.status.ok) return integral.status;
   double total_power = 0;
   for (int k = 0; k < n; ++k) {
-    Status s = CheckFinite(integral.integrals[k], "the output noise of " + b.contributors[k].name);
+    Status s = CheckFinite(integral.integrals[k],
+                           "the output noise of " + b.contributors[k].name);
     if (!s.ok) return s;
     total_power += integral.integrals[k];
   }
   for (int k = 0; k < n; ++k) {
     b.contributors[k].output_rms_v = std::sqrt(integral.integrals[k]);
-    b.contributors[k].share = total_power > 0 ? integral.integrals[k] / total_power : 0;
+    b.contributors[k].share =
+        total_power > 0 ? integral.integrals[k] / total_power : 0;
   }
   std::stable_sort(b.contributors.begin(), b.contributors.end(),
-                   [](const Contributor& l, const Contributor& r) { return l.share > r.share; });
+                   [](const Contributor& l, const Contributor& r) {
+                     return l.share > r.share;
+                   });
   b.excess_advice = AdviseExcess(b.contributors, std::sqrt(total_power), stage,
                                  options.upgrade_candidates);
   *partition = integral.partition;
@@ -142,17 +155,19 @@ Status BandNoise(const Stage& stage, const BudgetOptions& options, SpectrumEvalu
   b.output_peak_to_peak_v = kPeakToPeakPerRms * b.output_rms_v;
   b.input_rms = b.output_rms_v / b.signal_gain_ref;
   b.integration_evaluations = integral.evaluations;
-  b.integration_relative_error = total_power > 0 ? integral.error_estimate / total_power : 0;
+  b.integration_relative_error =
+      total_power > 0 ? integral.error_estimate / total_power : 0;
   if (!integral.converged)
-    b.warnings.push_back(Printf("noise integration stopped at an estimated relative error of "
-                                "%.2g (asked %.2g)",
-                                b.integration_relative_error,
-                                options.integration.relative_tolerance));
+    b.warnings.push_back(Printf(
+        "noise integration stopped at an estimated relative error of "
+        "%.2g (asked %.2g)",
+        b.integration_relative_error, options.integration.relative_tolerance));
   return Status::Ok();
 }
 
 // The closed-loop response and the e_n noise gain across frequency.
-Status ResponseFigures(const Stage& stage, const Ports& p, SpectrumEvaluator& ev, Budget& b) {
+Status ResponseFigures(const Stage& stage, const Ports& p,
+                       SpectrumEvaluator& ev, Budget& b) {
   const double f_max = kBandwidthSearchPerGbw * stage.opamp.gbw_hz;
   // The same solves give where e_n's noise gain peaks above the reference.
   b.noise_gain_peak = b.noise_gain_ref;
@@ -174,46 +189,56 @@ Status ResponseFigures(const Stage& stage, const Ports& p, SpectrumEvaluator& ev
   b.peaking_db = response.peaking_db;
   b.peak_hz = response.peak_hz;
   if (b.bandwidth_3db_hz > 0 && b.bandwidth_3db_hz < b.band_high_hz)
-    b.warnings.push_back("the closed-loop -3 dB bandwidth (" + HzText(b.bandwidth_3db_hz) +
-                         ") is below the band's upper edge (" + HzText(b.band_high_hz) + ")");
+    b.warnings.push_back(
+        "the closed-loop -3 dB bandwidth (" + HzText(b.bandwidth_3db_hz) +
+        ") is below the band's upper edge (" + HzText(b.band_high_hz) + ")");
   return Status::Ok();
 }
 
 // The loop of the actual network: phase margin and crossover.
 Status LoopFigures(const Stage& stage, const MnaSystem& system, Budget& b) {
   LoopGainSolver solver(system, 0, stage.opamp);
-  const double start = 1e-3 * std::min(stage.band_low_hz, stage.opamp.gbw_hz / stage.opamp.open_loop_gain);
+  const double start =
+      1e-3 * std::min(stage.band_low_hz,
+                      stage.opamp.gbw_hz / stage.opamp.open_loop_gain);
   LoopSummary loop = SummarizeLoop(solver, start, 1e3 * stage.opamp.gbw_hz);
   if (!loop.status.ok) return loop.status;
-  b.loop = {loop.crossover_found, loop.crossover_hz, loop.phase_margin_deg, loop.dc_loop_gain};
+  b.loop = {loop.crossover_found, loop.crossover_hz, loop.phase_margin_deg,
+            loop.dc_loop_gain};
   // A loop gain far below 1 that is zero or negative is rounding, not
   // positive feedback: a feedback network attenuating by more than the
   // double range (1e-100 ohm beside 1e100 ohm) leaves T(0) ~ 1e-400, whose
   // computed value is noise of either sign. Say so instead.
   if (!(loop.dc_loop_gain > 0) &&
       !(std::fabs(loop.dc_loop_gain) >= kLoopGainSignFloor))
-    return Status::Fail(Printf("no usable feedback: the DC loop gain is below %.0e and its sign "
-                               "is lost in rounding (the feedback network attenuates far more "
-                               "than the op-amp gains)",
-                               kLoopGainSignFloor));
+    return Status::Fail(Printf(
+        "no usable feedback: the DC loop gain is below %.0e and its sign "
+        "is lost in rounding (the feedback network attenuates far more "
+        "than the op-amp gains)",
+        kLoopGainSignFloor));
   if (!(loop.dc_loop_gain > 0))
-    return Status::Fail("the feedback is positive at DC (loop gain " + Printf("%.4g", loop.dc_loop_gain) + ")");
+    return Status::Fail("the feedback is positive at DC (loop gain " +
+                        Printf("%.4g", loop.dc_loop_gain) + ")");
   if (loop.dc_loop_gain < 1)
-    b.warnings.push_back(Printf("the DC loop gain is %.3g, below 1: the stage runs open loop and "
-                                "its gain is set by the op-amp's A0, not by its resistors",
-                                loop.dc_loop_gain));
+    b.warnings.push_back(Printf(
+        "the DC loop gain is %.3g, below 1: the stage runs open loop and "
+        "its gain is set by the op-amp's A0, not by its resistors",
+        loop.dc_loop_gain));
   if (!loop.crossover_found) return Status::Ok();
   if (loop.phase_margin_deg <= 0)
-    return Status::Fail(Printf("the loop is unstable: phase margin %.1f deg at the %.4g Hz crossover",
+    return Status::Fail(Printf("the loop is unstable: phase margin %.1f deg at "
+                               "the %.4g Hz crossover",
                                loop.phase_margin_deg, loop.crossover_hz) +
                         "; add or raise the feedback capacitor");
   if (loop.phase_margin_deg < kSeverePhaseMarginDeg)
-    b.warnings.push_back(Printf("severe: phase margin %.1f deg (below 20 deg) at %.4g Hz: the stage "
-                                "is close to oscillation and its noise peaks",
-                                loop.phase_margin_deg, loop.crossover_hz));
+    b.warnings.push_back(Printf(
+        "severe: phase margin %.1f deg (below 20 deg) at %.4g Hz: the stage "
+        "is close to oscillation and its noise peaks",
+        loop.phase_margin_deg, loop.crossover_hz));
   else if (loop.phase_margin_deg < kLowPhaseMarginDeg)
-    b.warnings.push_back(Printf("low phase margin %.1f deg (below 45 deg) at %.4g Hz",
-                                loop.phase_margin_deg, loop.crossover_hz));
+    b.warnings.push_back(
+        Printf("low phase margin %.1f deg (below 45 deg) at %.4g Hz",
+               loop.phase_margin_deg, loop.crossover_hz));
   return Status::Ok();
 }
 
@@ -221,23 +246,29 @@ Status LoopFigures(const Stage& stage, const MnaSystem& system, Budget& b) {
 // solution for the signal, scaled to the full-scale output, read at the
 // controlled source's current (load plus feedback network, exact for the
 // stage as built).
-Status OutputDrive(const Stage& stage, const MnaSystem& system, const Ports& p, Budget& b) {
+Status OutputDrive(const Stage& stage, const MnaSystem& system, const Ports& p,
+                   Budget& b) {
   b.output_current_limit_a = stage.opamp.output_current_limit_a;
   if (!stage.full_scale_output_v || b.signal_gain_dc == 0) return Status::Ok();
   ComplexVector x;
   Status s = DirectSolve(system, 0.0, p.signal, &x);
   if (!s.ok) return s;
   const double fs = *stage.full_scale_output_v;
-  const double amperes = std::abs(x[system.OpAmpRow(0)].real()) * fs / std::fabs(b.signal_gain_dc);
+  const double amperes =
+      std::abs(x[system.OpAmpRow(0)].real()) * fs / std::fabs(b.signal_gain_dc);
   b.full_scale_output_current_a = amperes;
   if (amperes > stage.opamp.output_current_limit_a)
-    b.warnings.push_back(Printf("at the full-scale %.4g V the op-amp must source %.3g mA", fs, amperes * 1e3) +
-                         Printf(", beyond its %.3g mA output limit: raise the load or feedback "
-                                "resistance",
-                                stage.opamp.output_current_limit_a * 1e3));
+    b.warnings.push_back(
+        Printf("at the full-scale %.4g V the op-amp must source %.3g mA", fs,
+               amperes * 1e3) +
+        Printf(", beyond its %.3g mA output limit: raise the load or feedback "
+               "resistance",
+               stage.opamp.output_current_limit_a * 1e3));
   if (fs > 0.5 * stage.opamp.supply_v)
-    b.warnings.push_back(Printf("the full-scale swing of \xC2\xB1%.4g V exceeds half the %.4g V supply span",
-                                fs, stage.opamp.supply_v));
+    b.warnings.push_back(
+        Printf("the full-scale swing of \xC2\xB1%.4g V exceeds half the %.4g V "
+               "supply span",
+               fs, stage.opamp.supply_v));
   return Status::Ok();
 }
 
@@ -250,7 +281,8 @@ void PhotodiodeFigures(const Stage& stage, Budget& b) {
   }
   pd.input_capacitance_f = InputCapacitanceF(stage);
   if (stage.feedback.capacitor_f > 0)
-    pd.noise_gain_plateau_estimate = 1 + pd.input_capacitance_f / stage.feedback.capacitor_f;
+    pd.noise_gain_plateau_estimate =
+        1 + pd.input_capacitance_f / stage.feedback.capacitor_f;
   b.photodiode = pd;
 }
 
@@ -263,12 +295,14 @@ Stage PlainEquivalent(const Stage& tee_stage) {
   return plain;
 }
 
-BudgetOutcome ComputeBudgetAsGiven(const Stage& requested, const BudgetOptions& options) {
+BudgetOutcome ComputeBudgetAsGiven(const Stage& requested,
+                                   const BudgetOptions& options) {
   BudgetOutcome outcome;
   Budget& b = outcome.budget;
   Stage stage = requested;
   if (stage.capacitor_target) {
-    CapacitorOutcome cap = ChooseFeedbackCapacitor(stage, *stage.capacitor_target);
+    CapacitorOutcome cap =
+        ChooseFeedbackCapacitor(stage, *stage.capacitor_target);
     if (!cap.status.ok) return {cap.status, b, {}, {}};
     b.capacitor_choice = cap.choice;
     stage.feedback.capacitor_f = cap.choice.chosen_f;
@@ -288,7 +322,8 @@ BudgetOutcome ComputeBudgetAsGiven(const Stage& requested, const BudgetOptions& 
 
   Netlist netlist;
   SpectrumEvaluator evaluator;
-  Status s = PrepareStageEvaluator(stage, &netlist, &evaluator, &b.resistor_drops);
+  Status s =
+      PrepareStageEvaluator(stage, &netlist, &evaluator, &b.resistor_drops);
   if (!s.ok) return {s, b, {}, {}};
   const Ports ports = CompilePorts(netlist, evaluator);
 
@@ -296,7 +331,8 @@ BudgetOutcome ComputeBudgetAsGiven(const Stage& requested, const BudgetOptions& 
   if (full) s = LoopFigures(stage, evaluator.system(), b);
   if (s.ok) s = DcFigures(stage, netlist, ports, evaluator, b);
   if (s.ok) s = ReferenceFigures(stage, ports, evaluator, b);
-  if (s.ok) s = BandNoise(stage, options, evaluator, b, &outcome.noise_partition);
+  if (s.ok)
+    s = BandNoise(stage, options, evaluator, b, &outcome.noise_partition);
   if (s.ok && full) s = ResponseFigures(stage, ports, evaluator, b);
   if (s.ok && full) s = OutputDrive(stage, evaluator.system(), ports, b);
   if (!s.ok) return {s, b, {}, {}};
@@ -308,8 +344,9 @@ BudgetOutcome ComputeBudgetAsGiven(const Stage& requested, const BudgetOptions& 
   }
   if (stage.topology == Topology::kTransimpedance) PhotodiodeFigures(stage, b);
 
-  for (double v : {b.signal_gain_ref, b.noise_gain_ref, b.output_rms_v, b.input_rms,
-                   b.offset.worst_case_v, b.input_density_ref_per_rthz}) {
+  for (double v :
+       {b.signal_gain_ref, b.noise_gain_ref, b.output_rms_v, b.input_rms,
+        b.offset.worst_case_v, b.input_density_ref_per_rthz}) {
     s = CheckFinite(v, "a budget figure at " + HzText(b.reference_hz));
     if (!s.ok) return {s, b, {}, {}};
   }
@@ -325,9 +362,10 @@ BudgetOutcome ComputeBudgetAsGiven(const Stage& requested, const BudgetOptions& 
   return outcome;
 }
 
-BudgetOutcome ComputeBudget(const Stage& requested, const BudgetOptions& options) {
-  BudgetOutcome outcome =
-      ComputeBudgetAsGiven(StageAtTemperature(requested, requested.temperature_k), options);
+BudgetOutcome ComputeBudget(const Stage& requested,
+                            const BudgetOptions& options) {
+  BudgetOutcome outcome = ComputeBudgetAsGiven(
+      StageAtTemperature(requested, requested.temperature_k), options);
   if (!outcome.status.ok) return outcome;
   if (options.compare_tee && requested.feedback.kind == Feedback::Kind::kTee) {
     // The plain stage is the designer's alternative: built from the stage as
@@ -340,16 +378,20 @@ BudgetOutcome ComputeBudget(const Stage& requested, const BudgetOptions& options
     plain_options.compare_tee = false;
     plain_options.temperature_corners = false;
     plain_options.compensation = false;
-    const Stage plain_stage = StageAtTemperature(PlainEquivalent(given), requested.temperature_k);
+    const Stage plain_stage =
+        StageAtTemperature(PlainEquivalent(given), requested.temperature_k);
     BudgetOutcome plain = ComputeBudgetAsGiven(plain_stage, plain_options);
     if (!plain.status.ok) return {plain.status, outcome.budget, {}, {}};
-    outcome.budget.tee = CompareTee(outcome.budget, plain.budget,
-                                    FeedbackEquivalentOhm(outcome.stage_used.feedback));
+    outcome.budget.tee =
+        CompareTee(outcome.budget, plain.budget,
+                   FeedbackEquivalentOhm(outcome.stage_used.feedback));
   }
-  if (!options.temperature_corners || !requested.temperature_range) return outcome;
+  if (!options.temperature_corners || !requested.temperature_range)
+    return outcome;
   TemperatureBlock block;
   Status s = ComputeTemperatureBlock(requested, outcome.budget,
-                                     outcome.stage_used.feedback.capacitor_f, options, &block);
+                                     outcome.stage_used.feedback.capacitor_f,
+                                     options, &block);
   if (!s.ok) {
     outcome.status = s;
     return outcome;

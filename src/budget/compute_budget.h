@@ -10,8 +10,6 @@
 #include <string>
 #include <vector>
 
-#include "integrate/band_integral.h"
-
 #include "analysis/status.h"
 #include "budget/budget.h"
 #include "circuit/stage.h"
@@ -57,7 +55,8 @@ BudgetOutcome ComputeBudget(const Stage& stage, const BudgetOptions& options);
 // The same for a stage already moved to its temperature (no further
 // temperature laws applied), without the tee comparison and the temperature
 // block (which need the stage as given).
-BudgetOutcome ComputeBudgetAsGiven(const Stage& stage, const BudgetOptions& options);
+BudgetOutcome ComputeBudgetAsGiven(const Stage& stage,
+                                   const BudgetOptions& options);
 
 // The plain stage that a T network stands in for: the same stage with one
 // feedback resistor equal to the tee's equivalent resistance.

@@ -21,7 +21,8 @@ constexpr double kButterworthQ = 0.70710678118654752;
 // Where the loop and response scans start and stop: well below the op-amp's
 // open-loop pole and the band, and far above the GBW.
 double ScanStartHz(const Stage& s) {
-  return 1e-3 * std::min(s.band_low_hz, s.opamp.gbw_hz / s.opamp.open_loop_gain);
+  return 1e-3 *
+         std::min(s.band_low_hz, s.opamp.gbw_hz / s.opamp.open_loop_gain);
 }
 double ScanStopHz(const Stage& s) { return 1e3 * s.opamp.gbw_hz; }
 
@@ -71,8 +72,10 @@ Status Bisect(Measure measure, double target, bool rising, double* found) {
     Status s = measure(std::exp(mid), &value);
     if (!s.ok) return s;
     const bool above = value >= target;
-    if (above == rising) hi = mid;
-    else lo = mid;
+    if (above == rising)
+      hi = mid;
+    else
+      lo = mid;
   }
   *found = std::exp(0.5 * (lo + hi));
   return Status::Ok();
@@ -81,7 +84,9 @@ Status Bisect(Measure measure, double target, bool rising, double* found) {
 }  // namespace
 
 double InputCapacitanceF(const Stage& stage) {
-  const double diode = stage.topology == Topology::kTransimpedance ? stage.photodiode.capacitance_f : 0;
+  const double diode = stage.topology == Topology::kTransimpedance
+                           ? stage.photodiode.capacitance_f
+                           : 0;
   return diode + stage.opamp.c_cm_f + stage.opamp.c_diff_f;
 }
 
@@ -92,7 +97,8 @@ StageLoop ComputeStageLoop(const Stage& stage) {
   out.status = MnaSystem::Build(net, &system);
   if (!out.status.ok) return out;
   LoopGainSolver solver(system, 0, stage.opamp);
-  LoopSummary summary = SummarizeLoop(solver, ScanStartHz(stage), ScanStopHz(stage));
+  LoopSummary summary =
+      SummarizeLoop(solver, ScanStartHz(stage), ScanStopHz(stage));
   out.status = summary.status;
   out.loop.crossover_found = summary.crossover_found;
   out.loop.crossover_hz = summary.crossover_hz;
@@ -101,7 +107,8 @@ StageLoop ComputeStageLoop(const Stage& stage) {
   return out;
 }
 
-CapacitorOutcome ChooseFeedbackCapacitor(const Stage& stage, const CapacitorTarget& target) {
+CapacitorOutcome ChooseFeedbackCapacitor(const Stage& stage,
+                                         const CapacitorTarget& target) {
   CapacitorOutcome out;
   const double c = InputCapacitanceF(stage);
   const double rf = FeedbackEquivalentOhm(stage.feedback);
@@ -123,12 +130,14 @@ CapacitorOutcome ChooseFeedbackCapacitor(const Stage& stage, const CapacitorTarg
       out.choice.chosen_f = 0;  // flat without a capacitor
       return out;
     }
-    out.status = Bisect(measure, kButterworthQ, /*rising=*/false, &out.choice.chosen_f);
+    out.status =
+        Bisect(measure, kButterworthQ, /*rising=*/false, &out.choice.chosen_f);
     return out;
   }
   out.choice.target = Degrees(target.phase_margin_deg);
   out.choice.estimate_f = std::sqrt(c / (2 * kPi * rf * gbw));
-  out.choice.estimate_rule = "sqrt(C / (2 pi Rf GBW)), the classic 45 deg estimate";
+  out.choice.estimate_rule =
+      "sqrt(C / (2 pi Rf GBW)), the classic 45 deg estimate";
   auto measure = [&](double cf, double* pm) {
     StageLoop r = ComputeStageLoop(WithCapacitor(stage, cf));
     *pm = r.loop.crossover_found ? r.loop.phase_margin_deg : 180.0;
@@ -145,12 +154,14 @@ CapacitorOutcome ChooseFeedbackCapacitor(const Stage& stage, const CapacitorTarg
   if (pm_max < target.phase_margin_deg) {
     char buf[160];
     std::snprintf(buf, sizeof buf,
-                  "no feedback capacitor up to 1 uF gives a phase margin of %.4g deg (at most %.4g)",
+                  "no feedback capacitor up to 1 uF gives a phase margin of "
+                  "%.4g deg (at most %.4g)",
                   target.phase_margin_deg, pm_max);
     out.status = Status::Fail(buf);
     return out;
   }
-  out.status = Bisect(measure, target.phase_margin_deg, /*rising=*/true, &out.choice.chosen_f);
+  out.status = Bisect(measure, target.phase_margin_deg, /*rising=*/true,
+                      &out.choice.chosen_f);
   return out;
 }
 

@@ -23,7 +23,8 @@ struct CapacitorOutcome {
   CapacitorChoice choice;
 };
 
-CapacitorOutcome ChooseFeedbackCapacitor(const Stage& stage, const CapacitorTarget& target);
+CapacitorOutcome ChooseFeedbackCapacitor(const Stage& stage,
+                                         const CapacitorTarget& target);
 
 // The capacitance at the - input that the textbook estimates use:
 // C_d + C_cm + C_diff (the + input at AC ground).

@@ -19,7 +19,8 @@ OffsetBlock SumOffsets(const OpAmpModel& opamp, double noise_gain_dc,
   block.ib_v = -opamp.ib_a * h_sum;
   block.ios_v = std::fabs(0.5 * opamp.ios_a * (h_plus_ohm - h_minus_ohm));
   block.dark_v = dark_v;
-  block.worst_case_v = block.vos_v + std::fabs(block.ib_v) + block.ios_v + std::fabs(dark_v);
+  block.worst_case_v =
+      block.vos_v + std::fabs(block.ib_v) + block.ios_v + std::fabs(dark_v);
   block.rss_v = std::sqrt(block.vos_v * block.vos_v + block.ib_v * block.ib_v +
                           block.ios_v * block.ios_v + dark_v * dark_v);
   return block;

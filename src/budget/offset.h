@@ -14,7 +14,8 @@ namespace hushgain {
 
 // `dark_v` is a photodiode's dark-current term (signed), 0 for none.
 OffsetBlock SumOffsets(const OpAmpModel& opamp, double noise_gain_dc,
-                       double h_plus_ohm, double h_minus_ohm, double dark_v = 0);
+                       double h_plus_ohm, double h_minus_ohm,
+                       double dark_v = 0);
 
 }  // namespace hushgain
 

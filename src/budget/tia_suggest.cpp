@@ -30,7 +30,8 @@ BudgetOptions QuickOptions() {
 // The Butterworth C_f and the bandwidth it gives at `rf`.
 Status Flat(const Stage& stage, double rf, double* cf, double* bandwidth_hz) {
   CapacitorOutcome cap = ChooseFeedbackCapacitor(
-      WithFeedback(stage, rf, 0), CapacitorTarget{CapacitorTarget::Kind::kButterworth, 0});
+      WithFeedback(stage, rf, 0),
+      CapacitorTarget{CapacitorTarget::Kind::kButterworth, 0});
   if (!cap.status.ok) return cap.status;
   *cf = cap.choice.chosen_f;
   BudgetOutcome b = ComputeBudget(WithFeedback(stage, rf, *cf), QuickOptions());
@@ -41,12 +42,13 @@ Status Flat(const Stage& stage, double rf, double* cf, double* bandwidth_hz) {
 
 // The C_f >= cf_flat that puts the -3 dB point on the target (the bandwidth
 // falls as C_f grows).
-Status CapacitorForBandwidth(const Stage& stage, double rf, double cf_flat, double target_hz,
-                             double* cf) {
+Status CapacitorForBandwidth(const Stage& stage, double rf, double cf_flat,
+                             double target_hz, double* cf) {
   double lo = std::log(std::max(cf_flat, 1e-18)), hi = std::log(1e-6);
   for (int i = 0; i < 60 && hi - lo > 1e-6; ++i) {
     const double mid = 0.5 * (lo + hi);
-    BudgetOutcome b = ComputeBudget(WithFeedback(stage, rf, std::exp(mid)), QuickOptions());
+    BudgetOutcome b =
+        ComputeBudget(WithFeedback(stage, rf, std::exp(mid)), QuickOptions());
     if (!b.status.ok) return b.status;
     (b.budget.bandwidth_3db_hz >= target_hz ? lo : hi) = mid;
   }
@@ -54,8 +56,8 @@ Status CapacitorForBandwidth(const Stage& stage, double rf, double cf_flat, doub
   return Status::Ok();
 }
 
-Status FillRow(const Stage& stage, double rf, double cf, double flat_hz, bool meets,
-               TiaCandidate* row) {
+Status FillRow(const Stage& stage, double rf, double cf, double flat_hz,
+               bool meets, TiaCandidate* row) {
   BudgetOutcome b = ComputeBudget(WithFeedback(stage, rf, cf), QuickOptions());
   if (!b.status.ok) return b.status;
   const Budget& x = b.budget;
@@ -86,30 +88,37 @@ std::string TiaSuggestOptions::Validate() const {
   return out.str();
 }
 
-TiaSuggestion SuggestTransimpedance(const Stage& stage, const TiaSuggestOptions& options) {
+TiaSuggestion SuggestTransimpedance(const Stage& stage,
+                                    const TiaSuggestOptions& options) {
   TiaSuggestion out;
   std::vector<double> rf = options.resistors_ohm;
   std::sort(rf.begin(), rf.end());
   rf.erase(std::unique(rf.begin(), rf.end()), rf.end());
   const double c = InputCapacitanceF(stage);
   const double f = options.bandwidth_hz;
-  out.largest_rf_estimate_ohm = c > 0 ? stage.opamp.gbw_hz / (2 * kPi * c * f * f) : 0;
+  out.largest_rf_estimate_ohm =
+      c > 0 ? stage.opamp.gbw_hz / (2 * kPi * c * f * f) : 0;
 
   // Bisection for the largest index whose flat bandwidth reaches the target.
-  auto flat = [&](int i, double* cf, double* bw) { return Flat(stage, rf[i], cf, bw); };
+  auto flat = [&](int i, double* cf, double* bw) {
+    return Flat(stage, rf[i], cf, bw);
+  };
   double cf_lo = 0, bw_lo = 0;
   out.status = flat(0, &cf_lo, &bw_lo);
   if (!out.status.ok) return out;
   if (bw_lo < f) {
     char buf[200];
-    std::snprintf(buf, sizeof buf,
-                  "even the smallest candidate R_f (%.4g ohm) reaches only %.4g Hz flat, "
-                  "below the %.4g Hz target: a faster op-amp or a smaller photodiode is needed",
-                  rf[0], bw_lo, f);
+    std::snprintf(
+        buf, sizeof buf,
+        "even the smallest candidate R_f (%.4g ohm) reaches only %.4g Hz flat, "
+        "below the %.4g Hz target: a faster op-amp or a smaller photodiode is "
+        "needed",
+        rf[0], bw_lo, f);
     out.status = Status::Fail(buf);
     return out;
   }
-  int lo = 0, hi = static_cast<int>(rf.size());  // rf[lo] meets; rf[hi] (if any) does not
+  int lo = 0, hi = static_cast<int>(
+                  rf.size());  // rf[lo] meets; rf[hi] (if any) does not
   while (hi - lo > 1) {
     const int mid = (lo + hi) / 2;
     double cf = 0, bw = 0;
@@ -122,9 +131,11 @@ TiaSuggestion SuggestTransimpedance(const Stage& stage, const TiaSuggestOptions&
   for (int i = first; i <= lo; ++i) {
     double cf_flat = 0, bw_flat = 0, cf = 0;
     out.status = flat(i, &cf_flat, &bw_flat);
-    if (out.status.ok) out.status = CapacitorForBandwidth(stage, rf[i], cf_flat, f, &cf);
+    if (out.status.ok)
+      out.status = CapacitorForBandwidth(stage, rf[i], cf_flat, f, &cf);
     TiaCandidate row;
-    if (out.status.ok) out.status = FillRow(stage, rf[i], cf, bw_flat, true, &row);
+    if (out.status.ok)
+      out.status = FillRow(stage, rf[i], cf, bw_flat, true, &row);
     if (!out.status.ok) return out;
     out.rows.push_back(row);
   }
@@ -134,7 +145,8 @@ TiaSuggestion SuggestTransimpedance(const Stage& stage, const TiaSuggestOptions&
     double cf_flat = 0, bw_flat = 0;
     out.status = flat(hi, &cf_flat, &bw_flat);
     TiaCandidate row;
-    if (out.status.ok) out.status = FillRow(stage, rf[hi], cf_flat, bw_flat, false, &row);
+    if (out.status.ok)
+      out.status = FillRow(stage, rf[hi], cf_flat, bw_flat, false, &row);
     if (!out.status.ok) return out;
     out.rows.push_back(row);
   }

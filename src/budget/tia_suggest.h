@@ -55,7 +55,8 @@ struct TiaSuggestion {
 
 // `stage` must be a transimpedance stage; its feedback resistor and
 // capacitor are replaced by the candidates.
-TiaSuggestion SuggestTransimpedance(const Stage& stage, const TiaSuggestOptions& options);
+TiaSuggestion SuggestTransimpedance(const Stage& stage,
+                                    const TiaSuggestOptions& options);
 
 }  // namespace hushgain
 

@@ -14,7 +14,8 @@ double FeedbackDcOhm(const Feedback& feedback) {
   return t.r1_ohm + t.r2_ohm * t.r3_ohm / (t.r2_ohm + t.r3_ohm);
 }
 
-void AddFeedback(const Feedback& fb, NodeId summing, NodeId output, Netlist* net) {
+void AddFeedback(const Feedback& fb, NodeId summing, NodeId output,
+                 Netlist* net) {
   if (fb.kind == Feedback::Kind::kResistor) {
     net->resistors.push_back({"R_f", summing, output, fb.resistor_ohm, true});
   } else {
@@ -23,23 +24,28 @@ void AddFeedback(const Feedback& fb, NodeId summing, NodeId output, Netlist* net
     net->resistors.push_back({"R2", tee, output, fb.tee.r2_ohm, true});
     net->resistors.push_back({"R3", tee, kGround, fb.tee.r3_ohm, true});
   }
-  if (fb.capacitor_f > 0) net->capacitors.push_back({"C_f", summing, output, fb.capacitor_f});
+  if (fb.capacitor_f > 0)
+    net->capacitors.push_back({"C_f", summing, output, fb.capacitor_f});
 }
 
-void AddOpAmpWithLoad(const Stage& stage, NodeId summing, NodeId output, double balance_ohm,
-                      Netlist* net) {
+void AddOpAmpWithLoad(const Stage& stage, NodeId summing, NodeId output,
+                      double balance_ohm, Netlist* net) {
   // Without R_plus the + input is tied to ground, and i_n+ and Ib+ flow
   // straight into it.
   NodeId plus = kGround;
   if (stage.plus_resistor.mode != PlusResistor::Mode::kNone) {
     plus = net->AddNode("plus");
-    double ohms = stage.plus_resistor.mode == PlusResistor::Mode::kAuto ? balance_ohm
-                                                                        : stage.plus_resistor.ohms;
+    double ohms = stage.plus_resistor.mode == PlusResistor::Mode::kAuto
+                      ? balance_ohm
+                      : stage.plus_resistor.ohms;
     net->resistors.push_back({"R_plus", plus, kGround, ohms, true});
     if (stage.plus_resistor_bypass_f > 0)
-      net->capacitors.push_back({"C_plus", plus, kGround, stage.plus_resistor_bypass_f});
+      net->capacitors.push_back(
+          {"C_plus", plus, kGround, stage.plus_resistor_bypass_f});
   }
-  if (stage.load_ohm) net->resistors.push_back({"R_load", output, kGround, *stage.load_ohm, true});
+  if (stage.load_ohm)
+    net->resistors.push_back(
+        {"R_load", output, kGround, *stage.load_ohm, true});
   net->opamps.push_back({"op-amp", plus, summing, output, stage.opamp});
 }
 

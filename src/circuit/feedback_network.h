@@ -19,13 +19,14 @@ double FeedbackDcOhm(const Feedback& feedback);
 
 // Adds R_f (or R1, R2, R3 and the tee node) and C_f between `summing` and
 // `output`.
-void AddFeedback(const Feedback& feedback, NodeId summing, NodeId output, Netlist* net);
+void AddFeedback(const Feedback& feedback, NodeId summing, NodeId output,
+                 Netlist* net);
 
 // Adds R_plus (none, a value, or `balance_ohm` for "auto") with its bypass
 // capacitor C_plus when the stage sets one, the load and
 // the op-amp with its - input at `summing` and its output at `output`.
-void AddOpAmpWithLoad(const Stage& stage, NodeId summing, NodeId output, double balance_ohm,
-                      Netlist* net);
+void AddOpAmpWithLoad(const Stage& stage, NodeId summing, NodeId output,
+                      double balance_ohm, Netlist* net);
 
 }  // namespace hushgain
 

@@ -14,14 +14,16 @@ Netlist ExpandInverting(const Stage& stage) {
   NodeId input = source;
   if (stage.source.resistance_ohm > 0) {
     input = net.AddNode("input");
-    net.resistors.push_back({"R_source", source, input, stage.source.resistance_ohm, true});
+    net.resistors.push_back(
+        {"R_source", source, input, stage.source.resistance_ohm, true});
   }
   NodeId summing = net.AddNode("summing");
   NodeId output = net.AddNode("output");
   net.voltage_sources.push_back({"V_signal", source, kGround});
   net.signal = SourceVoltage{0};
   net.output = output;
-  net.resistors.push_back({"R_in", input, summing, stage.input_resistor_ohm, true});
+  net.resistors.push_back(
+      {"R_in", input, summing, stage.input_resistor_ohm, true});
   AddFeedback(stage.feedback, summing, output, &net);
   AddOpAmpWithLoad(stage, summing, output, InvertingBalanceOhm(stage), &net);
   return net;

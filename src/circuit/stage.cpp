@@ -9,7 +9,8 @@ double ReferenceFrequencyHz(const Stage& stage) {
   return std::sqrt(stage.band_low_hz * stage.band_high_hz);
 }
 
-const ResistorSpec* ResistorSpecFor(const Stage& stage, const std::string& name) {
+const ResistorSpec* ResistorSpecFor(const Stage& stage,
+                                    const std::string& name) {
   auto it = stage.resistor_overrides.find(name);
   if (it != stage.resistor_overrides.end()) return &it->second;
   // The source's resistance and the photodiode's shunt belong to the sensor,

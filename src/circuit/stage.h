@@ -14,7 +14,7 @@
 namespace hushgain {
 
 enum class Topology {
-  kInverting,       // Rin from the source to the - input, feedback to the output
+  kInverting,  // Rin from the source to the - input, feedback to the output
   kTransimpedance,  // a photodiode into the - input, feedback to the output
 };
 
@@ -84,15 +84,16 @@ struct ResistorSpec {
 struct Stage {
   std::string name;
   // The nominal temperature. Device and resistor values are at 25 °C; the
-  // budget evaluates the stage at this temperature (budget/stage_at_temperature.h).
+  // budget evaluates the stage at this temperature
+  // (budget/stage_at_temperature.h).
   double temperature_k = 298.15;
   std::optional<TemperatureRange> temperature_range;
   double band_low_hz = 0;
   double band_high_hz = 0;
   std::optional<double> reference_hz;  // default: sqrt(low * high)
   OpAmpModel opamp;
-  SignalSource source;       // kInverting
-  Photodiode photodiode;     // kTransimpedance
+  SignalSource source;    // kInverting
+  Photodiode photodiode;  // kTransimpedance
   Topology topology = Topology::kInverting;
   double input_resistor_ohm = 0;  // kInverting
   Feedback feedback;
@@ -115,7 +116,8 @@ struct Stage {
 
 // The spec of the netlist resistor named `name` ("R_in", "R1", ...): the
 // override, else the stage's technology for its own parts, else nullptr.
-const ResistorSpec* ResistorSpecFor(const Stage& stage, const std::string& name);
+const ResistorSpec* ResistorSpecFor(const Stage& stage,
+                                    const std::string& name);
 
 // sqrt(low * high) unless the stage sets it.
 double ReferenceFrequencyHz(const Stage& stage);

@@ -18,13 +18,17 @@ Netlist ExpandTransimpedance(const Stage& stage) {
   NodeId output = net.AddNode("output");
   net.signal = CurrentInjection{summing, kGround};
   net.output = output;
-  if (pd.capacitance_f > 0) net.capacitors.push_back({"C_d", summing, kGround, pd.capacitance_f});
+  if (pd.capacitance_f > 0)
+    net.capacitors.push_back({"C_d", summing, kGround, pd.capacitance_f});
   if (pd.shunt_resistance_ohm > 0)
-    net.resistors.push_back({"R_sh", summing, kGround, pd.shunt_resistance_ohm, true});
+    net.resistors.push_back(
+        {"R_sh", summing, kGround, pd.shunt_resistance_ohm, true});
   if (pd.dark_current_a > 0)
-    net.junction_currents.push_back({"I_dark", kGround, summing, pd.dark_current_a});
+    net.junction_currents.push_back(
+        {"I_dark", kGround, summing, pd.dark_current_a});
   AddFeedback(stage.feedback, summing, output, &net);
-  AddOpAmpWithLoad(stage, summing, output, TransimpedanceBalanceOhm(stage), &net);
+  AddOpAmpWithLoad(stage, summing, output, TransimpedanceBalanceOhm(stage),
+                   &net);
   return net;
 }
 

@@ -47,7 +47,8 @@ int RunBudgetCommand(const BudgetCommandOptions& options) {
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
   const Stage stage = LoadStageFile(options.stage_path, library);
   for (const auto& [name, technology] : library.resistors)
-    budget_options.upgrade_candidates.push_back({name, technology, technology.tolerance});
+    budget_options.upgrade_candidates.push_back(
+        {name, technology, technology.tolerance});
   const BudgetOutcome outcome = ComputeBudget(stage, budget_options);
   if (!outcome.status.ok) {
     std::cerr << "error: "

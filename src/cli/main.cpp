@@ -9,10 +9,10 @@
 
 #include "cli/budget_command.h"
 #include "cli/exit_codes.h"
-#include "cli/tee_command.h"
-#include "cli/tia_command.h"
 #include "cli/plot_command.h"
 #include "cli/spread_command.h"
+#include "cli/tee_command.h"
+#include "cli/tia_command.h"
 #include "io/error.h"
 #include "io/suggest.h"
 
@@ -82,17 +82,20 @@ void RequireSubcommand(CLI::App* app, const std::string& group,
     std::string expected;
     for (const std::string& n : names)
       expected += (expected.empty() ? "\"" : " or \"") + n + "\"";
-    if (words.empty()) throw Error("command line", "", group + ": expected " + expected);
+    if (words.empty())
+      throw Error("command line", "", group + ": expected " + expected);
     throw Error("command line", "",
                 "unknown " + group + " command \"" + words.front() + "\"" +
-                    DidYouMean(words.front(), names) + "; try " + group + " --help");
+                    DidYouMean(words.front(), names) + "; try " + group +
+                    " --help");
   });
 }
 
 std::function<int()> DefineTee(CLI::App* app, const GlobalOptions& global) {
   auto chosen = std::make_shared<std::function<int()>>();
   RequireSubcommand(app, "tee",
-                    std::vector<std::string>(std::begin(kTeeSubcommands), std::end(kTeeSubcommands)));
+                    std::vector<std::string>(std::begin(kTeeSubcommands),
+                                             std::end(kTeeSubcommands)));
 
   auto sweep = std::make_shared<TeeSweepCommandOptions>();
   CLI::App* s = app->add_subcommand(
@@ -169,13 +172,18 @@ std::function<int()> DefineTia(CLI::App* app, const GlobalOptions& global) {
   auto chosen = std::make_shared<bool>(false);
   CLI::App* s = app->add_subcommand(
       "suggest", "feedback resistor and capacitor for a bandwidth target");
-  s->add_option("stage", options->stage_path, "transimpedance stage file (JSON)")->required();
-  s->add_option("--bandwidth", options->bandwidth, "the -3 dB target, e.g. 50k (required)")
+  s->add_option("stage", options->stage_path,
+                "transimpedance stage file (JSON)")
       ->required();
-  s->add_option("--series", options->series, "IEC 60063 series of R_f (default E24)");
+  s->add_option("--bandwidth", options->bandwidth,
+                "the -3 dB target, e.g. 50k (required)")
+      ->required();
+  s->add_option("--series", options->series,
+                "IEC 60063 series of R_f (default E24)");
   s->add_option("--min", options->min, "smallest R_f (default 1k)");
   s->add_option("--max", options->max, "largest R_f (default 10G)");
-  s->add_option("--rows", options->rows, "proposals at or below the best R_f (default 6)");
+  s->add_option("--rows", options->rows,
+                "proposals at or below the best R_f (default 6)");
   s->add_flag("--json", options->json, "print JSON");
   s->callback([chosen] { *chosen = true; });
   return [options, chosen, &global] {
@@ -205,16 +213,20 @@ std::function<int()> DefinePlot(CLI::App* app, const GlobalOptions& global) {
 std::function<int()> DefineSpread(CLI::App* app, const GlobalOptions& global) {
   auto o = std::make_shared<SpreadCommandOptions>();
   app->add_option("stage", o->stage_path, "stage file (JSON)")->required();
-  app->add_option("--samples", o->samples, "number of Monte Carlo samples (default 10000)");
+  app->add_option("--samples", o->samples,
+                  "number of Monte Carlo samples (default 10000)");
   app->add_option("--seed", o->seed, "seed of the random streams (default 1)");
   app->add_option("--threads", o->threads, "worker threads (default 0: all)");
   app->add_option("--csv", o->csv_path, "write every sample to this CSV file");
   app->add_option("--plot", o->plot_path,
                   "also draw histograms of gain error, offset and noise "
                   "(.png or .svg)");
-  app->add_option("--gain-error-limit", o->gain_error_limit, "yield limit on |gain error|, e.g. 0.5%");
-  app->add_option("--offset-limit", o->offset_limit, "yield limit on |output offset|, e.g. 5m");
-  app->add_option("--noise-limit", o->noise_limit, "yield limit on the output noise rms, e.g. 100u");
+  app->add_option("--gain-error-limit", o->gain_error_limit,
+                  "yield limit on |gain error|, e.g. 0.5%");
+  app->add_option("--offset-limit", o->offset_limit,
+                  "yield limit on |output offset|, e.g. 5m");
+  app->add_option("--noise-limit", o->noise_limit,
+                  "yield limit on the output noise rms, e.g. 100u");
   return [o, &global] {
     o->devices_dir = global.devices_dir;
     return RunSpreadCommand(*o);
@@ -226,10 +238,12 @@ const std::vector<Command>& Commands() {
       {"budget", "noise and offset budget of a stage", DefineBudget},
       {"tee", "T-network design: sweep the largest resistor, search E-series",
        DefineTee},
-      {"tia", "photodiode stages: suggest R_f and C_f for a bandwidth", DefineTia},
+      {"tia", "photodiode stages: suggest R_f and C_f for a bandwidth",
+       DefineTia},
       {"plot", "noise spectra, cumulative noise and gains as a picture",
        DefinePlot},
-      {"spread", "Monte Carlo over tolerances, offsets and temperature", DefineSpread},
+      {"spread", "Monte Carlo over tolerances, offsets and temperature",
+       DefineSpread},
   };
   return commands;
 }

@@ -70,7 +70,8 @@ int RunSpreadCommand(const SpreadCommandOptions& options) {
 
   if (!options.csv_path.empty()) {
     // Refuse an unwritable place before the run, not after it.
-    const std::filesystem::path folder = std::filesystem::path(options.csv_path).parent_path();
+    const std::filesystem::path folder =
+        std::filesystem::path(options.csv_path).parent_path();
     if (!folder.empty() && !std::filesystem::is_directory(folder))
       throw Error(options.csv_path, "", "cannot write: no such folder");
   }
@@ -89,7 +90,8 @@ int RunSpreadCommand(const SpreadCommandOptions& options) {
   ProgressBar bar("sampling");
   if (bar.enabled())
     control.progress = [&bar](long done, long total) {
-      bar.Show(static_cast<double>(done) / static_cast<double>(total > 0 ? total : 1));
+      bar.Show(static_cast<double>(done) /
+               static_cast<double>(total > 0 ? total : 1));
     };
   InterruptScope interrupt;
   control.stop = interrupt.flag();

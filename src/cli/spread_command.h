@@ -15,8 +15,8 @@ struct SpreadCommandOptions {
   std::string devices_dir;
   long samples = 10000;  // at least 1
   std::uint64_t seed = 1;
-  int threads = 0;       // 0 = every hardware thread
-  std::string csv_path;  // empty = no CSV
+  int threads = 0;        // 0 = every hardware thread
+  std::string csv_path;   // empty = no CSV
   std::string plot_path;  // .png or .svg histograms; empty = no picture
   // Limits as typed ("0.5%", "5m", "100u"); empty = none.
   std::string gain_error_limit;

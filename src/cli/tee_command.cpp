@@ -33,7 +33,6 @@ namespace {
 
 constexpr const char* kOhm = "\xCE\xA9";
 
-
 Error OptionError(const std::string& option, const std::string& message) {
   return Error("command line", "", option + ": " + message);
 }

@@ -187,7 +187,8 @@ IntegrationResult IntegrateBand(double f_low_hz, double f_high_hz, int n,
   return result;
 }
 
-std::vector<QuadratureNode> QuadratureNodes(const std::vector<LogInterval>& partition) {
+std::vector<QuadratureNode> QuadratureNodes(
+    const std::vector<LogInterval>& partition) {
   std::vector<QuadratureNode> nodes;
   nodes.reserve(partition.size() * 15);
   for (const LogInterval& iv : partition) {

@@ -69,7 +69,8 @@ struct QuadratureNode {
 // a changed integrand on the nodes a converged adaptive run chose, at a fixed
 // cost. Applied to the integrand of that run it gives the same integral to
 // rounding.
-std::vector<QuadratureNode> QuadratureNodes(const std::vector<LogInterval>& partition);
+std::vector<QuadratureNode> QuadratureNodes(
+    const std::vector<LogInterval>& partition);
 
 }  // namespace hushgain
 

@@ -111,12 +111,16 @@ void ApplyOpAmpParameters(ObjectReader& reader, OpAmpModel* model) {
   }
   ApplyBiasTemperature(reader, model);
   if (auto spread = reader.OptionalString("offset_distribution")) {
-    if (*spread == "uniform") model->offset_distribution = OffsetDistribution::kUniform;
-    else if (*spread == "gaussian") model->offset_distribution = OffsetDistribution::kGaussian;
+    if (*spread == "uniform")
+      model->offset_distribution = OffsetDistribution::kUniform;
+    else if (*spread == "gaussian")
+      model->offset_distribution = OffsetDistribution::kGaussian;
     else
-      throw reader.ErrorAt("offset_distribution",
-                           "expected \"uniform\" (within the values, read as maxima) or "
-                           "\"gaussian\" (the values as sigma), got \"" + *spread + "\"");
+      throw reader.ErrorAt(
+          "offset_distribution",
+          "expected \"uniform\" (within the values, read as maxima) or "
+          "\"gaussian\" (the values as sigma), got \"" +
+              *spread + "\"");
   }
   reader.Finish();
 }

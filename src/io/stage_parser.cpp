@@ -5,7 +5,6 @@
 #include <filesystem>
 
 #include "circuit/stage_resistors.h"
-
 #include "io/json_reader.h"
 #include "io/read_file.h"
 #include "io/suggest.h"
@@ -76,7 +75,8 @@ OpAmpModel ParseOpAmp(ObjectReader& reader, const StageContext& context) {
 }
 
 // Reads the feedback path; a capacitor of "auto" sets `target`.
-Feedback ParseFeedback(ObjectReader& reader, std::optional<CapacitorTarget>* target) {
+Feedback ParseFeedback(ObjectReader& reader,
+                       std::optional<CapacitorTarget>* target) {
   Feedback fb;
   const bool has_resistor = reader.Has("resistor");
   const bool has_tee = reader.Has("tee");
@@ -93,7 +93,8 @@ Feedback ParseFeedback(ObjectReader& reader, std::optional<CapacitorTarget>* tar
     fb.tee.r3_ohm = PositiveResistance(tee, "r3");
     tee.Finish();
   }
-  const bool automatic = reader.Has("capacitor") && reader.Get("capacitor").is_string() &&
+  const bool automatic = reader.Has("capacitor") &&
+                         reader.Get("capacitor").is_string() &&
                          reader.Get("capacitor").get<std::string>() == "auto";
   if (automatic) {
     CapacitorTarget t;
@@ -104,22 +105,29 @@ Feedback ParseFeedback(ObjectReader& reader, std::optional<CapacitorTarget>* tar
       } else if (v.is_object()) {
         ObjectReader pm = reader.Object("capacitor_target");
         const nlohmann::json& deg = pm.Get("phase_margin_deg");
-        if (!deg.is_number() || !(deg.get<double>() > 0 && deg.get<double>() < 90))
-          throw pm.ErrorAt("phase_margin_deg",
-                           "expected a number of degrees between 0 and 90, got " + Dump(deg));
+        if (!deg.is_number() ||
+            !(deg.get<double>() > 0 && deg.get<double>() < 90))
+          throw pm.ErrorAt(
+              "phase_margin_deg",
+              "expected a number of degrees between 0 and 90, got " +
+                  Dump(deg));
         t.kind = CapacitorTarget::Kind::kPhaseMargin;
         t.phase_margin_deg = deg.get<double>();
         pm.Finish();
       } else {
-        throw reader.ErrorAt("capacitor_target",
-                             "expected \"butterworth\" or {\"phase_margin_deg\": ...}, got " + Dump(v));
+        throw reader.ErrorAt(
+            "capacitor_target",
+            "expected \"butterworth\" or {\"phase_margin_deg\": ...}, got " +
+                Dump(v));
       }
     }
     *target = t;
   } else {
-    if (reader.Has("capacitor")) fb.capacitor_f = NonNegativeCapacitance(reader, "capacitor");
+    if (reader.Has("capacitor"))
+      fb.capacitor_f = NonNegativeCapacitance(reader, "capacitor");
     if (reader.Has("capacitor_target"))
-      throw reader.ErrorAt("capacitor_target", "only with \"capacitor\": \"auto\"");
+      throw reader.ErrorAt("capacitor_target",
+                           "only with \"capacitor\": \"auto\"");
   }
   reader.Finish();
   return fb;
@@ -150,10 +158,12 @@ SignalSource ParseVoltageSource(ObjectReader& reader) {
   SignalSource source;
   ObjectReader voltage = reader.Object("voltage");
   if (voltage.Has("resistance")) {
-    source.resistance_ohm = voltage.Quantity("resistance", Quantity::kResistance);
+    source.resistance_ohm =
+        voltage.Quantity("resistance", Quantity::kResistance);
     if (!(source.resistance_ohm >= 0))
-      throw voltage.ErrorAt("resistance", "expected a non-negative resistance, got " +
-                                              Dump(voltage.Get("resistance")));
+      throw voltage.ErrorAt("resistance",
+                            "expected a non-negative resistance, got " +
+                                Dump(voltage.Get("resistance")));
   }
   voltage.Finish();
   return source;
@@ -163,15 +173,18 @@ Photodiode ParsePhotodiode(ObjectReader& reader) {
   Photodiode pd;
   ObjectReader r = reader.Object("photodiode");
   pd.capacitance_f = NonNegativeCapacitance(r, "capacitance");
-  if (r.Has("shunt_resistance")) pd.shunt_resistance_ohm = PositiveResistance(r, "shunt_resistance");
+  if (r.Has("shunt_resistance"))
+    pd.shunt_resistance_ohm = PositiveResistance(r, "shunt_resistance");
   if (auto dark = r.OptionalQuantity("dark_current", Quantity::kCurrent)) {
     if (!(*dark >= 0))
-      throw r.ErrorAt("dark_current", "expected a non-negative current, got " + Dump(r.Get("dark_current")));
+      throw r.ErrorAt("dark_current", "expected a non-negative current, got " +
+                                          Dump(r.Get("dark_current")));
     pd.dark_current_a = *dark;
   }
   if (auto resp = r.OptionalQuantity("responsivity", Quantity::kResponsivity)) {
     if (!(*resp > 0))
-      throw r.ErrorAt("responsivity", "expected a positive responsivity, got " + Dump(r.Get("responsivity")));
+      throw r.ErrorAt("responsivity", "expected a positive responsivity, got " +
+                                          Dump(r.Get("responsivity")));
     pd.responsivity_a_per_w = *resp;
   }
   r.Finish();
@@ -181,8 +194,9 @@ Photodiode ParsePhotodiode(ObjectReader& reader) {
 double Celsius(ObjectReader& reader, const std::string& key) {
   const double celsius = reader.Quantity(key, Quantity::kTemperature);
   if (!(celsius > -kZeroCelsiusK && celsius < 1000))
-    throw reader.ErrorAt(key, "expected a temperature above -273.15 °C and below 1000 °C, got " +
-                                  Dump(reader.Get(key)));
+    throw reader.ErrorAt(
+        key, "expected a temperature above -273.15 °C and below 1000 °C, got " +
+                 Dump(reader.Get(key)));
   return celsius;
 }
 
@@ -205,32 +219,38 @@ void ParseTemperature(ObjectReader& top, Stage* stage) {
   const double hi = Celsius(t, "max");
   const double nominal = t.Has("nominal") ? Celsius(t, "nominal") : 25.0;
   if (!(lo <= nominal && nominal <= hi))
-    throw top.ErrorAt("temperature_C", "expected min <= nominal <= max, got min " + Number(lo) +
-                                           ", nominal " + Number(nominal) + ", max " + Number(hi));
+    throw top.ErrorAt("temperature_C",
+                      "expected min <= nominal <= max, got min " + Number(lo) +
+                          ", nominal " + Number(nominal) + ", max " +
+                          Number(hi));
   t.Finish();
   stage->temperature_k = nominal + kZeroCelsiusK;
-  stage->temperature_range = TemperatureRange{lo + kZeroCelsiusK, hi + kZeroCelsiusK};
+  stage->temperature_range =
+      TemperatureRange{lo + kZeroCelsiusK, hi + kZeroCelsiusK};
 }
 
 double Tolerance(ObjectReader& reader) {
   const double t = reader.Quantity("tolerance", Quantity::kRatio);
   if (!(t >= 0 && t < 1))
-    throw reader.ErrorAt("tolerance", "expected a tolerance from 0 to below 100 %, got " +
-                                          Dump(reader.Get("tolerance")));
+    throw reader.ErrorAt("tolerance",
+                         "expected a tolerance from 0 to below 100 %, got " +
+                             Dump(reader.Get("tolerance")));
   return t;
 }
 
 // {"technology": name, "tolerance": ratio}; the technology may be inherited.
-ResistorSpec ParseResistorSpec(ObjectReader& reader, const DeviceLibrary& library,
+ResistorSpec ParseResistorSpec(ObjectReader& reader,
+                               const DeviceLibrary& library,
                                const ResistorSpec* inherit) {
   ResistorSpec spec;
   if (reader.Has("technology") || !inherit) {
     spec.technology_name = reader.String("technology");
     auto it = library.resistors.find(spec.technology_name);
     if (it == library.resistors.end())
-      throw reader.ErrorAt("technology", "unknown resistor technology \"" + spec.technology_name +
-                                             "\"" +
-                                             DidYouMean(spec.technology_name, library.ResistorNames()));
+      throw reader.ErrorAt(
+          "technology",
+          "unknown resistor technology \"" + spec.technology_name + "\"" +
+              DidYouMean(spec.technology_name, library.ResistorNames()));
     spec.technology = it->second;
     spec.tolerance = spec.technology.tolerance;
   } else {
@@ -241,34 +261,38 @@ ResistorSpec ParseResistorSpec(ObjectReader& reader, const DeviceLibrary& librar
 }
 
 const std::vector<std::string>& ResistorNames() {
-  static const std::vector<std::string> names = {"R_source", "R_in",   "R_f",    "R1",  "R2",
-                                                 "R3",       "R_plus", "R_load", "R_sh"};
+  static const std::vector<std::string> names = {
+      "R_source", "R_in", "R_f", "R1", "R2", "R3", "R_plus", "R_load", "R_sh"};
   return names;
 }
 
 // "resistors": {"technology", "tolerance", "<R name>": {...}, ...}.
-void ParseResistors(ObjectReader& top, const DeviceLibrary& library, Stage* stage) {
+void ParseResistors(ObjectReader& top, const DeviceLibrary& library,
+                    Stage* stage) {
   if (!top.Has("resistors")) return;
   ObjectReader r = top.Object("resistors");
-  if (r.Has("technology")) stage->resistors = ParseResistorSpec(r, library, nullptr);
+  if (r.Has("technology"))
+    stage->resistors = ParseResistorSpec(r, library, nullptr);
   else if (r.Has("tolerance"))
     throw r.ErrorAt("tolerance", "needs a \"technology\" beside it");
   std::vector<std::string> present;
   for (auto& [name, ohms] : StageResistors(*stage)) present.push_back(name);
-  if (stage->plus_resistor.mode == PlusResistor::Mode::kAuto) present.push_back("R_plus");
+  if (stage->plus_resistor.mode == PlusResistor::Mode::kAuto)
+    present.push_back("R_plus");
   for (auto it = r.json().begin(); it != r.json().end(); ++it) {
     const std::string& key = it.key();
     if (key == "technology" || key == "tolerance") continue;
     const auto& names = ResistorNames();
     if (std::find(names.begin(), names.end(), key) == names.end())
       throw r.ErrorAt(key, "unknown resistor name" + DidYouMean(key, names) +
-                               " (expected \"technology\", \"tolerance\" or a resistor: R_in, R_f, "
+                               " (expected \"technology\", \"tolerance\" or a "
+                               "resistor: R_in, R_f, "
                                "R1, R2, R3, R_plus, R_load, R_source, R_sh)");
     if (std::find(present.begin(), present.end(), key) == present.end())
       throw r.ErrorAt(key, "this stage has no " + key);
     ObjectReader o = r.Object(key);
-    stage->resistor_overrides[key] =
-        ParseResistorSpec(o, library, stage->resistors ? &*stage->resistors : nullptr);
+    stage->resistor_overrides[key] = ParseResistorSpec(
+        o, library, stage->resistors ? &*stage->resistors : nullptr);
     o.Finish();
   }
   r.Finish();
@@ -319,8 +343,9 @@ Stage ParseStage(std::string_view json_text, std::string_view source_name,
   } else if (topology == "transimpedance") {
     stage.topology = Topology::kTransimpedance;
   } else {
-    throw st.ErrorAt("topology", "unknown topology \"" + topology + "\"" +
-                                     DidYouMean(topology, {"inverting", "transimpedance"}));
+    throw st.ErrorAt("topology",
+                     "unknown topology \"" + topology + "\"" +
+                         DidYouMean(topology, {"inverting", "transimpedance"}));
   }
   const bool photodiode = stage.topology == Topology::kTransimpedance;
 
@@ -328,18 +353,24 @@ Stage ParseStage(std::string_view json_text, std::string_view source_name,
     ObjectReader src = top.Object("source");
     const char* wanted = photodiode ? "photodiode" : "voltage";
     if (!src.Has(wanted))
-      throw src.ErrorHere(std::string("expected \"") + wanted + "\" for a " + topology + " stage");
-    if (photodiode) stage.photodiode = ParsePhotodiode(src);
-    else stage.source = ParseVoltageSource(src);
+      throw src.ErrorHere(std::string("expected \"") + wanted + "\" for a " +
+                          topology + " stage");
+    if (photodiode)
+      stage.photodiode = ParsePhotodiode(src);
+    else
+      stage.source = ParseVoltageSource(src);
     src.Finish();
   } else if (photodiode) {
-    throw top.ErrorAt("source", "missing (required: a transimpedance stage needs \"photodiode\")");
+    throw top.ErrorAt(
+        "source",
+        "missing (required: a transimpedance stage needs \"photodiode\")");
   }
 
   if (photodiode) {
     if (st.Has("input_resistor"))
       throw st.ErrorAt("input_resistor",
-                       "not used by a transimpedance stage (the photodiode drives the - input)");
+                       "not used by a transimpedance stage (the photodiode "
+                       "drives the - input)");
   } else {
     stage.input_resistor_ohm = PositiveResistance(st, "input_resistor");
   }
@@ -348,14 +379,17 @@ Stage ParseStage(std::string_view json_text, std::string_view source_name,
   stage.plus_resistor = ParsePlusResistor(st);
   if (st.Has("plus_resistor_bypass")) {
     if (stage.plus_resistor.mode == PlusResistor::Mode::kNone)
-      throw st.ErrorAt("plus_resistor_bypass", "needs a \"plus_resistor\" to bypass");
-    stage.plus_resistor_bypass_f = NonNegativeCapacitance(st, "plus_resistor_bypass");
+      throw st.ErrorAt("plus_resistor_bypass",
+                       "needs a \"plus_resistor\" to bypass");
+    stage.plus_resistor_bypass_f =
+        NonNegativeCapacitance(st, "plus_resistor_bypass");
   }
   if (st.Has("load")) stage.load_ohm = PositiveResistance(st, "load");
   st.Finish();
 
   if (top.Has("dc_input"))
-    stage.dc_input = top.Quantity("dc_input", photodiode ? Quantity::kCurrent : Quantity::kVoltage);
+    stage.dc_input = top.Quantity(
+        "dc_input", photodiode ? Quantity::kCurrent : Quantity::kVoltage);
   ParseResistors(top, *context.library, &stage);
 
   if (auto fs =

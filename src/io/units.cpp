@@ -162,11 +162,13 @@ std::string FormatWith(double value, std::string_view unit, int digits,
   char buf[64];
   std::snprintf(buf, sizeof buf, "%.*e", digits - 1, value);
   const double rounded = std::strtod(buf, nullptr);
-  int exponent3 = static_cast<int>(std::floor(std::log10(std::fabs(rounded)) / 3.0)) * 3;
+  int exponent3 =
+      static_cast<int>(std::floor(std::log10(std::fabs(rounded)) / 3.0)) * 3;
   const double mantissa = rounded / std::pow(10.0, exponent3);
   const double m = std::fabs(mantissa);
   const int int_digits = m >= 99.95 ? 3 : m >= 9.995 ? 2 : 1;
-  std::snprintf(buf, sizeof buf, "%.*f", std::max(0, digits - int_digits), mantissa);
+  std::snprintf(buf, sizeof buf, "%.*f", std::max(0, digits - int_digits),
+                mantissa);
   if (exponent3 < -15 || exponent3 > 12) {
     std::snprintf(buf, sizeof buf, "%.*e", digits - 1, value);
     return std::string(buf) + " " + std::string(unit);

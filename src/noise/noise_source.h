@@ -36,8 +36,8 @@ struct NoiseSource {
   std::string name;  // "R_in", "e_n", "i_n-": how the budget names it
   NoiseKind kind = NoiseKind::kThermal;
   Excitation excitation;
-  double white_psd = 0;  // V^2/Hz or A^2/Hz
-  double corner_hz = 0;  // 1/f corner; 0 = white
+  double white_psd = 0;    // V^2/Hz or A^2/Hz
+  double corner_hz = 0;    // 1/f corner; 0 = white
   double flicker_psd = 0;  // a pure 1/f part: flicker_psd / f, (V^2 or A^2)
   // For a resistor's sources (thermal, excess): its resistance, so the
   // budget can quote the source as a voltage density; 0 otherwise.

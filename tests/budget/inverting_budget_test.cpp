@@ -42,11 +42,16 @@ TEST_CASE("plain inverting stage: every contributor matches its closed form") {
   const double in_out = 0.5e-12 * rf;
   CHECK(RelErr(b.noise_gain_dc, ng) < test::kRelIdeal);
   CHECK(RelErr(b.signal_gain_dc, -rf / rin) < test::kRelIdeal);
-  CHECK(RelErr(FindContributor(b, "R_in").output_density_ref_v_per_rthz, rin_out) < test::kRelIdeal);
-  CHECK(RelErr(FindContributor(b, "R_f").output_density_ref_v_per_rthz, rf_out) < test::kRelIdeal);
-  CHECK(RelErr(FindContributor(b, "e_n").output_density_ref_v_per_rthz, en_out) < test::kRelIdeal);
-  CHECK(RelErr(FindContributor(b, "i_n-").output_density_ref_v_per_rthz, in_out) < test::kRelIdeal);
-  const double rss = std::sqrt(rin_out * rin_out + rf_out * rf_out + en_out * en_out + in_out * in_out);
+  CHECK(RelErr(FindContributor(b, "R_in").output_density_ref_v_per_rthz,
+               rin_out) < test::kRelIdeal);
+  CHECK(RelErr(FindContributor(b, "R_f").output_density_ref_v_per_rthz,
+               rf_out) < test::kRelIdeal);
+  CHECK(RelErr(FindContributor(b, "e_n").output_density_ref_v_per_rthz,
+               en_out) < test::kRelIdeal);
+  CHECK(RelErr(FindContributor(b, "i_n-").output_density_ref_v_per_rthz,
+               in_out) < test::kRelIdeal);
+  const double rss = std::sqrt(rin_out * rin_out + rf_out * rf_out +
+                               en_out * en_out + in_out * in_out);
   CHECK(RelErr(b.output_density_ref_v_per_rthz, rss) < test::kRelIdeal);
 
   // The published figures of section 6, nV/rtHz.
@@ -57,15 +62,19 @@ TEST_CASE("plain inverting stage: every contributor matches its closed form") {
 
   // White noise over 0.1 .. 10 Hz: rms = density sqrt(9.9 Hz).
   CHECK(RelErr(b.output_rms_v, rss * std::sqrt(9.9)) < test::kRelIntegral);
-  CHECK(RelErr(b.input_rms, rss * std::sqrt(9.9) / (rf / rin)) < test::kRelIntegral);
-  CHECK(RelErr(b.output_peak_to_peak_v, 6.6 * b.output_rms_v) < test::kRelTight);
+  CHECK(RelErr(b.input_rms, rss * std::sqrt(9.9) / (rf / rin)) <
+        test::kRelIntegral);
+  CHECK(RelErr(b.output_peak_to_peak_v, 6.6 * b.output_rms_v) <
+        test::kRelTight);
   double shares = 0;
   for (const Contributor& c : b.contributors) shares += c.share;
   CHECK(RelErr(shares, 1.0) < test::kRelTight);
-  CHECK(RelErr(FindContributor(b, "e_n").share, en_out * en_out / (rss * rss)) < test::kRelIdeal);
+  CHECK(RelErr(FindContributor(b, "e_n").share, en_out * en_out / (rss * rss)) <
+        test::kRelIdeal);
 }
 
-TEST_CASE("plain inverting stage: offsets Vos NG; Ib- Rf and the balance resistor") {
+TEST_CASE(
+    "plain inverting stage: offsets Vos NG; Ib- Rf and the balance resistor") {
   // Vout = Vos NG + Ib- Rf - Ib+ Rp NG (REFERENCES.md section 6).
   const Stage stage = SimpleExample();
   const Budget b = Compute(stage);
@@ -74,28 +83,34 @@ TEST_CASE("plain inverting stage: offsets Vos NG; Ib- Rf and the balance resisto
   // With Rp = 0 only Ib- acts: Ib Rf (the Ib term) + (Ios/2) Rf (the Ios term).
   CHECK(RelErr(b.offset.ib_v, 0.95e-9 * 330e3) < test::kRelIdeal);
   CHECK(RelErr(b.offset.ios_v, 0.05e-9 * 330e3) < test::kRelIdeal);
-  CHECK(RelErr(b.offset.vos_v + b.offset.ib_v + b.offset.ios_v, 3.775e-3 + 0.33e-3) < test::kRelIdeal);
+  CHECK(RelErr(b.offset.vos_v + b.offset.ib_v + b.offset.ios_v,
+               3.775e-3 + 0.33e-3) < test::kRelIdeal);
   CHECK(RelErr(b.offset.worst_case_v, 4.105e-3) < test::kRelIdeal);
-  CHECK(RelErr(b.offset.rss_v, std::hypot(3.775e-3, std::hypot(0.3135e-3, 0.0165e-3))) < test::kRelIdeal);
+  CHECK(RelErr(b.offset.rss_v,
+               std::hypot(3.775e-3, std::hypot(0.3135e-3, 0.0165e-3))) <
+        test::kRelIdeal);
   // Rp(balance) = Rin || Rf = 2185.43 ohm.
-  CHECK(RelErr(b.offset.balance_resistor_ohm, 2.2e3 * 330e3 / 332.2e3) < test::kRelTight);
+  CHECK(RelErr(b.offset.balance_resistor_ohm, 2.2e3 * 330e3 / 332.2e3) <
+        test::kRelTight);
   CHECK(RelErr(b.offset.balance_resistor_ohm, 2185.43) < 1e-6);
 }
 
-TEST_CASE("with R_plus at the balance value the Ib term cancels and Ios Rf remains") {
+TEST_CASE(
+    "with R_plus at the balance value the Ib term cancels and Ios Rf remains") {
   Stage stage = SimpleExample();
   stage.plus_resistor.mode = PlusResistor::Mode::kAuto;
   const Budget b = Compute(stage);
   CHECK(b.offset.ib_v == 0.0);
   // Residual (Ios/2)(Rp NG + Rf) = Ios Rf at balance.
   CHECK(RelErr(b.offset.ios_v, 0.1e-9 * 330e3) < test::kRelIdeal);
-  CHECK(RelErr(b.offset.plus_resistor_ohm, b.offset.balance_resistor_ohm) < test::kRelTight);
+  CHECK(RelErr(b.offset.plus_resistor_ohm, b.offset.balance_resistor_ohm) <
+        test::kRelTight);
   // R_plus adds its thermal noise and i_n+ through the full noise gain.
   const double rp = 2.2e3 * 330e3 / 332.2e3;
   CHECK(RelErr(FindContributor(b, "R_plus").output_density_ref_v_per_rthz,
                std::sqrt(test::FourKT(300) * rp) * 151) < test::kRelIdeal);
-  CHECK(RelErr(FindContributor(b, "i_n+").output_density_ref_v_per_rthz, 0.5e-12 * rp * 151) <
-        test::kRelIdeal);
+  CHECK(RelErr(FindContributor(b, "i_n+").output_density_ref_v_per_rthz,
+               0.5e-12 * rp * 151) < test::kRelIdeal);
 }
 
 TEST_CASE("the source resistance adds in series with R_in") {
@@ -105,11 +120,14 @@ TEST_CASE("the source resistance adds in series with R_in") {
   const double rin = 2.2e3 + 350;
   CHECK(RelErr(b.signal_gain_dc, -330e3 / rin) < test::kRelIdeal);
   CHECK(RelErr(FindContributor(b, "R_source").output_density_ref_v_per_rthz,
-               std::sqrt(test::FourKT(300) * 350) * 330e3 / rin) < test::kRelIdeal);
+               std::sqrt(test::FourKT(300) * 350) * 330e3 / rin) <
+        test::kRelIdeal);
   CHECK(RelErr(b.noise_gain_dc, 1 + 330e3 / rin) < test::kRelIdeal);
 }
 
-TEST_CASE("e_n with a 1/f corner integrates to NG e_w sqrt(f_c ln(fH/fL) + fH - fL)") {
+TEST_CASE(
+    "e_n with a 1/f corner integrates to NG e_w sqrt(f_c ln(fH/fL) + fH - "
+    "fL)") {
   // REFERENCES.md section 4, example B scaled by the noise gain: 0.1..10 Hz,
   // e_w = 10 nV/rtHz, f_c = 100 Hz gives 216.890 991 nV rms at the input.
   OpAmpModel m = test::IdealOpAmp(10e-9, 0);
@@ -117,7 +135,8 @@ TEST_CASE("e_n with a 1/f corner integrates to NG e_w sqrt(f_c ln(fH/fL) + fH - 
   const Stage stage = test::InvertingStage(1e3, 99e3, m, 300.0);
   const Budget b = Compute(stage, 1e-5);
   const double e_n_rms = FindContributor(b, "e_n").output_rms_v;
-  CHECK(RelErr(e_n_rms, 100 * 10e-9 * std::sqrt(100 * std::log(100.0) + 9.9)) < test::kRelIntegral);
+  CHECK(RelErr(e_n_rms, 100 * 10e-9 * std::sqrt(100 * std::log(100.0) + 9.9)) <
+        test::kRelIntegral);
   CHECK(RelErr(e_n_rms / 100, 216.890991e-9) < test::kRelIntegral);
 }
 
@@ -127,12 +146,13 @@ TEST_CASE("thermal noise of R_f with C_f integrates to kT/C_f") {
   OpAmpModel m = test::IdealOpAmp();
   Stage stage = test::InvertingStage(1e6, 1e6, m, 300.0);
   stage.feedback.capacitor_f = 10e-12;
-  stage.band_low_hz = 1e-2;  // misses 4 R C f_low = 4e-7 of the total
+  stage.band_low_hz = 1e-2;   // misses 4 R C f_low = 4e-7 of the total
   stage.band_high_hz = 1e12;  // misses (2/pi) f_c / f_high = 1e-8
   stage.reference_hz = 1.0;
   const Budget b = Compute(stage, 1e-7);
   const double rf_rms = FindContributor(b, "R_f").output_rms_v;
-  CHECK(RelErr(rf_rms * rf_rms, kBoltzmannJPerK * 300.0 / 10e-12) < test::kRelIntegral);
+  CHECK(RelErr(rf_rms * rf_rms, kBoltzmannJPerK * 300.0 / 10e-12) <
+        test::kRelIntegral);
   CHECK(RelErr(rf_rms, 20.351774e-6) < test::kRelIntegral);
 }
 
@@ -148,13 +168,17 @@ TEST_CASE("finite GBW sets the -3 dB bandwidth at GBW/NG + f_p") {
   CHECK(b.peaking_db == doctest::Approx(0.0).epsilon(1e-9));
 }
 
-TEST_CASE("the full-scale swing gives SNR of a sine and the p-p dynamic range") {
+TEST_CASE(
+    "the full-scale swing gives SNR of a sine and the p-p dynamic range") {
   Stage stage = SimpleExample();
   stage.full_scale_output_v = 4.0;
   const Budget b = Compute(stage);
   REQUIRE(b.snr_db.has_value());
-  CHECK(RelErr(*b.snr_db, 20 * std::log10(4.0 / std::sqrt(2.0) / b.output_rms_v)) < test::kRelTight);
-  CHECK(RelErr(*b.dynamic_range_db, 20 * std::log10(8.0 / (6.6 * b.output_rms_v))) < test::kRelTight);
+  CHECK(RelErr(*b.snr_db, 20 * std::log10(4.0 / std::sqrt(2.0) /
+                                          b.output_rms_v)) < test::kRelTight);
+  CHECK(RelErr(*b.dynamic_range_db,
+               20 * std::log10(8.0 / (6.6 * b.output_rms_v))) <
+        test::kRelTight);
 }
 
 }  // namespace

@@ -40,11 +40,13 @@ TEST_CASE("tee feedback acts as R1 + R2 + R1*R2/R3 at DC") {
   CHECK(RelErr(b.tee->equivalent_resistance_ohm, req) < test::kRelTight);
 }
 
-TEST_CASE("tee noise gain is 1 + R2/R3 + Req/Rin; above the plain 1 + Req/Rin") {
+TEST_CASE(
+    "tee noise gain is 1 + R2/R3 + Req/Rin; above the plain 1 + Req/Rin") {
   const Budget b = Compute(WorkedExample());
   const double req = kR1 + kR2 + kR1 * kR2 / kR3;
   const double ng_t = 1 + kR2 / kR3 + req / kRin;
-  CHECK(RelErr(ng_t, (1 + kR2 / kR3) * (1 + kR1 / kRin) + kR2 / kRin) < test::kRelTight);
+  CHECK(RelErr(ng_t, (1 + kR2 / kR3) * (1 + kR1 / kRin) + kR2 / kRin) <
+        test::kRelTight);
   CHECK(RelErr(b.noise_gain_dc, ng_t) < test::kRelIdeal);
   CHECK(RelErr(b.noise_gain_dc, 1157.8085) < 1e-7);
   CHECK(RelErr(b.tee->plain_noise_gain_dc, 1057.8085) < 1e-7);
@@ -55,7 +57,11 @@ TEST_CASE("tee contributors match their closed-form output densities") {
   const double kt4 = test::FourKT(300.0);
   const double req = kR1 + kR2 + kR1 * kR2 / kR3;
   const double ng_t = 1 + kR2 / kR3 + req / kRin;
-  struct Row { const char* name; double closed_form; double published_nv; };
+  struct Row {
+    const char* name;
+    double closed_form;
+    double published_nv;
+  };
   const Row rows[] = {
       {"R_in", req * std::sqrt(kt4 / kRin), 9325.615},
       {"R1", std::sqrt(kt4 * kR1) * (1 + kR2 / kR3), 2818.400},
@@ -67,21 +73,26 @@ TEST_CASE("tee contributors match their closed-form output densities") {
   double sum_sq = 0;
   for (const Row& r : rows) {
     CAPTURE(r.name);
-    const double engine = FindContributor(b, r.name).output_density_ref_v_per_rthz;
+    const double engine =
+        FindContributor(b, r.name).output_density_ref_v_per_rthz;
     CHECK(RelErr(engine, r.closed_form) < test::kRelIdeal);
     CHECK(RelErr(engine * 1e9, r.published_nv) < 2e-6);  // 3 decimals published
     sum_sq += r.closed_form * r.closed_form;
   }
   CHECK(RelErr(b.output_density_ref_v_per_rthz * 1e9, 11617.20) < 1e-6);
-  CHECK(RelErr(b.output_density_ref_v_per_rthz, std::sqrt(sum_sq)) < test::kRelIdeal);
+  CHECK(RelErr(b.output_density_ref_v_per_rthz, std::sqrt(sum_sq)) <
+        test::kRelIdeal);
   // Referred to the input: 10.992 72 nV/rtHz; over 1 kHz: 367.368 uV rms.
   CHECK(RelErr(b.input_density_ref_per_rthz * 1e9, 10.99272) < 1e-6);
   CHECK(RelErr(b.output_rms_v * 1e6, 367.368) < 2e-6);
 }
 
-TEST_CASE("the plain equivalent gives the published plain-Rf column and the noise cost") {
+TEST_CASE(
+    "the plain equivalent gives the published plain-Rf column and the noise "
+    "cost") {
   const Budget b = Compute(WorkedExample());
-  // Plain Rf = 4.967 M: RSS 11 008.685 nV/rtHz; the tee costs 11617.20 / 11008.685.
+  // Plain Rf = 4.967 M: RSS 11 008.685 nV/rtHz; the tee costs 11617.20 /
+  // 11008.685.
   const double plain_rms_published = 11008.685e-9 * std::sqrt(1e3 - 1e-6);
   CHECK(RelErr(b.tee->plain_output_rms_v, plain_rms_published) < 2e-6);
   CHECK(RelErr(b.tee->noise_cost_ratio, 11617.20 / 11008.685) < 2e-6);
@@ -92,7 +103,8 @@ TEST_CASE("the plain equivalent gives the published plain-Rf column and the nois
     if (c.name == "R_f") saw_rf = c.kind == TeeChange::Kind::kRemoved;
     if (c.name == "e_n") {
       saw_en = c.kind == TeeChange::Kind::kRaised;
-      CHECK(RelErr(c.tee_output_rms_v / c.plain_output_rms_v, 1157.8085 / 1057.8085) < 1e-6);
+      CHECK(RelErr(c.tee_output_rms_v / c.plain_output_rms_v,
+                   1157.8085 / 1057.8085) < 1e-6);
     }
     if (c.name == "R_in") CHECK(c.kind == TeeChange::Kind::kSame);
   }
@@ -118,9 +130,12 @@ TEST_CASE("tee with R_plus = 4.3k: offsets and the noise the resistor adds") {
   // Ib+ adds -4.480 72 mV; with Ios taken positive (Ib- > Ib+) the total is
   // 29.431 49 mV. Vos and Ios have unknown sign: the budget keeps magnitudes,
   // so the signed total is Vos + Ib term + Ios term here.
-  CHECK(RelErr((b.offset.vos_v + b.offset.ib_v + b.offset.ios_v) * 1e3, 29.43149) < 1e-6);
-  CHECK(RelErr(FindContributor(b, "R_plus").output_density_ref_v_per_rthz * 1e9, 9772.445) < 1e-6);
-  CHECK(RelErr(FindContributor(b, "i_n+").output_density_ref_v_per_rthz * 1e9, 2489.288) < 1e-6);
+  CHECK(RelErr((b.offset.vos_v + b.offset.ib_v + b.offset.ios_v) * 1e3,
+               29.43149) < 1e-6);
+  CHECK(RelErr(FindContributor(b, "R_plus").output_density_ref_v_per_rthz * 1e9,
+               9772.445) < 1e-6);
+  CHECK(RelErr(FindContributor(b, "i_n+").output_density_ref_v_per_rthz * 1e9,
+               2489.288) < 1e-6);
   CHECK(RelErr(b.output_density_ref_v_per_rthz * 1e9, 15383.65) < 1e-6);
 }
 
@@ -131,7 +146,8 @@ TEST_CASE("tee bandwidth is set by NG_T; not by the signal gain") {
   stage.opamp.open_loop_gain = 1e6;
   stage.opamp.gbw_hz = 1e7;
   const Budget b = Compute(stage);
-  const double ng_t = b.noise_gain_dc * (1e6 + 1157.8085) / 1e6;  // the ideal NG_T
+  const double ng_t =
+      b.noise_gain_dc * (1e6 + 1157.8085) / 1e6;  // the ideal NG_T
   CHECK(RelErr(b.bandwidth_3db_hz, 1e7 / ng_t + 10.0) < 1e-6);
   CHECK(RelErr(b.bandwidth_3db_hz, 8647.0) < 1e-5);
   CHECK(b.tee->plain_bandwidth_3db_hz > b.bandwidth_3db_hz);

@@ -38,12 +38,15 @@ double FlatBandwidth(double rf) {
   return std::sqrt(10e6 / (2 * kPi * rf * (c + cf)));
 }
 
-TEST_CASE("the largest E12 feedback resistor for 50 kHz is the one the closed form allows") {
+TEST_CASE(
+    "the largest E12 feedback resistor for 50 kHz is the one the closed form "
+    "allows") {
   TiaSuggestOptions options;
   options.bandwidth_hz = 50e3;
   // E12 over 1 M .. 82 M (IEC 60063).
   for (double decade : {1e6, 1e7})
-    for (double v : {1.0, 1.2, 1.5, 1.8, 2.2, 2.7, 3.3, 3.9, 4.7, 5.6, 6.8, 8.2})
+    for (double v :
+         {1.0, 1.2, 1.5, 1.8, 2.2, 2.7, 3.3, 3.9, 4.7, 5.6, 6.8, 8.2})
       options.resistors_ohm.push_back(v * decade);
   options.rows = 3;
   REQUIRE(options.Validate().empty());
@@ -53,7 +56,8 @@ TEST_CASE("the largest E12 feedback resistor for 50 kHz is the one the closed fo
 
   const TiaSuggestion s = SuggestTransimpedance(Photodiode(), options);
   REQUIRE_MESSAGE(s.status.ok, s.status.message);
-  REQUIRE(s.rows.size() == 4);  // 8.2 M, 10 M, 12 M meet it; 15 M shown as missing it
+  REQUIRE(s.rows.size() ==
+          4);  // 8.2 M, 10 M, 12 M meet it; 15 M shown as missing it
   REQUIRE(s.best == 2);
   CHECK(s.rows[s.best].rf_ohm == 12e6);
   CHECK(s.rows[s.best].meets_target);
@@ -61,14 +65,18 @@ TEST_CASE("the largest E12 feedback resistor for 50 kHz is the one the closed fo
   CHECK(s.rows[3].rf_ohm == 15e6);
   for (int i = 0; i <= s.best; ++i) {
     CAPTURE(i);
-    CHECK(RelErr(s.rows[i].bandwidth_3db_hz, 50e3) < 1e-3);  // C_f set for the target
-    CHECK(RelErr(s.rows[i].butterworth_bandwidth_hz, FlatBandwidth(s.rows[i].rf_ohm)) < 0.01);
+    CHECK(RelErr(s.rows[i].bandwidth_3db_hz, 50e3) <
+          1e-3);  // C_f set for the target
+    CHECK(RelErr(s.rows[i].butterworth_bandwidth_hz,
+                 FlatBandwidth(s.rows[i].rf_ohm)) < 0.01);
     CHECK(s.rows[i].peaking_db < 0.01);  // at least as damped as Butterworth
   }
   // Larger R_f, less input current noise (R_f's 4kT/R_f falls).
-  CHECK(s.rows[2].input_density_a_per_rthz < s.rows[0].input_density_a_per_rthz);
+  CHECK(s.rows[2].input_density_a_per_rthz <
+        s.rows[0].input_density_a_per_rthz);
   // GBW / (2 pi C f^2) = 12.73 M, the textbook estimate of the largest R_f.
-  CHECK(RelErr(s.largest_rf_estimate_ohm, 10e6 / (2 * kPi * 50e-12 * 2.5e9)) < test::kRelTight);
+  CHECK(RelErr(s.largest_rf_estimate_ohm, 10e6 / (2 * kPi * 50e-12 * 2.5e9)) <
+        test::kRelTight);
 }
 
 TEST_CASE("a target no candidate reaches says what to change") {
@@ -77,7 +85,9 @@ TEST_CASE("a target no candidate reaches says what to change") {
   options.resistors_ohm = {1e6, 10e6};
   const TiaSuggestion s = SuggestTransimpedance(Photodiode(), options);
   CHECK_FALSE(s.status.ok);
-  CHECK(s.status.message.find("a faster op-amp or a smaller photodiode is needed") != std::string::npos);
+  CHECK(s.status.message.find(
+            "a faster op-amp or a smaller photodiode is needed") !=
+        std::string::npos);
 }
 
 TEST_CASE("suggestion options validate with a message naming the field") {

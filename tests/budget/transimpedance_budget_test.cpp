@@ -54,7 +54,9 @@ double ButterworthCf() {
   return std::sqrt(2 * wt * kRf * kC - 1) / (wt * kRf);
 }
 
-TEST_CASE("the e_n noise gain is 1 + Z_f s C and tends to 1 + C/C_f at high frequency") {
+TEST_CASE(
+    "the e_n noise gain is 1 + Z_f s C and tends to 1 + C/C_f at high "
+    "frequency") {
   // 1/beta = (1 + s R_f (C + C_f)) / (1 + s R_f C_f), an ideal op-amp.
   Stage stage = WorkedExample(0.4e-12);
   stage.opamp = test::IdealOpAmp(10e-9, 0);
@@ -67,16 +69,19 @@ TEST_CASE("the e_n noise gain is 1 + Z_f s C and tends to 1 + C/C_f at high freq
   for (double f : {10.0, 1e3, 1e5, 1e6}) {
     REQUIRE(ev.SolveAt(f).ok);
     const std::complex<double> s(0, 2 * kPi * f);
-    const double expected = std::abs((1.0 + s * kRf * (kC + cf)) / (1.0 + s * kRf * cf));
+    const double expected =
+        std::abs((1.0 + s * kRf * (kC + cf)) / (1.0 + s * kRf * cf));
     CAPTURE(f);
     CHECK(RelErr(std::abs(ev.Transfer(e_n)), expected) < test::kRelIdeal);
   }
   const double fp = 1 / (2 * kPi * kRf * cf);
   REQUIRE(ev.SolveAt(1e3 * fp).ok);
-  CHECK(RelErr(std::abs(ev.Transfer(e_n)), 1 + kC / cf) < 1e-5);  // (fp/f)^2 short of the limit
+  CHECK(RelErr(std::abs(ev.Transfer(e_n)), 1 + kC / cf) <
+        1e-5);  // (fp/f)^2 short of the limit
 }
 
-TEST_CASE("transimpedance at low frequency equals R_f; or the tee's equivalent") {
+TEST_CASE(
+    "transimpedance at low frequency equals R_f; or the tee's equivalent") {
   Stage stage = WorkedExample(0.4e-12);
   stage.opamp = test::IdealOpAmp(10e-9, 0);
   CHECK(RelErr(Compute(stage).signal_gain_dc, -kRf) < test::kRelIdeal);
@@ -87,18 +92,22 @@ TEST_CASE("transimpedance at low frequency equals R_f; or the tee's equivalent")
   CHECK(tee.input_unit == "A");
 }
 
-TEST_CASE("the Butterworth C_f found on the response matches the exact closed form") {
+TEST_CASE(
+    "the Butterworth C_f found on the response matches the exact closed form") {
   // Section 7: C_f = 0.398 939 pF, Q = 0.707 11, PM 65.59 deg, f_3dB =
   // sqrt(GBW / (2 pi R_f (C + C_f))) = 56 195.2 Hz.
   CHECK(RelErr(ButterworthCf(), 0.398939e-12) < 1e-5);
   Stage stage = WorkedExample(0);
-  stage.capacitor_target = CapacitorTarget{CapacitorTarget::Kind::kButterworth, 0};
+  stage.capacitor_target =
+      CapacitorTarget{CapacitorTarget::Kind::kButterworth, 0};
   const Budget b = Compute(stage, 1e-4);
   REQUIRE(b.capacitor_choice.has_value());
   CHECK(RelErr(b.capacitor_choice->chosen_f, ButterworthCf()) < 0.01);
-  CHECK(RelErr(b.feedback_capacitor_f, b.capacitor_choice->chosen_f) < test::kRelTight);
+  CHECK(RelErr(b.feedback_capacitor_f, b.capacitor_choice->chosen_f) <
+        test::kRelTight);
   // The textbook estimate sqrt(C / (pi R_f GBW)) sits beside it.
-  CHECK(RelErr(b.capacitor_choice->estimate_f, std::sqrt(kC / (kPi * kRf * kGbw))) < test::kRelTight);
+  CHECK(RelErr(b.capacitor_choice->estimate_f,
+               std::sqrt(kC / (kPi * kRf * kGbw))) < test::kRelTight);
   const double f0 = std::sqrt(kGbw / (2 * kPi * kRf * (kC + ButterworthCf())));
   CHECK(RelErr(f0, 56195.2) < 1e-5);
   CHECK(RelErr(b.bandwidth_3db_hz, f0) < 0.01);
@@ -106,21 +115,25 @@ TEST_CASE("the Butterworth C_f found on the response matches the exact closed fo
   CHECK(b.peaking_db < 0.01);
 }
 
-TEST_CASE("the classic C_f = sqrt(C / (2 pi R_f GBW)) gives about 52 degrees and 1.2 dB; not 45") {
+TEST_CASE(
+    "the classic C_f = sqrt(C / (2 pi R_f GBW)) gives about 52 degrees and 1.2 "
+    "dB; not 45") {
   // Section 7, "45 deg" choice: exact C_f = 0.282 892 pF gives Q 0.9944,
   // 1.217 dB of peaking, a true phase margin of 52.08 deg, f_3dB 71 383 Hz.
   const Budget exact = Compute(WorkedExample(0.282892e-12), 1e-4);
   CHECK(exact.loop.phase_margin_deg == doctest::Approx(52.08).epsilon(0.002));
   CHECK(exact.peaking_db == doctest::Approx(1.217).epsilon(0.01));
   CHECK(RelErr(exact.bandwidth_3db_hz, 71383) < 2e-3);
-  const Budget classic = Compute(WorkedExample(std::sqrt(kC / (2 * kPi * kRf * kGbw))), 1e-4);
+  const Budget classic =
+      Compute(WorkedExample(std::sqrt(kC / (2 * kPi * kRf * kGbw))), 1e-4);
   CHECK(classic.loop.phase_margin_deg > 51.0);
   CHECK(classic.loop.phase_margin_deg < 53.0);
   CHECK(classic.peaking_db > 1.1);
   CHECK(classic.peaking_db < 1.35);
 }
 
-TEST_CASE("the section 7 Butterworth budget: R_f; e_n; i_n and shot noise rms") {
+TEST_CASE(
+    "the section 7 Butterworth budget: R_f; e_n; i_n and shot noise rms") {
   // 1 mHz .. 10 GHz, rms at the output: R_f 101.691, e_n 444.589, i_n 2.498,
   // shot 14.142, total 456.297 uV. A0 = 1e9 stands in for the ideal
   // integrator of the derivation: 0.5 % allowed.
@@ -135,7 +148,8 @@ TEST_CASE("the section 7 Butterworth budget: R_f; e_n; i_n and shot noise rms") 
   CHECK(RelErr(b.photodiode->noise_gain_plateau_estimate, 126.33) < 1e-4);
 }
 
-TEST_CASE("R_f with C_f integrates to kT/C_f at the output (ideal op-amp; C_d = 0)") {
+TEST_CASE(
+    "R_f with C_f integrates to kT/C_f at the output (ideal op-amp; C_d = 0)") {
   // REFERENCES.md section 12: kT/C; 300 K and 1 pF: 64.357 960 uV rms.
   Stage stage = WorkedExample(1e-12);
   stage.photodiode.capacitance_f = 0;
@@ -149,23 +163,29 @@ TEST_CASE("R_f with C_f integrates to kT/C_f at the output (ideal op-amp; C_d = 
   CHECK(RelErr(rf_rms, 64.357960e-6) < 1e-4);
 }
 
-TEST_CASE("dark-current shot noise is sqrt(2 q I) at the input and NEP is i_n;in / R") {
+TEST_CASE(
+    "dark-current shot noise is sqrt(2 q I) at the input and NEP is i_n;in / "
+    "R") {
   // Schottky 1918; REFERENCES.md section 2: 100 pA -> 5.660 701 fA/rtHz.
   const Budget b = Compute(WorkedExample(ButterworthCf()), 1e-4);
   const Contributor& shot = FindContributor(b, "I_dark");
   CHECK(shot.kind == "shot");
-  CHECK(RelErr(shot.source_density_ref, std::sqrt(2 * kElementaryChargeC * 100e-12)) < test::kRelTight);
+  CHECK(RelErr(shot.source_density_ref,
+               std::sqrt(2 * kElementaryChargeC * 100e-12)) < test::kRelTight);
   CHECK(RelErr(shot.source_density_ref * 1e15, 5.660701) < 1e-6);
-  CHECK(RelErr(shot.output_density_ref_v_per_rthz / b.signal_gain_ref, shot.source_density_ref) < 1e-6);
+  CHECK(RelErr(shot.output_density_ref_v_per_rthz / b.signal_gain_ref,
+               shot.source_density_ref) < 1e-6);
   REQUIRE(b.photodiode.has_value());
-  CHECK(RelErr(b.photodiode->nep_w_per_rthz, b.input_density_ref_per_rthz / 0.5) < test::kRelTight);
+  CHECK(RelErr(b.photodiode->nep_w_per_rthz,
+               b.input_density_ref_per_rthz / 0.5) < test::kRelTight);
   CHECK(RelErr(b.photodiode->nep_rms_w, b.input_rms / 0.5) < test::kRelTight);
   // The dark current's DC output: I_dark times the DC transimpedance.
   CHECK(RelErr(b.offset.dark_v, 100e-12 * b.signal_gain_dc) < test::kRelTight);
   CHECK(RelErr(b.offset.dark_v, -1e-3) < 1e-6);
 }
 
-TEST_CASE("no C_f with a large C_d: margin below 20 degrees and a severe warning") {
+TEST_CASE(
+    "no C_f with a large C_d: margin below 20 degrees and a severe warning") {
   // Two poles in the loop (the op-amp's and R_f (C_d + C_in)): an
   // uncompensated TIA is close to oscillation (Graeme 1996, stability).
   Stage stage = WorkedExample(0);
@@ -176,7 +196,8 @@ TEST_CASE("no C_f with a large C_d: margin below 20 degrees and a severe warning
   CHECK(b.loop.phase_margin_deg < 20);
   CHECK(b.loop.phase_margin_deg > 0);
   bool warned = false;
-  for (const std::string& w : b.warnings) warned = warned || w.rfind("severe: phase margin", 0) == 0;
+  for (const std::string& w : b.warnings)
+    warned = warned || w.rfind("severe: phase margin", 0) == 0;
   CHECK(warned);
 }
 
@@ -184,10 +205,12 @@ TEST_CASE("a C_f chosen for a 60 degree margin meets it within 2 degrees") {
   Stage stage = WorkedExample(0);
   stage.photodiode.capacitance_f = 100e-12;
   stage.band_high_hz = 1e5;
-  stage.capacitor_target = CapacitorTarget{CapacitorTarget::Kind::kPhaseMargin, 60.0};
+  stage.capacitor_target =
+      CapacitorTarget{CapacitorTarget::Kind::kPhaseMargin, 60.0};
   const Budget b = Compute(stage, 1e-4);
   CHECK(b.loop.phase_margin_deg == doctest::Approx(60.0).epsilon(2.0 / 60));
-  for (const std::string& w : b.warnings) CHECK(w.find("phase margin") == std::string::npos);
+  for (const std::string& w : b.warnings)
+    CHECK(w.find("phase margin") == std::string::npos);
 }
 
 }  // namespace

@@ -17,9 +17,9 @@
 #include <string>
 #include <vector>
 
+#include "cli/base_stage.h"
 #include "cli/run_binary.h"
 #include "cli/temp_folder.h"
-#include "cli/base_stage.h"
 
 namespace hushgain::test {
 namespace {

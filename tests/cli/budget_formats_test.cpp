@@ -10,9 +10,9 @@
 #include <string>
 #include <vector>
 
+#include "budget/budget.h"
 #include "cli/cli_support.h"
 #include "io/units.h"
-#include "budget/budget.h"
 #include "test_support.h"
 
 namespace hushgain {
@@ -109,7 +109,8 @@ TEST_CASE("the markdown budget's totals equal the JSON budget's totals") {
     int folded = 0;
     for (const json& c : j["noise"]["contributors"]) {
       const std::string name = c["name"];
-      if (c["kind"] == "excess" && c["share"].get<double>() < kNegligibleExcessShare) {
+      if (c["kind"] == "excess" &&
+          c["share"].get<double>() < kNegligibleExcessShare) {
         folded_power += std::pow(c["output_rms_V"].get<double>(), 2);
         ++folded;
         continue;
@@ -128,7 +129,8 @@ TEST_CASE("the markdown budget's totals equal the JSON budget's totals") {
       const std::vector<std::string> row =
           MarkdownRow(md, "other excess (" + std::to_string(folded) + ")");
       REQUIRE(row.size() == 7);
-      CHECK(RelErr(Parse(row[5], Quantity::kVoltage), std::sqrt(folded_power)) < kRelFourDigits);
+      CHECK(RelErr(Parse(row[5], Quantity::kVoltage), std::sqrt(folded_power)) <
+            kRelFourDigits);
     }
     const std::vector<std::string> worst = MarkdownRow(md, "worst case");
     const std::vector<std::string> rss = MarkdownRow(md, "root-sum-square");

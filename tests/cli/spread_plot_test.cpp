@@ -19,8 +19,8 @@ namespace {
 using nlohmann::json;
 using test::HostileStageNames;
 using test::ReadAll;
-using test::RunResult;
 using test::RunHushgain;
+using test::RunResult;
 using test::ScratchDir;
 
 // Three histogram panels are far above this; an empty or cut picture below.

@@ -20,9 +20,12 @@ test::RunResult Tia(const std::vector<std::string>& args) {
   return RunBinary(HUSHGAIN_BINARY, all, HUSHGAIN_SOURCE_DIR);
 }
 
-TEST_CASE("tia suggest proposes the largest E24 R_f whose flat bandwidth reaches the target") {
+TEST_CASE(
+    "tia suggest proposes the largest E24 R_f whose flat bandwidth reaches the "
+    "target") {
   const test::RunResult r =
-      Tia({"suggest", "examples/smoke-chamber-receiver.json", "--bandwidth", "50k", "--json"});
+      Tia({"suggest", "examples/smoke-chamber-receiver.json", "--bandwidth",
+           "50k", "--json"});
   REQUIRE(r.exit_code == 0);
   CHECK(r.err == "");
   const nlohmann::json doc = nlohmann::json::parse(r.out);
@@ -31,7 +34,8 @@ TEST_CASE("tia suggest proposes the largest E24 R_f whose flat bandwidth reaches
   REQUIRE(best >= 0);
   const auto& chosen = rows.at(best);
   CHECK(chosen.at("meets_target").get<bool>());
-  CHECK(std::fabs(chosen.at("bandwidth_3db_Hz").get<double>() / 50e3 - 1) < 1e-3);
+  CHECK(std::fabs(chosen.at("bandwidth_3db_Hz").get<double>() / 50e3 - 1) <
+        1e-3);
   // The next E24 value up misses the target (REFERENCES.md section 7:
   // the flat bandwidth sqrt(GBW / (2 pi R_f C)) falls with R_f).
   REQUIRE(rows.size() == static_cast<std::size_t>(best) + 2);
@@ -40,7 +44,8 @@ TEST_CASE("tia suggest proposes the largest E24 R_f whose flat bandwidth reaches
   // The textbook estimate GBW / (2 pi C f^2) with C = 47 p + 5 p + 5 p and
   // GBW = 10 MHz (the example's photodiode and op-amp) lands near the choice.
   const double estimate = 10e6 / (2 * kPi * 57e-12 * 2.5e9);
-  CHECK(std::fabs(doc.at("largest_rf_estimate_ohm").get<double>() / estimate - 1) < 1e-9);
+  CHECK(std::fabs(doc.at("largest_rf_estimate_ohm").get<double>() / estimate -
+                  1) < 1e-9);
   CHECK(chosen.at("rf_ohm").get<double>() < 1.3 * estimate);
   CHECK(chosen.at("rf_ohm").get<double>() > 0.7 * estimate);
 }
@@ -51,19 +56,30 @@ TEST_CASE("tia suggest refuses bad input with exit code 2 and one line") {
     std::string message;
   };
   const Case cases[] = {
-      {{"sugest"}, "error: command line: unknown tia command \"sugest\" (did you mean \"suggest\"?); try tia --help\n"},
+      {{"sugest"},
+       "error: command line: unknown tia command \"sugest\" (did you mean "
+       "\"suggest\"?); try tia --help\n"},
       {{"suggest", "examples/hydrophone-preamp.json", "--bandwidth", "5k"},
-       "error: examples/hydrophone-preamp.json: /stage/topology: tia suggest needs a \"transimpedance\" stage\n"},
-      {{"suggest", "examples/smoke-chamber-receiver.json", "--bandwidth", "fast"},
-       "error: command line: --bandwidth: expected a positive frequency, got \"fast\" (no number)\n"},
-      {{"suggest", "examples/smoke-chamber-receiver.json", "--bandwidth", "-5k"},
-       "error: command line: --bandwidth: expected a positive frequency, got \"-5k\"\n"},
-      {{"suggest", "examples/smoke-chamber-receiver.json", "--bandwidth", "50k", "--series", "E69"},
-       "error: command line: --series: unknown series \"E69\" (did you mean \"E6\"?)\n"},
-      {{"suggest", "examples/smoke-chamber-receiver.json", "--bandwidth", "50k", "--min", "1M", "--max", "1k"},
+       "error: examples/hydrophone-preamp.json: /stage/topology: tia suggest "
+       "needs a \"transimpedance\" stage\n"},
+      {{"suggest", "examples/smoke-chamber-receiver.json", "--bandwidth",
+        "fast"},
+       "error: command line: --bandwidth: expected a positive frequency, got "
+       "\"fast\" (no number)\n"},
+      {{"suggest", "examples/smoke-chamber-receiver.json", "--bandwidth",
+        "-5k"},
+       "error: command line: --bandwidth: expected a positive frequency, got "
+       "\"-5k\"\n"},
+      {{"suggest", "examples/smoke-chamber-receiver.json", "--bandwidth", "50k",
+        "--series", "E69"},
+       "error: command line: --series: unknown series \"E69\" (did you mean "
+       "\"E6\"?)\n"},
+      {{"suggest", "examples/smoke-chamber-receiver.json", "--bandwidth", "50k",
+        "--min", "1M", "--max", "1k"},
        "error: command line: --max: 1k is below --min 1M\n"},
       {{"suggest", "examples/nowhere.json", "--bandwidth", "50k"},
-       "error: examples/nowhere.json: cannot read: no such file or directory\n"},
+       "error: examples/nowhere.json: cannot read: no such file or "
+       "directory\n"},
   };
   for (const Case& c : cases) {
     CAPTURE(c.message);
@@ -74,12 +90,15 @@ TEST_CASE("tia suggest refuses bad input with exit code 2 and one line") {
   }
 }
 
-TEST_CASE("tia suggest with an unreachable target exits 1 and says what to change") {
+TEST_CASE(
+    "tia suggest with an unreachable target exits 1 and says what to change") {
   const test::RunResult r =
-      Tia({"suggest", "examples/smoke-chamber-receiver.json", "--bandwidth", "20M"});
+      Tia({"suggest", "examples/smoke-chamber-receiver.json", "--bandwidth",
+           "20M"});
   CHECK(r.exit_code == 1);
   CHECK(r.out == "");
-  CHECK(r.err.find("a faster op-amp or a smaller photodiode is needed") != std::string::npos);
+  CHECK(r.err.find("a faster op-amp or a smaller photodiode is needed") !=
+        std::string::npos);
 }
 
 }  // namespace

@@ -46,7 +46,8 @@ constexpr std::string_view kThinFilm = R"({
   "noise_index_dB": -35, "temperature_coefficient_per_C": "25 ppm",
   "tolerance": "0.1%"})";
 
-constexpr std::string_view kThickFilm = R"({"kind": "resistor_technology", "class": "thick film",
+constexpr std::string_view kThickFilm =
+    R"({"kind": "resistor_technology", "class": "thick film",
   "illustrative": "class-typical values for budgeting; illustrative, not the data of any real part",
   "noise_index_dB": -10, "temperature_coefficient_per_C": "100 ppm",
   "tolerance": "1%"})";

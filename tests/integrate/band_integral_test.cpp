@@ -97,13 +97,17 @@ TEST_CASE("two cascaded real poles: ENBW = (pi/4) f_p; 1.2203 times f_3dB") {
                1.220331226) < test::kRelTable);
 }
 
-TEST_CASE("the converged partition's quadrature nodes re-integrate a changed density") {
+TEST_CASE(
+    "the converged partition's quadrature nodes re-integrate a changed "
+    "density") {
   // Two real poles (section 3: ENBW = (pi/4) f_p): the adaptive run's
   // partition, as fixed nodes, gives back its own integral to rounding and
   // integrates the same density with f_p moved by 0.1 % to the run's accuracy.
   const double fp = 1.0;
   auto density = [](double pole) {
-    return [pole](double f) { return 1.0 / std::pow(1 + f * f / (pole * pole), 2); };
+    return [pole](double f) {
+      return 1.0 / std::pow(1 + f * f / (pole * pole), 2);
+    };
   };
   auto r = Integrate(1e-12, 1e9, density(fp), 1e-10);
   REQUIRE(r.converged);

@@ -38,7 +38,8 @@ Stage Parse(const std::string& text,
   context.library = &SharedLibrary();
   context.read_file = [files](const std::string& path) {
     auto it = files.find(path);
-    if (it == files.end()) throw Error(path, "", "cannot read: No such file or directory");
+    if (it == files.end())
+      throw Error(path, "", "cannot read: No such file or directory");
     return it->second;
   };
   return ParseStage(text, "stage.json", context);
@@ -61,7 +62,8 @@ const char* kGood = R"({
 })";
 
 // Replaces the first occurrence of `from` in `text`.
-std::string Replace(std::string text, const std::string& from, const std::string& to) {
+std::string Replace(std::string text, const std::string& from,
+                    const std::string& to) {
   std::size_t at = text.find(from);
   REQUIRE(at != std::string::npos);
   return text.replace(at, from.size(), to);
@@ -93,7 +95,8 @@ TEST_CASE("a stage file resolves every value to SI") {
   CHECK(s.plus_resistor.mode == PlusResistor::Mode::kAuto);
   CHECK(*s.load_ohm == 10e3);
   CHECK(*s.full_scale_output_v == 4);
-  CHECK(RelErr(FeedbackEquivalentOhm(s.feedback), 47e3 + 47e3 + 47e3 * 47e3 / 1.1e3) < test::kRelTight);
+  CHECK(RelErr(FeedbackEquivalentOhm(s.feedback),
+               47e3 + 47e3 + 47e3 * 47e3 / 1.1e3) < test::kRelTight);
 }
 
 TEST_CASE("an op-amp can come inline or from a device file by path") {
@@ -103,9 +106,11 @@ TEST_CASE("an op-amp can come inline or from a device file by path") {
   CHECK(inline_stage.opamp.open_loop_gain == doctest::Approx(1e6));
   CHECK(inline_stage.opamp.class_name == "inline parameters");
 
-  const std::string device = R"({"kind": "opamp", "class": "my class", "illustrative": "x",
+  const std::string device =
+      R"({"kind": "opamp", "class": "my class", "illustrative": "x",
     "parameters": {"voltage_noise": "7n", "current_noise": "2f", "open_loop_gain": 1e5, "gbw": "3M"}})";
-  const Stage from_path = Parse(Good(R"("device": "precision-bipolar")", R"("device": "parts/mine.json")"),
+  const Stage from_path = Parse(Good(R"("device": "precision-bipolar")",
+                                     R"("device": "parts/mine.json")"),
                                 {{"parts/mine.json", device}});
   CHECK(from_path.opamp.class_name == "my class");
   CHECK(from_path.opamp.e_w_v_per_rthz == doctest::Approx(7e-9));
@@ -113,7 +118,10 @@ TEST_CASE("an op-amp can come inline or from a device file by path") {
 }
 
 TEST_CASE("bad stage files name the file and the JSON path") {
-  struct Case { std::string text; std::string message; };
+  struct Case {
+    std::string text;
+    std::string message;
+  };
   const Case cases[] = {
       {Good(R"("r2": "47k")", R"("r2": "ten")"),
        R"(stage.json: /stage/feedback/tee/r2: expected a resistance, got "ten" (no number))"},
@@ -129,7 +137,8 @@ TEST_CASE("bad stage files name the file and the JSON path") {
        R"(stage.json: /band_Hz/high: expected a frequency above the low edge (2.000 kHz), got "1k")"},
       {Good(R"("low": "0.1")", R"("low": 0)"),
        R"(stage.json: /band_Hz/low: expected a positive frequency (1/f noise diverges at 0 Hz), got 0)"},
-      {Good(R"("device": "precision-bipolar")", R"("device": "precision-bipolr")"),
+      {Good(R"("device": "precision-bipolar")",
+            R"("device": "precision-bipolr")"),
        R"(stage.json: /opamp/device: unknown op-amp device "precision-bipolr" (did you mean "precision-bipolar"?))"},
       {Good(R"("load": "10k")", R"("lod": "10k")"),
        R"(stage.json: /stage/lod: unknown key (did you mean "load"?))"},
@@ -139,7 +148,8 @@ TEST_CASE("bad stage files name the file and the JSON path") {
        R"(stage.json: /band_Hz: missing (required; is "band_hz" a typo?))"},
       {Good(R"("topology": "inverting")", R"("topology": "inverter")"),
        R"(stage.json: /stage/topology: unknown topology "inverter" (did you mean "inverting"?))"},
-      {Good(R"("tee": {"r1": "47k", "r2": "47k", "r3": "1.1k"})", R"("resistor": "1M", "tee": {})"),
+      {Good(R"("tee": {"r1": "47k", "r2": "47k", "r3": "1.1k"})",
+            R"("resistor": "1M", "tee": {})"),
        R"(stage.json: /stage/feedback: expected exactly one of "resistor" or "tee")"},
       {Good(R"("gbw": "2 MHz")", R"("gbw": "-2 MHz")"),
        R"(stage.json: /opamp/set/gbw: expected a positive frequency, got "-2 MHz")"},
@@ -159,18 +169,23 @@ TEST_CASE("bad stage files name the file and the JSON path") {
 
 TEST_CASE("a device path that cannot be read is an error at /opamp/device") {
   CHECK_THROWS_WITH_AS(
-      Parse(Good(R"("device": "precision-bipolar")", R"("device": "nowhere/x.json")")),
-      R"(stage.json: /opamp/device: cannot read: No such file or directory (nowhere/x.json))", Error);
+      Parse(Good(R"("device": "precision-bipolar")",
+                 R"("device": "nowhere/x.json")")),
+      R"(stage.json: /opamp/device: cannot read: No such file or directory (nowhere/x.json))",
+      Error);
 }
 
-TEST_CASE("a temperature range, resistor technologies, a DC input and a bypass are read") {
-  const Stage s = Parse(Replace(Good(R"("temperature_C": 25,)",
-                                     R"("temperature_C": {"min": -20, "nominal": 30, "max": 70},
+TEST_CASE(
+    "a temperature range, resistor technologies, a DC input and a bypass are "
+    "read") {
+  const Stage s = Parse(
+      Replace(Good(R"("temperature_C": 25,)",
+                   R"("temperature_C": {"min": -20, "nominal": 30, "max": 70},
       "dc_input": "-5m",
       "resistors": {"technology": "thin-film", "tolerance": "0.05%",
                     "R3": {"technology": "thick-film"}, "R_plus": {"tolerance": "1%"}},)"),
-                                R"("plus_resistor": "auto",)",
-                                R"("plus_resistor": "auto", "plus_resistor_bypass": "10u",)"));
+              R"("plus_resistor": "auto",)",
+              R"("plus_resistor": "auto", "plus_resistor_bypass": "10u",)"));
   CHECK(RelErr(s.temperature_k, 303.15) < test::kRelTight);
   REQUIRE(s.temperature_range.has_value());
   CHECK(RelErr(s.temperature_range->min_k, 253.15) < test::kRelTight);
@@ -184,32 +199,46 @@ TEST_CASE("a temperature range, resistor technologies, a DC input and a bypass a
   CHECK(ResistorSpecFor(s, "R3")->technology.class_name == "thick film");
   CHECK(RelErr(ResistorSpecFor(s, "R3")->tolerance, 0.01) < test::kRelTight);
   CHECK(ResistorSpecFor(s, "R_plus")->technology.class_name == "thin film");
-  CHECK(RelErr(ResistorSpecFor(s, "R_plus")->tolerance, 0.01) < test::kRelTight);
+  CHECK(RelErr(ResistorSpecFor(s, "R_plus")->tolerance, 0.01) <
+        test::kRelTight);
   CHECK(ResistorSpecFor(s, "R1")->technology.class_name == "thin film");
   // The source's resistance belongs to the sensor: no spec unless named.
   CHECK(ResistorSpecFor(s, "R_source") == nullptr);
 }
 
-TEST_CASE("bad temperature ranges and resistor blocks are whole-message errors") {
-  struct Case { std::string text; std::string message; };
+TEST_CASE(
+    "bad temperature ranges and resistor blocks are whole-message errors") {
+  struct Case {
+    std::string text;
+    std::string message;
+  };
   const Case cases[] = {
-      {Good(R"("temperature_C": 25)", R"("temperature_C": {"min": 70, "max": -20})"),
+      {Good(R"("temperature_C": 25)",
+            R"("temperature_C": {"min": 70, "max": -20})"),
        R"(stage.json: /temperature_C: expected min <= nominal <= max, got min 70, nominal 25, max -20)"},
-      {Good(R"("temperature_C": 25)", R"("temperature_C": {"min": 0, "nominal": 80, "max": 70})"),
+      {Good(R"("temperature_C": 25)",
+            R"("temperature_C": {"min": 0, "nominal": 80, "max": 70})"),
        R"(stage.json: /temperature_C: expected min <= nominal <= max, got min 0, nominal 80, max 70)"},
-      {Good(R"("temperature_C": 25)", R"("temperature_C": {"min": 0, "max": 70, "typ": 20})"),
+      {Good(R"("temperature_C": 25)",
+            R"("temperature_C": {"min": 0, "max": 70, "typ": 20})"),
        R"(stage.json: /temperature_C/typ: unknown key)"},
-      {Good(R"("temperature_C": 25,)", R"("resistors": {"technology": "thin-flim"},)"),
+      {Good(R"("temperature_C": 25,)",
+            R"("resistors": {"technology": "thin-flim"},)"),
        R"(stage.json: /resistors/technology: unknown resistor technology "thin-flim" (did you mean "thin-film"?))"},
-      {Good(R"("temperature_C": 25,)", R"("resistors": {"technology": "thin-film", "tolerance": "-1%"},)"),
+      {Good(R"("temperature_C": 25,)",
+            R"("resistors": {"technology": "thin-film", "tolerance": "-1%"},)"),
        R"(stage.json: /resistors/tolerance: expected a tolerance from 0 to below 100 %, got "-1%")"},
-      {Good(R"("temperature_C": 25,)", R"("resistors": {"technology": "thin-film", "R_fb": {}},)"),
+      {Good(R"("temperature_C": 25,)",
+            R"("resistors": {"technology": "thin-film", "R_fb": {}},)"),
        R"(stage.json: /resistors/R_fb: unknown resistor name (did you mean "R_f"?) (expected "technology", "tolerance" or a resistor: R_in, R_f, R1, R2, R3, R_plus, R_load, R_source, R_sh))"},
-      {Good(R"("temperature_C": 25,)", R"("resistors": {"technology": "thin-film", "R_f": {}},)"),
+      {Good(R"("temperature_C": 25,)",
+            R"("resistors": {"technology": "thin-film", "R_f": {}},)"),
        R"(stage.json: /resistors/R_f: this stage has no R_f)"},
-      {Good(R"("temperature_C": 25,)", R"("resistors": {"R1": {"tolerance": "1%"}},)"),
+      {Good(R"("temperature_C": 25,)",
+            R"("resistors": {"R1": {"tolerance": "1%"}},)"),
        R"(stage.json: /resistors/R1/technology: missing (required))"},
-      {Replace(Good(R"("load": "10k")", R"("load": "10k", "plus_resistor_bypass": "1u")"),
+      {Replace(Good(R"("load": "10k")",
+                    R"("load": "10k", "plus_resistor_bypass": "1u")"),
                R"("plus_resistor": "auto",)", ""),
        R"(stage.json: /stage/plus_resistor_bypass: needs a "plus_resistor" to bypass)"},
   };

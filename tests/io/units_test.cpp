@@ -79,13 +79,15 @@ TEST_CASE("bad values are refused with the reason") {
   CHECK_FALSE(ParseQuantity("1e999", Quantity::kResistance, &why));
   CHECK_FALSE(ParseQuantity("1 pF", Quantity::kResistance, &why));
   // Found by the quantity fuzzer: a letter code too long for a double.
-  CHECK_FALSE(ParseQuantity(std::string(400, '2') + "R2", Quantity::kResistance, &why));
+  CHECK_FALSE(
+      ParseQuantity(std::string(400, '2') + "R2", Quantity::kResistance, &why));
   CHECK(why == "out of range");
 }
 
 TEST_CASE("engineering notation prints 4 significant digits and an SI prefix") {
   CHECK(FormatEng(1.23456e-6, "V") == "1.235 \xC2\xB5V");
-  CHECK(FormatEng(9.99996e6, "\xCE\xA9") == "10.00 M\xCE\xA9");  // rounding carries
+  CHECK(FormatEng(9.99996e6, "\xCE\xA9") ==
+        "10.00 M\xCE\xA9");  // rounding carries
   CHECK(FormatEng(4.967e6, "\xCE\xA9") == "4.967 M\xCE\xA9");
   CHECK(FormatEng(0, "V") == "0 V");
   CHECK(FormatEng(999.96, "Hz") == "1.000 kHz");
