@@ -4,26 +4,26 @@
 #include <cstdlib>
 #include <functional>
 #include <iostream>
+#include <optional>
 #include <string>
 #include <vector>
 
 #include "cli/budget_command.h"
+#include "cli/device_folder.h"
 #include "cli/exit_codes.h"
 #include "cli/plot_command.h"
 #include "cli/spread_command.h"
 #include "cli/tee_command.h"
 #include "cli/tia_command.h"
+#include "cli/version.h"
 #include "io/error.h"
 #include "io/suggest.h"
-
-#ifndef HUSHGAIN_DEFAULT_DEVICE_DIR
-#define HUSHGAIN_DEFAULT_DEVICE_DIR "devices"
-#endif
 
 namespace hushgain {
 namespace {
 
 struct GlobalOptions {
+  // Filled after parsing, from --devices and the rules of device_folder.h.
   std::string devices_dir;
 };
 
@@ -248,19 +248,38 @@ const std::vector<Command>& Commands() {
   return commands;
 }
 
-std::string DefaultDeviceDir() {
-  if (const char* env = std::getenv("HUSHGAIN_DEVICES")) return env;
-  return HUSHGAIN_DEFAULT_DEVICE_DIR;
+// Gives every leaf command (budget, tee sweep, ...) a --devices of its own
+// that sets the same folder as the one before the command.
+void AddDevicesOption(CLI::App* app,
+                      const std::function<void(const std::string&)>& set) {
+  for (CLI::App* sub : app->get_subcommands([](CLI::App*) { return true; })) {
+    if (sub->get_subcommands([](CLI::App*) { return true; }).empty())
+      sub->add_option_function<std::string>(
+             "--devices", set, "device folder (as before the command)")
+          ->type_name("DIR");
+    else
+      AddDevicesOption(sub, set);
+  }
 }
 
 int Run(int argc, char** argv) {
+  // Named, so usage lines say "hushgain", not the path it was started by.
   CLI::App app{
-      "hushgain: noise and offset budgets of inverting op-amp front ends"};
+      "hushgain: noise and offset budgets of inverting op-amp front ends",
+      "hushgain"};
   app.require_subcommand(1);
+  app.set_version_flag("--version", VersionLine(), "print the version");
   GlobalOptions global;
-  global.devices_dir = DefaultDeviceDir();
-  app.add_option("--devices", global.devices_dir, "device folder")
-      ->capture_default_str();
+  std::optional<std::string> devices_option;
+  const auto set_devices = [&devices_option](const std::string& dir) {
+    devices_option = dir;
+  };
+  app.add_option_function<std::string>(
+         "--devices", set_devices,
+         "device folder (default: $HUSHGAIN_DEVICES, else "
+         "../share/hushgain/devices beside the program, else the source "
+         "tree's devices/ for an uninstalled build)")
+      ->type_name("DIR");
 
   std::vector<std::string> names;
   std::function<int()> handler;
@@ -270,6 +289,8 @@ int Run(int argc, char** argv) {
     auto run = command.define(sub, global);
     sub->callback([&handler, run] { handler = run; });
   }
+  // --devices may also follow the command: every command that runs takes it.
+  AddDevicesOption(&app, set_devices);
   // An unknown subcommand gets a suggestion from the same table.
   for (int i = 1; i < argc; ++i) {
     std::string word = argv[i];
@@ -299,7 +320,14 @@ int Run(int argc, char** argv) {
     std::cerr << "error: command line: " << Error::OneLine(why) << "\n";
     return kExitUsage;
   }
-  return handler ? handler() : kExitUsage;
+  if (!handler) return kExitUsage;
+  DeviceFolderInputs where;
+  where.option = devices_option;
+  if (const char* env = std::getenv("HUSHGAIN_DEVICES"))
+    where.environment = env;
+  where.program_folder = ProgramFolder(argc > 0 ? argv[0] : nullptr);
+  global.devices_dir = LocateDeviceFolder(where);
+  return handler();
 }
 
 }  // namespace

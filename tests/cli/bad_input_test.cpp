@@ -193,7 +193,7 @@ std::vector<BadInputCase> BudgetCases() {
        {{"stage.json", good}},
        {"--devices", "no-such-folder", "budget", "stage.json"},
        2,
-       "error: no-such-folder: device folder not found"},
+       "error: no-such-folder: device folder not found (given by --devices)"},
       {"a device file with a negative GBW",
        DeviceFolderWith(bad_device),
        {"--devices", "devs", "budget", "stage.json"},
