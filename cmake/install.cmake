@@ -2,6 +2,7 @@
 # CMakeLists.txt. Layout under the prefix:
 #   bin/hushgain
 #   share/hushgain/devices/      (found by the binary relative to itself)
+#   share/hushgain/schema/       JSON Schemas of stage and device files
 #   share/man/man1/hushgain.1    (help2man, when installed)
 #   share/doc/hushgain/          README, LICENSE, CHANGELOG, examples/
 include(GNUInstallDirs)
@@ -16,6 +17,7 @@ target_compile_definitions(hushgain PRIVATE
 install(TARGETS hushgain RUNTIME DESTINATION ${CMAKE_INSTALL_BINDIR})
 install(DIRECTORY devices/
   DESTINATION ${CMAKE_INSTALL_DATADIR}/hushgain/devices)
+install(DIRECTORY schema/ DESTINATION ${CMAKE_INSTALL_DATADIR}/hushgain/schema)
 install(FILES README.md LICENSE CHANGELOG.md
   DESTINATION ${CMAKE_INSTALL_DOCDIR})
 install(DIRECTORY examples/ DESTINATION ${CMAKE_INSTALL_DOCDIR}/examples)

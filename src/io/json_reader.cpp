@@ -50,7 +50,9 @@ std::string LineAndColumn(std::string_view text, std::size_t before) {
 
 nlohmann::json ParseJsonText(std::string_view text, const std::string& source) {
   try {
-    return nlohmann::json::parse(text.begin(), text.end());
+    return nlohmann::json::parse(text.begin(), text.end(), nullptr,
+                                 /*allow_exceptions=*/true,
+                                 /*ignore_comments=*/true);
   } catch (const nlohmann::json::parse_error& e) {
     // nlohmann reports the 1-based offset of the last byte it read (one
     // past the end when the text ended early); turn it into line and
@@ -120,17 +122,45 @@ double ReadQuantity(const nlohmann::json& value, hushgain::Quantity kind,
   return *parsed;
 }
 
+namespace {
+thread_local KeyLog* live_key_log = nullptr;
+}  // namespace
+
+KeyLog::KeyLog() : previous_(live_key_log) { live_key_log = this; }
+KeyLog::~KeyLog() { live_key_log = previous_; }
+
+void KeyLog::Record(const std::string& object_path, const std::string& key) {
+  if (live_key_log == nullptr) return;
+  // "/chain/stages/2" -> "/chain/stages/*": one entry per kind of object.
+  std::string pattern;
+  std::size_t start = 1;
+  while (start <= object_path.size()) {
+    std::size_t end = object_path.find('/', start);
+    if (end == std::string::npos) end = object_path.size();
+    const std::string segment = object_path.substr(start, end - start);
+    const bool index =
+        !segment.empty() &&
+        segment.find_first_not_of("0123456789") == std::string::npos;
+    pattern += "/" + (index ? std::string("*") : segment);
+    start = end + 1;
+  }
+  live_key_log->keys_.emplace(pattern, key);
+}
+
 ObjectReader::ObjectReader(const nlohmann::json& value, std::string source,
                            std::string path)
     : value_(value), source_(std::move(source)), path_(std::move(path)) {
   if (!value_.is_object())
     throw Error(source_, path_.empty() ? "/" : path_,
                 "expected an object, got " + JsonTypeName(value_));
+  if (path_.empty()) Has("$schema");
 }
 
 bool ObjectReader::Has(const std::string& key) {
-  if (std::find(known_.begin(), known_.end(), key) == known_.end())
+  if (std::find(known_.begin(), known_.end(), key) == known_.end()) {
     known_.push_back(key);
+    KeyLog::Record(path_, key);
+  }
   return value_.contains(key);
 }
 

@@ -7,7 +7,9 @@
 
 #include <nlohmann/json.hpp>
 #include <optional>
+#include <set>
 #include <string>
+#include <utility>
 #include <vector>
 
 #include "io/error.h"
@@ -16,12 +18,15 @@
 namespace hushgain {
 
 // Parses JSON text; a syntax error becomes an Error naming the line and
-// column.
+// column. `//` and `/* */` comments are allowed (editors and people annotate
+// stage files) and ignored.
 nlohmann::json ParseJsonText(std::string_view text, const std::string& source);
 
 // A JSON type in words: "a string", "a number", "an object".
 std::string JsonTypeName(const nlohmann::json& value);
 
+// A reader of a top-level object (empty path) accepts the key "$schema"
+// and ignores it: editors use it to find the JSON Schema of the file.
 class ObjectReader {
  public:
   // Throws unless `value` is an object.
@@ -57,6 +62,29 @@ class ObjectReader {
   std::string source_;
   std::string path_;
   std::vector<std::string> known_;
+};
+
+// While a KeyLog lives, every key that an ObjectReader on the same thread
+// asks for (Has, Get and everything built on them) is recorded with the
+// JSON pointer of its object, array indices written as "*": the parser's
+// vocabulary, which tests/io/schema_keys_test.cpp compares with the JSON
+// Schemas in schema/. Logs nest; the innermost records. Reading is
+// unchanged whether a log lives or not.
+class KeyLog {
+ public:
+  using Keys = std::set<std::pair<std::string, std::string>>;
+  KeyLog();
+  ~KeyLog();
+  KeyLog(const KeyLog&) = delete;
+  KeyLog& operator=(const KeyLog&) = delete;
+
+  const Keys& keys() const { return keys_; }
+  // Records into the thread's live log, if any.
+  static void Record(const std::string& object_path, const std::string& key);
+
+ private:
+  KeyLog* previous_;
+  Keys keys_;
 };
 
 // Reads `value` (at `path` of `source`) as a quantity of `kind`.

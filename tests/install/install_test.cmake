@@ -28,6 +28,8 @@ foreach(file
     bin/hushgain
     share/hushgain/devices/opamps/jfet-input.json
     share/hushgain/devices/resistors/thin-film.json
+    share/hushgain/schema/stage.schema.json
+    share/hushgain/schema/device.schema.json
     share/doc/hushgain/README.md
     share/doc/hushgain/LICENSE
     share/doc/hushgain/CHANGELOG.md
