@@ -184,7 +184,10 @@ std::function<int()> DefineTia(CLI::App* app, const GlobalOptions& global) {
   s->add_option("--max", options->max, "largest R_f (default 10G)");
   s->add_option("--rows", options->rows,
                 "proposals at or below the best R_f (default 6)");
-  s->add_flag("--json", options->json, "print JSON");
+  s->add_option("--format", options->format,
+                "text, json, markdown or csv (default text)");
+  s->add_flag("--csv", options->csv, "the same as --format csv");
+  s->add_flag("--json", options->json, "the same as --format json");
   s->callback([chosen] { *chosen = true; });
   return [options, chosen, &global] {
     if (!*chosen) return kExitUsage;
@@ -217,7 +220,12 @@ std::function<int()> DefineSpread(CLI::App* app, const GlobalOptions& global) {
                   "number of Monte Carlo samples (default 10000)");
   app->add_option("--seed", o->seed, "seed of the random streams (default 1)");
   app->add_option("--threads", o->threads, "worker threads (default 0: all)");
-  app->add_option("--csv", o->csv_path, "write every sample to this CSV file");
+  app->add_option("--csv", o->csv_path,
+                  "write every sample to this CSV file (the summary as CSV "
+                  "is --format csv)");
+  app->add_option("--format", o->format,
+                  "summary as text, json, markdown or csv (default text)");
+  app->add_flag("--json", o->json, "the same as --format json");
   app->add_option("--plot", o->plot_path,
                   "also draw histograms of gain error, offset and noise "
                   "(.png or .svg)");

@@ -14,6 +14,7 @@
 #include "cli/draw_picture.h"
 #include "cli/exit_codes.h"
 #include "cli/interrupt.h"
+#include "cli/output_format.h"
 #include "cli/progress_bar.h"
 #include "io/device_library.h"
 #include "io/error.h"
@@ -60,6 +61,8 @@ int RunSpreadCommand(const SpreadCommandOptions& options) {
                     std::to_string(options.threads));
   if (std::string why = spread.Validate(); !why.empty())
     throw Error("command line", "", why);
+  const std::string format =
+      ResolveOutputFormat(options.format, options.json, /*csv=*/false);
   SpreadLimits limits;
   limits.gain_error =
       Limit(options.gain_error_limit, "--gain-error-limit", Quantity::kRatio);
@@ -118,7 +121,8 @@ int RunSpreadCommand(const SpreadCommandOptions& options) {
         });
     if (drawn != kExitOk) return drawn;
   }
-  std::cout << SpreadToText(run, summary, limits, options.seed) << std::flush;
+  std::cout << SpreadReport(format, run, summary, limits, options.seed)
+            << std::flush;
   return kExitOk;
 }
 

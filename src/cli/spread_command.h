@@ -15,8 +15,12 @@ struct SpreadCommandOptions {
   std::string devices_dir;
   long samples = 10000;  // at least 1
   std::uint64_t seed = 1;
-  int threads = 0;        // 0 = every hardware thread
-  std::string csv_path;   // empty = no CSV
+  int threads = 0;       // 0 = every hardware thread
+  std::string csv_path;  // every sample as CSV; empty = no CSV
+  // The summary on stdout: text, json, markdown or csv (--csv FILE is the
+  // per-sample file, not this).
+  std::string format = "text";
+  bool json = false;      // the same as --format json
   std::string plot_path;  // .png or .svg histograms; empty = no picture
   // Limits as typed ("0.5%", "5m", "100u"); empty = none.
   std::string gain_error_limit;

@@ -15,7 +15,9 @@ struct TiaSuggestCommandOptions {
   std::string min = "1k";      // candidate range
   std::string max = "10G";
   int rows = 6;
-  bool json = false;
+  std::string format = "text";  // text, json, markdown or csv
+  bool json = false;            // the same as --format json
+  bool csv = false;             // the same as --format csv
 };
 
 // Prints the table (or JSON) on stdout; returns an exit code

@@ -2,11 +2,16 @@
 
 #include <cmath>
 #include <cstdio>
+#include <nlohmann/json.hpp>
+#include <optional>
+#include <vector>
 
 #include "io/units.h"
 #include "noise/physical_constants.h"
+#include "report/csv_report.h"
 #include "report/printf.h"
 #include "report/table.h"
+#include "report/text_escape.h"
 
 namespace hushgain {
 namespace {
@@ -19,26 +24,30 @@ std::string YieldText(const std::optional<double>& y) {
 
 }  // namespace
 
-std::string SpreadToText(const SpreadRun& run, const SpreadSummary& s,
-                         const SpreadLimits& limits, std::uint64_t seed) {
+namespace {
+
+// The header lines shared by text and Markdown, without indentation.
+std::vector<std::string> HeaderLines(const SpreadRun& run, std::uint64_t seed) {
   const Budget& b = run.nominal;
   const std::string gain_unit = b.input_unit == "A" ? "V/A" : "V/V";
-  std::string out = b.stage_name + "\n";
-  out += "  Monte Carlo: " + std::to_string(run.samples.size()) +
-         " samples, seed " + std::to_string(seed) + "\n";
-  out += "  nominal: DC gain " + Printf("%.6g", run.nominal_gain) + " " +
-         gain_unit + ", output noise " + FormatEng(b.output_rms_v, "V") +
-         " rms, offset worst case " + FormatEng(b.offset.worst_case_v, "V") +
-         " at " + Printf("%.2f", b.temperature_k - kZeroCelsiusK) +
-         " \xC2\xB0"
-         "C\n";
-  out +=
-      std::string(
-          "  draws: resistors uniform within their tolerance; Vos and Ios ") +
-      (run.gaussian_offsets ? "Gaussian (the device values as sigma)"
-                            : "uniform within the device values") +
-      "; Vos drift uniform within its value; temperature uniform over the "
-      "range\n\n";
+  return {
+      "Monte Carlo: " + std::to_string(run.samples.size()) + " samples, seed " +
+          std::to_string(seed),
+      "nominal: DC gain " + Printf("%.6g", run.nominal_gain) + " " + gain_unit +
+          ", output noise " + FormatEng(b.output_rms_v, "V") +
+          " rms, offset worst case " + FormatEng(b.offset.worst_case_v, "V") +
+          " at " + Printf("%.2f", b.temperature_k - kZeroCelsiusK) +
+          " \xC2\xB0"
+          "C",
+      std::string("draws: resistors uniform within their tolerance; Vos and "
+                  "Ios ") +
+          (run.gaussian_offsets ? "Gaussian (the device values as sigma)"
+                                : "uniform within the device values") +
+          "; Vos drift uniform within its value; temperature uniform over the "
+          "range"};
+}
+
+Table DistributionTable(const SpreadSummary& s) {
   Table t;
   t.header = {"figure", "mean", "sigma", "0.135 %", "99.865 %", "min", "max"};
   t.align = {Table::Align::kLeft,  Table::Align::kRight, Table::Align::kRight,
@@ -55,39 +64,136 @@ std::string SpreadToText(const SpreadRun& run, const SpreadSummary& s,
             FormatEng(s.noise.sigma, "V"), FormatEng(s.noise.p_low, "V"),
             FormatEng(s.noise.p_high, "V"), FormatEng(s.noise.min, "V"),
             FormatEng(s.noise.max, "V")});
-  out += RenderText(t);
-  out +=
-      "  (the percentiles are the +-3 sigma points of a Gaussian; linear "
-      "interpolation "
-      "between samples)\n";
-  if (run.worst_case_offset_v > 0)
-    out +=
-        "  worst-case offset over the tolerance corners and the range: "
-        "\xC2\xB1" +
-        FormatEng(run.worst_case_offset_v, "V") +
-        (run.gaussian_offsets
-             ? " (Vos and Ios at their 1-sigma values: Gaussian "
-               "samples may go beyond it)\n"
-             : " (bounds every sample: Vos and Ios are uniform)\n");
-  if (s.yield.all) {
-    out += "\nYield\n";
-    Table y;
-    y.header = {"limit", "value", "inside"};
-    y.align = {Table::Align::kLeft, Table::Align::kRight, Table::Align::kRight};
-    if (limits.gain_error)
-      y.AddRow({"|gain error|", Printf("%.4g %%", 100.0 * *limits.gain_error),
-                YieldText(s.yield.gain_error)});
-    if (limits.offset_v)
-      y.AddRow({"|output offset|", FormatEng(*limits.offset_v, "V"),
-                YieldText(s.yield.offset)});
-    if (limits.noise_v)
-      y.AddRow({"output noise rms", FormatEng(*limits.noise_v, "V"),
-                YieldText(s.yield.noise)});
-    y.AddRule();
-    y.AddRow({"all limits", "", YieldText(s.yield.all)});
-    out += RenderText(y);
-  }
+  return t;
+}
+
+const char* kPercentileNote =
+    "(the percentiles are the +-3 sigma points of a Gaussian; linear "
+    "interpolation between samples)";
+
+std::string WorstCaseLine(const SpreadRun& run) {
+  return "worst-case offset over the tolerance corners and the range: "
+         "\xC2\xB1" +
+         FormatEng(run.worst_case_offset_v, "V") +
+         (run.gaussian_offsets
+              ? " (Vos and Ios at their 1-sigma values: Gaussian "
+                "samples may go beyond it)"
+              : " (bounds every sample: Vos and Ios are uniform)");
+}
+
+// Empty (no rows) without limits.
+Table YieldTable(const SpreadSummary& s, const SpreadLimits& limits) {
+  Table y;
+  y.header = {"limit", "value", "inside"};
+  y.align = {Table::Align::kLeft, Table::Align::kRight, Table::Align::kRight};
+  if (!s.yield.all) return y;
+  if (limits.gain_error)
+    y.AddRow({"|gain error|", Printf("%.4g %%", 100.0 * *limits.gain_error),
+              YieldText(s.yield.gain_error)});
+  if (limits.offset_v)
+    y.AddRow({"|output offset|", FormatEng(*limits.offset_v, "V"),
+              YieldText(s.yield.offset)});
+  if (limits.noise_v)
+    y.AddRow({"output noise rms", FormatEng(*limits.noise_v, "V"),
+              YieldText(s.yield.noise)});
+  y.AddRule();
+  y.AddRow({"all limits", "", YieldText(s.yield.all)});
+  return y;
+}
+
+std::string Text(const SpreadRun& run, const SpreadSummary& s,
+                 const SpreadLimits& limits, std::uint64_t seed) {
+  std::string out = run.nominal.stage_name + "\n";
+  for (const std::string& line : HeaderLines(run, seed))
+    out += "  " + line + "\n";
+  out += "\n" + RenderText(DistributionTable(s));
+  out += std::string("  ") + kPercentileNote + "\n";
+  if (run.worst_case_offset_v > 0) out += "  " + WorstCaseLine(run) + "\n";
+  const Table yield = YieldTable(s, limits);
+  if (!yield.rows.empty()) out += "\nYield\n" + RenderText(yield);
   return out;
+}
+
+std::string Markdown(const SpreadRun& run, const SpreadSummary& s,
+                     const SpreadLimits& limits, std::uint64_t seed) {
+  std::string out =
+      "## Monte Carlo: " + EscapeMarkdown(run.nominal.stage_name) + "\n\n";
+  for (const std::string& line : HeaderLines(run, seed))
+    out += "- " + EscapeMarkdown(line) + "\n";
+  out += "\n" + RenderMarkdown(DistributionTable(s)) + "\n" +
+         EscapeMarkdown(kPercentileNote) + "\n";
+  if (run.worst_case_offset_v > 0)
+    out += "\n" + EscapeMarkdown(WorstCaseLine(run)) + "\n";
+  const Table yield = YieldTable(s, limits);
+  if (!yield.rows.empty()) out += "\n### Yield\n\n" + RenderMarkdown(yield);
+  return out;
+}
+
+// One record per figure, SI numbers (the gain error as a ratio); the limit
+// and its yield empty when no limit was given.
+std::string Csv(const SpreadSummary& s, const SpreadLimits& limits) {
+  Table t;
+  t.header = {
+      "figure", "mean",  "sigma", "p_0.135_percent", "p_99.865_percent", "min",
+      "max",    "limit", "yield"};
+  const auto row = [&t](const std::string& name, const Distribution& d,
+                        const std::optional<double>& limit,
+                        const std::optional<double>& yield) {
+    t.AddRow({name, CsvNumber(d.mean), CsvNumber(d.sigma), CsvNumber(d.p_low),
+              CsvNumber(d.p_high), CsvNumber(d.min), CsvNumber(d.max),
+              limit ? CsvNumber(*limit) : "", yield ? CsvNumber(*yield) : ""});
+  };
+  row("gain_error", s.gain_error, limits.gain_error, s.yield.gain_error);
+  row("offset_V", s.offset, limits.offset_v, s.yield.offset);
+  row("noise_rms_V", s.noise, limits.noise_v, s.yield.noise);
+  return RenderCsv(t);
+}
+
+nlohmann::json DistributionJson(const Distribution& d) {
+  return {{"mean", d.mean},     {"sigma", d.sigma}, {"p_low", d.p_low},
+          {"p_high", d.p_high}, {"min", d.min},     {"max", d.max}};
+}
+
+std::string Json(const SpreadRun& run, const SpreadSummary& s,
+                 const SpreadLimits& limits, std::uint64_t seed) {
+  const auto optional = [](const std::optional<double>& v) {
+    return v ? nlohmann::json(*v) : nlohmann::json(nullptr);
+  };
+  nlohmann::json out = {
+      {"stage", run.nominal.stage_name},
+      {"samples", run.samples.size()},
+      {"seed", seed},
+      {"gaussian_offsets", run.gaussian_offsets},
+      {"percentiles", {kLowPercentile, kHighPercentile}},
+      {"nominal",
+       {{"gain", run.nominal_gain},
+        {"output_rms_V", run.nominal.output_rms_v},
+        {"offset_worst_case_V", run.nominal.offset.worst_case_v}}},
+      {"gain_error", DistributionJson(s.gain_error)},
+      {"offset_V", DistributionJson(s.offset)},
+      {"noise_rms_V", DistributionJson(s.noise)},
+      {"worst_case_offset_V", run.worst_case_offset_v},
+      {"limits",
+       {{"gain_error", optional(limits.gain_error)},
+        {"offset_V", optional(limits.offset_v)},
+        {"noise_rms_V", optional(limits.noise_v)}}},
+      {"yield",
+       {{"gain_error", optional(s.yield.gain_error)},
+        {"offset", optional(s.yield.offset)},
+        {"noise", optional(s.yield.noise)},
+        {"all", optional(s.yield.all)}}}};
+  return out.dump(2) + "\n";
+}
+
+}  // namespace
+
+std::string SpreadReport(const std::string& format, const SpreadRun& run,
+                         const SpreadSummary& summary,
+                         const SpreadLimits& limits, std::uint64_t seed) {
+  if (format == "json") return Json(run, summary, limits, seed);
+  if (format == "csv") return Csv(summary, limits);
+  if (format == "markdown") return Markdown(run, summary, limits, seed);
+  return Text(run, summary, limits, seed);
 }
 
 std::string SpreadToCsv(const SpreadRun& run) {

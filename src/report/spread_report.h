@@ -1,6 +1,6 @@
-// The spread (Monte Carlo) report: a text summary of the distributions and
-// yields, and the samples as CSV (one row per sample, SI units, the columns
-// named in the header).
+// The spread (Monte Carlo) report: a summary of the distributions and
+// yields (text, Markdown, CSV or JSON), and the samples as CSV (one row per
+// sample, SI units, the columns named in the header).
 #ifndef HUSHGAIN_REPORT_SPREAD_REPORT_H_
 #define HUSHGAIN_REPORT_SPREAD_REPORT_H_
 
@@ -12,7 +12,13 @@
 
 namespace hushgain {
 
-std::string SpreadToText(const SpreadRun& run, const SpreadSummary& summary,
+// The summary in `format`: text (today's report), markdown (the same lines
+// and tables), csv (one record per figure: figure, mean, sigma, the 0.135 %
+// and 99.865 % percentiles, min, max, limit, yield; SI numbers, the gain
+// error as a ratio) or json (the same figures, the nominal, the limits and
+// the yields, null where no limit was given).
+std::string SpreadReport(const std::string& format, const SpreadRun& run,
+                         const SpreadSummary& summary,
                          const SpreadLimits& limits, std::uint64_t seed);
 
 // Columns: index, temperature_C, vos_V, ios_A, gain, gain_error, offset_V,

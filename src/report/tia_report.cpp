@@ -1,0 +1,140 @@
+#include "report/tia_report.h"
+
+#include <nlohmann/json.hpp>
+
+#include "io/units.h"
+#include "report/csv_report.h"
+#include "report/printf.h"
+#include "report/table.h"
+#include "report/text_escape.h"
+
+namespace hushgain {
+namespace {
+
+const char* kPerRtHz = "/\xE2\x88\x9AHz";
+
+std::string Note(const TiaSuggestion& s, std::size_t i) {
+  if (static_cast<int>(i) == s.best) return "largest R_f that meets the target";
+  return s.rows[i].meets_target ? "" : "misses the target (flat C_f)";
+}
+
+// The display table: one row per proposal, units in the cells.
+Table DisplayTable(const Stage& stage, const TiaSuggestion& s) {
+  Table t;
+  t.header = {
+      "R_f",
+      "C_f",
+      "-3 dB",
+      "flat limit",
+      "margin",
+      "peaking",
+      std::string("input noise @ ") + FormatEng(*stage.reference_hz, "Hz", 3),
+      "input noise rms",
+      "NEP",
+      ""};
+  t.align.assign(t.header.size(), Table::Align::kRight);
+  t.align.back() = Table::Align::kLeft;
+  for (std::size_t i = 0; i < s.rows.size(); ++i) {
+    const TiaCandidate& r = s.rows[i];
+    t.AddRow(
+        {FormatEng(r.rf_ohm, "\xCE\xA9", 3), FormatEng(r.cf_f, "F"),
+         FormatEng(r.bandwidth_3db_hz, "Hz"),
+         FormatEng(r.butterworth_bandwidth_hz, "Hz"),
+         Printf("%.1f\xC2\xB0", r.phase_margin_deg),
+         Printf("%.2f dB", r.peaking_db),
+         FormatEng(r.input_density_a_per_rthz, std::string("A") + kPerRtHz),
+         FormatEng(r.input_rms_a, "A"),
+         r.nep_w_per_rthz > 0
+             ? FormatEng(r.nep_w_per_rthz, std::string("W") + kPerRtHz)
+             : "-",
+         Note(s, i)});
+  }
+  return t;
+}
+
+// The same rows as SI numbers, for CSV.
+Table CsvTable(const TiaSuggestion& s) {
+  Table t;
+  t.header = {"rf_ohm",
+              "cf_F",
+              "bandwidth_3db_Hz",
+              "butterworth_bandwidth_Hz",
+              "phase_margin_deg",
+              "peaking_dB",
+              "input_referred_density_A_per_rtHz",
+              "input_referred_rms_A",
+              "nep_W_per_rtHz",
+              "output_rms_V",
+              "meets_target",
+              "best"};
+  for (std::size_t i = 0; i < s.rows.size(); ++i) {
+    const TiaCandidate& r = s.rows[i];
+    t.AddRow({CsvNumber(r.rf_ohm), CsvNumber(r.cf_f),
+              CsvNumber(r.bandwidth_3db_hz),
+              CsvNumber(r.butterworth_bandwidth_hz),
+              CsvNumber(r.phase_margin_deg), CsvNumber(r.peaking_db),
+              CsvNumber(r.input_density_a_per_rthz), CsvNumber(r.input_rms_a),
+              r.nep_w_per_rthz > 0 ? CsvNumber(r.nep_w_per_rthz) : "",
+              CsvNumber(r.output_rms_v), r.meets_target ? "true" : "false",
+              static_cast<int>(i) == s.best ? "true" : "false"});
+  }
+  return t;
+}
+
+std::string TargetLine(double target_hz) {
+  return "transimpedance proposals for a -3 dB bandwidth of " +
+         FormatEng(target_hz, "Hz") +
+         " (C_f set to put the -3 dB point on the target; \"flat limit\" is "
+         "the bandwidth of the Butterworth C_f)";
+}
+
+std::string EstimateLine(const TiaSuggestion& s) {
+  return "textbook estimate of the largest R_f: GBW / (2 pi C f^2) = " +
+         FormatEng(s.largest_rf_estimate_ohm, "\xCE\xA9");
+}
+
+std::string BandLine(const Stage& stage) {
+  return "input noise over " + FormatEng(stage.band_low_hz, "Hz") + " to " +
+         FormatEng(stage.band_high_hz, "Hz");
+}
+
+std::string Json(const TiaSuggestion& s, double target_hz) {
+  nlohmann::json rows = nlohmann::json::array();
+  for (const TiaCandidate& r : s.rows)
+    rows.push_back(
+        {{"rf_ohm", r.rf_ohm},
+         {"cf_F", r.cf_f},
+         {"meets_target", r.meets_target},
+         {"bandwidth_3db_Hz", r.bandwidth_3db_hz},
+         {"butterworth_bandwidth_Hz", r.butterworth_bandwidth_hz},
+         {"phase_margin_deg", r.phase_margin_deg},
+         {"peaking_dB", r.peaking_db},
+         {"output_rms_V", r.output_rms_v},
+         {"input_referred_rms_A", r.input_rms_a},
+         {"input_referred_density_A_per_rtHz", r.input_density_a_per_rthz},
+         {"nep_W_per_rtHz", r.nep_w_per_rthz}});
+  nlohmann::json out = {{"bandwidth_target_Hz", target_hz},
+                        {"largest_rf_estimate_ohm", s.largest_rf_estimate_ohm},
+                        {"best", s.best},
+                        {"rows", rows}};
+  return out.dump(2) + "\n";
+}
+
+}  // namespace
+
+std::string TiaSuggestionReport(const std::string& format, const Stage& stage,
+                                const TiaSuggestion& s, double target_hz) {
+  if (format == "json") return Json(s, target_hz);
+  if (format == "csv") return RenderCsv(CsvTable(s));
+  const Table table = DisplayTable(stage, s);
+  if (format == "markdown")
+    return "## " + EscapeMarkdown(stage.name) + "\n\n" +
+           EscapeMarkdown(TargetLine(target_hz)) + "; " +
+           EscapeMarkdown(EstimateLine(s)) + ".\n\n" + RenderMarkdown(table) +
+           "\n" + EscapeMarkdown(BandLine(stage)) + ".\n";
+  return stage.name + "\n  " + TargetLine(target_hz) + "\n  " +
+         EstimateLine(s) + "\n\n" + RenderText(table) + "  " + BandLine(stage) +
+         "\n";
+}
+
+}  // namespace hushgain
