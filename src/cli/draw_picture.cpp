@@ -31,8 +31,11 @@ bool EndsWith(const std::string& s, const std::string& suffix) {
 PlotFormat PictureFormat(const std::string& option, const std::string& path) {
   if (EndsWith(path, ".png")) return PlotFormat::kPng;
   if (EndsWith(path, ".svg")) return PlotFormat::kSvg;
+  if (EndsWith(path, ".pdf")) return PlotFormat::kPdf;
   throw Error("command line", "",
-              option + ": expected a file name ending in .png or .svg, got \"" +
+              option +
+                  ": expected a file name ending in .png, .svg or .pdf, "
+                  "got \"" +
                   path + "\"");
 }
 

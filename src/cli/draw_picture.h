@@ -13,8 +13,9 @@
 
 namespace hushgain {
 
-// PNG for ".png", SVG for ".svg" (any case). Throws Error naming `option`
-// otherwise: "-o: expected a file name ending in .png or .svg, got "x"".
+// PNG for ".png", SVG for ".svg", PDF for ".pdf" (any case). Throws Error
+// naming `option` otherwise: "-o: expected a file name ending in .png, .svg or
+// .pdf, got "x"".
 PlotFormat PictureFormat(const std::string& option, const std::string& path);
 
 // The path of gnuplot, or "" after printing on stderr

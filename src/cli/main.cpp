@@ -113,7 +113,7 @@ std::function<int()> DefineTee(CLI::App* app, const GlobalOptions& global) {
   s->add_flag("--json", sweep->json, "the same as --format json");
   s->add_option("--plot", sweep->plot_path,
                 "also draw noise and offset against the largest resistor "
-                "(.png or .svg)");
+                "(.png, .svg or .pdf)");
   s->add_option("--tolerance", sweep->tolerance,
                 "relative error target of the noise integral (default 1e-4)");
   s->callback([sweep, chosen, &global] {
@@ -154,7 +154,7 @@ std::function<int()> DefineTee(CLI::App* app, const GlobalOptions& global) {
   q->add_flag("--json", search->json, "the same as --format json");
   q->add_option("--plot", search->plot_path,
                 "also draw the networks' noise, offset and resistors by rank "
-                "(.png or .svg)");
+                "(.png, .svg or .pdf)");
   q->add_option("--tolerance", search->tolerance,
                 "relative error target of the noise integral (default 1e-4)");
   q->callback([search, chosen, &global] {
@@ -201,7 +201,7 @@ std::function<int()> DefinePlot(CLI::App* app, const GlobalOptions& global) {
   app->add_option("stage", options->stage_path, "stage file (JSON)")
       ->required();
   app->add_option("-o,--output", options->output_path,
-                  "picture to write, .png or .svg")
+                  "picture to write, .png, .svg or .pdf")
       ->required();
   app->add_option("--only", options->only,
                   "draw one panel: spectrum, cumulative or gain");
@@ -228,7 +228,7 @@ std::function<int()> DefineSpread(CLI::App* app, const GlobalOptions& global) {
   app->add_flag("--json", o->json, "the same as --format json");
   app->add_option("--plot", o->plot_path,
                   "also draw histograms of gain error, offset and noise "
-                  "(.png or .svg)");
+                  "(.png, .svg or .pdf)");
   app->add_option("--gain-error-limit", o->gain_error_limit,
                   "yield limit on |gain error|, e.g. 0.5%");
   app->add_option("--offset-limit", o->offset_limit,

@@ -21,7 +21,7 @@ struct SpreadCommandOptions {
   // per-sample file, not this).
   std::string format = "text";
   bool json = false;      // the same as --format json
-  std::string plot_path;  // .png or .svg histograms; empty = no picture
+  std::string plot_path;  // .png, .svg or .pdf histograms; empty = no picture
   // Limits as typed ("0.5%", "5m", "100u"); empty = none.
   std::string gain_error_limit;
   std::string offset_limit;

@@ -30,6 +30,39 @@ std::string ShortEng(double value, const std::string& unit) {
   return number + rest;
 }
 
+std::string TerminalCommands(PlotFormat format, int width_px, int height_px,
+                             const std::string& output_path) {
+  std::string terminal;
+  std::string size = std::to_string(width_px) + "," + std::to_string(height_px);
+  switch (format) {
+    case PlotFormat::kPng:
+      terminal = "pngcairo";
+      break;
+    case PlotFormat::kSvg:
+      terminal = "svg";
+      break;
+    case PlotFormat::kPdf:
+      // pdfcairo sizes are in inches: 72 points each, one point per pixel.
+      // Its text and lines come out about half as heavy as pngcairo's at
+      // the same size (gnuplot 5.4, seen side by side): fontscale 1 and
+      // linewidth 2 give the PNG's look.
+      terminal = "pdfcairo";
+      size = PlotNumber(width_px / 72.0) + "in," +
+             PlotNumber(height_px / 72.0) + "in fontscale 1 linewidth 2";
+      break;
+  }
+  return "set terminal " + terminal + " size " + size +
+         " font 'DejaVu Sans,11' noenhanced background rgb 'white'\n"
+         "set encoding utf8\n"
+         "set output " +
+         GnuplotString(output_path) + "\n";
+}
+
+std::string GridCommand() {
+  return "set grid xtics ytics mxtics mytics lt 1 lc rgb '#d8d8d8' lw 1, "
+         "lt 1 lc rgb '#eeeeee' lw 1\n";
+}
+
 std::string LogTicsCommand(const char* axis, double v_min, double v_max,
                            const std::function<std::string(double)>& label) {
   const double lo_v = v_min * (1 - 1e-9), hi_v = v_max * (1 + 1e-9);
@@ -87,7 +120,7 @@ std::string PanelFrame(const SheetLayout& l, int index, int height_px,
          PlotNumber((l.width_px - l.legend_px) / width) + "\n";
   out += "set tmargin at screen " + PlotNumber(top) + "\n";
   out += "set bmargin at screen " + PlotNumber(bottom) + "\n";
-  out += "set grid xtics ytics lc rgb '#d8d8d8' lw 1\n";
+  out += GridCommand();
   out += "set border " + std::to_string(border) + " lw 1\n";
   out += "set key at screen " +
          PlotNumber((l.width_px - l.legend_px + l.key_gap_px) / width) +

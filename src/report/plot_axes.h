@@ -11,6 +11,20 @@
 
 namespace hushgain {
 
+// The picture formats: pngcairo, svg and pdfcairo, all in gnuplot-nox.
+enum class PlotFormat { kPng, kSvg, kPdf };
+
+// The terminal and output lines every sheet starts with: the format, the
+// size (pixels; a PDF page gets one point per pixel, so text and lines keep
+// their proportions), DejaVu Sans 11, no enhanced text (names are shown as
+// typed), a white background, UTF-8, and `output_path` (escaped).
+std::string TerminalCommands(PlotFormat format, int width_px, int height_px,
+                             const std::string& output_path);
+
+// The grid of every panel: major lines at the labelled tics and lighter
+// minor lines at the minor tics (2..9 times each decade on a log axis).
+std::string GridCommand();
+
 // The pixel geometry of a sheet of stacked panels: tic labels on the left,
 // a legend column on the right, a heading above the first panel.
 struct SheetLayout {

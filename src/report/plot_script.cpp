@@ -127,16 +127,7 @@ class ScriptWriter {
 
  private:
   void Terminal() {
-    const std::string size =
-        std::to_string(kWidthPx) + "," + std::to_string(height_px_);
-    if (o_.format == PlotFormat::kSvg)
-      out_ += "set terminal svg size " + size +
-              " font 'DejaVu Sans,11' noenhanced background rgb 'white'\n";
-    else
-      out_ += "set terminal pngcairo size " + size +
-              " font 'DejaVu Sans,11' noenhanced background rgb 'white'\n";
-    out_ += "set encoding utf8\n";
-    out_ += "set output " + GnuplotString(o_.output_path) + "\n";
+    out_ += TerminalCommands(o_.format, kWidthPx, height_px_, o_.output_path);
   }
 
   // Datablocks hold numbers only. $samples: f, one column per contributor
@@ -200,7 +191,7 @@ class ScriptWriter {
     out_ += LogTicsCommand("x", f_min_, f_max_,
                            [](double v) { return Short(v, "Hz"); });
     out_ += "set xlabel 'frequency (Hz)'\n";
-    out_ += "set grid xtics ytics lc rgb '#d8d8d8' lw 1\n";
+    out_ += GridCommand();
     out_ += "set border 3 lw 1\nset xtics nomirror out\nset ytics out\n";
     // The parts outside the band shaded, the edges drawn and labelled above
     // the plot.

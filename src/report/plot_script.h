@@ -24,11 +24,11 @@
 
 #include "budget/budget.h"
 #include "budget/sample_spectra.h"
+#include "report/plot_axes.h"
 
 namespace hushgain {
 
 enum class PlotPanel { kSpectrum, kCumulative, kGain };
-enum class PlotFormat { kPng, kSvg };
 
 struct PlotData {
   // On the plot grid (PlotFrequencyRangeHz, band edges on the grid).

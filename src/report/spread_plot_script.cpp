@@ -171,14 +171,8 @@ std::string BuildSpreadPlotScript(const SpreadRun& run,
                                   const SpreadPlotOptions& o) {
   assert(!run.samples.empty());
   const int height_px = kLayout.HeightPx(kPanels);
-  std::string out = std::string("set terminal ") +
-                    (o.format == PlotFormat::kSvg ? "svg" : "pngcairo") +
-                    " size " + std::to_string(kWidthPx) + "," +
-                    std::to_string(height_px) +
-                    " font 'DejaVu Sans,11' noenhanced background rgb "
-                    "'white'\n";
-  out += "set encoding utf8\n";
-  out += "set output " + GnuplotString(o.output_path) + "\n";
+  std::string out =
+      TerminalCommands(o.format, kWidthPx, height_px, o.output_path);
   out += "set style fill solid 0.45 border\n";
 
   const Budget& nominal = run.nominal;

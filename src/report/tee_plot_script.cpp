@@ -56,13 +56,7 @@ class Sheet {
  public:
   Sheet(const TeePlotOptions& o, int panels)
       : height_px_(kLayout.HeightPx(panels)) {
-    const std::string size =
-        std::to_string(kWidthPx) + "," + std::to_string(height_px_);
-    out_ += std::string("set terminal ") +
-            (o.format == PlotFormat::kSvg ? "svg" : "pngcairo") + " size " +
-            size + " font 'DejaVu Sans,11' noenhanced background rgb 'white'\n";
-    out_ += "set encoding utf8\n";
-    out_ += "set output " + GnuplotString(o.output_path) + "\n";
+    out_ += TerminalCommands(o.format, kWidthPx, height_px_, o.output_path);
   }
 
   std::string& out() { return out_; }

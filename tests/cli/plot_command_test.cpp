@@ -57,6 +57,36 @@ TEST_CASE("plot writes a valid PNG for every example") {
   }
 }
 
+// A whole PDF file: the header "%PDF-" (ISO 32000-1:2008 section 7.5.2) and
+// the end-of-file marker "%%EOF" after the trailer (section 7.5.5), with at
+// most a line end after it.
+bool WholePdf(const std::string& bytes) {
+  if (bytes.compare(0, 5, "%PDF-") != 0) return false;
+  const std::size_t eof = bytes.rfind("%%EOF");
+  return eof != std::string::npos && bytes.size() - eof <= 7 &&
+         bytes.find("trailer") != std::string::npos;
+}
+
+TEST_CASE("plot tee sweep and spread write a whole PDF for a .pdf name") {
+  ScratchDir dir("pdf");
+  const std::string tee = test::ExamplePath("hydrophone-preamp");
+  const std::vector<std::vector<std::string>> runs = {
+      {"plot", tee, "-o", dir / "sheet.pdf"},
+      {"tee", "sweep", tee, "--points", "5", "--plot", dir / "sweep.pdf"},
+      {"spread", tee, "--samples", "300", "--plot", dir / "spread.pdf"}};
+  for (const auto& args : runs) {
+    INFO(args[0] << " " << args.back());
+    const auto r = RunHushgain(args);
+    INFO("stderr: " << r.err);
+    REQUIRE(r.exit_code == 0);
+    const std::string bytes = ReadAll(args.back());
+    CHECK(WholePdf(bytes));
+    CHECK(bytes.size() > kMinPictureBytes / 2);
+  }
+  CHECK(dir.Files() ==
+        std::vector<std::string>{"sheet.pdf", "spread.pdf", "sweep.pdf"});
+}
+
 TEST_CASE("plot writes a well-formed SVG naming every contributor") {
   ScratchDir dir("svg");
   for (const std::string& stage : test::ExamplePaths()) {
@@ -184,12 +214,12 @@ TEST_CASE(
 TEST_CASE("plot refuses an unknown picture type or panel with exit code 2") {
   ScratchDir dir("plotusage");
   const std::string stage = test::ExamplePath("load-cell-bridge");
-  auto r = RunHushgain({"plot", stage, "-o", dir / "out.pdf"});
+  auto r = RunHushgain({"plot", stage, "-o", dir / "out.gif"});
   CHECK(r.exit_code == 2);
   CHECK(r.err ==
         "error: command line: -o: expected a file name ending in "
-        ".png or .svg, got \"" +
-            dir / "out.pdf" + "\"\n");
+        ".png, .svg or .pdf, got \"" +
+            dir / "out.gif" + "\"\n");
   r = RunHushgain({"plot", stage, "--only", "gian", "-o", dir / "out.png"});
   CHECK(r.exit_code == 2);
   CHECK(r.err ==

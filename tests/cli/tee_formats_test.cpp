@@ -204,8 +204,9 @@ TEST_CASE("tee format options conflict in one line, exit code 2") {
       {{"--format", "markdwn"},
        "--format: expected text, json, markdown or csv, got \"markdwn\" (did "
        "you mean \"markdown\"?)"},
-      {{"--plot", "out.pdf"},
-       "--plot: expected a file name ending in .png or .svg, got \"out.pdf\""},
+      {{"--plot", "out.gif"},
+       "--plot: expected a file name ending in .png, .svg or .pdf, got "
+       "\"out.gif\""},
   };
   for (const char* sub : {"sweep", "search"})
     for (const Case& c : cases) {

@@ -2,6 +2,7 @@
 
 #include <doctest/doctest.h>
 
+#include <cstdio>
 #include <sstream>
 #include <string>
 
@@ -114,6 +115,42 @@ TEST_CASE("--only panels give one plot each") {
     CHECK(gp.rfind("set terminal pngcairo ", 0) == 0);
     CHECK(CountLines(gp, "plot ") == 1);
   }
+}
+
+TEST_CASE("a pdf sheet has the png's proportions on a page of points") {
+  PlotScriptOptions png, pdf;
+  png.output_path = "x.png";
+  pdf.output_path = "x.pdf";
+  pdf.format = PlotFormat::kPdf;
+  const std::string a = BuildPlotScript(SmallBudget(), SmallData(), png);
+  const std::string b = BuildPlotScript(SmallBudget(), SmallData(), pdf);
+  // "set terminal pngcairo size W,H" against "pdfcairo size W/72in,H/72in".
+  int w = 0, h = 0;
+  REQUIRE(std::sscanf(a.c_str(), "set terminal pngcairo size %d,%d", &w, &h) ==
+          2);
+  double w_in = 0, h_in = 0;
+  REQUIRE(std::sscanf(b.c_str(), "set terminal pdfcairo size %lfin,%lfin",
+                      &w_in, &h_in) == 2);
+  CHECK(b.find("in fontscale 1 linewidth 2 font ") != std::string::npos);
+  CHECK(w_in == doctest::Approx(w / 72.0).epsilon(1e-8));
+  CHECK(h_in == doctest::Approx(h / 72.0).epsilon(1e-8));
+  // Everything after the terminal and output lines is the same script.
+  const auto body = [](const std::string& gp) {
+    return gp.substr(gp.find("\n", gp.find("set output")) + 1);
+  };
+  CHECK(body(a) == body(b));
+}
+
+TEST_CASE("every panel draws major and minor grid lines") {
+  PlotScriptOptions options;
+  options.output_path = "x.png";
+  const std::string gp = BuildPlotScript(SmallBudget(), SmallData(), options);
+  // One grid per panel, minor lines (the unlabelled level-1 tics at 2..9
+  // times each decade) lighter than the major ones.
+  CHECK(CountLines(gp,
+                   "set grid xtics ytics mxtics mytics lt 1 lc rgb "
+                   "'#d8d8d8' lw 1, lt 1 lc rgb '#eeeeee' lw 1") == 3);
+  CHECK(gp.find("\"\" 2 1") != std::string::npos);
 }
 
 TEST_CASE("the spectrum csv lists contributors in the budget's order") {
