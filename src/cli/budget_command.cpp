@@ -9,6 +9,7 @@
 #include "budget/sample_spectra.h"
 #include "cli/exit_codes.h"
 #include "cli/output_format.h"
+#include "cli/text_output.h"
 #include "io/device_library.h"
 #include "io/error.h"
 #include "io/read_file.h"
@@ -73,7 +74,7 @@ int RunBudgetCommand(const BudgetCommandOptions& options) {
   const std::string text = Render(outcome.budget, format);
   for (const std::string& w : outcome.budget.warnings)
     std::cerr << "warning: " << Error::OneLine(w) << "\n";
-  std::cout << text << std::flush;
+  WriteReport(text, format);
   return kExitOk;
 }
 

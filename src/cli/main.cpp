@@ -1,6 +1,7 @@
 // hushgain: noise and offset budgets of high-gain inverting op-amp stages.
 // The subcommands come from one table, so --help and "did you mean" agree.
 #include <CLI/CLI.hpp>
+#include <charconv>
 #include <cstdlib>
 #include <functional>
 #include <iostream>
@@ -14,6 +15,7 @@
 #include "cli/plot_command.h"
 #include "cli/spread_command.h"
 #include "cli/tee_command.h"
+#include "cli/text_output.h"
 #include "cli/tia_command.h"
 #include "cli/version.h"
 #include "io/error.h"
@@ -42,9 +44,12 @@ struct Command {
 CLI::Validator NumberValidator() {
   return CLI::Validator(
       [](std::string& text) -> std::string {
-        char* end = nullptr;
-        std::strtod(text.c_str(), &end);
-        if (text.empty() || end != text.c_str() + text.size())
+        // from_chars: the C locale's "." whatever LC_NUMERIC says.
+        double value = 0;
+        const char* first = text.data() + (text.rfind('+', 0) == 0 ? 1 : 0);
+        const char* last = text.data() + text.size();
+        const auto read = std::from_chars(first, last, value);
+        if (first == last || read.ptr != last)
           return "expected a number, got \"" + text + "\"";
         return "";
       },
@@ -256,17 +261,20 @@ const std::vector<Command>& Commands() {
   return commands;
 }
 
-// Gives every leaf command (budget, tee sweep, ...) a --devices of its own
-// that sets the same folder as the one before the command.
-void AddDevicesOption(CLI::App* app,
+// Gives every leaf command (budget, tee sweep, ...) a --devices and an
+// --ascii of its own, the same as the ones before the command.
+void AddGlobalOptions(CLI::App* app,
                       const std::function<void(const std::string&)>& set) {
   for (CLI::App* sub : app->get_subcommands([](CLI::App*) { return true; })) {
-    if (sub->get_subcommands([](CLI::App*) { return true; }).empty())
+    if (sub->get_subcommands([](CLI::App*) { return true; }).empty()) {
       sub->add_option_function<std::string>(
              "--devices", set, "device folder (as before the command)")
           ->type_name("DIR");
-    else
-      AddDevicesOption(sub, set);
+      sub->add_flag("--ascii")->description(
+          "ASCII text (as before the command)");
+    } else {
+      AddGlobalOptions(sub, set);
+    }
   }
 }
 
@@ -277,6 +285,14 @@ int Run(int argc, char** argv) {
       "hushgain"};
   app.require_subcommand(1);
   app.set_version_flag("--version", VersionLine(), "print the version");
+  // Read before parsing, so even a command-line error is spelled in ASCII.
+  bool ascii = LocaleWantsAscii();
+  for (int i = 1; i < argc; ++i)
+    ascii = ascii || std::string(argv[i]) == "--ascii";
+  if (ascii) UseAsciiOutput();
+  app.add_flag("--ascii")->description(
+      "text and Markdown in ASCII: u for micro, rtHz, Ohm, deg, +- "
+      "(also chosen when the locale's character set is not UTF-8)");
   GlobalOptions global;
   std::optional<std::string> devices_option;
   const auto set_devices = [&devices_option](const std::string& dir) {
@@ -297,8 +313,8 @@ int Run(int argc, char** argv) {
     auto run = command.define(sub, global);
     sub->callback([&handler, run] { handler = run; });
   }
-  // --devices may also follow the command: every command that runs takes it.
-  AddDevicesOption(&app, set_devices);
+  // --devices and --ascii may also follow the command.
+  AddGlobalOptions(&app, set_devices);
   // An unknown subcommand gets a suggestion from the same table.
   for (int i = 1; i < argc; ++i) {
     std::string word = argv[i];

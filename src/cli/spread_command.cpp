@@ -16,6 +16,7 @@
 #include "cli/interrupt.h"
 #include "cli/output_format.h"
 #include "cli/progress_bar.h"
+#include "cli/text_output.h"
 #include "io/device_library.h"
 #include "io/error.h"
 #include "io/read_file.h"
@@ -121,8 +122,7 @@ int RunSpreadCommand(const SpreadCommandOptions& options) {
         });
     if (drawn != kExitOk) return drawn;
   }
-  std::cout << SpreadReport(format, run, summary, limits, options.seed)
-            << std::flush;
+  WriteReport(SpreadReport(format, run, summary, limits, options.seed), format);
   return kExitOk;
 }
 

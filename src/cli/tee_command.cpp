@@ -20,6 +20,7 @@
 #include "cli/interrupt.h"
 #include "cli/output_format.h"
 #include "cli/progress_bar.h"
+#include "cli/text_output.h"
 #include "io/device_library.h"
 #include "io/error.h"
 #include "io/stage_parser.h"
@@ -185,7 +186,7 @@ int RunTeeSweepCommand(const TeeSweepCommandOptions& options) {
         });
     if (drawn != kExitOk) return drawn;
   }
-  std::cout << SweepOutput(format, result) << std::flush;
+  WriteReport(SweepOutput(format, result), format);
   return kExitOk;
 }
 
@@ -336,7 +337,7 @@ int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
         });
     if (drawn != kExitOk) return drawn;
   }
-  std::cout << SearchOutput(format, result, query) << std::flush;
+  WriteReport(SearchOutput(format, result, query), format);
   return result.cancelled ? kExitInterrupted : kExitOk;
 }
 

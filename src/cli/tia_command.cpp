@@ -7,6 +7,7 @@
 #include "circuit/preferred_series.h"
 #include "cli/exit_codes.h"
 #include "cli/output_format.h"
+#include "cli/text_output.h"
 #include "io/device_library.h"
 #include "io/error.h"
 #include "io/stage_parser.h"
@@ -77,7 +78,7 @@ int RunTiaSuggestCommand(const TiaSuggestCommandOptions& options) {
               << "\n";
     return kExitAnalysisRefused;
   }
-  std::cout << TiaSuggestionReport(format, stage, s, bandwidth) << std::flush;
+  WriteReport(TiaSuggestionReport(format, stage, s, bandwidth), format);
   return kExitOk;
 }
 

@@ -2,10 +2,14 @@
 
 #include <algorithm>
 #include <array>
+#include <cctype>
+#include <charconv>
 #include <cmath>
 #include <cstdio>
 #include <cstdlib>
+#include <limits>
 #include <string>
+#include <system_error>
 #include <vector>
 
 namespace hushgain {
@@ -81,27 +85,74 @@ bool StartsWithDigitOrSign(std::string_view s) {
                         s[0] == '+' || s[0] == '-' || s[0] == '.');
 }
 
+// std::from_chars on a decimal number: never the locale's decimal point
+// (strtod would read "4,7" under a German LC_NUMERIC), no hex, no leading
+// space. An optional "+" is skipped (from_chars takes only "-"). A number
+// beyond the range of a double reads as +-infinity (refused later as not
+// finite) and one below it as 0, as strtod gives them. Returns the count
+// of characters used, 0 when no number starts the text.
+std::size_t ReadDecimal(std::string_view text, double* number) {
+  std::size_t skip = 0;
+  if (!text.empty() && text[0] == '+') {
+    if (text.size() < 2 || text[1] == '-' || text[1] == '+') return 0;
+    skip = 1;
+  }
+  const char* first = text.data() + skip;
+  const char* last = text.data() + text.size();
+  const std::from_chars_result r =
+      std::from_chars(first, last, *number, std::chars_format::general);
+  if (r.ptr == first) return 0;
+  if (r.ec == std::errc::result_out_of_range) {
+    // The decimal exponent decides: digits before the point (leading zeros
+    // dropped) plus the written exponent.
+    const std::string_view span(first, r.ptr - first);
+    const bool negative = span[0] == '-';
+    const std::size_t e = span.find_first_of("eE");
+    const std::string_view mantissa = span.substr(0, e);
+    long exponent = 0;
+    if (e != std::string_view::npos) {
+      std::string_view digits = span.substr(e + 1);
+      if (!digits.empty() && digits[0] == '+') digits.remove_prefix(1);
+      const auto er = std::from_chars(digits.data(),
+                                      digits.data() + digits.size(), exponent);
+      if (er.ec == std::errc::result_out_of_range)
+        exponent = digits[0] == '-' ? -100000 : 100000;
+    }
+    long leading = 0;  // digits before the point, or -zeros after it
+    const std::size_t point = mantissa.find('.');
+    const std::string_view whole =
+        mantissa.substr(negative ? 1 : 0, point == std::string_view::npos
+                                              ? std::string_view::npos
+                                              : point - (negative ? 1 : 0));
+    const std::size_t nonzero = whole.find_first_not_of('0');
+    if (nonzero != std::string_view::npos) {
+      leading = static_cast<long>(whole.size() - nonzero);
+    } else if (point != std::string_view::npos) {
+      const std::string_view fraction = mantissa.substr(point + 1);
+      const std::size_t first_digit = fraction.find_first_not_of('0');
+      leading = -static_cast<long>(first_digit == std::string_view::npos
+                                       ? fraction.size()
+                                       : first_digit);
+    }
+    const double magnitude =
+        exponent + leading > 0 ? std::numeric_limits<double>::infinity() : 0.0;
+    *number = negative ? -magnitude : magnitude;
+  }
+  return skip + static_cast<std::size_t>(r.ptr - first);
+}
+
 // Splits "12.4k Ohm" into the number 12.4 and the suffix "k Ohm".
 // Returns false when no number starts the text.
 bool SplitNumber(std::string_view text, double* number,
                  std::string_view* suffix) {
   if (!StartsWithDigitOrSign(text)) return false;
-  // strtod needs a terminated copy; the text is short.
-  std::string copy(text);
-  // strtod accepts "inf", "nan" and hex floats: refuse those by hand.
-  for (char c : copy) {
-    if (c == 'x' || c == 'X') {
-      if (copy.find("0x") != std::string::npos ||
-          copy.find("0X") != std::string::npos)
-        return false;
-    }
-  }
-  char* end = nullptr;
-  *number = std::strtod(copy.c_str(), &end);
-  if (end == copy.c_str()) return false;
-  std::size_t used = static_cast<std::size_t>(end - copy.c_str());
-  // strtod takes the "e" of an exponent; "4.7e" or "1E" without digits is not
-  // an exponent but would be eaten by some libcs: it never is by glibc.
+  // A hex float is no quantity ("0x1p3"): refused as no number.
+  if (text.find("0x") != std::string_view::npos ||
+      text.find("0X") != std::string_view::npos)
+    return false;
+  // "-inf" and "-nan" read as numbers and are refused later as not finite.
+  const std::size_t used = ReadDecimal(text, number);
+  if (used == 0) return false;
   *suffix = text.substr(used);
   return true;
 }
@@ -143,7 +194,9 @@ std::optional<double> ParseLetterCode(std::string_view text) {
     if (!std::isdigit(static_cast<unsigned char>(c))) return std::nullopt;
   std::string joined =
       std::string(text.substr(0, pos)) + "." + std::string(fraction);
-  return std::strtod(joined.c_str(), nullptr) * scale;
+  double value = 0;
+  ReadDecimal(joined, &value);
+  return value * scale;
 }
 
 std::optional<double> Fail(std::string* why, std::string reason) {
@@ -161,7 +214,8 @@ std::string FormatWith(double value, std::string_view unit, int digits,
   // and takes the next prefix when it must.
   char buf[64];
   std::snprintf(buf, sizeof buf, "%.*e", digits - 1, value);
-  const double rounded = std::strtod(buf, nullptr);
+  double rounded = 0;
+  ReadDecimal(buf, &rounded);
   int exponent3 =
       static_cast<int>(std::floor(std::log10(std::fabs(rounded)) / 3.0)) * 3;
   const double mantissa = rounded / std::pow(10.0, exponent3);

@@ -84,6 +84,28 @@ TEST_CASE("bad values are refused with the reason") {
   CHECK(why == "out of range");
 }
 
+TEST_CASE("numbers are read as the C locale writes them whatever the locale") {
+  // std::from_chars: "." is the decimal point, a "+" may lead, extremes
+  // read as strtod gives them (infinity refused as not finite, values
+  // below the smallest double as 0).
+  std::string why;
+  CHECK(ParseQuantity("+4.7k", Quantity::kResistance) == 4700.0);
+  CHECK(ParseQuantity("-5m", Quantity::kVoltage) == -0.005);
+  CHECK(ParseQuantity(".5u", Quantity::kVoltage) == 0.5e-6);
+  CHECK(ParseQuantity("2.5e3", Quantity::kFrequency) == 2500.0);
+  CHECK(ParseQuantity("1e-999", Quantity::kVoltage) == 0.0);
+  CHECK(ParseQuantity("-1e-999", Quantity::kVoltage) == 0.0);
+  CHECK_FALSE(ParseQuantity("4,7k", Quantity::kResistance, &why));
+  CHECK(why == "unknown unit \",7k\"");
+  CHECK_FALSE(ParseQuantity("+-1", Quantity::kVoltage, &why));
+  CHECK(why == "no number");
+  CHECK_FALSE(ParseQuantity("-1e999", Quantity::kVoltage, &why));
+  CHECK(why == "not a finite number");
+  CHECK_FALSE(ParseQuantity("0.0000001e999999999999999", Quantity::kVoltage,
+                            &why));
+  CHECK(why == "not a finite number");
+}
+
 TEST_CASE("engineering notation prints 4 significant digits and an SI prefix") {
   CHECK(FormatEng(1.23456e-6, "V") == "1.235 \xC2\xB5V");
   CHECK(FormatEng(9.99996e6, "\xCE\xA9") ==

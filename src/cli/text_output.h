@@ -1,0 +1,31 @@
+// How text reaches the terminal: UTF-8 as hushgain writes it, or ASCII
+// spellings (report/ascii_text.h: u for µ, rtHz, Ohm, deg, +-) with
+// --ascii, or by itself when the locale's character set is not UTF-8
+// (LC_ALL, LC_CTYPE or LANG set to, say, en_US.ISO-8859-1 or C). With no
+// locale variable set at all the output stays UTF-8.
+// The choice is made once in main; ASCII applies to text and Markdown
+// reports on stdout and to every message on stderr. JSON and CSV keep
+// their data as it is (UTF-8).
+#ifndef HUSHGAIN_CLI_TEXT_OUTPUT_H_
+#define HUSHGAIN_CLI_TEXT_OUTPUT_H_
+
+#include <string>
+
+namespace hushgain {
+
+// True when a locale variable names a character set other than UTF-8.
+// Reads the environment's LC_CTYPE and puts the program's back to "C", so
+// nothing else in hushgain depends on the locale.
+bool LocaleWantsAscii();
+
+// Turns ASCII output on: from then on std::cerr is filtered, and
+// WriteReport spells text and Markdown in ASCII. Call once, from main.
+void UseAsciiOutput();
+
+// Writes `report` to stdout (`format`: text, markdown, json or csv) and
+// flushes.
+void WriteReport(const std::string& report, const std::string& format);
+
+}  // namespace hushgain
+
+#endif  // HUSHGAIN_CLI_TEXT_OUTPUT_H_
