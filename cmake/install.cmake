@@ -15,6 +15,29 @@ target_compile_definitions(hushgain PRIVATE
   HUSHGAIN_DEVICES_FROM_PROGRAM="${hushgain_devices_from_program}")
 
 install(TARGETS hushgain RUNTIME DESTINATION ${CMAKE_INSTALL_BINDIR})
+
+# The library for other programs: hushgain::core and its headers, exported
+# as the CMake package "hushgain" (lib/cmake/hushgain/). The core's headers
+# are every header of src/ but the edges (io, report, cli), which the core
+# never includes.
+install(TARGETS hushgain_core EXPORT hushgainTargets
+  ARCHIVE DESTINATION ${CMAKE_INSTALL_LIBDIR})
+install(DIRECTORY src/ DESTINATION ${CMAKE_INSTALL_INCLUDEDIR}/hushgain
+  FILES_MATCHING PATTERN "*.h"
+  PATTERN "io" EXCLUDE PATTERN "report" EXCLUDE PATTERN "cli" EXCLUDE)
+set(hushgain_cmake_dir ${CMAKE_INSTALL_LIBDIR}/cmake/hushgain)
+install(EXPORT hushgainTargets NAMESPACE hushgain::
+  DESTINATION ${hushgain_cmake_dir})
+include(CMakePackageConfigHelpers)
+configure_package_config_file(cmake/hushgainConfig.cmake.in
+  ${CMAKE_CURRENT_BINARY_DIR}/hushgainConfig.cmake
+  INSTALL_DESTINATION ${hushgain_cmake_dir})
+write_basic_package_version_file(
+  ${CMAKE_CURRENT_BINARY_DIR}/hushgainConfigVersion.cmake
+  COMPATIBILITY SameMinorVersion)
+install(FILES ${CMAKE_CURRENT_BINARY_DIR}/hushgainConfig.cmake
+  ${CMAKE_CURRENT_BINARY_DIR}/hushgainConfigVersion.cmake
+  DESTINATION ${hushgain_cmake_dir})
 install(DIRECTORY devices/
   DESTINATION ${CMAKE_INSTALL_DATADIR}/hushgain/devices)
 install(DIRECTORY schema/ DESTINATION ${CMAKE_INSTALL_DATADIR}/hushgain/schema)
@@ -44,12 +67,20 @@ else()
   message(STATUS "help2man not found: no man page (scripts/setup installs it)")
 endif()
 
+if(HUSHGAIN_BUILD_TESTS)
 # CTest: install into a scratch prefix, move it, run a budget from elsewhere.
 add_test(NAME install_relocated
   COMMAND ${CMAKE_COMMAND} -DBUILD_DIR=${CMAKE_CURRENT_BINARY_DIR}
           -DSOURCE_DIR=${CMAKE_CURRENT_SOURCE_DIR}
           -DHELP2MAN=${HUSHGAIN_HELP2MAN}
           -P ${CMAKE_CURRENT_SOURCE_DIR}/tests/install/install_test.cmake)
+# CTest: examples/embedding built against the installed package, and a
+# parent project that takes hushgain in with add_subdirectory.
+add_test(NAME embedding_consumer
+  COMMAND ${CMAKE_COMMAND} -DBUILD_DIR=${CMAKE_CURRENT_BINARY_DIR}
+          -DSOURCE_DIR=${CMAKE_CURRENT_SOURCE_DIR}
+          -P ${CMAKE_CURRENT_SOURCE_DIR}/tests/install/embedding_test.cmake)
+endif()
 
 # The Debian package: `cpack -G DEB` in the build folder (or `cmake --build
 # build --target package`). One package holds everything installed above;
@@ -58,6 +89,7 @@ add_test(NAME install_relocated
 # cpack installs without building first (preinstall builds nothing): a
 # CTest runs it while other tests run the built programs.
 set(CMAKE_SKIP_INSTALL_ALL_DEPENDENCY ON)
+if(hushgain_top_level)
 set(CPACK_GENERATOR DEB)
 set(CPACK_PACKAGE_NAME hushgain)
 set(CPACK_PACKAGE_VENDOR "The hushgain authors")
@@ -78,13 +110,16 @@ set(CPACK_DEBIAN_PACKAGE_SHLIBDEPS ON)
 set(CPACK_DEBIAN_PACKAGE_RECOMMENDS gnuplot-nox)
 set(CPACK_PACKAGING_INSTALL_PREFIX /usr)
 include(CPack)
+endif()
 
 # CTest: build the .deb, check its control fields, install it with dpkg into
 # a scratch root (its own dpkg database: the machine is not touched, and two
 # builds may run it at once) and run a budget with the installed program.
 # Skipped where dpkg is missing (not Debian).
+if(HUSHGAIN_BUILD_TESTS AND hushgain_top_level)
 add_test(NAME deb_package
   COMMAND ${CMAKE_COMMAND} -DBUILD_DIR=${CMAKE_CURRENT_BINARY_DIR}
           -P ${CMAKE_CURRENT_SOURCE_DIR}/tests/install/deb_test.cmake)
 set_tests_properties(deb_package PROPERTIES SKIP_RETURN_CODE 77
   SKIP_REGULAR_EXPRESSION "skipped: ")
+endif()

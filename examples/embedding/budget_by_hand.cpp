@@ -10,7 +10,8 @@
 // the SI definition, 1.380649e-23 J/K).
 #include <cmath>
 #include <cstdio>
-#include <hushgain/budget/compute_budget.h>
+
+#include "budget/compute_budget.h"  // installed: include/hushgain/budget/
 
 int main() {
   hushgain::Stage stage;
@@ -39,8 +40,8 @@ int main() {
               budget.output_rms_v);
   double r_f_rms = -1;
   for (const hushgain::Contributor& c : budget.contributors) {
-    std::printf("  %-6s %.4g V rms  %5.1f %%\n", c.name.c_str(),
-                c.output_rms_v, 100 * c.share);
+    std::printf("  %-6s %.4g V rms  %5.1f %%\n", c.name.c_str(), c.output_rms_v,
+                100 * c.share);
     if (c.name == "R_f") r_f_rms = c.output_rms_v;
   }
   const double expected = std::sqrt(4 * 1.380649e-23 * 298.15 * 1e6 * 990);
