@@ -101,8 +101,8 @@ TEST_CASE("numbers are read as the C locale writes them whatever the locale") {
   CHECK(why == "no number");
   CHECK_FALSE(ParseQuantity("-1e999", Quantity::kVoltage, &why));
   CHECK(why == "not a finite number");
-  CHECK_FALSE(ParseQuantity("0.0000001e999999999999999", Quantity::kVoltage,
-                            &why));
+  CHECK_FALSE(
+      ParseQuantity("0.0000001e999999999999999", Quantity::kVoltage, &why));
   CHECK(why == "not a finite number");
 }
 
