@@ -55,9 +55,11 @@ ClosedFormModel MakeClosedFormModel(const Stage& stage) {
   m.source_ohm = stage.source.resistance_ohm;
   m.thermal_w = 4.0 * kBoltzmannJPerK * stage.temperature_k * width;
   m.e_n_power =
-      op.e_w_v_per_rthz * op.e_w_v_per_rthz * (width + op.f_cv_hz * log_ratio);
+      op.e_w_v_per_rthz * op.e_w_v_per_rthz * (width + op.f_cv_hz * log_ratio) +
+      op.voltage_noise_table.PsdIntegral(fl, fh);
   m.i_n_power =
-      op.i_w_a_per_rthz * op.i_w_a_per_rthz * (width + op.f_ci_hz * log_ratio);
+      op.i_w_a_per_rthz * op.i_w_a_per_rthz * (width + op.f_ci_hz * log_ratio) +
+      op.current_noise_table.PsdIntegral(fl, fh);
   m.vos_v = std::fabs(op.vos_v);
   m.ib_a = op.ib_a;
   m.half_ios_a = 0.5 * std::fabs(op.ios_a);

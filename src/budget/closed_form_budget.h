@@ -30,8 +30,10 @@ namespace hushgain {
 struct ClosedFormModel {
   double source_ohm = 0;  // R_source
   double thermal_w = 0;   // 4kT (fH - fL), V^2/ohm
-  double e_n_power = 0;   // e_w^2 (fH - fL + f_cv ln(fH/fL)), V^2
-  double i_n_power = 0;   // i_w^2 (fH - fL + f_ci ln(fH/fL)), A^2
+  // e_w^2 (fH - fL + f_cv ln(fH/fL)) + the table's exact integral, V^2
+  double e_n_power = 0;
+  // i_w^2 (fH - fL + f_ci ln(fH/fL)) + the table's exact integral, A^2
+  double i_n_power = 0;
   double vos_v = 0;       // |Vos|
   double ib_a = 0;        // Ib, signed
   double half_ios_a = 0;  // |Ios| / 2

@@ -127,10 +127,16 @@ Status BandNoise(const Stage& stage, const BudgetOptions& options,
                  SpectrumEvaluator& ev, Budget& b,
                  std::vector<LogInterval>* partition) {
   const int n = ev.source_count();
+  // A tabulated op-amp density has a kink at each of its points.
+  IntegrationOptions integration = options.integration;
+  for (const NoiseTable* table :
+       {&stage.opamp.voltage_noise_table, &stage.opamp.current_noise_table})
+    for (double f : table->Breakpoints(stage.band_low_hz, stage.band_high_hz))
+      integration.breakpoints_hz.push_back(f);
   IntegrationResult integral = IntegrateBand(
       stage.band_low_hz, stage.band_high_hz, n,
       [&ev](double f, double* out) { return ev.Densities(f, out); },
-      options.integration);
+      integration);
   if (!integral.status.ok) return integral.status;
   double total_power = 0;
   for (int k = 0; k < n; ++k) {

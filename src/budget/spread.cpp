@@ -40,6 +40,12 @@ struct SourceSlot {
   double white = 0, corner = 0, flicker = 0;
   int thermal_of = -1;  // resistor whose 4kT/R this is
   int excess_of = -1;   // resistor whose excess noise this is
+  // An op-amp current noise that follows the bias current: white_25 and the
+  // table are the 25 °C values, scaled per sample by CurrentNoiseFactor^2.
+  bool follows_bias = false;
+  double white_25 = 0;
+  int table_row = -1;  // row of Model::table_psd; -1: no table
+  double table_scale = 1;
 };
 
 // Everything a sample needs that does not change between samples.
@@ -50,6 +56,9 @@ struct Model {
   std::vector<ResistorInfo> resistors;
   std::vector<SourceSlot> sources;
   std::vector<QuadratureNode> nodes;
+  // A tabulated density at every node: row r of the sources with a table,
+  // table_psd[r * nodes.size() + node] (fixed per run: tabulated once).
+  std::vector<double> table_psd;
   Port signal, e_n, i_plus, i_minus;
   std::vector<std::pair<Port, double>> junctions;
   OpAmpModel opamp;  // 25 °C values
@@ -121,7 +130,13 @@ Status EvaluateAt(const Model& m, const Draw& d, Workspace& w,
     for (const auto& [port, amperes] : m.junctions) add(port, amperes);
     s.SolveDirectDc(w.rhs.data());
   }
+  const double bias_noise =
+      std::pow(CurrentNoiseFactor(m.opamp, d.temperature_k), 2);
   for (SourceSlot& slot : w.slots) {
+    if (slot.follows_bias) {
+      slot.white = slot.white_25 * bias_noise;
+      slot.table_scale = bias_noise;
+    }
     if (slot.thermal_of >= 0) slot.white = four_kt / w.ohms[slot.thermal_of];
     if (slot.excess_of >= 0) {
       const ResistorInfo& r = m.resistors[slot.excess_of];
@@ -133,14 +148,20 @@ Status EvaluateAt(const Model& m, const Draw& d, Workspace& w,
     }
   }
   double power = 0;
-  for (const QuadratureNode& node : m.nodes) {
+  const std::size_t node_count = m.nodes.size();
+  for (std::size_t q = 0; q < node_count; ++q) {
+    const QuadratureNode& node = m.nodes[q];
     st = s.SolveAdjoint(node.f_hz);
     if (!st.ok) return st;
     const double f = node.f_hz;
     double psd = 0;
-    for (const SourceSlot& slot : w.slots)
-      psd += s.TransferNorm(slot.port) *
-             (slot.white * (1.0 + slot.corner / f) + slot.flicker / f);
+    for (const SourceSlot& slot : w.slots) {
+      double source = slot.white * (1.0 + slot.corner / f) + slot.flicker / f;
+      if (slot.table_row >= 0)
+        source +=
+            slot.table_scale * m.table_psd[slot.table_row * node_count + q];
+      psd += s.TransferNorm(slot.port) * source;
+    }
     power += node.weight_hz * psd;
   }
   out->noise_rms_v = std::sqrt(power);
@@ -221,7 +242,16 @@ Status BuildModel(const Stage& stage, const BudgetOutcome& nominal, Model* m) {
     SourceSlot slot;
     slot.port = m->system.Compile(src.excitation);
     slot.white = src.white_psd;
+    slot.white_25 = src.white_psd;
     slot.corner = src.corner_hz;
+    slot.follows_bias = src.kind == NoiseKind::kOpAmpCurrent &&
+                        m->opamp.current_noise_temperature ==
+                            CurrentNoiseTemperature::kWithBiasCurrent;
+    if (!src.table.empty()) {
+      slot.table_row = static_cast<int>(m->table_psd.size() / m->nodes.size());
+      for (const QuadratureNode& node : m->nodes)
+        m->table_psd.push_back(src.table.PsdAt(node.f_hz));
+    }
     if (src.kind == NoiseKind::kThermal)
       slot.thermal_of = noisy[next_thermal++];
     m->sources.push_back(slot);

@@ -20,6 +20,13 @@ double BiasCurrentFactor(const OpAmpModel& opamp, double temperature_k) {
   return 1.0;
 }
 
+double CurrentNoiseFactor(const OpAmpModel& opamp, double temperature_k) {
+  if (opamp.current_noise_temperature !=
+      CurrentNoiseTemperature::kWithBiasCurrent)
+    return 1.0;
+  return std::sqrt(std::fabs(BiasCurrentFactor(opamp, temperature_k)));
+}
+
 double ResistorTemperatureFactor(double tempco_per_k, double temperature_k) {
   return 1.0 + tempco_per_k * (temperature_k - kDeviceReferenceK);
 }
@@ -34,6 +41,12 @@ Stage StageAtTemperature(const Stage& stage, double temperature_k) {
   const double k = BiasCurrentFactor(stage.opamp, temperature_k);
   m.ib_a *= k;
   m.ios_a *= k;
+  const double noise_factor = CurrentNoiseFactor(stage.opamp, temperature_k);
+  m.i_w_a_per_rthz *= noise_factor;
+  if (noise_factor > 0)
+    m.current_noise_table.Scale(noise_factor);
+  else
+    m.current_noise_table = NoiseTable{};  // no bias current, no shot noise
   // An "auto" R_plus is a real part: fitted at 25 °C, then it drifts with
   // its own technology like every other resistor.
   if (out.plus_resistor.mode == PlusResistor::Mode::kAuto)

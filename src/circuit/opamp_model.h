@@ -1,10 +1,12 @@
 // The parameters of an op-amp macro model, SI units throughout.
 //
 //   gain          A(s) = A0 / (1 + s / w_p), w_p = 2 pi GBW / A0
-//   voltage noise e_n(f)^2 = e_w^2 (1 + f_cv / f), with Vos, in series with
-//                 the + input between the pin and the ideal amplifier
-//   current noise i_n(f)^2 = i_w^2 (1 + f_ci / f), each pin to ground,
-//                 the two pins uncorrelated
+//   voltage noise e_n(f)^2 = e_w^2 (1 + f_cv / f) + e_table(f)^2, with Vos,
+//                 in series with the + input between the pin and the ideal
+//                 amplifier
+//   current noise i_n(f)^2 = i_w^2 (1 + f_ci / f) + i_table(f)^2, each pin
+//                 to ground, the two pins uncorrelated
+//                 (the tables: circuit/noise_table.h; empty when not given)
 //   bias          Ib+ = Ib + Ios/2, Ib- = Ib - Ios/2, flowing into the pins
 //   pins          Ccm from each pin to ground, Cdiff between the pins
 //   output        Rout in series with the output (noiseless)
@@ -13,6 +15,8 @@
 
 #include <string>
 
+#include "circuit/noise_table.h"
+
 namespace hushgain {
 
 // How the input bias current changes with temperature.
@@ -20,6 +24,15 @@ enum class BiasTemperatureLaw {
   kNone,         // constant
   kDoubling,     // Ib(T) = Ib(25 °C) * 2^((T - 25 °C) / interval): FET inputs
   kCoefficient,  // Ib(T) = Ib(25 °C) * (1 + coefficient * (T - 25 °C))
+};
+
+// How the current noise changes with temperature. A FET or CMOS input's
+// current noise is the shot noise of its gate current, i_n = sqrt(2 q I_b)
+// (Schottky 1918), so i_n^2 follows I_b: i_n(T) = i_n(25 °C) sqrt(k(T)),
+// k(T) the bias-current law's factor.
+enum class CurrentNoiseTemperature {
+  kConstant,         // i_n as given at every temperature
+  kWithBiasCurrent,  // i_n^2 scales with I_b(T) / I_b(25 °C)
 };
 
 // How Vos and Ios spread from part to part (the Monte Carlo, budget/spread.h):
@@ -31,11 +44,15 @@ enum class OffsetDistribution {
 };
 
 struct OpAmpModel {
-  std::string class_name;       // "precision bipolar"; shown in reports
-  double e_w_v_per_rthz = 0;    // white voltage noise density
-  double f_cv_hz = 0;           // 1/f corner of the voltage noise
-  double i_w_a_per_rthz = 0;    // white current noise density, each pin
-  double f_ci_hz = 0;           // 1/f corner of the current noise
+  std::string class_name;          // "precision bipolar"; shown in reports
+  double e_w_v_per_rthz = 0;       // white voltage noise density
+  double f_cv_hz = 0;              // 1/f corner of the voltage noise
+  double i_w_a_per_rthz = 0;       // white current noise density, each pin
+  double f_ci_hz = 0;              // 1/f corner of the current noise
+  NoiseTable voltage_noise_table;  // tabulated e_n, on top of e_w and f_cv
+  NoiseTable current_noise_table;  // tabulated i_n, on top of i_w and f_ci
+  CurrentNoiseTemperature current_noise_temperature =
+      CurrentNoiseTemperature::kConstant;
   double open_loop_gain = 1e6;  // A0, V/V
   double gbw_hz = 1e6;          // gain-bandwidth product
   double output_resistance_ohm = 0;

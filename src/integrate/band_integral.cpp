@@ -1,5 +1,6 @@
 #include "integrate/band_integral.h"
 
+#include <algorithm>
 #include <cassert>
 #include <cmath>
 #include <queue>
@@ -99,6 +100,12 @@ std::string IntegrationOptions::Validate() const {
         << ", must be in (0, 1000]";
   else if (max_intervals < 1)
     out << "max_intervals is " << max_intervals << ", must be at least 1";
+  else
+    for (double f : breakpoints_hz)
+      if (!(f > 0 && std::isfinite(f))) {
+        out << "breakpoints_hz holds " << f << ", must be positive";
+        break;
+      }
   return out.str();
 }
 
@@ -124,10 +131,30 @@ IntegrationResult IntegrateBand(double f_low_hz, double f_high_hz, int n,
   std::priority_queue<int, std::vector<int>, ByError> worst{
       ByError{&intervals}};
 
+  // The cuts of the initial partition: evenly spaced in u, and every
+  // breakpoint inside the band (one closer than 1e-9 of the band to a cut
+  // already there would only make a sliver).
+  std::vector<double> cuts;
+  for (int i = 0; i <= initial; ++i)
+    cuts.push_back(ua + (ub - ua) * i / initial);
+  for (double f : options.breakpoints_hz) {
+    const double u = std::log(f);
+    if (u > ua && u < ub) cuts.push_back(u);
+  }
+  std::sort(cuts.begin(), cuts.end());
+  const double sliver = 1e-9 * (ub - ua);
+  std::vector<double> kept = {cuts.front()};
+  for (std::size_t i = 1; i + 1 < cuts.size(); ++i)
+    if (cuts[i] - kept.back() > sliver && ub - cuts[i] > sliver)
+      kept.push_back(cuts[i]);
+  kept.push_back(ub);
+  initial = std::min(static_cast<int>(kept.size()) - 1, options.max_intervals);
+  kept.resize(initial + 1);
+  kept.back() = ub;
+
   double total_error = 0;
   for (int i = 0; i < initial; ++i) {
-    Interval iv{ua + (ub - ua) * i / initial,
-                ua + (ub - ua) * (i + 1) / initial, 0};
+    Interval iv{kept[i], kept[i + 1], 0};
     sums.resize(sums.size() + n);
     Status s = rule.Rule(iv.a, iv.b, &sums[sums.size() - n], &iv.error);
     if (!s.ok) {

@@ -9,6 +9,10 @@
 // The interval with the largest error estimate is halved until the summed
 // estimate |K15 - G7| over all components falls below
 // relative_tolerance * (sum of all integrals).
+// A tabulated density (circuit/noise_table.h) is a power law between its
+// points, an exponential in u there, but has a kink at every point; the
+// points are given as breakpoints, the initial partition is cut at each,
+// and no rule straddles a kink.
 #ifndef HUSHGAIN_INTEGRATE_BAND_INTEGRAL_H_
 #define HUSHGAIN_INTEGRATE_BAND_INTEGRAL_H_
 
@@ -27,6 +31,9 @@ struct IntegrationOptions {
   double intervals_per_decade = 1.0;
   // Refinement stops here even when the tolerance is not met.
   int max_intervals = 5000;
+  // Frequencies where the integrand has a kink: the initial partition is cut
+  // there too. Those outside the band are ignored; each must be positive.
+  std::vector<double> breakpoints_hz;
 
   // Empty when valid; otherwise names the field, its value and the rule.
   std::string Validate() const;

@@ -87,6 +87,99 @@ void ApplyBiasTemperature(ObjectReader& reader, OpAmpModel* model) {
   law.Finish();
 }
 
+// A tabulated density: [[frequency, density], ...], at least two points,
+// frequencies strictly increasing and positive, densities positive. Every
+// error names the JSON path of the bad point (or of its bad value).
+NoiseTable ReadNoiseTable(ObjectReader& reader, const std::string& key,
+                          Quantity density_kind) {
+  const nlohmann::json& value = reader.Get(key);
+  const std::string path = reader.PathOf(key);
+  const std::string& source = reader.source();
+  if (!value.is_array())
+    throw reader.ErrorAt(key,
+                         "expected a table [[frequency, density], ...], got " +
+                             JsonTypeName(value));
+  if (value.size() < 2)
+    throw reader.ErrorAt(
+        key, "expected at least two points [frequency, density], got " +
+                 std::to_string(value.size()));
+  NoiseTable table;
+  std::string density_name(QuantityName(density_kind));
+  density_name = density_name.substr(density_name.find(' ') + 1);
+  for (std::size_t i = 0; i < value.size(); ++i) {
+    const nlohmann::json& point = value[i];
+    const std::string at = path + "/" + std::to_string(i);
+    if (!point.is_array() || point.size() != 2)
+      throw Error(
+          source, at,
+          "expected a point [frequency, density], got " +
+              (point.is_array() ? "an array of " + std::to_string(point.size())
+                                : JsonTypeName(point)));
+    const double f =
+        ReadQuantity(point[0], Quantity::kFrequency, source, at + "/0");
+    if (!(f > 0))
+      throw Error(source, at + "/0",
+                  "expected a positive frequency, got " + point[0].dump());
+    if (!table.f_hz.empty() && !(f > table.f_hz.back()))
+      throw Error(source, at + "/0",
+                  "expected a frequency above the previous point's (" +
+                      FormatEng(table.f_hz.back(), "Hz") + "), got " +
+                      point[0].dump());
+    const double d = ReadQuantity(point[1], density_kind, source, at + "/1");
+    if (!(d > 0))
+      throw Error(
+          source, at + "/1",
+          "expected a positive " + density_name + ", got " + point[1].dump());
+    table.f_hz.push_back(f);
+    table.density.push_back(d);
+  }
+  return table;
+}
+
+// The tables, their ends and the current noise's temperature law. A table
+// given without its white level in the same object replaces the
+// white-plus-corner description (white level 0); given with it, the two add
+// in power.
+void ApplyNoiseTables(ObjectReader& reader, OpAmpModel* model) {
+  if (reader.Has("voltage_noise_table")) {
+    model->voltage_noise_table = ReadNoiseTable(reader, "voltage_noise_table",
+                                                Quantity::kVoltageDensity);
+    if (!reader.Has("voltage_noise")) model->e_w_v_per_rthz = 0;
+  }
+  if (reader.Has("current_noise_table")) {
+    model->current_noise_table = ReadNoiseTable(reader, "current_noise_table",
+                                                Quantity::kCurrentDensity);
+    if (!reader.Has("current_noise")) model->i_w_a_per_rthz = 0;
+  }
+  if (auto ends = reader.OptionalString("noise_table_ends")) {
+    TableEnds value;
+    if (*ends == "slope")
+      value = TableEnds::kSlope;
+    else if (*ends == "flat")
+      value = TableEnds::kFlat;
+    else
+      throw reader.ErrorAt("noise_table_ends",
+                           "expected \"slope\" (the end segments continue) "
+                           "or \"flat\" (the end values continue), got \"" +
+                               *ends + "\"");
+    model->voltage_noise_table.ends = value;
+    model->current_noise_table.ends = value;
+  }
+  if (auto law = reader.OptionalString("current_noise_temperature")) {
+    if (*law == "constant")
+      model->current_noise_temperature = CurrentNoiseTemperature::kConstant;
+    else if (*law == "with_bias_current")
+      model->current_noise_temperature =
+          CurrentNoiseTemperature::kWithBiasCurrent;
+    else
+      throw reader.ErrorAt(
+          "current_noise_temperature",
+          "expected \"with_bias_current\" (i_n^2 follows the bias current) "
+          "or \"constant\", got \"" +
+              *law + "\"");
+  }
+}
+
 std::vector<std::string> Names(const auto& map) {
   std::vector<std::string> out;
   for (const auto& [name, value] : map) out.push_back(name);
@@ -110,6 +203,7 @@ void ApplyOpAmpParameters(ObjectReader& reader, OpAmpModel* model) {
     model->*k.member = value;
   }
   ApplyBiasTemperature(reader, model);
+  ApplyNoiseTables(reader, model);
   if (auto spread = reader.OptionalString("offset_distribution")) {
     if (*spread == "uniform")
       model->offset_distribution = OffsetDistribution::kUniform;
@@ -127,12 +221,21 @@ void ApplyOpAmpParameters(ObjectReader& reader, OpAmpModel* model) {
 
 void RequireCoreOpAmpParameters(ObjectReader& reader) {
   for (const char* key :
-       {"voltage_noise", "current_noise", "open_loop_gain", "gbw"})
-    if (!reader.Has(key)) throw reader.ErrorAt(key, "missing (required)");
+       {"voltage_noise", "current_noise", "open_loop_gain", "gbw"}) {
+    const std::string table = std::string(key) + "_table";
+    if (reader.Has(key)) continue;
+    if ((table == "voltage_noise_table" || table == "current_noise_table") &&
+        reader.Has(table))
+      continue;
+    throw reader.ErrorAt(
+        key, table == "voltage_noise_table" || table == "current_noise_table"
+                 ? "missing (required, or \"" + table + "\")"
+                 : std::string("missing (required)"));
+  }
 }
 
 OpAmpModel ParseOpAmpDevice(std::string_view json_text,
-                            const std::string& source) {
+                            const std::string& source, DeviceFileInfo* info) {
   nlohmann::json doc = ParseJsonText(json_text, source);
   ObjectReader top(doc, source, "");
   std::string kind = top.String("kind");
@@ -140,7 +243,11 @@ OpAmpModel ParseOpAmpDevice(std::string_view json_text,
     throw top.ErrorAt("kind", "expected \"opamp\", got \"" + kind + "\"");
   OpAmpModel model;
   model.class_name = top.String("class");
-  top.String("illustrative");  // every device file says what its values are
+  // A shipped class says its values are illustrative; a user's copy of a
+  // datasheet need not, and may say where its numbers came from.
+  DeviceFileInfo file{source, top.OptionalString("illustrative").value_or(""),
+                      top.OptionalString("source").value_or("")};
+  if (info) *info = file;
   ObjectReader parameters = top.Object("parameters");
   RequireCoreOpAmpParameters(parameters);
   ApplyOpAmpParameters(parameters, &model);
@@ -149,7 +256,8 @@ OpAmpModel ParseOpAmpDevice(std::string_view json_text,
 }
 
 ResistorTechnology ParseResistorTechnology(std::string_view json_text,
-                                           const std::string& source) {
+                                           const std::string& source,
+                                           DeviceFileInfo* info) {
   nlohmann::json doc = ParseJsonText(json_text, source);
   ObjectReader top(doc, source, "");
   std::string kind = top.String("kind");
@@ -158,7 +266,9 @@ ResistorTechnology ParseResistorTechnology(std::string_view json_text,
                       "expected \"resistor_technology\", got \"" + kind + "\"");
   ResistorTechnology tech;
   tech.class_name = top.String("class");
-  top.String("illustrative");
+  DeviceFileInfo file{source, top.OptionalString("illustrative").value_or(""),
+                      top.OptionalString("source").value_or("")};
+  if (info) *info = file;
   const nlohmann::json& index = top.Get("noise_index_dB");
   if (!index.is_number())
     throw top.ErrorAt("noise_index_dB", "expected a number of dB");
@@ -186,9 +296,11 @@ DeviceLibrary LoadDeviceLibrary(const std::string& directory) {
       std::string text = ReadTextFile(source);
       std::string name = entry.path().stem().string();
       if (std::string(sub) == "opamps")
-        library.opamps[name] = ParseOpAmpDevice(text, source);
+        library.opamps[name] =
+            ParseOpAmpDevice(text, source, &library.opamp_files[name]);
       else
-        library.resistors[name] = ParseResistorTechnology(text, source);
+        library.resistors[name] = ParseResistorTechnology(
+            text, source, &library.resistor_files[name]);
     }
   }
   return library;

@@ -1,5 +1,7 @@
-// Device files: generic op-amp classes and resistor technologies with
-// class-typical values (never a real part's data), one JSON file each:
+// Device files: op-amp classes and resistor technologies, one JSON file each.
+// The shipped files are generic classes with class-typical values (never a
+// real part's data) and say so in an "illustrative" line; a user's own part
+// (a datasheet copy) needs no such line and may name its "source".
 //   devices/opamps/<name>.json      {"kind": "opamp", "class": ...,
 //   "parameters": {...}} devices/resistors/<name>.json   {"kind":
 //   "resistor_technology", ...}
@@ -18,21 +20,32 @@
 
 namespace hushgain {
 
+// What a device file says about itself.
+struct DeviceFileInfo {
+  std::string path;          // the file it was read from
+  std::string illustrative;  // a shipped class's label; empty: a user's part
+  std::string source;        // free text: where the numbers came from
+};
+
 struct DeviceLibrary {
   std::map<std::string, OpAmpModel> opamps;
   std::map<std::string, ResistorTechnology> resistors;
+  std::map<std::string, DeviceFileInfo> opamp_files;  // by device name
+  std::map<std::string, DeviceFileInfo> resistor_files;
 
   std::vector<std::string> OpAmpNames() const;
   std::vector<std::string> ResistorNames() const;
 };
 
-// Parses one op-amp device file.
+// Parses one op-amp device file; fills `info` when given.
 OpAmpModel ParseOpAmpDevice(std::string_view json_text,
-                            const std::string& source);
+                            const std::string& source,
+                            DeviceFileInfo* info = nullptr);
 
-// Parses one resistor technology file.
+// Parses one resistor technology file; fills `info` when given.
 ResistorTechnology ParseResistorTechnology(std::string_view json_text,
-                                           const std::string& source);
+                                           const std::string& source,
+                                           DeviceFileInfo* info = nullptr);
 
 // Applies the parameter keys of `reader` (a device's "parameters" or a
 // stage's "set") on top of `model`, checking each value's rule (positive

@@ -28,13 +28,25 @@ std::vector<NoiseSource> CollectNoiseSources(const Netlist& net,
   const double four_kt = 4.0 * kBoltzmannJPerK * temperature_k;
   for (const Resistor& r : net.resistors) {
     if (!r.noisy) continue;
-    sources.push_back({r.name, NoiseKind::kThermal, CurrentInjection{r.a, r.b},
-                       four_kt / r.ohms, 0.0, 0.0, r.ohms});
+    sources.push_back({r.name,
+                       NoiseKind::kThermal,
+                       CurrentInjection{r.a, r.b},
+                       four_kt / r.ohms,
+                       0.0,
+                       0.0,
+                       r.ohms,
+                       {}});
   }
   for (const JunctionCurrent& j : net.junction_currents) {
     // Schottky 1918: 2 q I, white.
-    sources.push_back({j.name, NoiseKind::kShot, CurrentInjection{j.b, j.a},
-                       2.0 * kElementaryChargeC * std::fabs(j.amperes), 0.0});
+    sources.push_back({j.name,
+                       NoiseKind::kShot,
+                       CurrentInjection{j.b, j.a},
+                       2.0 * kElementaryChargeC * std::fabs(j.amperes),
+                       0.0,
+                       0.0,
+                       0.0,
+                       {}});
   }
   const bool several = net.opamps.size() > 1;
   for (std::size_t k = 0; k < net.opamps.size(); ++k) {
@@ -43,15 +55,17 @@ std::vector<NoiseSource> CollectNoiseSources(const Netlist& net,
     std::string suffix = several ? " (" + op.name + ")" : "";
     sources.push_back({"e_n" + suffix, NoiseKind::kOpAmpVoltage,
                        OpAmpInputVoltage{static_cast<int>(k)},
-                       m.e_w_v_per_rthz * m.e_w_v_per_rthz, m.f_cv_hz});
+                       m.e_w_v_per_rthz * m.e_w_v_per_rthz, m.f_cv_hz, 0.0, 0.0,
+                       m.voltage_noise_table});
     const double i_psd = m.i_w_a_per_rthz * m.i_w_a_per_rthz;
     if (op.minus != kGround)
       sources.push_back({"i_n-" + suffix, NoiseKind::kOpAmpCurrent,
-                         CurrentInjection{op.minus, kGround}, i_psd,
-                         m.f_ci_hz});
+                         CurrentInjection{op.minus, kGround}, i_psd, m.f_ci_hz,
+                         0.0, 0.0, m.current_noise_table});
     if (op.plus != kGround)
       sources.push_back({"i_n+" + suffix, NoiseKind::kOpAmpCurrent,
-                         CurrentInjection{op.plus, kGround}, i_psd, m.f_ci_hz});
+                         CurrentInjection{op.plus, kGround}, i_psd, m.f_ci_hz,
+                         0.0, 0.0, m.current_noise_table});
   }
   return sources;
 }

@@ -1,11 +1,13 @@
 // Noise sources of a netlist, each a stimulus at an excitation point with a
 // one-sided power spectral density
-//   S(f) = white_psd * (1 + corner_hz / f) + flicker_psd / f
+//   S(f) = white_psd * (1 + corner_hz / f) + flicker_psd / f + table(f)^2
 // in V^2/Hz (a voltage excitation) or A^2/Hz (a current excitation):
 //   resistor thermal noise  4kT/R as a current across the resistor
 //                           (Johnson 1928, Nyquist 1928)
-//   op-amp voltage noise    e_w^2 (1 + f_cv/f) in series with the + input
-//   op-amp current noise    i_w^2 (1 + f_ci/f) from each input pin to ground
+//   op-amp voltage noise    e_w^2 (1 + f_cv/f) + e_table(f)^2 in series with
+//                           the + input
+//   op-amp current noise    i_w^2 (1 + f_ci/f) + i_table(f)^2 from each input
+//                           pin to ground
 //   junction shot noise     2 q I across the junction (Schottky 1918)
 //   resistor excess noise   a 1/f current across the resistor from its noise
 //                           index and DC drop (noise/excess_noise.h)
@@ -17,6 +19,7 @@
 #include <vector>
 
 #include "circuit/netlist.h"
+#include "circuit/noise_table.h"
 
 namespace hushgain {
 
@@ -42,9 +45,13 @@ struct NoiseSource {
   // For a resistor's sources (thermal, excess): its resistance, so the
   // budget can quote the source as a voltage density; 0 otherwise.
   double resistor_ohm = 0;
+  // A tabulated density on top (the op-amp's e_n and i_n tables); empty
+  // otherwise.
+  NoiseTable table;
 
   double PsdAt(double f_hz) const {
-    return white_psd * (1.0 + corner_hz / f_hz) + flicker_psd / f_hz;
+    return white_psd * (1.0 + corner_hz / f_hz) + flicker_psd / f_hz +
+           table.PsdAt(f_hz);
   }
 };
 

@@ -91,5 +91,146 @@ TEST_CASE("offset_distribution is uniform by default and may say gaussian") {
       Error);
 }
 
+// The label protects the shipped data: every class file in devices/ says
+// its values are illustrative, not the data of any real part (mission rule).
+TEST_CASE("every shipped device file keeps its illustrative label") {
+  const DeviceLibrary lib = LoadDeviceLibrary(HUSHGAIN_SOURCE_DIR "/devices");
+  REQUIRE(lib.opamp_files.size() == lib.opamps.size());
+  REQUIRE(lib.resistor_files.size() == lib.resistors.size());
+  for (const auto* files : {&lib.opamp_files, &lib.resistor_files})
+    for (const auto& [name, info] : *files) {
+      CAPTURE(name);
+      CHECK(info.illustrative.find("illustrative") != std::string::npos);
+      CHECK(info.illustrative.find("not the data of any real part") !=
+            std::string::npos);
+      CHECK(info.source.empty());
+    }
+}
+
+TEST_CASE("a user's part needs no illustrative line and keeps its source") {
+  const char* text = R"({"kind": "opamp", "class": "my bench part",
+      "source": "datasheet rev C, typical curves at 25 C",
+      "parameters": {"voltage_noise": "4n", "current_noise": "0.4p",
+                     "gbw": "8M", "open_loop_gain": "120 dB"}})";
+  DeviceFileInfo info;
+  const OpAmpModel m = ParseOpAmpDevice(text, "mine.json", &info);
+  CHECK(m.class_name == "my bench part");
+  CHECK(info.illustrative.empty());
+  CHECK(info.source == "datasheet rev C, typical curves at 25 C");
+  CHECK(info.path == "mine.json");
+}
+
+TEST_CASE("the FET and CMOS classes' current noise follows the bias current") {
+  const DeviceLibrary lib = LoadDeviceLibrary(HUSHGAIN_SOURCE_DIR "/devices");
+  for (const char* name : {"jfet-input", "cmos-general", "electrometer-cmos"}) {
+    CAPTURE(name);
+    CHECK(lib.opamps.at(name).current_noise_temperature ==
+          CurrentNoiseTemperature::kWithBiasCurrent);
+  }
+  for (const char* name :
+       {"low-noise-bipolar", "precision-bipolar", "zero-drift"}) {
+    CAPTURE(name);
+    CHECK(lib.opamps.at(name).current_noise_temperature ==
+          CurrentNoiseTemperature::kConstant);
+  }
+}
+
+const std::string kTableCore =
+    R"({"kind": "opamp", "class": "c", "parameters": {"current_noise": "1f",
+        "gbw": "1M", "open_loop_gain": "1M", )";
+
+TEST_CASE("noise tables read values with units and replace the white level") {
+  const OpAmpModel m = ParseOpAmpDevice(
+      kTableCore + R"("voltage_noise_table": [["10", "40 nV/rtHz"],
+          ["100 Hz", 12e-9], ["1k", "8n"]],
+          "current_noise_table": [[1, "1f"], [1e4, "30 fA/rtHz"]],
+          "noise_table_ends": "flat",
+          "current_noise_temperature": "with_bias_current"}})",
+      "x.json");
+  CHECK(m.e_w_v_per_rthz == 0);  // the table alone describes e_n
+  // current_noise is given beside its table: the two add.
+  CHECK(m.i_w_a_per_rthz == doctest::Approx(1e-15));
+  REQUIRE(m.voltage_noise_table.f_hz.size() == 3);
+  CHECK(m.voltage_noise_table.f_hz[1] == doctest::Approx(100));
+  CHECK(m.voltage_noise_table.density[0] == doctest::Approx(40e-9));
+  CHECK(m.voltage_noise_table.ends == TableEnds::kFlat);
+  CHECK(m.current_noise_table.ends == TableEnds::kFlat);
+  CHECK(m.current_noise_table.density[1] == doctest::Approx(30e-15));
+  CHECK(m.current_noise_temperature ==
+        CurrentNoiseTemperature::kWithBiasCurrent);
+  // Given beside its white level, a table adds on top.
+  const OpAmpModel both = ParseOpAmpDevice(
+      kTableCore +
+          R"("voltage_noise": "5n", "voltage_noise_table": [[1, "1u"], [100, "10n"]]}})",
+      "x.json");
+  CHECK(both.e_w_v_per_rthz == doctest::Approx(5e-9));
+  CHECK(both.voltage_noise_table.ends == TableEnds::kSlope);  // the default
+  CHECK(both.current_noise_temperature == CurrentNoiseTemperature::kConstant);
+}
+
+TEST_CASE("a bad noise table is refused with the path of the bad point") {
+  struct Case {
+    const char* table;
+    const char* message;
+  };
+  const Case cases[] = {
+      {R"([[10, "5n"]])",
+       "x.json: /parameters/voltage_noise_table: expected at least two points "
+       "[frequency, density], got 1"},
+      {R"([[10, "5n"], [100, "4n"], [50, "4n"]])",
+       "x.json: /parameters/voltage_noise_table/2/0: expected a frequency "
+       "above "
+       "the previous point's (100.0 Hz), got 50"},
+      {R"([[10, "5n"], [10, "4n"]])",
+       "x.json: /parameters/voltage_noise_table/1/0: expected a frequency "
+       "above "
+       "the previous point's (10.00 Hz), got 10"},
+      {R"([[10, "5n"], [100, 0]])",
+       "x.json: /parameters/voltage_noise_table/1/1: expected a positive "
+       "voltage noise density, got 0"},
+      {R"([[10, "5n"], [100, "loud"]])",
+       "x.json: /parameters/voltage_noise_table/1/1: expected a voltage noise "
+       "density, got \"loud\" (no number)"},
+      {R"([[0, "5n"], [100, "4n"]])",
+       "x.json: /parameters/voltage_noise_table/0/0: expected a positive "
+       "frequency, got 0"},
+      {R"([[10, "5n"], [100]])",
+       "x.json: /parameters/voltage_noise_table/1: expected a point "
+       "[frequency, "
+       "density], got an array of 1"},
+      {R"({"10": "5n"})",
+       "x.json: /parameters/voltage_noise_table: expected a table [[frequency, "
+       "density], ...], got an object"},
+  };
+  for (const Case& c : cases) {
+    CAPTURE(c.table);
+    CHECK_THROWS_WITH_AS(
+        ParseOpAmpDevice(
+            kTableCore + R"("voltage_noise_table": )" + c.table + "}}",
+            "x.json"),
+        c.message, Error);
+  }
+  CHECK_THROWS_WITH_AS(
+      ParseOpAmpDevice(kTableCore + R"("voltage_noise": "1n",
+          "current_noise_temperature": "shot"}})",
+                       "x.json"),
+      "x.json: /parameters/current_noise_temperature: expected "
+      "\"with_bias_current\" (i_n^2 follows the bias current) or "
+      "\"constant\", got \"shot\"",
+      Error);
+  CHECK_THROWS_WITH_AS(
+      ParseOpAmpDevice(kTableCore + R"("voltage_noise": "1n",
+          "noise_table_ends": "zero"}})",
+                       "x.json"),
+      "x.json: /parameters/noise_table_ends: expected \"slope\" (the end "
+      "segments continue) or \"flat\" (the end values continue), got \"zero\"",
+      Error);
+  CHECK_THROWS_WITH_AS(
+      ParseOpAmpDevice(kTableCore + "\"gain\": 1}}", "x.json"),
+      "x.json: /parameters/voltage_noise: missing (required, or "
+      "\"voltage_noise_table\")",
+      Error);
+}
+
 }  // namespace
 }  // namespace hushgain

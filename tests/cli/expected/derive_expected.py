@@ -28,8 +28,10 @@ Temperature (both methods): device and resistor values are given at 25 C
 and moved to the stage's temperature (at_temperature): a resistor with a
 technology (devices/resistors/*.json, the stage's "resistors" block) by
 R (1 + tc (T - 25 C)); |Vos| + |drift| |T - 25 C|; Ib and Ios by the
-class's law, 2^((T - 25 C)/interval) or 1 + coefficient (T - 25 C); 4kT at
-T. A stage with a temperature range also gets its figures at both ends.
+class's law, 2^((T - 25 C)/interval) or 1 + coefficient (T - 25 C); a
+current noise that follows the bias current ("current_noise_temperature":
+"with_bias_current", a FET input's gate shot noise sqrt(2 q Ib), Schottky
+1918, REFERENCES.md section 2) times sqrt(k(T)); 4kT at T. A stage with a temperature range also gets its figures at both ends.
 Excess noise (REFERENCES.md section 8): every resistor with a technology
 carries e_ex(f) = 10^(NI/20) 1e-6 V_DC / sqrt(ln(10) f) in series, V_DC its
 drop at the DC operating point, solved here (Network.dc_drops; method 1
@@ -98,7 +100,9 @@ def load_stage(path):
             opamp.update(json.load(f)["parameters"])
     opamp.update(doc["opamp"].get("set", {}))
     p = {k: quantity(v) for k, v in opamp.items()
-         if not isinstance(v, dict)}
+         if not isinstance(v, dict) and k != "current_noise_temperature"}
+    p["i_n_follows_ib"] = (
+        opamp.get("current_noise_temperature", "constant") == "with_bias_current")
     law = opamp.get("bias_current_temperature", {"law": "constant"})
     p["ib_law"] = (law["law"], quantity(law["interval_C"]) if law["law"] == "doubling"
                    else quantity(law["per_C"]) if law["law"] == "coefficient" else 0.0)
@@ -211,6 +215,8 @@ def at_temperature(stage, T):
     k = bias_factor(op, T)
     op["bias_current"] *= k
     op["offset_current"] *= k
+    if op["i_n_follows_ib"]:
+        op["current_noise"] *= math.sqrt(abs(k))
     s["op"] = op
 
     def moved(name, ohms):
