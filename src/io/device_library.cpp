@@ -195,6 +195,16 @@ std::vector<std::string> DeviceLibrary::ResistorNames() const {
   return Names(resistors);
 }
 
+std::vector<std::string> OpAmpParameterKeys() {
+  std::vector<std::string> keys;
+  for (const OpAmpKey& k : kOpAmpKeys) keys.push_back(k.key);
+  for (const char* key : {"voltage_noise_table", "current_noise_table",
+                          "noise_table_ends", "current_noise_temperature",
+                          "bias_current_temperature", "offset_distribution"})
+    keys.push_back(key);
+  return keys;
+}
+
 void ApplyOpAmpParameters(ObjectReader& reader, OpAmpModel* model) {
   for (const OpAmpKey& k : kOpAmpKeys) {
     if (!reader.Has(k.key)) continue;

@@ -47,6 +47,10 @@ ResistorTechnology ParseResistorTechnology(std::string_view json_text,
                                            const std::string& source,
                                            DeviceFileInfo* info = nullptr);
 
+// Every key a device's "parameters" (or a stage's "set") may hold, in the
+// order the README documents them.
+std::vector<std::string> OpAmpParameterKeys();
+
 // Applies the parameter keys of `reader` (a device's "parameters" or a
 // stage's "set") on top of `model`, checking each value's rule (positive
 // GBW and A0, non-negative densities, ...). Unknown keys are errors.

@@ -2,6 +2,9 @@
 
 #include <doctest/doctest.h>
 
+#include <sstream>
+
+#include "io/read_file.h"
 #include "test_support.h"
 
 namespace hushgain {
@@ -230,6 +233,32 @@ TEST_CASE("a bad noise table is refused with the path of the bad point") {
       "x.json: /parameters/voltage_noise: missing (required, or "
       "\"voltage_noise_table\")",
       Error);
+}
+
+TEST_CASE(
+    "the device template lists every key and loads once its comments go") {
+  const std::string path =
+      HUSHGAIN_SOURCE_DIR "/devices/opamps/TEMPLATE.json.example";
+  const std::string text = ReadTextFile(path);
+  // The user's step: delete every line that starts with //.
+  std::istringstream lines(text);
+  std::string line, json;
+  while (std::getline(lines, line)) {
+    const std::size_t first = line.find_first_not_of(' ');
+    if (first != std::string::npos && line.compare(first, 2, "//") == 0)
+      continue;
+    json += line + "\n";
+  }
+  DeviceFileInfo info;
+  const OpAmpModel m = ParseOpAmpDevice(json, path, &info);
+  CHECK(info.illustrative.empty());
+  CHECK_FALSE(info.source.empty());
+  CHECK_FALSE(m.voltage_noise_table.empty());
+  CHECK_FALSE(m.current_noise_table.empty());
+  for (const std::string& key : OpAmpParameterKeys()) {
+    CAPTURE(key);
+    CHECK(json.find("\"" + key + "\":") != std::string::npos);
+  }
 }
 
 }  // namespace
