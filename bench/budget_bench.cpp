@@ -17,6 +17,7 @@
 #include "io/error.h"
 #include "io/stage_parser.h"
 #include "noise/spectrum_evaluator.h"
+#include "review/review.h"
 
 extern char** environ;
 
@@ -37,11 +38,11 @@ Stage LoadExample(const std::string& relative) {
 // contributor, and for a T network the plain comparison) per run.
 void BenchBudget(const std::string& name, const std::string& example) {
   const Stage stage = LoadExample(example);
-  const BudgetOptions options;
+  const ReviewOptions options;
   bool ok = true;
   std::string why;
   const double seconds = MedianSeconds(201, 10, [&] {
-    BudgetOutcome outcome = ComputeBudget(stage, options);
+    BudgetOutcome outcome = ReviewStage(stage, options);
     if (!outcome.status.ok) {
       ok = false;
       why = outcome.status.message;

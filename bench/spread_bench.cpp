@@ -8,8 +8,8 @@
 #include <cstdio>
 #include <vector>
 
-#include "budget/spread.h"
 #include "circuit/stage.h"
+#include "montecarlo/spread.h"
 
 namespace hushgain {
 namespace {

@@ -6,10 +6,10 @@
 #include <string>
 #include <vector>
 
-#include "budget/closed_form_budget.h"
-#include "budget/tee_search.h"
 #include "circuit/inverting_topology.h"
 #include "circuit/preferred_series.h"
+#include "design/closed_form_budget.h"
+#include "design/tee_search.h"
 #include "io/device_library.h"
 #include "io/stage_parser.h"
 

@@ -10,10 +10,11 @@
 #include <string>
 #include <vector>
 
+#include "base/physical_constants.h"
 #include "budget/budget.h"
 #include "budget/compute_budget.h"
 #include "circuit/stage.h"
-#include "noise/physical_constants.h"
+#include "review/review.h"
 
 namespace hushgain::test {
 
@@ -66,12 +67,13 @@ inline Stage TeeStage(double rin, double r1, double r2, double r3,
   return s;
 }
 
-// The budget of `stage` at a relative integration tolerance; a failed
-// status fails the test with its message.
+// The reviewed budget of `stage` (every review block on, as `budget`
+// prints it) at a relative integration tolerance; a failed status fails the
+// test with its message.
 inline Budget ComputeOrFail(const Stage& stage, double tolerance) {
-  BudgetOptions options;
-  options.integration.relative_tolerance = tolerance;
-  BudgetOutcome outcome = ComputeBudget(stage, options);
+  ReviewOptions options;
+  options.budget.integration.relative_tolerance = tolerance;
+  BudgetOutcome outcome = ReviewStage(stage, options);
   REQUIRE_MESSAGE(outcome.status.ok, outcome.status.message);
   return outcome.budget;
 }

@@ -8,7 +8,7 @@
 #include <vector>
 
 #include "analysis/mna_system.h"
-#include "analysis/status.h"
+#include "base/status.h"
 
 namespace hushgain {
 

@@ -9,7 +9,7 @@
 #include <complex>
 #include <functional>
 
-#include "analysis/status.h"
+#include "base/status.h"
 
 namespace hushgain {
 

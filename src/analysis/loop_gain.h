@@ -12,7 +12,7 @@
 
 #include "analysis/linear_algebra.h"
 #include "analysis/mna_system.h"
-#include "analysis/status.h"
+#include "base/status.h"
 #include "circuit/opamp_model.h"
 
 namespace hushgain {

@@ -3,7 +3,7 @@
 #include <cmath>
 #include <numeric>
 
-#include "noise/physical_constants.h"
+#include "base/physical_constants.h"
 
 namespace hushgain {
 namespace {

@@ -17,7 +17,7 @@
 #include <vector>
 
 #include "analysis/linear_algebra.h"
-#include "analysis/status.h"
+#include "base/status.h"
 #include "circuit/netlist.h"
 
 namespace hushgain {

@@ -2,7 +2,7 @@
 #ifndef HUSHGAIN_ANALYSIS_PHASE_H_
 #define HUSHGAIN_ANALYSIS_PHASE_H_
 
-#include "noise/physical_constants.h"
+#include "base/physical_constants.h"
 
 namespace hushgain {
 

@@ -6,7 +6,7 @@
 #include <string>
 #include <type_traits>
 
-#include "noise/physical_constants.h"
+#include "base/physical_constants.h"
 
 namespace hushgain {
 namespace {

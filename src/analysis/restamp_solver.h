@@ -22,7 +22,7 @@
 #include <vector>
 
 #include "analysis/mna_system.h"
-#include "analysis/status.h"
+#include "base/status.h"
 #include "circuit/netlist.h"
 
 namespace hushgain {

@@ -9,12 +9,13 @@
 #include <string>
 #include <vector>
 
+#include "noise/noise_source.h"
+
 namespace hushgain {
 
 struct Contributor {
-  std::string name;  // "R_in", "R3", "e_n", "i_n-"
-  // "thermal", "shot", "voltage_noise", "current_noise", "excess"
-  std::string kind;
+  std::string name;                      // "R_in", "R3", "e_n", "i_n-"
+  NoiseKind kind = NoiseKind::kThermal;  // report/enum_words.h names it
   double output_rms_v = 0;  // sqrt(integral of S_out,k over the band)
   double share = 0;         // fraction of the total output noise power
   double output_density_ref_v_per_rthz = 0;  // at the reference frequency

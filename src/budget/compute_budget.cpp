@@ -8,17 +8,14 @@
 
 #include "analysis/frequency_response.h"
 #include "analysis/loop_gain.h"
-#include "budget/compensation_resistor.h"
+#include "base/physical_constants.h"
 #include "budget/feedback_capacitor.h"
 #include "budget/offset.h"
 #include "budget/resistor_excess.h"
-#include "budget/stage_at_temperature.h"
 #include "budget/stage_evaluator.h"
-#include "budget/tee_comparison.h"
-#include "budget/temperature_corners.h"
 #include "circuit/expand_stage.h"
 #include "circuit/feedback_network.h"
-#include "noise/physical_constants.h"
+#include "circuit/stage_at_temperature.h"
 #include "noise/spectrum_evaluator.h"
 
 namespace hushgain {
@@ -102,7 +99,7 @@ Status ReferenceFigures(const Stage& /*stage*/, const Ports& p,
     const NoiseSource& source = ev.sources()[k];
     Contributor& c = b.contributors[k];
     c.name = source.name;
-    c.kind = NoiseKindName(source.kind);
+    c.kind = source.kind;
     c.output_density_ref_v_per_rthz = std::sqrt(psd[k]);
     c.gain_to_output_ref = std::abs(ev.SourceTransfer(k));
     double source_psd = source.PsdAt(b.reference_hz);
@@ -294,13 +291,6 @@ void PhotodiodeFigures(const Stage& stage, Budget& b) {
 
 }  // namespace
 
-Stage PlainEquivalent(const Stage& tee_stage) {
-  Stage plain = tee_stage;
-  plain.feedback.kind = Feedback::Kind::kResistor;
-  plain.feedback.resistor_ohm = FeedbackEquivalentOhm(tee_stage.feedback);
-  return plain;
-}
-
 BudgetOutcome ComputeBudgetAsGiven(const Stage& requested,
                                    const BudgetOptions& options) {
   BudgetOutcome outcome;
@@ -357,12 +347,6 @@ BudgetOutcome ComputeBudgetAsGiven(const Stage& requested,
     if (!s.ok) return {s, b, {}, {}};
   }
 
-  if (options.compensation) {
-    CompensationBlock block;
-    s = ComputeCompensationBlock(stage, options, &block);
-    if (!s.ok) return {s, b, {}, {}};
-    b.compensation = block;
-  }
   outcome.stage_used = stage;
   outcome.status = Status::Ok();
   return outcome;
@@ -370,40 +354,8 @@ BudgetOutcome ComputeBudgetAsGiven(const Stage& requested,
 
 BudgetOutcome ComputeBudget(const Stage& requested,
                             const BudgetOptions& options) {
-  BudgetOutcome outcome = ComputeBudgetAsGiven(
+  return ComputeBudgetAsGiven(
       StageAtTemperature(requested, requested.temperature_k), options);
-  if (!outcome.status.ok) return outcome;
-  if (options.compare_tee && requested.feedback.kind == Feedback::Kind::kTee) {
-    // The plain stage is the designer's alternative: built from the stage as
-    // given (its own "auto" R_plus fitted to it), with the same capacitor,
-    // then moved to the same temperature.
-    Stage given = requested;
-    given.feedback.capacitor_f = outcome.stage_used.feedback.capacitor_f;
-    given.capacitor_target.reset();
-    BudgetOptions plain_options = options;
-    plain_options.compare_tee = false;
-    plain_options.temperature_corners = false;
-    plain_options.compensation = false;
-    const Stage plain_stage =
-        StageAtTemperature(PlainEquivalent(given), requested.temperature_k);
-    BudgetOutcome plain = ComputeBudgetAsGiven(plain_stage, plain_options);
-    if (!plain.status.ok) return {plain.status, outcome.budget, {}, {}};
-    outcome.budget.tee =
-        CompareTee(outcome.budget, plain.budget,
-                   FeedbackEquivalentOhm(outcome.stage_used.feedback));
-  }
-  if (!options.temperature_corners || !requested.temperature_range)
-    return outcome;
-  TemperatureBlock block;
-  Status s = ComputeTemperatureBlock(requested, outcome.budget,
-                                     outcome.stage_used.feedback.capacitor_f,
-                                     options, &block);
-  if (!s.ok) {
-    outcome.status = s;
-    return outcome;
-  }
-  outcome.budget.temperature = block;
-  return outcome;
 }
 
 }  // namespace hushgain

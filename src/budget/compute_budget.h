@@ -1,7 +1,8 @@
-// Stage -> Budget: expand the stage, solve the network, integrate every
-// contributor's output density over the band, sum the offsets at DC and,
-// for a T network, compare with the plain resistor of the same equivalent
-// resistance.
+// Stage -> Budget of ONE stage as given: expand the stage, solve the
+// network, integrate every contributor's output density over the band and
+// sum the offsets at DC. The blocks that put this budget beside other
+// budgets (plain resistor, temperature corners, compensation resistor) are
+// composed above it, in review/review.h.
 //   output_rms = sqrt(integral of S_out(f) df over the band)
 //   input_rms  = output_rms / |signal gain(f_ref)|
 #ifndef HUSHGAIN_BUDGET_COMPUTE_BUDGET_H_
@@ -10,7 +11,7 @@
 #include <string>
 #include <vector>
 
-#include "analysis/status.h"
+#include "base/status.h"
 #include "budget/budget.h"
 #include "circuit/stage.h"
 #include "integrate/band_integral.h"
@@ -20,12 +21,6 @@ namespace hushgain {
 struct BudgetOptions {
   // Relative tolerance 1e-4 on the total output noise power by default.
   IntegrationOptions integration;
-  // For a T network, also compute the plain-resistor stage (default on).
-  bool compare_tee = true;
-  // With a temperature range, the budget at each end (default on).
-  bool temperature_corners = true;
-  // The compensation-resistor report (default on).
-  bool compensation = true;
   // Noise and offset only: no loop, response or output-drive figures (for
   // the auxiliary budgets of a comparison, which read nothing else).
   bool noise_and_offset_only = false;
@@ -53,14 +48,9 @@ struct BudgetOutcome {
 BudgetOutcome ComputeBudget(const Stage& stage, const BudgetOptions& options);
 
 // The same for a stage already moved to its temperature (no further
-// temperature laws applied), without the tee comparison and the temperature
-// block (which need the stage as given).
+// temperature laws applied).
 BudgetOutcome ComputeBudgetAsGiven(const Stage& stage,
                                    const BudgetOptions& options);
-
-// The plain stage that a T network stands in for: the same stage with one
-// feedback resistor equal to the tee's equivalent resistance.
-Stage PlainEquivalent(const Stage& tee_stage);
 
 }  // namespace hushgain
 

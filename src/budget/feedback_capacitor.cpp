@@ -7,9 +7,9 @@
 #include "analysis/frequency_response.h"
 #include "analysis/loop_gain.h"
 #include "analysis/mna_system.h"
+#include "base/physical_constants.h"
 #include "circuit/expand_stage.h"
 #include "circuit/feedback_network.h"
-#include "noise/physical_constants.h"
 
 namespace hushgain {
 namespace {

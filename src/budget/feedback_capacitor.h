@@ -12,7 +12,7 @@
 #ifndef HUSHGAIN_BUDGET_FEEDBACK_CAPACITOR_H_
 #define HUSHGAIN_BUDGET_FEEDBACK_CAPACITOR_H_
 
-#include "analysis/status.h"
+#include "base/status.h"
 #include "budget/budget.h"
 #include "circuit/stage.h"
 

@@ -4,19 +4,29 @@
 
 namespace hushgain {
 
+double BiasCurrentTransfer(double h_plus_ohm, double h_minus_ohm) {
+  const double h_sum = h_plus_ohm + h_minus_ohm;
+  if (std::fabs(h_sum) <
+      1e-9 * (std::fabs(h_plus_ohm) + std::fabs(h_minus_ohm)))
+    return 0;
+  return h_sum;
+}
+
+double SignedOffset(double vos_v, double ib_a, double ios_a,
+                    double noise_gain_dc, double h_plus_ohm,
+                    double h_minus_ohm) {
+  return vos_v * noise_gain_dc -
+         ib_a * BiasCurrentTransfer(h_plus_ohm, h_minus_ohm) -
+         0.5 * ios_a * (h_plus_ohm - h_minus_ohm);
+}
+
 OffsetBlock SumOffsets(const OpAmpModel& opamp, double noise_gain_dc,
                        double h_plus_ohm, double h_minus_ohm, double dark_v) {
   OffsetBlock block;
   block.noise_gain_dc = noise_gain_dc;
   block.vos_v = std::fabs(opamp.vos_v * noise_gain_dc);
   // A current flowing into a pin leaves the network: an injection of -Ib.
-  // With R_plus at the balance value H+ = -H- up to rounding; a residue
-  // below 1e-9 of the terms is that rounding, not an offset.
-  double h_sum = h_plus_ohm + h_minus_ohm;
-  if (std::fabs(h_sum) <
-      1e-9 * (std::fabs(h_plus_ohm) + std::fabs(h_minus_ohm)))
-    h_sum = 0;
-  block.ib_v = -opamp.ib_a * h_sum;
+  block.ib_v = -opamp.ib_a * BiasCurrentTransfer(h_plus_ohm, h_minus_ohm);
   block.ios_v = std::fabs(0.5 * opamp.ios_a * (h_plus_ohm - h_minus_ohm));
   block.dark_v = dark_v;
   block.worst_case_v =

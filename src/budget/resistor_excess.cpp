@@ -73,7 +73,8 @@ std::optional<ExcessAdvice> AdviseExcess(
     const Stage& stage, const std::vector<ResistorSpec>& candidates) {
   const Contributor* worst = nullptr;
   for (const Contributor& c : contributors)
-    if (c.kind == "excess" && (!worst || c.share > worst->share)) worst = &c;
+    if (c.kind == NoiseKind::kExcess && (!worst || c.share > worst->share))
+      worst = &c;
   if (!worst || !(worst->share > 0)) return std::nullopt;
   ExcessAdvice advice;
   advice.resistor =

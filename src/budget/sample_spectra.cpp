@@ -6,8 +6,8 @@
 
 #include "analysis/loop_gain.h"
 #include "budget/feedback_capacitor.h"
-#include "budget/stage_at_temperature.h"
 #include "budget/stage_evaluator.h"
+#include "circuit/stage_at_temperature.h"
 #include "noise/spectrum_evaluator.h"
 
 namespace hushgain {
@@ -60,7 +60,7 @@ SpectrumOutcome SampleSpectra(const Stage& requested,
   out.f_hz = f_hz;
   for (const NoiseSource& source : evaluator.sources()) {
     out.names.push_back(source.name);
-    out.kinds.push_back(NoiseKindName(source.kind));
+    out.kinds.push_back(source.kind);
   }
   out.density_v_per_rthz.assign(n, std::vector<double>(points));
   out.total_v_per_rthz.resize(points);

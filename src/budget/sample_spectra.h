@@ -14,7 +14,7 @@
 #include <string>
 #include <vector>
 
-#include "analysis/status.h"
+#include "base/status.h"
 #include "budget/budget.h"
 #include "circuit/stage.h"
 
@@ -25,7 +25,7 @@ struct SpectrumSamples {
   // Contributors in the evaluator's order, named and kinded as the budget
   // names them ("R_in", "thermal").
   std::vector<std::string> names;
-  std::vector<std::string> kinds;
+  std::vector<NoiseKind> kinds;
   // density_v_per_rthz[k][i]: contributor k at f_hz[i].
   std::vector<std::vector<double>> density_v_per_rthz;
   std::vector<double> total_v_per_rthz;

@@ -9,7 +9,7 @@
 
 #include <vector>
 
-#include "analysis/status.h"
+#include "base/status.h"
 #include "budget/budget.h"
 #include "circuit/netlist.h"
 #include "circuit/stage.h"

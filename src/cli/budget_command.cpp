@@ -18,6 +18,7 @@
 #include "report/json_report.h"
 #include "report/markdown_report.h"
 #include "report/text_report.h"
+#include "review/review.h"
 
 namespace hushgain {
 namespace {
@@ -34,9 +35,10 @@ std::string Render(const Budget& budget, const std::string& format) {
 int RunBudgetCommand(const BudgetCommandOptions& options) {
   const std::string format =
       ResolveOutputFormat(options.format, options.json, false);
-  BudgetOptions budget_options;
+  ReviewOptions review_options;
+  BudgetOptions& budget_options = review_options.budget;
   budget_options.integration.relative_tolerance = options.tolerance;
-  if (!budget_options.Validate().empty()) {
+  if (!review_options.Validate().empty()) {
     char value[32];
     std::snprintf(value, sizeof value, "%g", options.tolerance);
     throw Error("command line", "",
@@ -50,7 +52,7 @@ int RunBudgetCommand(const BudgetCommandOptions& options) {
   for (const auto& [name, technology] : library.resistors)
     budget_options.upgrade_candidates.push_back(
         {name, technology, technology.tolerance});
-  const BudgetOutcome outcome = ComputeBudget(stage, budget_options);
+  const BudgetOutcome outcome = ReviewStage(stage, review_options);
   if (!outcome.status.ok) {
     std::cerr << "error: "
               << Error::OneLine(options.stage_path +

@@ -9,8 +9,6 @@
 #include <iostream>
 #include <optional>
 
-#include "budget/spread.h"
-#include "budget/spread_statistics.h"
 #include "cli/draw_picture.h"
 #include "cli/exit_codes.h"
 #include "cli/interrupt.h"
@@ -22,6 +20,8 @@
 #include "io/read_file.h"
 #include "io/stage_parser.h"
 #include "io/units.h"
+#include "montecarlo/spread.h"
+#include "montecarlo/spread_statistics.h"
 #include "report/spread_plot_script.h"
 #include "report/spread_report.h"
 

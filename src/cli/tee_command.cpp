@@ -11,8 +11,6 @@
 #include <optional>
 #include <thread>
 
-#include "budget/tee_search.h"
-#include "budget/tee_sweep.h"
 #include "circuit/inverting_topology.h"
 #include "circuit/preferred_series.h"
 #include "cli/draw_picture.h"
@@ -21,11 +19,14 @@
 #include "cli/output_format.h"
 #include "cli/progress_bar.h"
 #include "cli/text_output.h"
+#include "design/tee_search.h"
+#include "design/tee_sweep.h"
 #include "io/device_library.h"
 #include "io/error.h"
 #include "io/stage_parser.h"
 #include "io/suggest.h"
 #include "io/units.h"
+#include "report/enum_words.h"
 #include "report/tee_plot_script.h"
 #include "report/tee_report.h"
 
@@ -99,12 +100,14 @@ int Refused(const std::string& path, const Status& status) {
 // A progress bar on stderr, drawn only when stderr is a terminal.
 
 TeeRanking ParseRanking(const std::string& text) {
-  if (text == "noise") return TeeRanking::kNoise;
-  if (text == "offset") return TeeRanking::kOffset;
-  if (text == "weighted") return TeeRanking::kWeighted;
-  throw OptionError("--rank",
-                    "unknown ranking \"" + text + "\"" +
-                        DidYouMean(text, {"noise", "offset", "weighted"}));
+  std::vector<std::string> words;
+  for (TeeRanking r :
+       {TeeRanking::kNoise, TeeRanking::kOffset, TeeRanking::kWeighted}) {
+    if (text == TeeRankingWord(r)) return r;
+    words.push_back(TeeRankingWord(r));
+  }
+  throw OptionError(
+      "--rank", "unknown ranking \"" + text + "\"" + DidYouMean(text, words));
 }
 
 std::vector<double> SeriesRange(PreferredSeries series, double min_ohm,
@@ -317,7 +320,7 @@ int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
   query.input_max_ohm = input_max;
   query.target_gain = search.target_gain;
   query.gain_tolerance = search.gain_tolerance;
-  query.ranking = options.rank;
+  query.ranking = search.ranking;
   query.offset_weight = search.offset_weight;
   // The budgets' own warnings, once each, naming the first network (by
   // rank) that has it.

@@ -3,17 +3,18 @@
 #include <cstdio>
 #include <iostream>
 
-#include "budget/tia_suggest.h"
+#include "base/printf.h"
 #include "circuit/preferred_series.h"
 #include "cli/exit_codes.h"
 #include "cli/output_format.h"
 #include "cli/text_output.h"
+#include "design/tia_suggest.h"
 #include "io/device_library.h"
 #include "io/error.h"
 #include "io/stage_parser.h"
 #include "io/suggest.h"
 #include "io/units.h"
-#include "report/printf.h"
+#include "report/table.h"
 #include "report/tia_report.h"
 
 namespace hushgain {

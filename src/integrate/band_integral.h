@@ -20,7 +20,7 @@
 #include <string>
 #include <vector>
 
-#include "analysis/status.h"
+#include "base/status.h"
 
 namespace hushgain {
 

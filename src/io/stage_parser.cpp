@@ -4,12 +4,12 @@
 #include <cmath>
 #include <filesystem>
 
+#include "base/physical_constants.h"
 #include "circuit/stage_resistors.h"
 #include "io/json_reader.h"
 #include "io/read_file.h"
 #include "io/suggest.h"
 #include "io/units.h"
-#include "noise/physical_constants.h"
 
 namespace hushgain {
 namespace {

@@ -2,24 +2,12 @@
 
 #include <cmath>
 
-#include "noise/physical_constants.h"
+#include "base/physical_constants.h"
 
 namespace hushgain {
 
-const char* NoiseKindName(NoiseKind kind) {
-  switch (kind) {
-    case NoiseKind::kThermal:
-      return "thermal";
-    case NoiseKind::kShot:
-      return "shot";
-    case NoiseKind::kOpAmpVoltage:
-      return "voltage_noise";
-    case NoiseKind::kOpAmpCurrent:
-      return "current_noise";
-    case NoiseKind::kExcess:
-      return "excess";
-  }
-  return "noise";
+bool IsCurrentNoise(NoiseKind kind) {
+  return kind == NoiseKind::kShot || kind == NoiseKind::kOpAmpCurrent;
 }
 
 std::vector<NoiseSource> CollectNoiseSources(const Netlist& net,

@@ -31,9 +31,8 @@ enum class NoiseKind {
   kExcess,        // current (excess) noise of a resistor with a DC drop
 };
 
-// "thermal", "shot", "voltage_noise", "current_noise", "excess": the JSON
-// names.
-const char* NoiseKindName(NoiseKind kind);
+// True for the kinds whose source is a current (A/rtHz): shot and i_n.
+bool IsCurrentNoise(NoiseKind kind);
 
 struct NoiseSource {
   std::string name;  // "R_in", "e_n", "i_n-": how the budget names it

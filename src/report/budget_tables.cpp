@@ -3,21 +3,15 @@
 #include <cmath>
 #include <cstdio>
 
+#include "base/printf.h"
 #include "io/units.h"
-#include "report/printf.h"
+#include "report/enum_words.h"
 
 namespace hushgain {
 namespace {
 
 constexpr const char* kPerRtHz = "/\xE2\x88\x9AHz";  // "/√Hz"
 constexpr const char* kOhm = "\xCE\xA9";             // "Ω"
-
-std::string KindLabel(const std::string& kind) {
-  if (kind == "voltage_noise") return "op-amp e_n";
-  if (kind == "current_noise") return "op-amp i_n";
-  if (kind == "excess") return "excess 1/f";
-  return kind;
-}
 
 std::string ChangeLabel(const TeeChange& c) {
   switch (c.kind) {
@@ -66,14 +60,14 @@ Table NoiseTable(const Budget& b) {
   int folded = 0;
   double folded_power = 0, folded_share = 0;
   for (const Contributor& c : b.contributors) {
-    if (c.kind == "excess" && c.share < kNegligibleExcessShare) {
+    if (c.kind == NoiseKind::kExcess && c.share < kNegligibleExcessShare) {
       ++folded;
       folded_power += c.output_rms_v * c.output_rms_v;
       folded_share += c.share;
       continue;
     }
-    const bool current = c.kind == "current_noise" || c.kind == "shot";
-    t.AddRow({c.name, KindLabel(c.kind),
+    const bool current = IsCurrentNoise(c.kind);
+    t.AddRow({c.name, NoiseKindLabel(c.kind),
               FormatDensity(c.source_density_ref, current ? "A" : "V"),
               current ? FormatEng(c.gain_to_output_ref, kOhm)
                       : FormatGain(c.gain_to_output_ref),
@@ -82,7 +76,7 @@ Table NoiseTable(const Budget& b) {
   }
   if (folded > 0)
     t.AddRow({"other excess (" + std::to_string(folded) + ")",
-              KindLabel("excess"), "", "", "",
+              NoiseKindLabel(NoiseKind::kExcess), "", "", "",
               FormatEng(std::sqrt(folded_power), "V"),
               FormatShare(folded_share)});
   t.AddRule();

@@ -3,16 +3,11 @@
 #include <algorithm>
 #include <cstdio>
 
+#include "report/enum_words.h"
 #include "report/table.h"
 
 namespace hushgain {
-namespace {
-
-bool IsCurrent(const std::string& kind) {
-  return kind == "current_noise" || kind == "shot";
-}
-
-}  // namespace
+namespace {}  // namespace
 
 std::string CsvNumber(double value) {
   char buf[40];
@@ -33,9 +28,9 @@ std::string BudgetToCsv(const Budget& b) {
               "source_unit",
               "reference_frequency_Hz"};
   for (const Contributor& c : b.contributors) {
-    const bool current = IsCurrent(c.kind);
-    t.AddRow({c.name, c.kind, CsvNumber(c.output_rms_v), CsvNumber(c.share),
-              CsvNumber(c.output_density_ref_v_per_rthz),
+    const bool current = IsCurrentNoise(c.kind);
+    t.AddRow({c.name, NoiseKindWord(c.kind), CsvNumber(c.output_rms_v),
+              CsvNumber(c.share), CsvNumber(c.output_density_ref_v_per_rthz),
               CsvNumber(c.gain_to_output_ref), current ? "V/A" : "V/V",
               CsvNumber(c.source_density_ref), current ? "A" : "V",
               CsvNumber(b.reference_hz)});

@@ -2,6 +2,7 @@
 
 #include <nlohmann/json.hpp>
 
+#include "report/enum_words.h"
 #include "report/real_parts_json.h"
 
 namespace hushgain {
@@ -68,7 +69,7 @@ std::string BudgetToJson(const Budget& b) {
   for (const Contributor& c : b.contributors) {
     contributors.push_back({
         {"name", c.name},
-        {"kind", c.kind},
+        {"kind", NoiseKindWord(c.kind)},
         {"output_rms_V", c.output_rms_v},
         {"share", c.share},
         {"output_density_V_per_rtHz", c.output_density_ref_v_per_rthz},

@@ -5,10 +5,10 @@
 #include <cmath>
 #include <cstdio>
 
+#include "base/physical_constants.h"
+#include "base/printf.h"
 #include "io/units.h"
-#include "noise/physical_constants.h"
 #include "report/plot_axes.h"
-#include "report/printf.h"
 #include "report/text_escape.h"
 
 namespace hushgain {

@@ -4,9 +4,9 @@
 #include <cmath>
 #include <cstdio>
 
+#include "base/physical_constants.h"
+#include "base/printf.h"
 #include "io/units.h"
-#include "noise/physical_constants.h"
-#include "report/printf.h"
 #include "report/table.h"
 
 namespace hushgain {

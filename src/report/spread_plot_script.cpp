@@ -8,8 +8,8 @@
 #include <optional>
 #include <vector>
 
+#include "base/physical_constants.h"
 #include "io/units.h"
-#include "noise/physical_constants.h"
 #include "report/histogram.h"
 #include "report/plot_axes.h"
 #include "report/text_escape.h"

@@ -6,10 +6,10 @@
 #include <optional>
 #include <vector>
 
+#include "base/physical_constants.h"
+#include "base/printf.h"
 #include "io/units.h"
-#include "noise/physical_constants.h"
 #include "report/csv_report.h"
-#include "report/printf.h"
 #include "report/table.h"
 #include "report/text_escape.h"
 

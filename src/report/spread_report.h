@@ -7,8 +7,8 @@
 #include <cstdint>
 #include <string>
 
-#include "budget/spread.h"
-#include "budget/spread_statistics.h"
+#include "montecarlo/spread.h"
+#include "montecarlo/spread_statistics.h"
 
 namespace hushgain {
 

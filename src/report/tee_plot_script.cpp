@@ -6,10 +6,11 @@
 #include <cstdio>
 #include <vector>
 
+#include "base/physical_constants.h"
+#include "base/printf.h"
 #include "io/units.h"
-#include "noise/physical_constants.h"
+#include "report/enum_words.h"
 #include "report/plot_axes.h"
-#include "report/printf.h"
 #include "report/text_escape.h"
 
 namespace hushgain {
@@ -48,7 +49,7 @@ std::string Band(const Budget& b) {
 
 // "noise", "offset", or for the weighted ranking what it weighs.
 std::string RankingWords(const TeeSearchQuery& q) {
-  if (q.ranking != "weighted") return q.ranking;
+  if (q.ranking != TeeRanking::kWeighted) return TeeRankingWord(q.ranking);
   return "noise and offset, offset weight " + Printf("%.3g", q.offset_weight);
 }
 
@@ -296,10 +297,11 @@ std::string BuildSearchPlotScript(const TeeSearchResult& s,
   }
   out += "EOD\n";
 
-  std::string summary =
-      q.series + " T networks for gain " + Printf("%.6g", q.target_gain) +
-      " within " + Printf("%.3g %%", 100 * q.gain_tolerance) + ", ranked by " +
-      q.ranking + ";  " + Band(first) + ", " + Temperature(first);
+  std::string summary = q.series + " T networks for gain " +
+                        Printf("%.6g", q.target_gain) + " within " +
+                        Printf("%.3g %%", 100 * q.gain_tolerance) +
+                        ", ranked by " + TeeRankingWord(q.ranking) + ";  " +
+                        Band(first) + ", " + Temperature(first);
   if (s.cancelled) summary += ";  interrupted: best so far";
   sheet.Heading(first.stage_name, summary);
 

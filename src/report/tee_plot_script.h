@@ -26,8 +26,8 @@
 #include <optional>
 #include <string>
 
-#include "budget/tee_search.h"
-#include "budget/tee_sweep.h"
+#include "design/tee_search.h"
+#include "design/tee_sweep.h"
 #include "report/plot_script.h"
 #include "report/tee_tables.h"
 

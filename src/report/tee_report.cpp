@@ -4,9 +4,10 @@
 #include <cstdio>
 #include <nlohmann/json.hpp>
 
+#include "base/physical_constants.h"
+#include "base/printf.h"
 #include "io/units.h"
-#include "noise/physical_constants.h"
-#include "report/printf.h"
+#include "report/enum_words.h"
 #include "report/table.h"
 #include "report/text_escape.h"
 
@@ -52,8 +53,8 @@ std::string SearchSpace(const TeeSearchQuery& q) {
 std::string SearchGain(const TeeSearchQuery& q) {
   std::string out = Printf("%.6g", q.target_gain) + " within " +
                     Printf("%.3g %%", 100 * q.gain_tolerance) + "; ranked by " +
-                    q.ranking;
-  if (q.ranking == "weighted")
+                    TeeRankingWord(q.ranking);
+  if (q.ranking == TeeRanking::kWeighted)
     out += Printf(" (offset weight %.3g)", q.offset_weight);
   return out;
 }
@@ -191,8 +192,9 @@ std::string SearchToJson(const TeeSearchResult& s, const TeeSearchQuery& q) {
     out["input_range_ohm"] = {*q.input_min_ohm, *q.input_max_ohm};
   out["target_gain"] = q.target_gain;
   out["gain_tolerance"] = q.gain_tolerance;
-  out["ranking"] = q.ranking;
-  if (q.ranking == "weighted") out["offset_weight"] = q.offset_weight;
+  out["ranking"] = TeeRankingWord(q.ranking);
+  if (q.ranking == TeeRanking::kWeighted)
+    out["offset_weight"] = q.offset_weight;
   out["combinations"] = s.combinations;
   out["evaluated_closed_form"] = s.in_tolerance;
   out["verified_full_engine"] = s.verified;

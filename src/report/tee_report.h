@@ -13,8 +13,8 @@
 
 #include <string>
 
-#include "budget/tee_search.h"
-#include "budget/tee_sweep.h"
+#include "design/tee_search.h"
+#include "design/tee_sweep.h"
 #include "report/tee_tables.h"
 
 namespace hushgain {

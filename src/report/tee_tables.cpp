@@ -5,9 +5,9 @@
 #include <functional>
 #include <vector>
 
+#include "base/printf.h"
 #include "io/units.h"
 #include "report/csv_report.h"
-#include "report/printf.h"
 
 namespace hushgain {
 namespace {
@@ -162,7 +162,7 @@ Table SearchTable(const TeeSearchResult& s, const TeeSearchQuery& q,
          return CsvNumber(TeeNoiseCost(r.candidate->budget));
        }});
   columns.push_back(
-      {q.ranking == "weighted" ? "score" : "", "score",
+      {q.ranking == TeeRanking::kWeighted ? "score" : "", "score",
        [](const Row& r) { return Printf("%.4f", r.candidate->score); },
        [](const Row& r) { return CsvNumber(r.candidate->score); }});
   std::vector<Row> rows;

@@ -23,8 +23,8 @@
 #include <optional>
 #include <string>
 
-#include "budget/tee_search.h"
-#include "budget/tee_sweep.h"
+#include "design/tee_search.h"
+#include "design/tee_sweep.h"
 #include "report/table.h"
 
 namespace hushgain {
@@ -38,7 +38,7 @@ struct TeeSearchQuery {
   std::optional<double> input_max_ohm;
   double target_gain = 0;
   double gain_tolerance = 0;
-  std::string ranking;  // "noise", "offset" or "weighted"
+  TeeRanking ranking = TeeRanking::kNoise;
   double offset_weight = 0;
 };
 

@@ -3,10 +3,10 @@
 #include <cmath>
 #include <cstdio>
 
+#include "base/physical_constants.h"
+#include "base/printf.h"
 #include "io/units.h"
-#include "noise/physical_constants.h"
 #include "report/budget_tables.h"
-#include "report/printf.h"
 #include "report/real_parts_text.h"
 #include "report/table.h"
 

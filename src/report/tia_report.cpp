@@ -2,9 +2,9 @@
 
 #include <nlohmann/json.hpp>
 
+#include "base/printf.h"
 #include "io/units.h"
 #include "report/csv_report.h"
-#include "report/printf.h"
 #include "report/table.h"
 #include "report/text_escape.h"
 

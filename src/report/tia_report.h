@@ -10,8 +10,8 @@
 
 #include <string>
 
-#include "budget/tia_suggest.h"
 #include "circuit/stage.h"
+#include "design/tia_suggest.h"
 
 namespace hushgain {
 

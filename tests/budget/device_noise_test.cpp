@@ -7,10 +7,10 @@
 
 #include <cmath>
 
-#include "budget/closed_form_budget.h"
 #include "budget/compute_budget.h"
-#include "budget/spread.h"
-#include "budget/stage_at_temperature.h"
+#include "circuit/stage_at_temperature.h"
+#include "design/closed_form_budget.h"
+#include "montecarlo/spread.h"
 #include "test_support.h"
 
 namespace hushgain {

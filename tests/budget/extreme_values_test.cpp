@@ -91,7 +91,6 @@ struct Outcome {
 Outcome Run(const Stage& stage) {
   BudgetOptions options;
   options.integration.relative_tolerance = 1e-6;
-  options.compare_tee = false;
   BudgetOutcome r = ComputeBudget(stage, options);
   return {r.status.ok, r.status.message, r.budget};
 }

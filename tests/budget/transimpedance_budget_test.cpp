@@ -169,7 +169,7 @@ TEST_CASE(
   // Schottky 1918; REFERENCES.md section 2: 100 pA -> 5.660 701 fA/rtHz.
   const Budget b = Compute(WorkedExample(ButterworthCf()), 1e-4);
   const Contributor& shot = FindContributor(b, "I_dark");
-  CHECK(shot.kind == "shot");
+  CHECK(shot.kind == NoiseKind::kShot);
   CHECK(RelErr(shot.source_density_ref,
                std::sqrt(2 * kElementaryChargeC * 100e-12)) < test::kRelTight);
   CHECK(RelErr(shot.source_density_ref * 1e15, 5.660701) < 1e-6);

@@ -5,8 +5,8 @@
 #include <cmath>
 #include <nlohmann/json.hpp>
 
+#include "base/physical_constants.h"
 #include "cli/run_binary.h"
-#include "noise/physical_constants.h"
 #include "test_support.h"
 
 namespace hushgain {

@@ -4,7 +4,7 @@
 
 #include <cmath>
 
-#include "noise/physical_constants.h"
+#include "base/physical_constants.h"
 #include "test_support.h"
 
 namespace hushgain {

@@ -74,7 +74,7 @@ TEST_CASE(
         test::kRelIdeal);
   CHECK(RelErr(test::FindContributor(b, "R_f excess").output_rms_v, rf_out) <
         test::kRelIdeal);
-  CHECK(test::FindContributor(b, "R_f excess").kind == "excess");
+  CHECK(test::FindContributor(b, "R_f excess").kind == NoiseKind::kExcess);
   // The source density is quoted as the series voltage e_ex at the reference.
   CHECK(RelErr(test::FindContributor(b, "R_f excess").source_density_ref,
                ExcessNoiseDensity(-10, 2.0, 1.0)) < test::kRelIdeal);

@@ -2,8 +2,8 @@
 
 #include <cmath>
 
+#include "base/physical_constants.h"
 #include "noise/noise_source.h"
-#include "noise/physical_constants.h"
 #include "test_support.h"
 
 namespace hushgain {

@@ -45,7 +45,7 @@ PlotData SmallData() {
   s.f_hz = {1, 10, 100, 1e3, 1e4, 5e4};
   // Evaluator order differs from the budget's (largest share first).
   s.names = {"e_n", "R_in"};
-  s.kinds = {"voltage_noise", "thermal"};
+  s.kinds = {NoiseKind::kOpAmpVoltage, NoiseKind::kThermal};
   s.density_v_per_rthz = {{3e-8, 3e-8, 3e-8, 3e-8, 1e-8, 1e-9},
                           {4e-8, 4e-8, 4e-8, 4e-8, 2e-8, 2e-9}};
   s.total_v_per_rthz = {5e-8, 5e-8, 5e-8, 5e-8, 2.2e-8, 2.2e-9};

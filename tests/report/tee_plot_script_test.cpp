@@ -131,7 +131,7 @@ TEST_CASE("stage names reach the T-network scripts only as escaped text") {
   q.max_ohm = 100e3;
   q.target_gain = 909;
   q.gain_tolerance = 0.005;
-  q.ranking = "noise";
+  q.ranking = TeeRanking::kNoise;
   for (const std::string& gp : {BuildSweepPlotScript(SmallSweep(), o),
                                 BuildSearchPlotScript(search, q, o)}) {
     // The name once, as the heading's literal (GnuplotString is checked in
@@ -162,7 +162,7 @@ TEST_CASE("the search script draws each network by rank") {
   q.max_ohm = 100e3;
   q.target_gain = 909;
   q.gain_tolerance = 0.01;
-  q.ranking = "offset";
+  q.ranking = TeeRanking::kOffset;
   const std::string gp = BuildSearchPlotScript(search, q, o);
   CHECK(Count(gp, "\nplot ") == 2);
   // rank, rms (µV), offset (mV), R_in, R1, R2, R3.

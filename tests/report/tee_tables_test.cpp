@@ -171,10 +171,10 @@ TEST_CASE("search tables show the score only for the weighted ranking") {
   q.max_ohm = 100e3;
   q.target_gain = 909.447;
   q.gain_tolerance = 0.005;
-  q.ranking = "noise";
+  q.ranking = TeeRanking::kNoise;
   const Table noise = SearchTable(s, q, TeeCells::kDisplay);
   CHECK(noise.header.back() == "noise cost");
-  q.ranking = "weighted";
+  q.ranking = TeeRanking::kWeighted;
   CHECK(SearchTable(s, q, TeeCells::kDisplay).header.back() == "score");
   const Table csv = SearchTable(s, q, TeeCells::kCsv);
   CHECK(csv.header.back() == "score");

@@ -1,0 +1,116 @@
+#include "design/closed_form_budget.h"
+
+#include <cmath>
+
+#include "base/physical_constants.h"
+
+namespace hushgain {
+namespace {
+
+// The + input resistor for a network whose feedback DC resistance seen from
+// the summing node is `feedback_dc_ohm` (R1 + R2 || R3, or Rf).
+double PlusOhm(const ClosedFormModel& m, double ra, double feedback_dc_ohm) {
+  switch (m.plus_mode) {
+    case PlusResistor::Mode::kNone:
+      return 0;
+    case PlusResistor::Mode::kValue:
+      return m.plus_ohm;
+    case PlusResistor::Mode::kAuto:
+      return ra * feedback_dc_ohm / (ra + feedback_dc_ohm);
+  }
+  return 0;
+}
+
+// The closed form itself, for any (R1, R2, k = R2/R3): see the header.
+ClosedFormFigures Evaluate(const ClosedFormModel& m, double r_in, double r1,
+                           double r2, double k, double feedback_dc_ohm) {
+  ClosedFormFigures f;
+  const double ra = m.source_ohm + r_in;
+  const double req = r1 + r2 + r1 * k;
+  const double g = req / ra;
+  const double ng = 1 + k + g;
+  const double rp = PlusOhm(m, ra, feedback_dc_ohm);
+  f.equivalent_ohm = req;
+  f.gain = g;
+  f.noise_gain = ng;
+  f.output_power_v2 =
+      m.thermal_w *
+          (ra * g * g + r1 * (1 + k) * (1 + k) + r2 * (1 + k) + rp * ng * ng) +
+      m.e_n_power * ng * ng + m.i_n_power * (req * req + rp * rp * ng * ng);
+  f.output_rms_v = std::sqrt(f.output_power_v2);
+  f.offset_worst_case_v = m.vos_v * ng + std::fabs(m.ib_a * (req - rp * ng)) +
+                          m.half_ios_a * (req + rp * ng);
+  return f;
+}
+
+}  // namespace
+
+ClosedFormModel MakeClosedFormModel(const Stage& stage) {
+  ClosedFormModel m;
+  const double fl = stage.band_low_hz;
+  const double fh = stage.band_high_hz;
+  const double width = fh - fl;
+  const double log_ratio = std::log(fh / fl);
+  const OpAmpModel& op = stage.opamp;
+  m.source_ohm = stage.source.resistance_ohm;
+  m.thermal_w = 4.0 * kBoltzmannJPerK * stage.temperature_k * width;
+  m.e_n_power =
+      op.e_w_v_per_rthz * op.e_w_v_per_rthz * (width + op.f_cv_hz * log_ratio) +
+      op.voltage_noise_table.PsdIntegral(fl, fh);
+  m.i_n_power =
+      op.i_w_a_per_rthz * op.i_w_a_per_rthz * (width + op.f_ci_hz * log_ratio) +
+      op.current_noise_table.PsdIntegral(fl, fh);
+  m.vos_v = std::fabs(op.vos_v);
+  m.ib_a = op.ib_a;
+  m.half_ios_a = 0.5 * std::fabs(op.ios_a);
+  m.plus_mode = stage.plus_resistor.mode;
+  m.plus_ohm = stage.plus_resistor.ohms;
+  return m;
+}
+
+ClosedFormFigures ClosedFormTee(const ClosedFormModel& model, double r_in,
+                                double r1, double r2, double r3) {
+  return Evaluate(model, r_in, r1, r2, r2 / r3, r1 + r2 * r3 / (r2 + r3));
+}
+
+ClosedFormFigures ClosedFormPlain(const ClosedFormModel& model, double r_in,
+                                  double rf) {
+  return Evaluate(model, r_in, rf, 0, 0, rf);
+}
+
+void ClosedFormTeePowerRow(const ClosedFormModel& m, double r_in, double r1,
+                           double r2, const double* inv_r3, int n,
+                           double* out) {
+  const double ra = m.source_ohm + r_in;
+  const double inv_ra = 1 / ra;
+  const double tw = m.thermal_w;
+  const double en = m.e_n_power;
+  const double in = m.i_n_power;
+  if (m.plus_mode == PlusResistor::Mode::kAuto) {
+    for (int j = 0; j < n; ++j) {
+      const double k = r2 * inv_r3[j];
+      const double req = r1 + r2 + r1 * k;
+      const double g = req * inv_ra;
+      const double ng = 1 + k + g;
+      // R1 + R2 || R3 = R1 + R2 / (1 + k); Rp = Ra || that.
+      const double fb = r1 + r2 / (1 + k);
+      const double rp = ra * fb / (ra + fb);
+      out[j] = tw * (ra * g * g + r1 * (1 + k) * (1 + k) + r2 * (1 + k) +
+                     rp * ng * ng) +
+               en * ng * ng + in * (req * req + rp * rp * ng * ng);
+    }
+    return;
+  }
+  const double rp = m.plus_mode == PlusResistor::Mode::kValue ? m.plus_ohm : 0;
+  const double plus_power = tw * rp + in * rp * rp;
+  for (int j = 0; j < n; ++j) {
+    const double k = r2 * inv_r3[j];
+    const double req = r1 + r2 + r1 * k;
+    const double g = req * inv_ra;
+    const double ng = 1 + k + g;
+    out[j] = tw * (ra * g * g + r1 * (1 + k) * (1 + k) + r2 * (1 + k)) +
+             (en + plus_power) * ng * ng + in * req * req;
+  }
+}
+
+}  // namespace hushgain

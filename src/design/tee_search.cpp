@@ -1,0 +1,583 @@
+#include "design/tee_search.h"
+
+#include <algorithm>
+#include <cassert>
+#include <chrono>
+#include <cmath>
+#include <cstdio>
+#include <limits>
+#include <mutex>
+#include <queue>
+#include <thread>
+
+#include "circuit/inverting_topology.h"
+#include "review/tee_comparison.h"
+
+namespace hushgain {
+namespace {
+
+constexpr double kInf = std::numeric_limits<double>::infinity();
+// Bounds are relaxed by this much so that rounding in their arithmetic never
+// prunes a candidate that the exact evaluation would keep.
+constexpr double kBoundSlack = 1e-9;
+// The R3 interval is widened by this much before the exact gain test.
+constexpr double kIntervalSlack = 1e-12;
+// Rows handed to a worker at a time.
+constexpr int kRowsPerGrab = 8;
+// Full-engine budgets at most, for the ranking (about 0.5 ms each). Where
+// thousands of networks lie within the margin of each other, their order
+// is finer than anything a designer acts on.
+constexpr std::size_t kMaxVerified = 512;
+
+// The total order of candidates: figure of merit, then the values.
+struct Key {
+  double score;
+  double r_in, r1, r2, r3;
+  bool operator<(const Key& o) const {
+    if (score != o.score) return score < o.score;
+    if (r_in != o.r_in) return r_in < o.r_in;
+    if (r1 != o.r1) return r1 < o.r1;
+    if (r2 != o.r2) return r2 < o.r2;
+    return r3 < o.r3;
+  }
+};
+
+Key KeyOf(const TeeCandidate& c, double score) {
+  return {score, c.r_in_ohm, c.r1_ohm, c.r2_ohm, c.r3_ohm};
+}
+
+// Combines the two figures into the figure of merit.
+struct Scorer {
+  TeeRanking ranking = TeeRanking::kNoise;
+  double w = 0.5;
+  double noise_ref = 0;
+  double offset_ref = 0;
+
+  double operator()(double rms, double offset) const {
+    switch (ranking) {
+      case TeeRanking::kNoise:
+        return rms;
+      case TeeRanking::kOffset:
+        return offset;
+      case TeeRanking::kWeighted: {
+        double s = 0;
+        if (noise_ref > 0) s += (1 - w) * rms / noise_ref;
+        if (offset_ref > 0) s += w * offset / offset_ref;
+        return s;
+      }
+    }
+    return rms;
+  }
+};
+
+// What the closed-form sweep shares between its workers.
+struct Sweep {
+  const TeeSearchOptions* options = nullptr;
+  ClosedFormModel model;
+  Scorer scorer;
+  std::vector<double> values;
+  std::vector<double> inv_values;
+  std::vector<double> inputs;  // R_in values
+  // The (R_in, R1) rows, in increasing order of their lower bound, so the
+  // pool fills with good candidates early and the bounds prune the rest.
+  struct RowSpec {
+    double bound;
+    std::uint32_t in_index;
+    std::uint32_t i1;
+    bool operator<(const RowSpec& o) const {
+      if (bound != o.bound) return bound < o.bound;
+      if (in_index != o.in_index) return in_index < o.in_index;
+      return i1 < o.i1;
+    }
+  };
+  std::vector<RowSpec> rows;
+  std::size_t pool = 0;
+  std::uint64_t total_rows = 0;
+
+  std::atomic<std::uint64_t> next_row{0};
+  std::atomic<std::uint64_t> rows_done{0};
+  std::atomic<double> threshold{kInf};  // the pool's worst score so far
+};
+
+// Lower bound of the figure of merit over every network with input arm
+// Ra whose R1 is at least r1_lb, k = R2/R3 at least k_lb and Rp at least
+// rp_lb; gain at least g_lo. Each term of the closed form grows with each
+// of these (header of closed_form_budget.h).
+double LowerBound(const Sweep& s, double ra, double g_lo, double r1_lb,
+                  double r2_lb, double k_lb, double rp_lb) {
+  const ClosedFormModel& m = s.model;
+  const double req_lo = g_lo * ra;
+  const double ng = 1 + k_lb + g_lo;
+  const double power =
+      m.thermal_w * (ra * g_lo * g_lo + r1_lb * (1 + k_lb) * (1 + k_lb) +
+                     r2_lb * (1 + k_lb) + rp_lb * ng * ng) +
+      m.e_n_power * ng * ng +
+      m.i_n_power * (req_lo * req_lo + rp_lb * rp_lb * ng * ng);
+  const double offset = m.vos_v * ng + m.half_ios_a * (req_lo + rp_lb * ng);
+  return s.scorer(std::sqrt(power), offset) * (1 - kBoundSlack);
+}
+
+double PlusLowerBound(const Sweep& s, double ra, double fb_lb) {
+  switch (s.model.plus_mode) {
+    case PlusResistor::Mode::kNone:
+      return 0;
+    case PlusResistor::Mode::kValue:
+      return s.model.plus_ohm;
+    case PlusResistor::Mode::kAuto:
+      return ra * fb_lb / (ra + fb_lb);
+  }
+  return 0;
+}
+
+double KLowerBound(double req_lo, double r1, double vmin, double vmax) {
+  return std::max(vmin / vmax, (req_lo - r1 - vmax) / r1);
+}
+
+using Heap = std::priority_queue<std::pair<Key, TeeCandidate>,
+                                 std::vector<std::pair<Key, TeeCandidate>>,
+                                 bool (*)(const std::pair<Key, TeeCandidate>&,
+                                          const std::pair<Key, TeeCandidate>&)>;
+
+bool HeapLess(const std::pair<Key, TeeCandidate>& a,
+              const std::pair<Key, TeeCandidate>& b) {
+  return a.first < b.first;
+}
+
+void LowerThreshold(std::atomic<double>& threshold, double value) {
+  double current = threshold.load(std::memory_order_relaxed);
+  while (value < current && !threshold.compare_exchange_weak(
+                                current, value, std::memory_order_relaxed)) {
+  }
+}
+
+struct WorkerOut {
+  std::vector<std::pair<Key, TeeCandidate>> kept;
+  std::uint64_t in_tolerance = 0;
+  std::uint64_t rows_pruned = 0;
+};
+
+void Worker(Sweep& s, WorkerOut* out) {
+  const TeeSearchOptions& o = *s.options;
+  const std::vector<double>& v = s.values;
+  const int n = static_cast<int>(v.size());
+  const double vmax = v.back();
+  const double g = o.target_gain;
+  const double tol = o.gain_tolerance;
+  const double g_lo = g * (1 - tol);
+  const double g_hi = g * (1 + tol);
+  Heap heap(HeapLess);
+  std::vector<double> power(n);
+  const bool need_offset = o.ranking != TeeRanking::kNoise;
+  const bool need_rms = o.ranking != TeeRanking::kOffset;
+
+  for (;;) {
+    if (o.cancel && o.cancel->load(std::memory_order_relaxed)) break;
+    const std::uint64_t first =
+        s.next_row.fetch_add(kRowsPerGrab, std::memory_order_relaxed);
+    if (first >= s.total_rows) break;
+    const std::uint64_t last =
+        std::min<std::uint64_t>(first + kRowsPerGrab, s.total_rows);
+    for (std::uint64_t row = first; row < last; ++row) {
+      const Sweep::RowSpec& spec = s.rows[row];
+      const double r_in = s.inputs[spec.in_index];
+      const double ra = s.model.source_ohm + r_in;
+      const double r1 = v[spec.i1];
+      const double req_lo = g_lo * ra;
+      const double req_hi = g_hi * ra;
+      double threshold = s.threshold.load(std::memory_order_relaxed);
+      if (spec.bound > threshold) {
+        ++out->rows_pruned;
+        continue;
+      }
+      const double inv_ra = 1 / ra;
+      int lo = 0;
+      int hi = 0;
+      for (int i2 = 0; i2 < n; ++i2) {
+        const double r2 = v[i2];
+        const double sum = r1 + r2;
+        if (sum >= req_hi) break;
+        const double r3_lo = r1 * r2 / (req_hi - sum) * (1 - kIntervalSlack);
+        if (r3_lo > vmax) break;
+        const double r3_hi =
+            req_lo > sum ? r1 * r2 / (req_lo - sum) * (1 + kIntervalSlack)
+                         : kInf;
+        while (lo < n && v[lo] < r3_lo) ++lo;
+        if (hi < lo) hi = lo;
+        while (hi < n && v[hi] <= r3_hi) ++hi;
+        if (lo >= hi) continue;
+        ClosedFormTeePowerRow(s.model, r_in, r1, r2, &s.inv_values[lo], hi - lo,
+                              power.data());
+        for (int i3 = lo; i3 < hi; ++i3) {
+          // The exact gain test, with the arithmetic of the power row.
+          const double k = r2 * s.inv_values[i3];
+          const double gain = (r1 + r2 + r1 * k) * inv_ra;
+          if (!(std::fabs(gain - g) <= tol * g)) continue;
+          ++out->in_tolerance;
+          const double rms = need_rms ? std::sqrt(power[i3 - lo]) : 0;
+          double offset = 0;
+          ClosedFormFigures figures;
+          if (need_offset) {
+            figures = ClosedFormTee(s.model, r_in, r1, r2, v[i3]);
+            offset = figures.offset_worst_case_v;
+          }
+          const double score = s.scorer(rms, offset);
+          if (score > threshold) continue;
+          const Key key{score, r_in, r1, r2, v[i3]};
+          if (heap.size() >= s.pool && !(key < heap.top().first)) continue;
+          TeeCandidate c;
+          c.r_in_ohm = r_in;
+          c.r1_ohm = r1;
+          c.r2_ohm = r2;
+          c.r3_ohm = v[i3];
+          c.closed_score = score;
+          heap.emplace(key, c);
+          if (heap.size() > s.pool) heap.pop();
+          if (heap.size() == s.pool) {
+            LowerThreshold(s.threshold, heap.top().first.score);
+            threshold = s.threshold.load(std::memory_order_relaxed);
+          }
+        }
+      }
+    }
+    s.rows_done.fetch_add(last - first, std::memory_order_relaxed);
+  }
+  while (!heap.empty()) {
+    out->kept.push_back(heap.top());
+    heap.pop();
+  }
+}
+
+// Runs `fn(i)` for i in [0, count) on up to `threads` threads, statically
+// interleaved (the results do not depend on the thread count).
+template <typename Fn>
+void ParallelFor(int count, int threads, Fn fn) {
+  threads = std::max(1, std::min(threads, count));
+  if (threads == 1) {
+    for (int i = 0; i < count; ++i) fn(i);
+    return;
+  }
+  std::vector<std::thread> pool;
+  for (int t = 0; t < threads; ++t)
+    pool.emplace_back([=, &fn] {
+      for (int i = t; i < count; i += threads) fn(i);
+    });
+  for (std::thread& th : pool) th.join();
+}
+
+struct SweepOutcome {
+  std::vector<TeeCandidate> pool;  // best first
+  std::uint64_t in_tolerance = 0;
+  std::uint64_t rows_pruned = 0;
+  bool cancelled = false;
+};
+
+// `report` says whether to call the progress callback: only the first
+// sweep does, so the fraction never goes back.
+SweepOutcome RunSweep(const Stage& stage, const TeeSearchOptions& o,
+                      const Scorer& scorer, std::size_t pool_size,
+                      bool report) {
+  Sweep s;
+  s.options = &o;
+  s.model = MakeClosedFormModel(stage);
+  s.scorer = scorer;
+  s.values = o.values;
+  for (double x : s.values) s.inv_values.push_back(1 / x);
+  s.pool = pool_size;
+
+  s.inputs = o.input_values;
+  if (s.inputs.empty()) s.inputs.push_back(stage.input_resistor_ohm);
+  const double vmin = s.values.front();
+  const double vmax = s.values.back();
+  const double g_lo = o.target_gain * (1 - o.gain_tolerance);
+  for (std::uint32_t in = 0; in < s.inputs.size(); ++in) {
+    const double ra = s.model.source_ohm + s.inputs[in];
+    for (std::uint32_t i1 = 0; i1 < s.values.size(); ++i1) {
+      const double r1 = s.values[i1];
+      const double k_lb = KLowerBound(g_lo * ra, r1, vmin, vmax);
+      s.rows.push_back(
+          {LowerBound(s, ra, g_lo, r1, vmin, k_lb, PlusLowerBound(s, ra, r1)),
+           in, i1});
+    }
+  }
+  std::sort(s.rows.begin(), s.rows.end());
+  s.total_rows = s.rows.size();
+
+  const int threads = std::max(1, o.threads);
+  std::vector<WorkerOut> outs(threads);
+  std::vector<std::thread> workers;
+  for (int t = 0; t < threads; ++t)
+    workers.emplace_back(Worker, std::ref(s), &outs[t]);
+  if (o.progress && report) {
+    auto last = std::chrono::steady_clock::now();
+    for (;;) {
+      const std::uint64_t done = s.rows_done.load(std::memory_order_relaxed);
+      const bool stopped = o.cancel && o.cancel->load();
+      if (done >= s.total_rows || stopped) break;
+      std::this_thread::sleep_for(std::chrono::milliseconds(5));
+      auto now = std::chrono::steady_clock::now();
+      if (now - last >= std::chrono::milliseconds(100)) {
+        last = now;
+        o.progress(static_cast<double>(done) / s.total_rows);
+      }
+    }
+  }
+  for (std::thread& w : workers) w.join();
+
+  SweepOutcome result;
+  std::vector<std::pair<Key, TeeCandidate>> all;
+  for (WorkerOut& w : outs) {
+    result.in_tolerance += w.in_tolerance;
+    result.rows_pruned += w.rows_pruned;
+    all.insert(all.end(), w.kept.begin(), w.kept.end());
+  }
+  std::sort(all.begin(), all.end(),
+            [](const auto& a, const auto& b) { return a.first < b.first; });
+  if (all.size() > pool_size) all.resize(pool_size);
+  for (auto& [key, c] : all) {
+    c.closed = ClosedFormTee(s.model, c.r_in_ohm, c.r1_ohm, c.r2_ohm, c.r3_ohm);
+    result.pool.push_back(c);
+  }
+  result.cancelled = o.cancel && o.cancel->load();
+  if (o.progress && report && !result.cancelled) o.progress(1.0);
+  return result;
+}
+
+std::string Describe(const TeeCandidate& c) {
+  char buf[160];
+  std::snprintf(buf, sizeof buf, "R_in %.6g, R1 %.6g, R2 %.6g, R3 %.6g ohm",
+                c.r_in_ohm, c.r1_ohm, c.r2_ohm, c.r3_ohm);
+  return buf;
+}
+
+}  // namespace
+
+std::string TeeSearchOptions::Validate() const {
+  auto sorted_positive = [](const std::vector<double>& xs) {
+    for (std::size_t i = 0; i < xs.size(); ++i) {
+      if (!(xs[i] > 0) || !std::isfinite(xs[i])) return false;
+      if (i > 0 && !(xs[i] > xs[i - 1])) return false;
+    }
+    return true;
+  };
+  char buf[160];
+  if (values.empty()) return "values: no resistor values to search";
+  if (!sorted_positive(values))
+    return "values: expected positive values in increasing order";
+  if (!sorted_positive(input_values))
+    return "input_values: expected positive values in increasing order";
+  if (!(target_gain > 0) || !std::isfinite(target_gain)) {
+    std::snprintf(buf, sizeof buf,
+                  "target_gain: expected a positive gain, got %g", target_gain);
+    return buf;
+  }
+  if (!(gain_tolerance >= 0) || !(gain_tolerance < 1)) {
+    std::snprintf(buf, sizeof buf,
+                  "gain_tolerance: expected a ratio in [0, 1), got %g",
+                  gain_tolerance);
+    return buf;
+  }
+  if (!(offset_weight >= 0 && offset_weight <= 1)) {
+    std::snprintf(buf, sizeof buf,
+                  "offset_weight: expected a weight in [0, 1], got %g",
+                  offset_weight);
+    return buf;
+  }
+  if (top < 1) return "top: expected at least 1, got " + std::to_string(top);
+  if (pool < 0) return "pool: expected 0 or more, got " + std::to_string(pool);
+  if (!(verify_margin >= 0 && verify_margin < 1)) {
+    std::snprintf(buf, sizeof buf,
+                  "verify_margin: expected a ratio in [0, 1), got %g",
+                  verify_margin);
+    return buf;
+  }
+  if (threads < 1)
+    return "threads: expected at least 1, got " + std::to_string(threads);
+  return budget.Validate();
+}
+
+Stage WithTee(const Stage& stage, double r_in, double r1, double r2,
+              double r3) {
+  Stage s = stage;
+  s.input_resistor_ohm = r_in;
+  s.feedback.kind = Feedback::Kind::kTee;
+  s.feedback.tee = {r1, r2, r3};
+  return s;
+}
+
+double FullScore(const Budget& budget, const TeeSearchOptions& options,
+                 double noise_ref_v, double offset_ref_v) {
+  Scorer scorer{options.ranking, options.offset_weight, noise_ref_v,
+                offset_ref_v};
+  return scorer(budget.output_rms_v, budget.offset.worst_case_v);
+}
+
+TeeSearchResult SearchTee(const Stage& stage, const TeeSearchOptions& o) {
+  assert(o.Validate().empty());
+  TeeSearchResult result;
+  const std::size_t n = o.values.size();
+  const std::size_t n_in = o.input_values.empty() ? 1 : o.input_values.size();
+  result.combinations = static_cast<std::uint64_t>(n) * n * n * n_in;
+
+  const BudgetOptions& ranking_budget = o.budget;
+
+  // The references of the weighted figure: the stage as given.
+  const ClosedFormModel model = MakeClosedFormModel(stage);
+  const ClosedFormFigures closed_ref =
+      stage.feedback.kind == Feedback::Kind::kTee
+          ? ClosedFormTee(model, stage.input_resistor_ohm,
+                          stage.feedback.tee.r1_ohm, stage.feedback.tee.r2_ohm,
+                          stage.feedback.tee.r3_ohm)
+          : ClosedFormPlain(model, stage.input_resistor_ohm,
+                            stage.feedback.resistor_ohm);
+  const Scorer closed_scorer{o.ranking, o.offset_weight,
+                             closed_ref.output_rms_v,
+                             closed_ref.offset_worst_case_v};
+  if (!o.verify) {
+    SweepOutcome sweep =
+        RunSweep(stage, o, closed_scorer, static_cast<std::size_t>(o.top),
+                 /*report=*/true);
+    result.in_tolerance = sweep.in_tolerance;
+    result.rows_pruned = sweep.rows_pruned;
+    result.cancelled = sweep.cancelled;
+    result.best = std::move(sweep.pool);
+    result.status = Status::Ok();
+    return result;
+  }
+  // The full-engine references of the weighted figure (only it needs them).
+  double noise_ref = 0;
+  double offset_ref = 0;
+  if (o.ranking == TeeRanking::kWeighted) {
+    const BudgetOutcome full_ref = ComputeBudget(stage, ranking_budget);
+    if (!full_ref.status.ok) {
+      result.status =
+          Status::Fail("the stage as given: " + full_ref.status.message);
+      return result;
+    }
+    noise_ref = full_ref.budget.output_rms_v;
+    offset_ref = full_ref.budget.offset.worst_case_v;
+  }
+
+  std::size_t pool_size =
+      o.pool > 0 ? static_cast<std::size_t>(o.pool)
+                 : static_cast<std::size_t>(std::max(4 * o.top, o.top + 32));
+  SweepOutcome sweep =
+      RunSweep(stage, o, closed_scorer, pool_size, /*report=*/true);
+  result.in_tolerance = sweep.in_tolerance;
+  result.rows_pruned = sweep.rows_pruned;
+  result.cancelled = sweep.cancelled;
+
+  // Verification by the full engine, in closed-form order, in batches of a
+  // fixed size so that the stop rule sees the same sequence on any number
+  // of threads.
+  std::vector<TeeCandidate> verified;
+  std::vector<std::pair<Key, int>> ranked;  // full-engine keys of verified
+  double ratio_min = kInf;
+  std::size_t next = 0;
+  for (;;) {
+    if (next >= sweep.pool.size()) {
+      // The pool ran out: done if it held every candidate in tolerance,
+      // otherwise search again with a larger pool (its best are the same).
+      if (sweep.pool.size() < pool_size || result.cancelled) break;
+      pool_size *= 4;
+      SweepOutcome larger =
+          RunSweep(stage, o, closed_scorer, pool_size, /*report=*/false);
+      result.cancelled = larger.cancelled;
+      result.in_tolerance = larger.in_tolerance;
+      result.rows_pruned = larger.rows_pruned;
+      sweep.pool = std::move(larger.pool);
+      if (next >= sweep.pool.size()) break;
+    }
+    const std::size_t batch_size =
+        verified.empty() ? static_cast<std::size_t>(o.top) : 8;
+    const std::size_t end = std::min(sweep.pool.size(), next + batch_size);
+    std::vector<BudgetOutcome> outcomes(end - next);
+    ParallelFor(static_cast<int>(end - next), o.threads, [&](int i) {
+      const TeeCandidate& c = sweep.pool[next + i];
+      outcomes[i] = ComputeBudget(
+          WithTee(stage, c.r_in_ohm, c.r1_ohm, c.r2_ohm, c.r3_ohm),
+          ranking_budget);
+    });
+    for (std::size_t i = 0; i < outcomes.size(); ++i) {
+      TeeCandidate c = sweep.pool[next + i];
+      if (!outcomes[i].status.ok) {
+        result.status =
+            Status::Fail(Describe(c) + ": " + outcomes[i].status.message);
+        return result;
+      }
+      c.budget = std::move(outcomes[i].budget);
+      c.score = FullScore(c.budget, o, noise_ref, offset_ref);
+      if (c.closed_score > 0)
+        ratio_min = std::min(ratio_min, c.score / c.closed_score);
+      ranked.push_back({KeyOf(c, c.score), static_cast<int>(verified.size())});
+      verified.push_back(std::move(c));
+    }
+    next = end;
+    if (result.cancelled) break;
+    if (verified.size() >= kMaxVerified) {
+      std::string why = "verification stopped after " +
+                        std::to_string(verified.size()) +
+                        " full-engine budgets";
+      if (next < sweep.pool.size() &&
+          ranked.size() >= static_cast<std::size_t>(o.top) &&
+          ratio_min < kInf && ratio_min > 0) {
+        std::sort(ranked.begin(), ranked.end());
+        // How far below the smallest full/closed ratio seen an unverified
+        // network's ratio would have to fall to enter the top.
+        const double needed =
+            1 - ranked[o.top - 1].first.score /
+                    (sweep.pool[next].closed_score * ratio_min);
+        char buf[160];
+        std::snprintf(buf, sizeof buf,
+                      "; an unverified network would enter the top %d only if "
+                      "its full-engine figure fell %.3g %% further below its "
+                      "closed form than any verified one's",
+                      o.top, 100 * std::max(0.0, needed));
+        why += buf;
+      }
+      result.warnings.push_back(why);
+      break;
+    }
+    // Without a positive closed-form figure there is no ratio to bound the
+    // rest with: the closed-form order stands.
+    if (ratio_min == kInf && verified.size() >= static_cast<std::size_t>(o.top))
+      break;
+    if (ranked.size() >= static_cast<std::size_t>(o.top) &&
+        next < sweep.pool.size()) {
+      std::sort(ranked.begin(), ranked.end());
+      const double top_score = ranked[o.top - 1].first.score;
+      const double bound =
+          sweep.pool[next].closed_score * ratio_min * (1 - o.verify_margin);
+      if (bound > top_score) break;
+    }
+  }
+  result.verified = static_cast<int>(verified.size());
+  std::sort(ranked.begin(), ranked.end());
+  const std::size_t shown = std::min<std::size_t>(o.top, ranked.size());
+  for (std::size_t i = 0; i < shown; ++i)
+    result.best.push_back(verified[ranked[i].second]);
+
+  // The shown candidates get their comparison with the plain resistor.
+  std::vector<BudgetOutcome> plains(shown);
+  ParallelFor(static_cast<int>(shown), o.threads, [&](int i) {
+    plains[i] =
+        ComputeBudget(PlainEquivalent(WithTee(
+                          stage, result.best[i].r_in_ohm, result.best[i].r1_ohm,
+                          result.best[i].r2_ohm, result.best[i].r3_ohm)),
+                      ranking_budget);
+  });
+  for (std::size_t i = 0; i < shown; ++i) {
+    TeeCandidate& c = result.best[i];
+    if (!plains[i].status.ok) {
+      result.status = Status::Fail(
+          Describe(c) + ", plain equivalent: " + plains[i].status.message);
+      return result;
+    }
+    c.budget.tee =
+        CompareTee(c.budget, plains[i].budget,
+                   c.r1_ohm + c.r2_ohm + c.r1_ohm * c.r2_ohm / c.r3_ohm);
+  }
+  result.status = Status::Ok();
+  return result;
+}
+
+}  // namespace hushgain

@@ -1,0 +1,436 @@
+#include "montecarlo/spread.h"
+
+#include <algorithm>
+#include <chrono>
+#include <cmath>
+#include <memory>
+#include <sstream>
+#include <thread>
+
+#include "analysis/restamp_solver.h"
+#include "base/physical_constants.h"
+#include "budget/offset.h"
+#include "budget/resistor_excess.h"
+#include "circuit/expand_stage.h"
+#include "circuit/stage_at_temperature.h"
+#include "montecarlo/random_stream.h"
+#include "noise/excess_noise.h"
+
+namespace hushgain {
+namespace {
+
+// Samples a worker takes at a time.
+constexpr long kBlock = 512;
+// The worst-case bound visits 2^m tolerance corners; beyond this m it is
+// not computed.
+constexpr int kMaxCornerResistors = 16;
+
+struct ResistorInfo {
+  double ohms_25 = 0;
+  double tolerance = 0;
+  double tempco_per_k = 0;
+  bool excess = false;  // has a technology (and is noisy)
+  double noise_index_db = 0;
+  double excess_per_v2 = 0;  // K of S = K / f per volt^2 of drop
+  int a = -1, b = -1;        // unknown indices
+};
+
+// One noise source with the parts of its density that change per sample.
+struct SourceSlot {
+  Port port;
+  double white = 0, corner = 0, flicker = 0;
+  int thermal_of = -1;  // resistor whose 4kT/R this is
+  int excess_of = -1;   // resistor whose excess noise this is
+  // An op-amp current noise that follows the bias current: white_25 and the
+  // table are the 25 °C values, scaled per sample by CurrentNoiseFactor^2.
+  bool follows_bias = false;
+  double white_25 = 0;
+  int table_row = -1;  // row of Model::table_psd; -1: no table
+  double table_scale = 1;
+};
+
+// Everything a sample needs that does not change between samples.
+struct Model {
+  Netlist netlist;  // at 25 °C
+  MnaSystem system;
+  std::unique_ptr<RestampSolver> prototype;
+  std::vector<ResistorInfo> resistors;
+  std::vector<SourceSlot> sources;
+  std::vector<QuadratureNode> nodes;
+  // A tabulated density at every node: row r of the sources with a table,
+  // table_psd[r * nodes.size() + node] (fixed per run: tabulated once).
+  std::vector<double> table_psd;
+  Port signal, e_n, i_plus, i_minus;
+  std::vector<std::pair<Port, double>> junctions;
+  OpAmpModel opamp;  // 25 °C values
+  double nominal_k = 298.15;
+  std::optional<TemperatureRange> range;
+  double dc_input = 0;
+  bool any_excess = false;
+};
+
+// The parts of a sample that its random stream decides.
+struct Draw {
+  double temperature_k = 0;
+  double vos_v = 0;
+  double ios_a = 0;
+  double ib_a = 0;
+};
+
+struct Workspace {
+  explicit Workspace(const Model& m)
+      : solver(*m.prototype),
+        ohms(m.resistors.size()),
+        slots(m.sources),
+        rhs(m.system.size()) {}
+  RestampSolver solver;
+  std::vector<double> ohms;
+  std::vector<SourceSlot> slots;
+  std::vector<double> rhs;
+};
+
+double DcOffset(const Model& m, const RestampSolver& s, const Draw& d,
+                double* gain) {
+  *gain = s.TransferReal(m.signal);
+  const double te = s.TransferReal(m.e_n);
+  const double hp = s.TransferReal(m.i_plus);
+  const double hm = s.TransferReal(m.i_minus);
+  double offset = SignedOffset(d.vos_v, d.ib_a, d.ios_a, te, hp, hm);
+  for (const auto& [port, amperes] : m.junctions)
+    offset += amperes * s.TransferReal(port);
+  return offset;
+}
+
+// Evaluates one sample whose resistor values are already in w.ohms.
+Status EvaluateAt(const Model& m, const Draw& d, Workspace& w,
+                  SpreadSample* out) {
+  RestampSolver& s = w.solver;
+  s.SetResistors(w.ohms.data());
+  Status st = s.SolveAdjoint(0.0);
+  if (!st.ok) return st;
+  out->temperature_k = d.temperature_k;
+  out->vos_v = d.vos_v;
+  out->ios_a = d.ios_a;
+  out->offset_v = DcOffset(m, s, d, &out->gain);
+
+  const double four_kt = 4.0 * kBoltzmannJPerK * d.temperature_k;
+  if (m.any_excess) {
+    // The sample's own DC point (budget/resistor_excess.h stimuli).
+    std::fill(w.rhs.begin(), w.rhs.end(), 0.0);
+    auto add = [&](Port p, double v) {
+      if (p.plus >= 0) w.rhs[p.plus] += v;
+      if (p.minus >= 0) w.rhs[p.minus] -= v;
+    };
+    if (m.dc_input != 0) add(m.signal, m.dc_input);
+    add(m.e_n, d.vos_v);
+    add(m.i_plus, -(d.ib_a + 0.5 * d.ios_a));
+    add(m.i_minus, -(d.ib_a - 0.5 * d.ios_a));
+    for (const auto& [port, amperes] : m.junctions) add(port, amperes);
+    s.SolveDirectDc(w.rhs.data());
+  }
+  const double bias_noise =
+      std::pow(CurrentNoiseFactor(m.opamp, d.temperature_k), 2);
+  for (SourceSlot& slot : w.slots) {
+    if (slot.follows_bias) {
+      slot.white = slot.white_25 * bias_noise;
+      slot.table_scale = bias_noise;
+    }
+    if (slot.thermal_of >= 0) slot.white = four_kt / w.ohms[slot.thermal_of];
+    if (slot.excess_of >= 0) {
+      const ResistorInfo& r = m.resistors[slot.excess_of];
+      const double va = r.a >= 0 ? w.rhs[r.a] : 0.0;
+      const double vb = r.b >= 0 ? w.rhs[r.b] : 0.0;
+      const double ohms = w.ohms[slot.excess_of];
+      slot.flicker =
+          ExcessNoiseCoefficient(r.noise_index_db, va - vb) / (ohms * ohms);
+    }
+  }
+  double power = 0;
+  const std::size_t node_count = m.nodes.size();
+  for (std::size_t q = 0; q < node_count; ++q) {
+    const QuadratureNode& node = m.nodes[q];
+    st = s.SolveAdjoint(node.f_hz);
+    if (!st.ok) return st;
+    const double f = node.f_hz;
+    double psd = 0;
+    for (const SourceSlot& slot : w.slots) {
+      double source = slot.white * (1.0 + slot.corner / f) + slot.flicker / f;
+      if (slot.table_row >= 0)
+        source +=
+            slot.table_scale * m.table_psd[slot.table_row * node_count + q];
+      psd += s.TransferNorm(slot.port) * source;
+    }
+    power += node.weight_hz * psd;
+  }
+  out->noise_rms_v = std::sqrt(power);
+  return Status::Ok();
+}
+
+Draw DrawSample(const Model& m, RandomStream& rng, std::vector<double>* ohms) {
+  Draw d;
+  d.temperature_k = m.nominal_k;
+  if (m.range)
+    d.temperature_k =
+        m.range->min_k + (m.range->max_k - m.range->min_k) * rng.Uniform01();
+  for (std::size_t k = 0; k < m.resistors.size(); ++k) {
+    const ResistorInfo& r = m.resistors[k];
+    const double e = rng.UniformSymmetric(r.tolerance);
+    (*ohms)[k] = r.ohms_25 * (1.0 + e) *
+                 ResistorTemperatureFactor(r.tempco_per_k, d.temperature_k);
+  }
+  const bool gaussian =
+      m.opamp.offset_distribution == OffsetDistribution::kGaussian;
+  const double vos_25 = gaussian ? rng.Gaussian(m.opamp.vos_v)
+                                 : rng.UniformSymmetric(m.opamp.vos_v);
+  const double drift = rng.UniformSymmetric(m.opamp.vos_drift_v_per_k);
+  const double ios_25 = gaussian ? rng.Gaussian(m.opamp.ios_a)
+                                 : rng.UniformSymmetric(m.opamp.ios_a);
+  const double k = BiasCurrentFactor(m.opamp, d.temperature_k);
+  d.vos_v = vos_25 + drift * (d.temperature_k - kDeviceReferenceK);
+  d.ios_a = ios_25 * k;
+  d.ib_a = m.opamp.ib_a * k;
+  return d;
+}
+
+Status BuildModel(const Stage& stage, const BudgetOutcome& nominal, Model* m) {
+  Stage s25 = stage;
+  s25.capacitor_target.reset();
+  s25.feedback.capacitor_f = nominal.stage_used.feedback.capacitor_f;
+  m->netlist = ExpandStage(s25);
+  Status st = MnaSystem::Build(m->netlist, &m->system);
+  if (!st.ok) return st;
+  m->prototype = std::make_unique<RestampSolver>(m->system, m->netlist);
+  m->opamp = stage.opamp;
+  m->nominal_k = stage.temperature_k;
+  m->range = stage.temperature_range;
+  m->dc_input = stage.dc_input;
+  m->nodes = QuadratureNodes(nominal.noise_partition);
+  const Netlist& net = m->netlist;
+  for (const Resistor& r : net.resistors) {
+    ResistorInfo info;
+    info.ohms_25 = r.ohms;
+    info.a = m->system.NodeIndex(r.a);
+    info.b = m->system.NodeIndex(r.b);
+    if (const ResistorSpec* spec = ResistorSpecFor(stage, r.name)) {
+      info.tolerance = spec->tolerance;
+      info.tempco_per_k = spec->technology.tempco_per_k;
+      info.excess = r.noisy;
+      info.noise_index_db = spec->technology.noise_index_db;
+      info.excess_per_v2 = ExcessNoiseCoefficient(info.noise_index_db, 1.0);
+      m->any_excess = m->any_excess || r.noisy;
+    }
+    m->resistors.push_back(info);
+  }
+  m->signal = m->system.Compile(net.signal);
+  m->e_n = m->system.Compile(Excitation{OpAmpInputVoltage{0}});
+  m->i_plus = m->system.Compile(
+      Excitation{CurrentInjection{net.opamps[0].plus, kGround}});
+  m->i_minus = m->system.Compile(
+      Excitation{CurrentInjection{net.opamps[0].minus, kGround}});
+  for (const JunctionCurrent& j : net.junction_currents)
+    m->junctions.push_back(
+        {m->system.Compile(Excitation{CurrentInjection{j.b, j.a}}), j.amperes});
+  // The budget's sources, in its order (noise/noise_source.h), then one
+  // excess source per resistor with a technology.
+  std::vector<int> noisy;
+  for (std::size_t k = 0; k < net.resistors.size(); ++k)
+    if (net.resistors[k].noisy) noisy.push_back(static_cast<int>(k));
+  int next_thermal = 0;
+  for (const NoiseSource& src : CollectNoiseSources(net, stage.temperature_k)) {
+    SourceSlot slot;
+    slot.port = m->system.Compile(src.excitation);
+    slot.white = src.white_psd;
+    slot.white_25 = src.white_psd;
+    slot.corner = src.corner_hz;
+    slot.follows_bias = src.kind == NoiseKind::kOpAmpCurrent &&
+                        m->opamp.current_noise_temperature ==
+                            CurrentNoiseTemperature::kWithBiasCurrent;
+    if (!src.table.empty()) {
+      slot.table_row = static_cast<int>(m->table_psd.size() / m->nodes.size());
+      for (const QuadratureNode& node : m->nodes)
+        m->table_psd.push_back(src.table.PsdAt(node.f_hz));
+    }
+    if (src.kind == NoiseKind::kThermal)
+      slot.thermal_of = noisy[next_thermal++];
+    m->sources.push_back(slot);
+  }
+  for (std::size_t k = 0; k < net.resistors.size(); ++k) {
+    if (!m->resistors[k].excess) continue;
+    SourceSlot slot;
+    slot.port = m->system.Compile(
+        Excitation{CurrentInjection{net.resistors[k].a, net.resistors[k].b}});
+    slot.excess_of = static_cast<int>(k);
+    m->sources.push_back(slot);
+  }
+  return Status::Ok();
+}
+
+// See SpreadRun::worst_case_offset_v.
+double WorstCaseOffset(const Model& m, Workspace& w) {
+  std::vector<int> varied;
+  for (std::size_t k = 0; k < m.resistors.size(); ++k)
+    if (m.resistors[k].tolerance > 0) varied.push_back(static_cast<int>(k));
+  if (static_cast<int>(varied.size()) > kMaxCornerResistors) return 0;
+  std::vector<double> temperatures = {m.nominal_k};
+  if (m.range) {
+    temperatures.push_back(m.range->min_k);
+    temperatures.push_back(m.range->max_k);
+    if (m.range->min_k < kDeviceReferenceK &&
+        kDeviceReferenceK < m.range->max_k)
+      temperatures.push_back(kDeviceReferenceK);
+  }
+  double bound = 0;
+  for (double t : temperatures) {
+    const double k = BiasCurrentFactor(m.opamp, t);
+    const double vos =
+        std::fabs(m.opamp.vos_v) +
+        std::fabs(m.opamp.vos_drift_v_per_k) * std::fabs(t - kDeviceReferenceK);
+    const double ios = std::fabs(m.opamp.ios_a * k);
+    const double ib = m.opamp.ib_a * k;
+    double vos_term = 0, ib_term = 0, ios_term = 0, dark_term = 0;
+    for (long corner = 0; corner < (1L << varied.size()); ++corner) {
+      for (std::size_t k2 = 0; k2 < m.resistors.size(); ++k2) {
+        const ResistorInfo& r = m.resistors[k2];
+        w.ohms[k2] = r.ohms_25 * ResistorTemperatureFactor(r.tempco_per_k, t);
+      }
+      for (std::size_t v = 0; v < varied.size(); ++v) {
+        const ResistorInfo& r = m.resistors[varied[v]];
+        const double e = (corner >> v) & 1 ? r.tolerance : -r.tolerance;
+        w.ohms[varied[v]] = r.ohms_25 * (1.0 + e) *
+                            ResistorTemperatureFactor(r.tempco_per_k, t);
+      }
+      w.solver.SetResistors(w.ohms.data());
+      if (!w.solver.SolveAdjoint(0.0).ok) return 0;
+      const double te = w.solver.TransferReal(m.e_n);
+      const double hp = w.solver.TransferReal(m.i_plus);
+      const double hm = w.solver.TransferReal(m.i_minus);
+      double h_sum = hp + hm;
+      if (std::fabs(h_sum) < 1e-9 * (std::fabs(hp) + std::fabs(hm))) h_sum = 0;
+      double dark = 0;
+      for (const auto& [port, amperes] : m.junctions)
+        dark += amperes * w.solver.TransferReal(port);
+      vos_term = std::max(vos_term, vos * std::fabs(te));
+      ib_term = std::max(ib_term, std::fabs(ib * h_sum));
+      ios_term = std::max(ios_term, 0.5 * ios * std::fabs(hp - hm));
+      dark_term = std::max(dark_term, std::fabs(dark));
+    }
+    bound = std::max(bound, vos_term + ib_term + ios_term + dark_term);
+  }
+  // Rounding of the sums above against the samples': one part in 1e12.
+  return bound * (1 + 1e-12);
+}
+
+}  // namespace
+
+std::string SpreadOptions::Validate() const {
+  std::ostringstream out;
+  if (samples < 1)
+    out << "samples is " << samples << ", must be at least 1";
+  else if (threads < 0)
+    out << "threads is " << threads << ", must be 0 (all) or more";
+  else
+    out << budget.Validate();
+  return out.str();
+}
+
+SpreadRun RunSpread(const Stage& stage, const SpreadOptions& options,
+                    const SpreadControl& control) {
+  SpreadRun run;
+  BudgetOutcome nominal = ComputeBudget(stage, options.budget);
+  if (!nominal.status.ok) {
+    run.status = nominal.status;
+    return run;
+  }
+  run.nominal = nominal.budget;
+  run.gaussian_offsets =
+      stage.opamp.offset_distribution == OffsetDistribution::kGaussian;
+  Model model;
+  run.status = BuildModel(stage, nominal, &model);
+  if (!run.status.ok) return run;
+  for (const Resistor& r : model.netlist.resistors)
+    run.resistor_names.push_back(r.name);
+  const std::size_t m = model.resistors.size();
+
+  // The nominal point: every resistor exact at the nominal temperature.
+  {
+    Workspace w(model);
+    for (std::size_t k = 0; k < m; ++k)
+      w.ohms[k] = model.resistors[k].ohms_25 *
+                  ResistorTemperatureFactor(model.resistors[k].tempco_per_k,
+                                            model.nominal_k);
+    w.solver.SetResistors(w.ohms.data());
+    run.status = w.solver.SolveAdjoint(0.0);
+    if (!run.status.ok) return run;
+    run.nominal_gain = w.solver.TransferReal(model.signal);
+    run.worst_case_offset_v = WorstCaseOffset(model, w);
+  }
+
+  const long total = options.samples;
+  run.samples.resize(total);
+  run.resistor_ohms.resize(static_cast<std::size_t>(total) * m);
+  int threads =
+      options.threads > 0
+          ? options.threads
+          : static_cast<int>(std::max(1u, std::thread::hardware_concurrency()));
+  threads =
+      static_cast<int>(std::min<long>(threads, (total + kBlock - 1) / kBlock));
+  std::atomic<long> next{0}, done{0};
+  std::atomic<int> running{threads};
+  std::atomic<bool> failed{false};
+  std::vector<Status> failures(threads);
+  auto stopped = [&] {
+    return control.stop && control.stop->load(std::memory_order_relaxed);
+  };
+  auto worker = [&](int id) {
+    Workspace w(model);
+    while (!failed.load(std::memory_order_relaxed) && !stopped()) {
+      const long begin = next.fetch_add(kBlock);
+      if (begin >= total) break;
+      const long end = std::min(total, begin + kBlock);
+      for (long i = begin; i < end; ++i) {
+        RandomStream rng(options.seed, static_cast<std::uint64_t>(i));
+        const Draw d = DrawSample(model, rng, &w.ohms);
+        std::copy(w.ohms.begin(), w.ohms.end(),
+                  run.resistor_ohms.begin() + i * static_cast<long>(m));
+        SpreadSample& out = run.samples[i];
+        Status s = EvaluateAt(model, d, w, &out);
+        if (!s.ok) {
+          failures[id] = s;
+          failed = true;
+          break;
+        }
+        out.gain_error = out.gain / run.nominal_gain - 1.0;
+      }
+      done.fetch_add(end - begin);
+    }
+    running.fetch_sub(1);
+  };
+  std::vector<std::thread> pool;
+  for (int t = 1; t < threads; ++t) pool.emplace_back(worker, t);
+  if (control.progress) {
+    // The calling thread reports progress while the others work, then joins in.
+    std::thread last(worker, 0);
+    while (running.load() > 0) {
+      control.progress(done.load(), total);
+      std::this_thread::sleep_for(std::chrono::milliseconds(100));
+    }
+    last.join();
+    control.progress(done.load(), total);
+  } else {
+    worker(0);
+  }
+  for (std::thread& t : pool) t.join();
+  for (const Status& s : failures)
+    if (!s.ok) {
+      run.status = s;
+      return run;
+    }
+  if (stopped() && done.load() < total) {
+    run.interrupted = true;
+    run.samples.clear();
+    run.resistor_ohms.clear();
+  }
+  return run;
+}
+
+}  // namespace hushgain

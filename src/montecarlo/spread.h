@@ -1,0 +1,89 @@
+// `spread`: a Monte Carlo of a stage over the spread of real parts and the
+// temperature range. Each sample draws, from its own random stream
+// (budget/random_stream.h, seeded by the run's seed and the sample's index):
+//   temperature  uniform over [min, max] of the stage's range (the nominal
+//                without a range)
+//   resistors    R = R_25 (1 + e) (1 + tc (T - 25 °C)), e uniform within
+//                +-tolerance of the resistor's spec (no spec: exact)
+//   Vos          uniform within +-offset_voltage, or Gaussian with it as
+//                sigma (OpAmpModel::offset_distribution), plus the drift
+//                d (T - 25 °C) with d uniform within +-offset_voltage_drift
+//   Ios          like Vos (uniform within +-Ios or Gaussian), then scaled
+//                with the bias-current law k(T); Ib = Ib_25 k(T)
+// and computes, through the engine (analysis/restamp_solver.h):
+//   gain         the DC signal gain (finite A0), V/V or V/A
+//   gain error   gain / nominal gain - 1
+//   offset       Vos NG - Ib (H+ + H-) - (Ios/2)(H+ - H-) + dark, signed
+//   noise        the total output rms over the band, integrated on the
+//                quadrature nodes of the nominal budget's converged
+//                partition (integrate/band_integral.h), excess noise
+//                included at the sample's own DC point
+// An "auto" R_plus is the part chosen at 25 °C (the balance value), which
+// then spreads like the others. Results do not depend on the thread count.
+#ifndef HUSHGAIN_MONTECARLO_SPREAD_H_
+#define HUSHGAIN_MONTECARLO_SPREAD_H_
+
+#include <atomic>
+#include <cstdint>
+#include <functional>
+#include <string>
+#include <vector>
+
+#include "base/status.h"
+#include "budget/budget.h"
+#include "budget/compute_budget.h"
+#include "circuit/stage.h"
+
+namespace hushgain {
+
+struct SpreadOptions {
+  long samples = 10000;    // at least 1
+  std::uint64_t seed = 1;  // any value
+  int threads = 0;         // 0 = the machine's hardware threads
+  BudgetOptions budget;    // for the nominal budget
+
+  // Empty when valid; names the field, its value and the rule.
+  std::string Validate() const;
+};
+
+struct SpreadSample {
+  double temperature_k = 0;
+  double vos_v = 0;  // at the sample's temperature, signed
+  double ios_a = 0;  // at the sample's temperature, signed
+  double gain = 0;
+  double gain_error = 0;
+  double offset_v = 0;
+  double noise_rms_v = 0;
+};
+
+struct SpreadRun {
+  Status status;
+  bool interrupted = false;
+  Budget nominal;                     // the budget at the nominal temperature
+  double nominal_gain = 0;            // the DC gain the errors are relative to
+  bool gaussian_offsets = false;      // the op-amp's offset_distribution
+  std::vector<SpreadSample> samples;  // index order
+  std::vector<std::string> resistor_names;  // netlist order
+  std::vector<double> resistor_ohms;        // samples x names, row-major
+  // Max over the range ends (and 25 °C) of the sum of each offset term's
+  // largest magnitude over the corners of the tolerance box, with |Vos| +
+  // |drift| |T - 25 °C| and |Ios| k(T): a bound on every sample when the
+  // offsets are uniform; 0 when the box has more than 16 varied resistors.
+  double worst_case_offset_v = 0;
+};
+
+struct SpreadControl {
+  // Set (e.g. from a SIGINT handler) to stop early; the run is then marked
+  // interrupted and holds no samples.
+  const std::atomic<bool>* stop = nullptr;
+  // Called on the calling thread about ten times a second: (done, total).
+  std::function<void(long, long)> progress;
+};
+
+// The stage as io produced it (25 °C values); never prints.
+SpreadRun RunSpread(const Stage& stage, const SpreadOptions& options,
+                    const SpreadControl& control = {});
+
+}  // namespace hushgain
+
+#endif  // HUSHGAIN_MONTECARLO_SPREAD_H_

@@ -1,0 +1,27 @@
+// The words the reports print for the core's enums. Results carry enums;
+// every report (text, Markdown, CSV, JSON, plots) names them through these
+// functions and nowhere else, so a name changes in one place.
+#ifndef HUSHGAIN_REPORT_ENUM_WORDS_H_
+#define HUSHGAIN_REPORT_ENUM_WORDS_H_
+
+#include <string>
+
+#include "design/tee_search.h"
+#include "noise/noise_source.h"
+
+namespace hushgain {
+
+// The JSON and CSV names: "thermal", "shot", "voltage_noise",
+// "current_noise", "excess".
+const char* NoiseKindWord(NoiseKind kind);
+
+// The label of the budget table's kind column: "thermal", "shot",
+// "op-amp e_n", "op-amp i_n", "excess 1/f".
+std::string NoiseKindLabel(NoiseKind kind);
+
+// "noise", "offset" or "weighted" (also the values of `tee search --rank`).
+const char* TeeRankingWord(TeeRanking ranking);
+
+}  // namespace hushgain
+
+#endif  // HUSHGAIN_REPORT_ENUM_WORDS_H_

@@ -1,0 +1,100 @@
+#include "design/tia_suggest.h"
+
+#include <doctest/doctest.h>
+
+#include <cmath>
+
+#include "test_support.h"
+
+namespace hushgain {
+namespace {
+
+using test::RelErr;
+
+// The REFERENCES.md section 7 photodiode and op-amp: C = C_d + C_in = 50 pF,
+// GBW = 10 MHz. The Butterworth bandwidth is f_0 = sqrt(GBW / (2 pi R_f
+// (C + C_f))) with C_f = sqrt(2 w_t R_f C - 1) / (w_t R_f) (derived there).
+Stage Photodiode() {
+  Stage s;
+  s.name = "suggest";
+  s.temperature_k = 300;
+  s.band_low_hz = 1;
+  s.band_high_hz = 10e3;
+  s.reference_hz = 1e3;
+  s.topology = Topology::kTransimpedance;
+  s.photodiode.capacitance_f = 47e-12;
+  s.photodiode.responsivity_a_per_w = 0.5;
+  s.opamp = test::IdealOpAmp(10e-9, 1e-15);
+  s.opamp.open_loop_gain = 1e9;
+  s.opamp.gbw_hz = 10e6;
+  s.opamp.c_cm_f = 3e-12;
+  s.feedback.resistor_ohm = 1e6;
+  return s;
+}
+
+double FlatBandwidth(double rf) {
+  const double c = 50e-12, wt = 2 * kPi * 10e6;
+  const double cf = std::sqrt(2 * wt * rf * c - 1) / (wt * rf);
+  return std::sqrt(10e6 / (2 * kPi * rf * (c + cf)));
+}
+
+TEST_CASE(
+    "the largest E12 feedback resistor for 50 kHz is the one the closed form "
+    "allows") {
+  TiaSuggestOptions options;
+  options.bandwidth_hz = 50e3;
+  // E12 over 1 M .. 82 M (IEC 60063).
+  for (double decade : {1e6, 1e7})
+    for (double v :
+         {1.0, 1.2, 1.5, 1.8, 2.2, 2.7, 3.3, 3.9, 4.7, 5.6, 6.8, 8.2})
+      options.resistors_ohm.push_back(v * decade);
+  options.rows = 3;
+  REQUIRE(options.Validate().empty());
+  // Section 7 closed form: 12 M is flat to 51.3 kHz, 15 M only to 45.9 kHz.
+  CHECK(FlatBandwidth(12e6) > 50e3);
+  CHECK(FlatBandwidth(15e6) < 50e3);
+
+  const TiaSuggestion s = SuggestTransimpedance(Photodiode(), options);
+  REQUIRE_MESSAGE(s.status.ok, s.status.message);
+  REQUIRE(s.rows.size() ==
+          4);  // 8.2 M, 10 M, 12 M meet it; 15 M shown as missing it
+  REQUIRE(s.best == 2);
+  CHECK(s.rows[s.best].rf_ohm == 12e6);
+  CHECK(s.rows[s.best].meets_target);
+  CHECK_FALSE(s.rows[3].meets_target);
+  CHECK(s.rows[3].rf_ohm == 15e6);
+  for (int i = 0; i <= s.best; ++i) {
+    CAPTURE(i);
+    CHECK(RelErr(s.rows[i].bandwidth_3db_hz, 50e3) <
+          1e-3);  // C_f set for the target
+    CHECK(RelErr(s.rows[i].butterworth_bandwidth_hz,
+                 FlatBandwidth(s.rows[i].rf_ohm)) < 0.01);
+    CHECK(s.rows[i].peaking_db < 0.01);  // at least as damped as Butterworth
+  }
+  // Larger R_f, less input current noise (R_f's 4kT/R_f falls).
+  CHECK(s.rows[2].input_density_a_per_rthz <
+        s.rows[0].input_density_a_per_rthz);
+  // GBW / (2 pi C f^2) = 12.73 M, the textbook estimate of the largest R_f.
+  CHECK(RelErr(s.largest_rf_estimate_ohm, 10e6 / (2 * kPi * 50e-12 * 2.5e9)) <
+        test::kRelTight);
+}
+
+TEST_CASE("a target no candidate reaches says what to change") {
+  TiaSuggestOptions options;
+  options.bandwidth_hz = 5e6;
+  options.resistors_ohm = {1e6, 10e6};
+  const TiaSuggestion s = SuggestTransimpedance(Photodiode(), options);
+  CHECK_FALSE(s.status.ok);
+  CHECK(s.status.message.find(
+            "a faster op-amp or a smaller photodiode is needed") !=
+        std::string::npos);
+}
+
+TEST_CASE("suggestion options validate with a message naming the field") {
+  TiaSuggestOptions options;
+  options.resistors_ohm = {1e6};
+  CHECK(options.Validate() == "bandwidth is 0 Hz, must be positive");
+}
+
+}  // namespace
+}  // namespace hushgain

@@ -1,0 +1,217 @@
+// The Monte Carlo against the nominal budget and against statistics derived
+// in the tests: exact reproduction with zero spread, the gain-error sigma of
+// two uniform resistors, the offset block at the nominal temperature, the
+// worst case as a bound, and independence from the thread count.
+#include "montecarlo/spread.h"
+
+#include <doctest/doctest.h>
+
+#include <cmath>
+
+#include "montecarlo/spread_statistics.h"
+#include "test_support.h"
+
+namespace hushgain {
+namespace {
+
+using test::RelErr;
+
+// Zero spread goes through the same arithmetic as the budget up to the
+// order of sums and the solver's pivoting: agreement to rounding.
+constexpr double kRelRounding = 1e-11;
+
+// A T-network stage with a finite GBW, pin capacitances, an output
+// resistance, a load and thin-film-like parts.
+Stage TeeWithFiniteGbw() {
+  OpAmpModel m;
+  m.class_name = "test JFET-like";
+  m.e_w_v_per_rthz = 6e-9;
+  m.f_cv_hz = 50;
+  m.i_w_a_per_rthz = 3e-15;
+  m.open_loop_gain = 1e6;
+  m.gbw_hz = 20e6;
+  m.output_resistance_ohm = 100;
+  m.c_cm_f = 5e-12;
+  m.c_diff_f = 5e-12;
+  m.ib_a = 5e-12;
+  Stage s = test::TeeStage(10e3, 100e3, 100e3, 1.02e3, m, 298.15);
+  s.band_low_hz = 10;
+  s.band_high_hz = 5e3;
+  s.reference_hz = 1e3;
+  s.source.resistance_ohm = 1e3;
+  s.load_ohm = 2e3;
+  s.dc_input = 1e-3;
+  s.resistors =
+      ResistorSpec{"thin-film", {"thin film", -35, 25e-6, 0.001}, 0.0};
+  return s;
+}
+
+SpreadRun Run(const Stage& stage, long samples, int threads = 2,
+              std::uint64_t seed = 7) {
+  SpreadOptions options;
+  options.samples = samples;
+  options.seed = seed;
+  options.threads = threads;
+  SpreadRun run = RunSpread(stage, options);
+  REQUIRE_MESSAGE(run.status.ok, run.status.message);
+  REQUIRE(static_cast<long>(run.samples.size()) == samples);
+  return run;
+}
+
+TEST_CASE("with every tolerance zero each sample equals the nominal budget") {
+  // Zero resistor tolerance, no offsets to draw (Vos = Ios = 0), no range:
+  // every sample is the nominal stage.
+  const Stage stage = TeeWithFiniteGbw();
+  const SpreadRun run = Run(stage, 300);
+  const Budget& b = run.nominal;
+  CHECK(RelErr(run.nominal_gain, b.signal_gain_dc) < kRelRounding);
+  for (const SpreadSample& s : run.samples) {
+    CHECK(s.gain_error == 0.0);
+    CHECK(RelErr(s.noise_rms_v, b.output_rms_v) < kRelRounding);
+    CHECK(RelErr(s.offset_v, b.offset.ib_v) < kRelRounding);
+    CHECK(s.temperature_k == stage.temperature_k);
+  }
+}
+
+TEST_CASE(
+    "gain error of two 1 % uniform resistors: sigma from the ratio of two "
+    "uniforms") {
+  // G = Rf/Rin; with Rf = Rf0 (1 + a), Rin = Rin0 (1 + b), a and b uniform on
+  // [-t, t], the relative error is (1 + a)/(1 + b) - 1. Exactly:
+  //   E[(1 + a)^2] = 1 + t^2/3,  E[1/(1 + b)] = ln((1 + t)/(1 - t)) / (2t),
+  //   E[1/(1 + b)^2] = 1 / (1 - t^2),
+  //   var = (1 + t^2/3) / (1 - t^2) - (ln((1 + t)/(1 - t)) / (2t))^2,
+  // and to first order sigma = t sqrt(2/3) (each uniform has variance t^2/3).
+  const double t = 0.01;
+  const double mean_inverse = std::log((1 + t) / (1 - t)) / (2 * t);
+  const double exact_sigma =
+      std::sqrt((1 + t * t / 3) / (1 - t * t) - mean_inverse * mean_inverse);
+  const double first_order = t * std::sqrt(2.0 / 3.0);
+  CHECK(RelErr(exact_sigma, first_order) < 1e-3);
+  Stage stage =
+      test::InvertingStage(10e3, 100e3, test::IdealOpAmp(1e-9, 0), 300.0);
+  stage.resistors = ResistorSpec{"x", {"test film", -40, 0, t}, t};
+  const SpreadRun run = Run(stage, 100000);
+  const SpreadSummary summary = Summarize(run.samples, {});
+  CHECK(RelErr(summary.gain_error.sigma, exact_sigma) < 0.02);
+  // The ratio's support: |error| <= (1 + t)/(1 - t) - 1.
+  CHECK(summary.gain_error.max <= (1 + t) / (1 - t) - 1);
+  CHECK(summary.gain_error.min >= (1 - t) / (1 + t) - 1);
+}
+
+TEST_CASE(
+    "output offset at the nominal temperature equals the budget's offset "
+    "block") {
+  // Zero tolerance, no range: the offset of a sample is its Vos times the
+  // budget's DC noise gain plus the budget's Ib term (signed), and with Vos
+  // = 0 its Ios term is the budget's |Ios term| scaled by |Ios_sample| / Ios.
+  Stage stage = TeeWithFiniteGbw();
+  stage.opamp.vos_v = 300e-6;
+  const SpreadRun with_vos = Run(stage, 500);
+  const OffsetBlock& o = with_vos.nominal.offset;
+  for (const SpreadSample& s : with_vos.samples)
+    CHECK(std::fabs(s.offset_v - (s.vos_v * o.noise_gain_dc + o.ib_v)) <=
+          kRelRounding * o.worst_case_v);
+  stage.opamp.vos_v = 0;
+  stage.opamp.ios_a = 2e-12;
+  const SpreadRun with_ios = Run(stage, 500);
+  const OffsetBlock& p = with_ios.nominal.offset;
+  for (const SpreadSample& s : with_ios.samples)
+    CHECK(RelErr(std::fabs(s.offset_v - p.ib_v),
+                 std::fabs(s.ios_a) / 2e-12 * p.ios_v) < 1e-9);
+}
+
+TEST_CASE("the worst-case offset bounds every sample with the same limits") {
+  // Tolerances 0.1 % and 1 %, tempco, -20 .. 70 °C, uniform Vos (with drift)
+  // and Ios, FET Ib doubling every 10 °C, an auto R_plus.
+  Stage stage = TeeWithFiniteGbw();
+  stage.opamp.vos_v = 300e-6;
+  stage.opamp.vos_drift_v_per_k = 3e-6;
+  stage.opamp.ios_a = 2e-12;
+  stage.opamp.ib_law = BiasTemperatureLaw::kDoubling;
+  stage.opamp.ib_law_value = 10;
+  stage.plus_resistor.mode = PlusResistor::Mode::kAuto;
+  stage.temperature_range = TemperatureRange{253.15, 343.15};
+  stage.resistors->tolerance = 0.001;
+  stage.resistor_overrides["R3"] = {
+      "thick-film", {"thick film", -10, 100e-6, 0.01}, 0.01};
+  const SpreadRun run = Run(stage, 20000);
+  REQUIRE(run.worst_case_offset_v > 0);
+  double largest = 0;
+  for (const SpreadSample& s : run.samples)
+    largest = std::max(largest, std::fabs(s.offset_v));
+  CHECK(largest <= run.worst_case_offset_v);
+  // Not vacuous: the samples reach well into the bound (Vos dominates; a
+  // uniform Vos reaches 90 % of its range in 10 % of the samples).
+  CHECK(largest > 0.8 * run.worst_case_offset_v);
+}
+
+TEST_CASE(
+    "samples do not depend on the thread count, and the seed changes them") {
+  Stage stage = TeeWithFiniteGbw();
+  stage.opamp.vos_v = 300e-6;
+  stage.resistors->tolerance = 0.01;
+  stage.temperature_range = TemperatureRange{253.15, 343.15};
+  const SpreadRun one = Run(stage, 3000, 1);
+  const SpreadRun two = Run(stage, 3000, 2);
+  const SpreadRun other_seed = Run(stage, 3000, 2, 8);
+  bool same = true, differs = false;
+  for (std::size_t i = 0; i < one.samples.size(); ++i) {
+    same = same && one.samples[i].offset_v == two.samples[i].offset_v &&
+           one.samples[i].noise_rms_v == two.samples[i].noise_rms_v &&
+           one.samples[i].gain == two.samples[i].gain;
+    differs =
+        differs || one.samples[i].offset_v != other_seed.samples[i].offset_v;
+  }
+  CHECK(same);
+  CHECK(differs);
+  CHECK(one.resistor_ohms == two.resistor_ohms);
+}
+
+TEST_CASE("Gaussian offsets take the device's value as sigma") {
+  // Zero tolerance, Ib = 0: offset = Vos NG with Vos ~ N(0, 100 uV). The
+  // sample sigma of 2e4 draws has a relative standard error of
+  // 1 / sqrt(2 n) = 0.5 %.
+  Stage stage = TeeWithFiniteGbw();
+  stage.opamp.ib_a = 0;
+  stage.opamp.vos_v = 100e-6;
+  stage.opamp.offset_distribution = OffsetDistribution::kGaussian;
+  const SpreadRun run = Run(stage, 20000);
+  const SpreadSummary summary = Summarize(run.samples, {});
+  CHECK(RelErr(summary.offset.sigma,
+               100e-6 * run.nominal.offset.noise_gain_dc) < 0.02);
+  // Unbounded: some samples pass the 1-sigma "worst case" of the budget.
+  CHECK(summary.offset.max > run.nominal.offset.worst_case_v);
+}
+
+TEST_CASE("percentiles interpolate between order statistics") {
+  // Hyndman and Fan (1996) definition 7: x[(n - 1) p], linear in between.
+  const std::vector<double> sorted = {1, 2, 3, 4, 5};
+  CHECK(Percentile(sorted, 0.0) == 1);
+  CHECK(Percentile(sorted, 1.0) == 5);
+  CHECK(RelErr(Percentile(sorted, 0.1), 1.4) < test::kRelTight);
+  const Distribution d = Describe({2, 4, 4, 4, 5, 5, 7, 9});
+  CHECK(d.mean == 5);
+  CHECK(RelErr(d.sigma, std::sqrt(32.0 / 7.0)) <
+        test::kRelTight);  // divisor n - 1
+}
+
+TEST_CASE("yield counts the samples inside every given limit") {
+  std::vector<SpreadSample> samples(4);
+  samples[0].offset_v = 1e-3;
+  samples[1].offset_v = -3e-3;
+  samples[2].offset_v = 2e-3;
+  samples[3].offset_v = 0.5e-3;
+  samples[2].noise_rms_v = 2e-6;
+  SpreadLimits limits;
+  limits.offset_v = 2e-3;
+  limits.noise_v = 1e-6;
+  const SpreadYield y = Yield(samples, limits);
+  CHECK(*y.offset == 0.75);
+  CHECK(*y.noise == 0.75);
+  CHECK(*y.all == 0.5);
+  CHECK_FALSE(y.gain_error.has_value());
+}
+
+}  // namespace
+}  // namespace hushgain
