@@ -44,7 +44,7 @@ struct BudgetOutcome {
 
 // The stage must be valid (io validates user input). Its device and
 // resistor values are at 25 °C; the budget is computed at the stage's
-// temperature (budget/stage_at_temperature.h). Never prints.
+// temperature (circuit/stage_at_temperature.h). Never prints.
 BudgetOutcome ComputeBudget(const Stage& stage, const BudgetOptions& options);
 
 // The same for a stage already moved to its temperature (no further

@@ -17,7 +17,7 @@
 
 namespace hushgain {
 
-// `stage` is already at its temperature (budget/stage_at_temperature.h) and
+// `stage` is already at its temperature (circuit/stage_at_temperature.h) and
 // has a fixed feedback capacitor. `drops` (may be null) receives each
 // resistor's DC drop.
 Status PrepareStageEvaluator(const Stage& stage, Netlist* netlist,

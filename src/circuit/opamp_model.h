@@ -35,9 +35,10 @@ enum class CurrentNoiseTemperature {
   kWithBiasCurrent,  // i_n^2 scales with I_b(T) / I_b(25 °C)
 };
 
-// How Vos and Ios spread from part to part (the Monte Carlo, budget/spread.h):
-// uniform within +-offset_voltage and +-offset_current (read as maxima), or
-// Gaussian with them as sigma (read as typical values). Default uniform.
+// How Vos and Ios spread from part to part (the Monte Carlo,
+// montecarlo/spread.h): uniform within +-offset_voltage and +-offset_current
+// (read as maxima), or Gaussian with them as sigma (read as typical values).
+// Default uniform.
 enum class OffsetDistribution {
   kUniform,
   kGaussian,

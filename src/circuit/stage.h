@@ -85,7 +85,7 @@ struct Stage {
   std::string name;
   // The nominal temperature. Device and resistor values are at 25 °C; the
   // budget evaluates the stage at this temperature
-  // (budget/stage_at_temperature.h).
+  // (circuit/stage_at_temperature.h).
   double temperature_k = 298.15;
   std::optional<TemperatureRange> temperature_range;
   double band_low_hz = 0;

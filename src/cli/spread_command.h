@@ -1,6 +1,6 @@
 // `hushgain spread STAGE.json --samples N --seed S`: the Monte Carlo of a
 // stage over resistor tolerances, op-amp offsets and temperature
-// (budget/spread.h), with yields against limits, the samples as CSV and,
+// (montecarlo/spread.h), with yields against limits, the samples as CSV and,
 // with --plot, the histograms as a picture (report/spread_plot_script.h).
 #ifndef HUSHGAIN_CLI_SPREAD_COMMAND_H_
 #define HUSHGAIN_CLI_SPREAD_COMMAND_H_

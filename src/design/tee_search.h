@@ -9,7 +9,7 @@
 //     R3 = R1 R2 / (Req - R1 - R2) lies in an interval that moves up with
 //     R2; a two-pointer walk over the sorted R3 values finds the candidates
 //     of every R2 without scanning (the exact gain test then decides).
-//  2. Closed-form lower bounds (ideal op-amp, budget/closed_form_budget.h)
+//  2. Closed-form lower bounds (ideal op-amp, design/closed_form_budget.h)
 //     of the figure over all R2, R3 for a given (R_in, R1), and over all R1
 //     for a given R_in, skip whole rows that cannot beat the current pool
 //     (a strict comparison, so the result does not depend on the order).

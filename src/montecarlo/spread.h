@@ -1,6 +1,7 @@
 // `spread`: a Monte Carlo of a stage over the spread of real parts and the
 // temperature range. Each sample draws, from its own random stream
-// (budget/random_stream.h, seeded by the run's seed and the sample's index):
+// (montecarlo/random_stream.h, seeded by the run's seed and the sample's
+// index):
 //   temperature  uniform over [min, max] of the stage's range (the nominal
 //                without a range)
 //   resistors    R = R_25 (1 + e) (1 + tc (T - 25 °C)), e uniform within

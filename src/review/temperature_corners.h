@@ -1,7 +1,7 @@
 // The budget at the ends of a stage's temperature range: the offset terms,
 // worst case and drift, the output noise and the dominant term at each end,
 // each from a full budget of the stage moved to that temperature
-// (budget/stage_at_temperature.h).
+// (circuit/stage_at_temperature.h).
 #ifndef HUSHGAIN_REVIEW_TEMPERATURE_CORNERS_H_
 #define HUSHGAIN_REVIEW_TEMPERATURE_CORNERS_H_
 

@@ -78,7 +78,7 @@ TEST_CASE("the sweep script draws noise and offset against the largest R") {
   CHECK(Block(gp, "sweep") == "10000000 900 250\n100000 990 300\n");
   CHECK(Block(gp, "plain") == "10000000 900 250\n");
   // The noise cost axis is the noise axis over the plain row's rms, so the
-  // one curve reads in both (cost = rms / plain rms, budget/tee_sweep.h).
+  // one curve reads in both (cost = rms / plain rms, design/tee_sweep.h).
   // Linear (990 / 900 < 3): 8 % of the span below, 12 % above, with the
   // span 90 µV.
   const double lo = 900 - 0.08 * 90, hi = 990 + 0.12 * 90;

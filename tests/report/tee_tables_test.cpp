@@ -40,7 +40,7 @@ Budget RowBudget(double output_rms_v, double offset_v, double noise_gain) {
 }
 
 // Req = 10 MΩ; the plain row and the row with L = 100 kΩ of the default
-// rule (budget/tee_sweep.h): R1 = R2 = L, R3 = L^2 / (Req - 2 L), so that
+// rule (design/tee_sweep.h): R1 = R2 = L, R3 = L^2 / (Req - 2 L), so that
 // Kennelly's R1 + R2 + R1 R2 / R3 gives Req back.
 TeeSweepResult SmallSweep() {
   const double req = 10e6, l = 100e3;
@@ -127,7 +127,7 @@ TEST_CASE("sweep CSV is RFC 4180 with SI numbers") {
   for (const auto& r : records) CHECK(r.size() == 10);
   CHECK(records[0][6] == "output_rms_V");
   CHECK(RelErr(std::stod(records[2][6]), 985.6e-6) < kRelCsv);
-  // noise cost = output rms / the plain row's (budget/tee_sweep.h).
+  // noise cost = output rms / the plain row's (design/tee_sweep.h).
   CHECK(RelErr(std::stod(records[2][9]),
                std::stod(records[2][6]) / std::stod(records[1][6])) < kRelCsv);
 }
