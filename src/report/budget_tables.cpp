@@ -42,7 +42,7 @@ std::string FormatShare(double fraction) {
   return Printf("%.1f %%", 100.0 * fraction);
 }
 
-Table NoiseTable(const Budget& b) {
+Table ContributorTable(const Budget& b) {
   const std::string ref = FormatEng(b.reference_hz, "Hz", 3);
   Table t;
   t.header = {"contributor",

@@ -15,7 +15,7 @@ namespace hushgain {
 
 // Columns: contributor, kind, source @ f_ref, gain @ f_ref, output @ f_ref,
 // output rms, share; a rule, then the "total" row.
-Table NoiseTable(const Budget& budget);
+Table ContributorTable(const Budget& budget);
 
 // Vos x noise gain, Ib, Ios (and for a photodiode the dark current); a
 // rule; worst case, root-sum-square.

@@ -72,7 +72,7 @@ std::string NoiseSection(const Budget& b) {
   const std::string ref = FormatEng(b.reference_hz, "Hz", 3);
   std::string out = "\n### Output noise, " + FormatEng(b.band_low_hz, "Hz") +
                     " to " + FormatEng(b.band_high_hz, "Hz") + "\n\n";
-  out += RenderMarkdown(NoiseTable(b)) + "\n";
+  out += RenderMarkdown(ContributorTable(b)) + "\n";
   out += Item("output peak-to-peak",
               FormatEng(b.output_peak_to_peak_v, "V") +
                   " (6.6 x rms: inside about 99.9 % of the time, Gaussian)");

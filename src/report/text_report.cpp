@@ -72,7 +72,7 @@ std::string NoiseSection(const Budget& b) {
   const std::string ref = FormatEng(b.reference_hz, "Hz", 3);
   std::string out = "\nNoise at the output, " + FormatEng(b.band_low_hz, "Hz") +
                     " to " + FormatEng(b.band_high_hz, "Hz") + "\n";
-  out += RenderText(NoiseTable(b));
+  out += RenderText(ContributorTable(b));
   out += "  output peak-to-peak    " + FormatEng(b.output_peak_to_peak_v, "V") +
          "  (6.6 x rms: inside about 99.9 % of the time, Gaussian)\n";
   out += "  input-referred         " + FormatEng(b.input_rms, b.input_unit) +
