@@ -2,10 +2,79 @@
 
 #include <algorithm>
 #include <cmath>
+#include <vector>
 
 #include "analysis/phase.h"
 
 namespace hushgain {
+namespace {
+
+// Golden-section search for the maximum of |H| in log f over [a, b] (natural
+// logs of frequencies) that holds a maximum inside; updates *best and
+// *best_hz when it finds more than *best.
+Status RefineMaximum(const GainFunction& gain, double a, double b, double* best,
+                     double* best_hz) {
+  std::complex<double> h;
+  const double g = (std::sqrt(5.0) - 1) / 2;
+  double x1 = b - g * (b - a), x2 = a + g * (b - a);
+  auto mag = [&](double x, double* m) {
+    Status st = gain(std::exp(x), &h);
+    *m = std::abs(h);
+    return st;
+  };
+  double m1 = 0, m2 = 0;
+  Status status = mag(x1, &m1);
+  if (status.ok) status = mag(x2, &m2);
+  for (int i = 0; i < 60 && status.ok && b - a > 1e-6; ++i) {
+    if (m1 < m2) {
+      a = x1;
+      x1 = x2;
+      m1 = m2;
+      x2 = a + g * (b - a);
+      status = mag(x2, &m2);
+    } else {
+      b = x2;
+      x2 = x1;
+      m2 = m1;
+      x1 = b - g * (b - a);
+      status = mag(x1, &m1);
+    }
+  }
+  if (!status.ok) return status;
+  if (std::max(m1, m2) > *best) {
+    *best = std::max(m1, m2);
+    *best_hz = std::exp(m1 > m2 ? x1 : x2);
+  }
+  return Status::Ok();
+}
+
+}  // namespace
+
+ResponseMaximum LargestMagnitude(const GainFunction& gain, double f_lo_hz,
+                                 double f_hi_hz, int points_per_decade) {
+  ResponseMaximum out;
+  const double decades = std::log10(f_hi_hz / f_lo_hz);
+  const int n =
+      std::max(1, static_cast<int>(std::ceil(decades * points_per_decade)));
+  std::vector<double> f(n + 1), m(n + 1);
+  std::complex<double> h;
+  int best = 0;
+  for (int i = 0; i <= n; ++i) {
+    f[i] = f_lo_hz * std::pow(f_hi_hz / f_lo_hz, static_cast<double>(i) / n);
+    out.status = gain(f[i], &h);
+    if (!out.status.ok) return out;
+    m[i] = std::abs(h);
+    if (m[i] > m[best]) best = i;
+  }
+  out.magnitude = m[best];
+  out.f_hz = f[best];
+  out.at_low_end = best == 0;
+  if (best > 0 && best < n)
+    out.status =
+        RefineMaximum(gain, std::log(f[best - 1]), std::log(f[best + 1]),
+                      &out.magnitude, &out.f_hz);
+  return out;
+}
 
 ResponseSummary SummarizeResponse(const GainFunction& gain, double f_ref_hz,
                                   double f_max_hz, int points_per_decade) {
@@ -47,39 +116,11 @@ ResponseSummary SummarizeResponse(const GainFunction& gain, double f_ref_hz,
     f_prev = f;
   }
   if (out.peak_hz > f_ref_hz) {
-    // Golden-section search for the maximum of |H| in log f around the best
-    // sample (one scan step either side).
-    const double g = (std::sqrt(5.0) - 1) / 2;
-    double a = std::log(out.peak_hz / step), b = std::log(out.peak_hz * step);
-    double x1 = b - g * (b - a), x2 = a + g * (b - a);
-    auto mag = [&](double x, double* m) {
-      Status st = gain(std::exp(x), &h);
-      *m = std::abs(h);
-      return st;
-    };
-    double m1 = 0, m2 = 0;
-    out.status = mag(x1, &m1);
-    if (out.status.ok) out.status = mag(x2, &m2);
-    for (int i = 0; i < 60 && out.status.ok && b - a > 1e-6; ++i) {
-      if (m1 < m2) {
-        a = x1;
-        x1 = x2;
-        m1 = m2;
-        x2 = a + g * (b - a);
-        out.status = mag(x2, &m2);
-      } else {
-        b = x2;
-        x2 = x1;
-        m2 = m1;
-        x1 = b - g * (b - a);
-        out.status = mag(x1, &m1);
-      }
-    }
+    // Refine around the best sample (one scan step either side).
+    out.status =
+        RefineMaximum(gain, std::log(out.peak_hz / step),
+                      std::log(out.peak_hz * step), &peak, &out.peak_hz);
     if (!out.status.ok) return out;
-    if (std::max(m1, m2) > peak) {
-      peak = std::max(m1, m2);
-      out.peak_hz = std::exp(m1 > m2 ? x1 : x2);
-    }
   }
   out.peaking_db = 20.0 * std::log10(peak / reference);
   return out;

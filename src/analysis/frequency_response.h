@@ -30,6 +30,21 @@ struct ResponseSummary {
 ResponseSummary SummarizeResponse(const GainFunction& gain, double f_ref_hz,
                                   double f_max_hz, int points_per_decade = 20);
 
+// The largest |H(f)| over [f_lo_hz, f_hi_hz]: a log scan at
+// `points_per_decade` (both ends included), then a golden-section search in
+// log f between the best sample's neighbours, so the maximum is found to
+// 1e-6 in log f wherever it lies between scan points. `at_low_end` is true
+// when the best sample is f_lo_hz itself (the response never rises above
+// its value there).
+struct ResponseMaximum {
+  Status status;
+  double magnitude = 0;
+  double f_hz = 0;
+  bool at_low_end = false;
+};
+ResponseMaximum LargestMagnitude(const GainFunction& gain, double f_lo_hz,
+                                 double f_hi_hz, int points_per_decade = 20);
+
 // The quality factor of a second-order low-pass read off the response: at
 // the frequency f_90 where the phase has turned by -90 degrees from its value
 // at f_ref, Q = |H(f_90)| / |H(f_ref)|. Exact for 1/(1 + s/(Q w0) + s^2/w0^2)

@@ -153,10 +153,17 @@ struct CompensationBlock {
   double ib_with_v = 0;
   double noise_without_v = 0;  // output rms
   double noise_with_v = 0;
-  double added_share = 0;      // (with^2 - without^2) / with^2
-  double bypass_f = 0;         // the stage's C_plus, 0 = none
-  bool noise_matters = false;  // added_share > 10 % without a bypass
+  double added_share = 0;  // (with^2 - without^2) / with^2
+  double bypass_f = 0;     // the stage's C_plus, 0 = none
+  // offset_with_v <= (1 - kCompensationOffsetGain) offset_without_v.
+  bool worth_doing = false;
+  // worth_doing and added_share > 10 % without a bypass.
+  bool noise_matters = false;
 };
+
+// R_plus is worth fitting when it lowers the worst-case offset by at least
+// this fraction (common practice, no source).
+inline constexpr double kCompensationOffsetGain = 0.10;
 
 // Above this share of the total output noise power R_plus's noise "matters".
 inline constexpr double kCompensationNoiseShare = 0.10;
@@ -184,8 +191,11 @@ struct Budget {
   double bandwidth_3db_hz = 0;  // 0 when not found below 100 x GBW
   double peaking_db = 0;
   double peak_hz = 0;
-  double noise_gain_peak = 0;  // the largest |e_n -> output| in the scan
+  // The largest |e_n -> output| over frequency (refined), or the DC value
+  // with noise_gain_flat when it never rises above DC (peak_hz 0 then).
+  double noise_gain_peak = 0;
   double noise_gain_peak_hz = 0;
+  bool noise_gain_flat = false;
   LoopBlock loop;
   double feedback_capacitor_f = 0;  // as used (chosen when "auto")
   std::optional<CapacitorChoice> capacitor_choice;

@@ -30,6 +30,9 @@ constexpr double kSeverePhaseMarginDeg = 20.0;
 // Below this magnitude a non-positive DC loop gain is taken as rounding
 // noise around zero rather than as positive feedback.
 constexpr double kLoopGainSignFloor = 1e-6;
+// A noise gain that rises less than this above its DC value is "flat" (the
+// 0.01 dB the report also uses for peaking).
+constexpr double kFlatNoiseGainDb = 0.01;
 
 std::string Printf(const char* format, double a, double b = 0) {
   char buf[200];
@@ -172,21 +175,30 @@ Status BandNoise(const Stage& stage, const BudgetOptions& options,
 Status ResponseFigures(const Stage& stage, const Ports& p,
                        SpectrumEvaluator& ev, Budget& b) {
   const double f_max = kBandwidthSearchPerGbw * stage.opamp.gbw_hz;
-  // The same solves give where e_n's noise gain peaks above the reference.
-  b.noise_gain_peak = b.noise_gain_ref;
-  b.noise_gain_peak_hz = b.reference_hz;
   ResponseSummary response = SummarizeResponse(
       [&](double f, std::complex<double>* h) {
         Status st = ev.SolveAt(f);
         *h = ev.Transfer(p.signal);
-        const double ng = std::abs(ev.Transfer(p.e_n));
-        if (st.ok && ng > b.noise_gain_peak) {
-          b.noise_gain_peak = ng;
-          b.noise_gain_peak_hz = f;
-        }
         return st;
       },
       b.reference_hz, f_max, 10);
+  if (!response.status.ok) return response.status;
+  // The e_n noise gain's true maximum over frequency, from three decades
+  // below the band to the search limit; "flat" when it never rises above
+  // its DC value by more than kFlatNoiseGainDb.
+  ResponseMaximum ng = LargestMagnitude(
+      [&](double f, std::complex<double>* h) {
+        Status st = ev.SolveAt(f);
+        *h = ev.Transfer(p.e_n);
+        return st;
+      },
+      1e-3 * stage.band_low_hz, f_max, 10);
+  if (!ng.status.ok) return ng.status;
+  b.noise_gain_flat =
+      ng.at_low_end ||
+      ng.magnitude <= b.noise_gain_dc * std::pow(10.0, kFlatNoiseGainDb / 20);
+  b.noise_gain_peak = b.noise_gain_flat ? b.noise_gain_dc : ng.magnitude;
+  b.noise_gain_peak_hz = b.noise_gain_flat ? 0 : ng.f_hz;
   if (!response.status.ok) return response.status;
   b.bandwidth_3db_hz = response.bandwidth_3db_hz;
   b.peaking_db = response.peaking_db;

@@ -1,6 +1,7 @@
 // hushgain: noise and offset budgets of high-gain inverting op-amp stages.
 // The subcommands come from one table, so --help and "did you mean" agree.
 #include <CLI/CLI.hpp>
+#include <cctype>
 #include <charconv>
 #include <cstdlib>
 #include <functional>
@@ -105,6 +106,7 @@ std::function<int()> DefineTee(CLI::App* app, const GlobalOptions& global) {
   auto sweep = std::make_shared<TeeSweepCommandOptions>();
   CLI::App* s = app->add_subcommand(
       "sweep", "keep the gain, shrink the largest resistor of the T network");
+  s->allow_extras(false);  // the group allows them only to name a command
   s->add_option("stage", sweep->stage_path, "stage file (JSON) with a tee")
       ->required();
   s->add_option("--min", sweep->min,
@@ -131,6 +133,7 @@ std::function<int()> DefineTee(CLI::App* app, const GlobalOptions& global) {
   auto search = std::make_shared<TeeSearchCommandOptions>();
   CLI::App* q = app->add_subcommand(
       "search", "standard-value T networks for the gain, least noise first");
+  q->allow_extras(false);
   q->add_option("stage", search->stage_path, "stage file (JSON)")->required();
   q->add_option("--series", search->series,
                 "E6, E12, E24, E48, E96 or E192 (default E96)");
@@ -177,6 +180,7 @@ std::function<int()> DefineTia(CLI::App* app, const GlobalOptions& global) {
   auto chosen = std::make_shared<bool>(false);
   CLI::App* s = app->add_subcommand(
       "suggest", "feedback resistor and capacitor for a bandwidth target");
+  s->allow_extras(false);
   s->add_option("stage", options->stage_path,
                 "transimpedance stage file (JSON)")
       ->required();
@@ -278,6 +282,59 @@ void AddGlobalOptions(CLI::App* app,
   }
 }
 
+// Refuses an option that the command it follows does not know, with a
+// "did you mean" from that command's own options. CLI11 alone would accept
+// it silently under a command group that allows extras (tee, tia), and
+// elsewhere would name it without a suggestion.
+void RefuseUnknownOptions(CLI::App* app, int argc, char** argv) {
+  CLI::App* current = app;
+  std::string path;  // "tee sweep", for the message
+  for (int i = 1; i < argc; ++i) {
+    const std::string word = argv[i];
+    const bool long_name = word.size() > 2 && word.rfind("--", 0) == 0;
+    const bool short_name = word.size() > 1 && word[0] == '-' &&
+                            std::isalpha(static_cast<unsigned char>(word[1]));
+    if (word == "--") break;  // everything after is positional
+    if (!long_name && !short_name) {
+      CLI::App* sub = nullptr;
+      for (CLI::App* s :
+           current->get_subcommands([](CLI::App*) { return true; }))
+        if (s->get_name() == word) sub = s;
+      if (sub != nullptr) {
+        current = sub;
+        path += (path.empty() ? "" : " ") + word;
+      }
+      continue;
+    }
+    const std::string name = word.substr(0, word.find('='));
+    if (const CLI::Option* option = current->get_option_no_throw(name)) {
+      // The next word is this option's value unless given after '='.
+      if (option->get_items_expected_max() > 0 && name.size() == word.size())
+        ++i;
+      continue;
+    }
+    std::vector<std::string> known;
+    for (const CLI::Option* option : current->get_options()) {
+      for (const std::string& l : option->get_lnames())
+        known.push_back("--" + l);
+      for (const std::string& s : option->get_snames())
+        known.push_back("-" + s);
+    }
+    // A known name that begins the word ("--gain-tol" in
+    // "--gain-tolerance") is a better guess than the nearest by edits.
+    std::string hint;
+    for (const std::string& k : known)
+      if (k.size() > 3 && name.rfind(k, 0) == 0 && k.size() > hint.size())
+        hint = k;
+    hint = hint.empty() ? DidYouMean(name, known)
+                        : " (did you mean \"" + hint + "\"?)";
+    throw Error("command line", "",
+                (path.empty() ? std::string() : path + ": ") +
+                    "unknown option \"" + name + "\"" + hint + "; try " +
+                    (path.empty() ? "" : path + " ") + "--help");
+  }
+}
+
 int Run(int argc, char** argv) {
   // Named, so usage lines say "hushgain", not the path it was started by.
   CLI::App app{
@@ -315,6 +372,7 @@ int Run(int argc, char** argv) {
   }
   // --devices and --ascii may also follow the command.
   AddGlobalOptions(&app, set_devices);
+  RefuseUnknownOptions(&app, argc, argv);
   // An unknown subcommand gets a suggestion from the same table.
   for (int i = 1; i < argc; ++i) {
     std::string word = argv[i];

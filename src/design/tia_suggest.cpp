@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <limits>
 #include <sstream>
 
 #include "base/physical_constants.h"
@@ -23,6 +24,14 @@ Stage WithFeedback(const Stage& stage, double rf, double cf) {
 
 BudgetOptions QuickOptions() { return BudgetOptions{}; }
 
+// The budget's -3 dB bandwidth, infinite when it lies beyond the budget's
+// search (a bandwidth of 0 there means "not found below 100 x GBW": more
+// than any target, not less).
+double BandwidthOrBeyond(const Budget& b) {
+  return b.bandwidth_3db_hz > 0 ? b.bandwidth_3db_hz
+                                : std::numeric_limits<double>::infinity();
+}
+
 // The Butterworth C_f and the bandwidth it gives at `rf`.
 Status Flat(const Stage& stage, double rf, double* cf, double* bandwidth_hz) {
   CapacitorOutcome cap = ChooseFeedbackCapacitor(
@@ -32,7 +41,7 @@ Status Flat(const Stage& stage, double rf, double* cf, double* bandwidth_hz) {
   *cf = cap.choice.chosen_f;
   BudgetOutcome b = ComputeBudget(WithFeedback(stage, rf, *cf), QuickOptions());
   if (!b.status.ok) return b.status;
-  *bandwidth_hz = b.budget.bandwidth_3db_hz;
+  *bandwidth_hz = BandwidthOrBeyond(b.budget);
   return Status::Ok();
 }
 
@@ -46,7 +55,7 @@ Status CapacitorForBandwidth(const Stage& stage, double rf, double cf_flat,
     BudgetOutcome b =
         ComputeBudget(WithFeedback(stage, rf, std::exp(mid)), QuickOptions());
     if (!b.status.ok) return b.status;
-    (b.budget.bandwidth_3db_hz >= target_hz ? lo : hi) = mid;
+    (BandwidthOrBeyond(b.budget) >= target_hz ? lo : hi) = mid;
   }
   *cf = std::exp(0.5 * (lo + hi));
   return Status::Ok();
@@ -61,7 +70,7 @@ Status FillRow(const Stage& stage, double rf, double cf, double flat_hz,
   row->cf_f = cf;
   row->meets_target = meets;
   row->bandwidth_3db_hz = x.bandwidth_3db_hz;
-  row->butterworth_bandwidth_hz = flat_hz;
+  row->butterworth_bandwidth_hz = std::isfinite(flat_hz) ? flat_hz : 0;
   row->phase_margin_deg = x.loop.phase_margin_deg;
   row->peaking_db = x.peaking_db;
   row->output_rms_v = x.output_rms_v;

@@ -33,9 +33,10 @@ struct TiaSuggestOptions {
 struct TiaCandidate {
   double rf_ohm = 0;
   double cf_f = 0;
-  bool meets_target = false;  // false for the first R_f above the best
-  double bandwidth_3db_hz = 0;
-  double butterworth_bandwidth_hz = 0;  // the most this R_f can give, flat
+  bool meets_target = false;    // false for the first R_f above the best
+  double bandwidth_3db_hz = 0;  // 0: beyond the search (100 x GBW)
+  // The most this R_f can give, flat; 0: beyond the search (100 x GBW).
+  double butterworth_bandwidth_hz = 0;
   double phase_margin_deg = 0;
   double peaking_db = 0;
   double output_rms_v = 0;

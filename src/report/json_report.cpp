@@ -45,7 +45,8 @@ std::string BudgetToJson(const Budget& b) {
   out["noise_gain"] = {{"at_reference", b.noise_gain_ref},
                        {"dc", b.noise_gain_dc},
                        {"peak", b.noise_gain_peak},
-                       {"peak_Hz", b.noise_gain_peak_hz}};
+                       {"peak_Hz", b.noise_gain_peak_hz},
+                       {"flat", b.noise_gain_flat}};
   out["response"] = {{"bandwidth_3db_Hz", b.bandwidth_3db_hz},
                      {"peaking_dB", b.peaking_db},
                      {"peak_Hz", b.peak_hz}};

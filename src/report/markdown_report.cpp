@@ -40,9 +40,11 @@ std::string Header(const Budget& b) {
                     FormatGain(b.signal_gain_ref) + " at " + ref);
   out += Item("noise gain (e_n to output)",
               FormatGain(b.noise_gain_dc) + " at DC, " +
-                  FormatGain(b.noise_gain_ref) + " at " + ref + ", peak " +
-                  FormatGain(b.noise_gain_peak) + " at " +
-                  FormatEng(b.noise_gain_peak_hz, "Hz"));
+                  FormatGain(b.noise_gain_ref) + " at " + ref +
+                  (b.noise_gain_flat
+                       ? std::string(", flat (no peak above DC)")
+                       : ", peak " + FormatGain(b.noise_gain_peak) + " at " +
+                             FormatEng(b.noise_gain_peak_hz, "Hz")));
   out += Item("closed-loop -3 dB bandwidth",
               (b.bandwidth_3db_hz > 0 ? FormatEng(b.bandwidth_3db_hz, "Hz")
                                       : std::string("not found")) +
@@ -87,13 +89,16 @@ std::string NoiseSection(const Budget& b) {
             FormatEng(b.photodiode->nep_rms_w, "W") + " rms over the band (" +
             Printf("%.3g A/W", b.photodiode->responsivity_a_per_w) + ")");
   if (b.photodiode && b.photodiode->noise_gain_plateau_estimate > 0)
-    out += Item("e_n x C",
-                "the e_n noise gain rises to " + FormatGain(b.noise_gain_peak) +
-                    " at " + FormatEng(b.noise_gain_peak_hz, "Hz") +
-                    " (1 + C/C_f = " +
-                    FormatGain(b.photodiode->noise_gain_plateau_estimate) +
-                    " with C = C_d + C_in = " +
-                    FormatEng(b.photodiode->input_capacitance_f, "F") + ")");
+    out +=
+        Item("e_n x C",
+             (b.noise_gain_flat ? std::string("the e_n noise gain stays flat")
+                                : "the e_n noise gain rises to " +
+                                      FormatGain(b.noise_gain_peak) + " at " +
+                                      FormatEng(b.noise_gain_peak_hz, "Hz")) +
+                 " (1 + C/C_f = " +
+                 FormatGain(b.photodiode->noise_gain_plateau_estimate) +
+                 " with C = C_d + C_in = " +
+                 FormatEng(b.photodiode->input_capacitance_f, "F") + ")");
   if (b.snr_db) {
     out += Item("full scale \xC2\xB1" + FormatEng(*b.full_scale_output_v, "V"),
                 "SNR " + Printf("%.1f dB", *b.snr_db) +

@@ -38,6 +38,7 @@ void AddRealPartsJson(const Budget& b, nlohmann::json& out) {
                            {"output_rms_with_V", c.noise_with_v},
                            {"added_noise_share", c.added_share},
                            {"bypass_F", c.bypass_f},
+                           {"worth_doing", c.worth_doing},
                            {"noise_matters", c.noise_matters}};
   }
   if (!b.resistor_drops.empty()) {

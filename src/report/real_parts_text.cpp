@@ -98,6 +98,11 @@ std::string CompensationSection(const Budget& b) {
          (c.bypass_f > 0 ? "; bypassed by " + FormatEng(c.bypass_f, "F")
                          : std::string()) +
          "\n";
+  if (!c.worth_doing)
+    out += "  not worth fitting: the Ib term is " +
+           FormatEng(std::fabs(c.ib_without_v), "V") + " of the " +
+           FormatEng(c.offset_without_v, "V") +
+           " worst case, so R_plus lowers the offset by less than 10 %\n";
   if (c.noise_matters)
     out +=
         "  note: that is more than 10 %: a capacitor across R_plus (stage key "

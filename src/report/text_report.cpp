@@ -42,9 +42,11 @@ std::string Header(const Budget& b) {
            Gain(b.signal_gain_ref) + "| at the reference\n";
   }
   out += "  noise gain (e_n to output) " + Gain(b.noise_gain_dc) + " at DC, " +
-         Gain(b.noise_gain_ref) + " at the reference, peak " +
-         Gain(b.noise_gain_peak) + " at " +
-         FormatEng(b.noise_gain_peak_hz, "Hz") + "\n";
+         Gain(b.noise_gain_ref) + " at the reference" +
+         (b.noise_gain_flat ? std::string(", flat (no peak above DC)")
+                            : ", peak " + Gain(b.noise_gain_peak) + " at " +
+                                  FormatEng(b.noise_gain_peak_hz, "Hz")) +
+         "\n";
   out += "  closed-loop -3 dB bandwidth " +
          (b.bandwidth_3db_hz > 0 ? FormatEng(b.bandwidth_3db_hz, "Hz")
                                  : std::string("not found")) +
@@ -87,9 +89,11 @@ std::string NoiseSection(const Budget& b) {
         Printf("%.3g A/W", b.photodiode->responsivity_a_per_w) + ")\n";
   }
   if (b.photodiode && b.photodiode->noise_gain_plateau_estimate > 0) {
-    out += "  e_n x C                the e_n noise gain rises to " +
-           Gain(b.noise_gain_peak) + " at " +
-           FormatEng(b.noise_gain_peak_hz, "Hz") +
+    out += "  e_n x C                " +
+           (b.noise_gain_flat
+                ? std::string("the e_n noise gain stays flat")
+                : "the e_n noise gain rises to " + Gain(b.noise_gain_peak) +
+                      " at " + FormatEng(b.noise_gain_peak_hz, "Hz")) +
            " (1 + C/C_f = " + Gain(b.photodiode->noise_gain_plateau_estimate) +
            " with C = C_d + C_in = " +
            FormatEng(b.photodiode->input_capacitance_f, "F") + ")\n";

@@ -38,8 +38,11 @@ Table DisplayTable(const Stage& stage, const TiaSuggestion& s) {
     const TiaCandidate& r = s.rows[i];
     t.AddRow(
         {FormatEng(r.rf_ohm, "\xCE\xA9", 3), FormatEng(r.cf_f, "F"),
-         FormatEng(r.bandwidth_3db_hz, "Hz"),
-         FormatEng(r.butterworth_bandwidth_hz, "Hz"),
+         r.bandwidth_3db_hz > 0 ? FormatEng(r.bandwidth_3db_hz, "Hz")
+                                : std::string("not found"),
+         r.butterworth_bandwidth_hz > 0
+             ? FormatEng(r.butterworth_bandwidth_hz, "Hz")
+             : std::string("not found"),
          Printf("%.1f\xC2\xB0", r.phase_margin_deg),
          Printf("%.2f dB", r.peaking_db),
          FormatEng(r.input_density_a_per_rthz, std::string("A") + kPerRtHz),

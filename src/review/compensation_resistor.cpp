@@ -29,8 +29,13 @@ Status ComputeCompensationBlock(const Stage& stage,
   const double without_sq = block->noise_without_v * block->noise_without_v;
   block->added_share = with_sq > 0 ? (with_sq - without_sq) / with_sq : 0;
   block->bypass_f = stage.plus_resistor_bypass_f;
-  block->noise_matters =
-      block->added_share > kCompensationNoiseShare && block->bypass_f == 0;
+  // Worth doing only when it lowers the worst-case offset by a tenth or
+  // more: an Ib term beside a much larger Vos term is not worth a resistor.
+  block->worth_doing = block->offset_with_v <=
+                       (1 - kCompensationOffsetGain) * block->offset_without_v;
+  block->noise_matters = block->worth_doing &&
+                         block->added_share > kCompensationNoiseShare &&
+                         block->bypass_f == 0;
   return Status::Ok();
 }
 

@@ -168,6 +168,21 @@ TEST_CASE("finite GBW sets the -3 dB bandwidth at GBW/NG + f_p") {
   CHECK(b.peaking_db == doctest::Approx(0.0).epsilon(1e-9));
 }
 
+TEST_CASE("a single-pole stage's e_n noise gain is flat: no peak above DC") {
+  // NG(s) = NG0 / (1 + s NG0 / w_t) for A(s) = A0 / (1 + s A0 / w_t):
+  // |NG| falls monotonically from DC (Sedra and Smith, ch. 2), so there is
+  // no peak to report; before, the "peak" was the reference's value.
+  OpAmpModel m = test::IdealOpAmp();
+  m.open_loop_gain = 1e6;
+  m.gbw_hz = 1e7;
+  const Budget b = Compute(test::InvertingStage(1e3, 100e3, m, 300.0));
+  CHECK(b.noise_gain_flat);
+  CHECK(b.noise_gain_peak == b.noise_gain_dc);
+  CHECK(b.noise_gain_peak_hz == 0);
+  const double ng0 = 101.0 / (1 + 101.0 / 1e6);
+  CHECK(RelErr(b.noise_gain_dc, ng0) < test::kRelTight);
+}
+
 TEST_CASE(
     "the full-scale swing gives SNR of a sine and the p-p dynamic range") {
   Stage stage = SimpleExample();

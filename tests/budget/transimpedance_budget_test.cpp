@@ -115,6 +115,33 @@ TEST_CASE(
   CHECK(b.peaking_db < 0.01);
 }
 
+TEST_CASE("the e_n noise gain's peak is its true maximum over frequency") {
+  // Section 7 loop with the 52-degree C_f: NG(s) = (1/beta) / (1 + 1/(A
+  // beta)), 1/beta = 1 + Z_f s C, Z_f = R_f / (1 + s R_f C_f), A(s) = A0 /
+  // (1 + s A0 / w_t); its maximum found here by a dense scan (5e4 points a
+  // decade, so the magnitude there is exact to ~1e-9).
+  const double cf = 0.282892e-12, a0 = 1e9, wt = 2 * kPi * kGbw;
+  auto ng = [&](double f) {
+    const std::complex<double> s(0, 2 * kPi * f);
+    const std::complex<double> zf = kRf / (1.0 + s * kRf * cf);
+    const std::complex<double> inv_beta = 1.0 + zf * s * kC;
+    const std::complex<double> a = a0 / (1.0 + s * a0 / wt);
+    return std::abs(inv_beta / (1.0 + inv_beta / a));
+  };
+  double best = 0, best_hz = 0;
+  for (int i = 0; i <= 200000; ++i) {
+    const double f = 1e4 * std::pow(10.0, 4.0 * i / 200000);
+    if (ng(f) > best) {
+      best = ng(f);
+      best_hz = f;
+    }
+  }
+  const Budget b = Compute(WorkedExample(cf), 1e-4);
+  CHECK_FALSE(b.noise_gain_flat);
+  CHECK(RelErr(b.noise_gain_peak, best) < 1e-6);
+  CHECK(RelErr(b.noise_gain_peak_hz, best_hz) < 1e-3);
+}
+
 TEST_CASE(
     "the classic C_f = sqrt(C / (2 pi R_f GBW)) gives about 52 degrees and 1.2 "
     "dB; not 45") {

@@ -104,7 +104,8 @@ std::vector<BadInputCase> BudgetCases() {
        {{"stage.json", good}},
        {"budget", "--jsno", "stage.json"},
        2,
-       "error: command line: the following argument was not expected: --jsno"},
+       "error: command line: budget: unknown option \"--jsno\" (did you "
+       "mean \"--json\"?); try budget --help"},
       {"two stage files",
        {{"stage.json", good}},
        {"budget", "stage.json", "other.json"},

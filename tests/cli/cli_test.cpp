@@ -406,6 +406,66 @@ TEST_CASE("an unknown subcommand gets a did-you-mean") {
                 "\"budget\"?); try --help");
 }
 
+// Each command with a misspelled option: before, tee sweep, tee search and
+// tia suggest ran with their defaults (exit 0) and the others named the
+// word without a suggestion.
+TEST_CASE("every command refuses a misspelled option with a did-you-mean") {
+  const struct {
+    std::vector<std::string> args;
+    std::string message;
+  } cases[] = {
+      {{"budget", "stage.json", "--formt", "json"},
+       "budget: unknown option \"--formt\" (did you mean \"--format\"?); "
+       "try budget --help"},
+      {{"tee", "sweep", "stage.json", "--pionts", "3"},
+       "tee sweep: unknown option \"--pionts\" (did you mean "
+       "\"--points\"?); try tee sweep --help"},
+      {{"tee", "search", "stage.json", "--max", "100k", "--gain-tolerance",
+        "0.1%"},
+       "tee search: unknown option \"--gain-tolerance\" (did you mean "
+       "\"--gain-tol\"?); try tee search --help"},
+      {{"tia", "suggest", "stage.json", "--bandwidth", "10k", "--mx", "1M"},
+       "tia suggest: unknown option \"--mx\" (did you mean \"--max\"?); "
+       "try tia suggest --help"},
+      {{"plot", "stage.json", "-o", "x.png", "--onl=gain"},
+       "plot: unknown option \"--onl\" (did you mean \"--only\"?); try "
+       "plot --help"},
+      {{"spread", "stage.json", "--sampels", "10"},
+       "spread: unknown option \"--sampels\" (did you mean "
+       "\"--samples\"?); try spread --help"},
+      {{"--devics", "x", "budget", "stage.json"},
+       "unknown option \"--devics\" (did you mean \"--devices\"?); try "
+       "--help"},
+  };
+  for (const auto& c : cases) {
+    CAPTURE(c.message);
+    CheckBadInput(GoodStage().dump(), c.args,
+                  "error: command line: " + c.message);
+  }
+}
+
+// README, "Warnings": each warning once on stderr, and the same text with
+// the report (text: "warning: ..." lines at its end; JSON: `warnings`).
+TEST_CASE("warnings go to stderr and stay with the report") {
+  int warned = 0;
+  for (const fs::path& example : Examples()) {
+    CAPTURE(example);
+    const RunResult text = Hushgain({"budget", example.string()});
+    const RunResult js = Hushgain({"budget", "--json", example.string()});
+    REQUIRE(text.exit_code == 0);
+    const json warnings = json::parse(js.out).at("warnings");
+    std::vector<std::string> err_lines = Lines(text.err);
+    CHECK(err_lines.size() == warnings.size());
+    for (std::size_t i = 0; i < err_lines.size() && i < warnings.size(); ++i) {
+      const std::string line = "warning: " + warnings[i].get<std::string>();
+      CHECK(err_lines[i] == line);
+      CHECK(text.out.find("\n" + line + "\n") != std::string::npos);
+      ++warned;
+    }
+  }
+  CHECK(warned > 0);  // at least one example has something to say
+}
+
 TEST_CASE("a --tolerance outside 0 to 1 is refused") {
   CheckBadInput(GoodStage().dump(),
                 {"budget", "--tolerance", "0", "stage.json"},

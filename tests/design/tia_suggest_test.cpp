@@ -38,6 +38,27 @@ double FlatBandwidth(double rf) {
   return std::sqrt(10e6 / (2 * kPi * rf * (c + cf)));
 }
 
+TEST_CASE("a 1 ohm candidate whose bandwidth lies beyond the search counts") {
+  // With R_out 100 ohm and R_f 1 ohm the transimpedance never falls 3 dB
+  // below 100 x GBW (the response is not found there: more than any
+  // target). Before, that read as "0 Hz flat" and refused the whole list,
+  // while the same list from 10 ohm succeeded.
+  Stage stage = Photodiode();
+  stage.opamp.output_resistance_ohm = 100;
+  TiaSuggestOptions options;
+  options.bandwidth_hz = 50e3;
+  options.rows = 1;
+  for (double r = 1; r <= 1e7; r *= 10) options.resistors_ohm.push_back(r);
+  const TiaSuggestion with_one = SuggestTransimpedance(stage, options);
+  REQUIRE_MESSAGE(with_one.status.ok, with_one.status.message);
+  options.resistors_ohm.erase(options.resistors_ohm.begin());
+  const TiaSuggestion from_ten = SuggestTransimpedance(stage, options);
+  REQUIRE_MESSAGE(from_ten.status.ok, from_ten.status.message);
+  REQUIRE(with_one.best >= 0);
+  CHECK(with_one.rows[with_one.best].rf_ohm ==
+        from_ten.rows[from_ten.best].rf_ohm);
+}
+
 TEST_CASE(
     "the largest E12 feedback resistor for 50 kHz is the one the closed form "
     "allows") {

@@ -128,7 +128,26 @@ TEST_CASE(
                    c.noise_without_v * c.noise_without_v,
                added_density_sq * 9.9) < 1e-5);
   CHECK(RelErr(c.noise_without_v, 11617.20e-9 * std::sqrt(9.9)) < 1e-6);
+  CHECK(c.worth_doing);    // 33.9 mV -> 29.4 mV, 13 % lower
   CHECK(c.noise_matters);  // about 40 % of the power, no bypass
+}
+
+TEST_CASE("compensation beside a dominant Vos term is not worth fitting") {
+  // The same network with Vos 2.5 mV: Vos NG_T = 2.89 V against Ib- Req =
+  // 4.97 uV, so the balance resistor changes the worst case by under
+  // 1e-5; its noise advice is not shown though R_plus adds ~40 % of the
+  // power.
+  OpAmpModel m = test::IdealOpAmp(5e-9, 0.5e-12);
+  m.vos_v = 2.5e-3;
+  m.ib_a = 1e-12;
+  const Stage stage = test::TeeStage(4.7e3, 47e3, 220e3, 2.2e3, m, 300.0);
+  const Budget b = Compute(stage);
+  REQUIRE(b.compensation.has_value());
+  const CompensationBlock& c = *b.compensation;
+  CHECK(c.offset_with_v > 0.9 * c.offset_without_v);
+  CHECK(c.added_share > kCompensationNoiseShare);
+  CHECK_FALSE(c.worth_doing);
+  CHECK_FALSE(c.noise_matters);
 }
 
 TEST_CASE(
