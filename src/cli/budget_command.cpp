@@ -7,7 +7,9 @@
 #include "budget/compute_budget.h"
 #include "budget/frequency_grid.h"
 #include "budget/sample_spectra.h"
+#include "cli/diagnostics.h"
 #include "cli/exit_codes.h"
+#include "cli/option_values.h"
 #include "cli/output_format.h"
 #include "cli/text_output.h"
 #include "io/device_library.h"
@@ -38,14 +40,8 @@ int RunBudgetCommand(const BudgetCommandOptions& options) {
   ReviewOptions review_options;
   BudgetOptions& budget_options = review_options.budget;
   budget_options.integration.relative_tolerance = options.tolerance;
-  if (!review_options.Validate().empty()) {
-    char value[32];
-    std::snprintf(value, sizeof value, "%g", options.tolerance);
-    throw Error("command line", "",
-                std::string("--tolerance: expected a relative tolerance in "
-                            "(0, 1), got ") +
-                    value);
-  }
+  ThrowIfInvalid(review_options.Validate(),
+                 {{"relative_tolerance", "--tolerance"}});
 
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
   const Stage stage = LoadStageFile(options.stage_path, library);
@@ -53,29 +49,20 @@ int RunBudgetCommand(const BudgetCommandOptions& options) {
     budget_options.upgrade_candidates.push_back(
         {name, technology, technology.tolerance});
   const BudgetOutcome outcome = ReviewStage(stage, review_options);
-  if (!outcome.status.ok) {
-    std::cerr << "error: "
-              << Error::OneLine(options.stage_path +
-                                ": analysis refused: " + outcome.status.message)
-              << "\n";
-    return kExitAnalysisRefused;
-  }
+  if (!outcome.status.ok)
+    return ReportRefusal(options.stage_path, outcome.status.message);
   if (!options.spectrum_path.empty()) {
     const SpectrumOutcome spectrum =
         SampleSpectra(StageAsBudgeted(stage, outcome.budget),
                       LogFrequencyGrid(stage.band_low_hz, stage.band_high_hz,
                                        kSpectrumPointsPerDecade));
-    if (!spectrum.status.ok) {
-      std::cerr << "error: " << options.stage_path
-                << ": analysis refused: " << spectrum.status.message << "\n";
-      return kExitAnalysisRefused;
-    }
+    if (!spectrum.status.ok)
+      return ReportRefusal(options.stage_path, spectrum.status.message);
     WriteFileAtomically(options.spectrum_path,
                         SpectrumToCsv(outcome.budget, spectrum.samples));
   }
   const std::string text = Render(outcome.budget, format);
-  for (const std::string& w : outcome.budget.warnings)
-    std::cerr << "warning: " << Error::OneLine(w) << "\n";
+  ReportWarnings(outcome.budget.warnings);
   WriteReport(text, format);
   return kExitOk;
 }

@@ -10,6 +10,7 @@
 #include <cstring>
 #include <iostream>
 
+#include "cli/diagnostics.h"
 #include "cli/exit_codes.h"
 #include "io/error.h"
 #include "report/run_gnuplot.h"
@@ -42,11 +43,11 @@ PlotFormat PictureFormat(const std::string& option, const std::string& path) {
 std::string GnuplotOrExplain(const std::string& who) {
   std::string gnuplot = FindGnuplot();
   if (gnuplot.empty())
-    std::cerr << "error: " << who
-              << " needs gnuplot, which is not on PATH; install the Debian "
-                 "package "
-              << kGnuplotPackage << " (apt-get install " << kGnuplotPackage
-              << ")\n";
+    ReportToolFailure({}, who +
+                              " needs gnuplot, which is not on PATH; "
+                              "install the Debian package " +
+                              kGnuplotPackage + " (apt-get install " +
+                              kGnuplotPackage + ")");
   return gnuplot;
 }
 
@@ -66,9 +67,8 @@ int DrawPicture(
   struct stat st;
   if (!run.ok || ::stat(temporary.c_str(), &st) != 0 || st.st_size == 0) {
     std::remove(temporary.c_str());
-    std::cerr << "error: " << target << ": "
-              << (run.ok ? "gnuplot wrote no picture" : run.message) << "\n";
-    return kExitToolFailed;
+    return ReportToolFailure(target,
+                             run.ok ? "gnuplot wrote no picture" : run.message);
   }
   if (std::rename(temporary.c_str(), target.c_str()) != 0) {
     const std::string why = std::strerror(errno);

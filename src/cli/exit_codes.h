@@ -11,6 +11,9 @@ inline constexpr int kExitUsage = 2;            // bad command line or input
 inline constexpr int kExitInterrupted = 130;
 // A program hushgain needs is missing or failed (gnuplot for `plot`).
 inline constexpr int kExitToolFailed = 3;
+// The system failed under a valid request: out of memory, threads that
+// could not be started, any other std::exception that reached main.
+inline constexpr int kExitSystem = 4;
 
 }  // namespace hushgain
 

@@ -6,6 +6,7 @@
 #include <cstdlib>
 #include <functional>
 #include <iostream>
+#include <new>
 #include <optional>
 #include <string>
 #include <vector>
@@ -13,6 +14,7 @@
 #include "cli/budget_command.h"
 #include "cli/device_folder.h"
 #include "cli/exit_codes.h"
+#include "cli/option_values.h"
 #include "cli/plot_command.h"
 #include "cli/spread_command.h"
 #include "cli/tee_command.h"
@@ -111,7 +113,8 @@ std::function<int()> DefineTee(CLI::App* app, const GlobalOptions& global) {
       ->required();
   s->add_option("--min", sweep->min,
                 "smallest largest-resistor value (default Req / 1000)");
-  s->add_option("--points", sweep->points, "rows, both ends included (13)");
+  s->add_option("--points", sweep->points, "rows, both ends included (13)")
+      ->check(WholeNumber<int>());
   s->add_option("--ratio", sweep->ratio,
                 "fix R1/R2 to a number, or to the stage's (\"stage\")");
   s->add_option("--format", sweep->format,
@@ -153,9 +156,11 @@ std::function<int()> DefineTee(CLI::App* app, const GlobalOptions& global) {
   q->add_option("--rank", search->rank, "noise, offset or weighted (noise)");
   q->add_option("--offset-weight", search->offset_weight,
                 "offset weight of --rank weighted, 0 to 1 (0.5)");
-  q->add_option("--top", search->top, "how many networks to show (10)");
+  q->add_option("--top", search->top, "how many networks to show (10)")
+      ->check(WholeNumber<int>());
   q->add_option("--threads", search->threads,
-                "worker threads (0: one per core)");
+                "worker threads (0: one per core)")
+      ->check(WholeNumber<int>());
   q->add_option("--format", search->format,
                 "text, json, markdown or csv (default text)");
   q->add_flag("--csv", search->csv, "the same as --format csv");
@@ -192,7 +197,8 @@ std::function<int()> DefineTia(CLI::App* app, const GlobalOptions& global) {
   s->add_option("--min", options->min, "smallest R_f (default 1k)");
   s->add_option("--max", options->max, "largest R_f (default 10G)");
   s->add_option("--rows", options->rows,
-                "proposals at or below the best R_f (default 6)");
+                "proposals at or below the best R_f (default 6)")
+      ->check(WholeNumber<int>());
   s->add_option("--format", options->format,
                 "text, json, markdown or csv (default text)");
   s->add_flag("--csv", options->csv, "the same as --format csv");
@@ -226,9 +232,12 @@ std::function<int()> DefineSpread(CLI::App* app, const GlobalOptions& global) {
   auto o = std::make_shared<SpreadCommandOptions>();
   app->add_option("stage", o->stage_path, "stage file (JSON)")->required();
   app->add_option("--samples", o->samples,
-                  "number of Monte Carlo samples (default 10000)");
-  app->add_option("--seed", o->seed, "seed of the random streams (default 1)");
-  app->add_option("--threads", o->threads, "worker threads (default 0: all)");
+                  "number of Monte Carlo samples (default 10000)")
+      ->check(WholeNumber<long>());
+  app->add_option("--seed", o->seed, "seed of the random streams (default 1)")
+      ->check(WholeNumber<std::uint64_t>());
+  app->add_option("--threads", o->threads, "worker threads (default 0: all)")
+      ->check(WholeNumber<int>());
   app->add_option("--csv", o->csv_path,
                   "write every sample to this CSV file (the summary as CSV "
                   "is --format csv)");
@@ -421,5 +430,17 @@ int main(int argc, char** argv) {
   } catch (const hushgain::Error& e) {
     std::cerr << "error: " << e.what() << "\n";
     return hushgain::kExitUsage;
+  } catch (const std::bad_alloc&) {
+    std::cerr << "error: out of memory; ask for fewer samples, points or "
+                 "rows\n";
+    return hushgain::kExitSystem;
+  } catch (const std::exception& e) {
+    // A failure of the system rather than of the input (threads that cannot
+    // be started, a length beyond the library's limit): one line, never an
+    // abort.
+    std::cerr << "error: "
+              << hushgain::Error::OneLine(std::string("system: ") + e.what())
+              << "\n";
+    return hushgain::kExitSystem;
   }
 }

@@ -8,6 +8,7 @@
 #include "budget/compute_budget.h"
 #include "budget/frequency_grid.h"
 #include "budget/sample_spectra.h"
+#include "cli/diagnostics.h"
 #include "cli/draw_picture.h"
 #include "cli/exit_codes.h"
 #include "integrate/cumulative_power.h"
@@ -39,9 +40,7 @@ PlotScriptOptions ScriptOptions(const PlotCommandOptions& options) {
 }
 
 int Refused(const PlotCommandOptions& options, const std::string& why) {
-  std::cerr << "error: " << options.stage_path << ": analysis refused: " << why
-            << "\n";
-  return kExitAnalysisRefused;
+  return ReportRefusal(options.stage_path, why);
 }
 
 // The picture data: samples on the plot grid, and the cumulative rms on its
@@ -99,8 +98,7 @@ int RunPlotCommand(const PlotCommandOptions& options) {
     WriteFileAtomically(options.script_path,
                         BuildPlotScript(budget, data, saved));
   }
-  for (const std::string& w : budget.warnings)
-    std::cerr << "warning: " << w << "\n";
+  ReportWarnings(budget.warnings);
   return kExitOk;
 }
 

@@ -9,9 +9,11 @@
 #include <iostream>
 #include <optional>
 
+#include "cli/diagnostics.h"
 #include "cli/draw_picture.h"
 #include "cli/exit_codes.h"
 #include "cli/interrupt.h"
+#include "cli/option_values.h"
 #include "cli/output_format.h"
 #include "cli/progress_bar.h"
 #include "cli/text_output.h"
@@ -52,16 +54,9 @@ int RunSpreadCommand(const SpreadCommandOptions& options) {
   spread.samples = options.samples;
   spread.seed = options.seed;
   spread.threads = options.threads;
-  if (options.samples < 1)
-    throw Error("command line", "",
-                "--samples: expected at least 1, got " +
-                    std::to_string(options.samples));
-  if (options.threads < 0)
-    throw Error("command line", "",
-                "--threads: expected 0 (all) or more, got " +
-                    std::to_string(options.threads));
-  if (std::string why = spread.Validate(); !why.empty())
-    throw Error("command line", "", why);
+  ThrowIfInvalid(spread.Validate(), {{"samples", "--samples"},
+                                     {"threads", "--threads"},
+                                     {"relative_tolerance", "--tolerance"}});
   const std::string format =
       ResolveOutputFormat(options.format, options.json, /*csv=*/false);
   SpreadLimits limits;
@@ -102,14 +97,12 @@ int RunSpreadCommand(const SpreadCommandOptions& options) {
   const SpreadRun run = RunSpread(stage, spread, control);
   bar.Clear();
   if (run.interrupted) {
-    std::cerr << "\ninterrupted: no report, no CSV and no picture written\n";
+    std::cerr << "\n";
+    ReportInterrupted("no report, no CSV and no picture written");
     return kExitInterrupted;
   }
-  if (!run.status.ok) {
-    std::cerr << "error: " << options.stage_path
-              << ": analysis refused: " << run.status.message << "\n";
-    return kExitAnalysisRefused;
-  }
+  if (!run.status.ok)
+    return ReportRefusal(options.stage_path, run.status.message);
   const SpreadSummary summary = Summarize(run.samples, limits);
   if (!options.csv_path.empty())
     WriteFileAtomically(options.csv_path, SpreadToCsv(run));

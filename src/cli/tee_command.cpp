@@ -9,13 +9,14 @@
 #include <cstdio>
 #include <iostream>
 #include <optional>
-#include <thread>
 
 #include "circuit/inverting_topology.h"
 #include "circuit/preferred_series.h"
+#include "cli/diagnostics.h"
 #include "cli/draw_picture.h"
 #include "cli/exit_codes.h"
 #include "cli/interrupt.h"
+#include "cli/option_values.h"
 #include "cli/output_format.h"
 #include "cli/progress_bar.h"
 #include "cli/text_output.h"
@@ -35,23 +36,8 @@ namespace {
 
 constexpr const char* kOhm = "\xCE\xA9";
 
-Error OptionError(const std::string& option, const std::string& message) {
-  return Error("command line", "", option + ": " + message);
-}
-
-double ParseOption(const std::string& option, const std::string& text,
-                   Quantity quantity) {
-  std::string why;
-  std::optional<double> value = ParseQuantity(text, quantity, &why);
-  if (!value)
-    throw OptionError(option, "expected " +
-                                  std::string(QuantityName(quantity)) +
-                                  ", got \"" + text + "\" (" + why + ")");
-  return *value;
-}
-
 double PositiveResistance(const std::string& option, const std::string& text) {
-  const double ohms = ParseOption(option, text, Quantity::kResistance);
+  const double ohms = QuantityOption(option, text, Quantity::kResistance);
   if (!(ohms > 0))
     throw OptionError(option,
                       "expected a positive resistance, got \"" + text + "\"");
@@ -86,15 +72,12 @@ bool PreparePlot(const std::string& plot_path, const std::string& who,
 BudgetOptions BudgetWithTolerance(double tolerance) {
   BudgetOptions options;
   options.integration.relative_tolerance = tolerance;
-  if (std::string why = options.Validate(); !why.empty())
-    throw OptionError("--tolerance", why);
+  ThrowIfInvalid(options.Validate(), {{"relative_tolerance", "--tolerance"}});
   return options;
 }
 
 int Refused(const std::string& path, const Status& status) {
-  std::cerr << "error: " << path << ": analysis refused: " << status.message
-            << "\n";
-  return kExitAnalysisRefused;
+  return ReportRefusal(path, status.message);
 }
 
 // A progress bar on stderr, drawn only when stderr is a terminal.
@@ -134,9 +117,7 @@ int RunTeeSweepCommand(const TeeSweepCommandOptions& options) {
   TeeSweepOptions sweep;
   sweep.budget = BudgetWithTolerance(options.tolerance);
   sweep.points = options.points;
-  if (options.points < 2)
-    throw OptionError("--points", "expected at least 2, got " +
-                                      std::to_string(options.points));
+  ThrowIfInvalid(sweep.Validate(), {{"points", "--points"}});
   std::optional<double> min_ohm;
   if (!options.min.empty()) min_ohm = PositiveResistance("--min", options.min);
   if (!options.ratio.empty() && options.ratio != "stage") {
@@ -177,9 +158,8 @@ int RunTeeSweepCommand(const TeeSweepCommandOptions& options) {
   const TeeSweepResult result = SweepTee(stage, sweep);
   if (!result.status.ok) return Refused(options.stage_path, result.status);
   for (const TeeSweepRow& row : result.rows)
-    for (const std::string& w : row.budget.warnings)
-      std::cerr << "warning: largest " << FormatEng(row.largest_ohm, kOhm)
-                << ": " << w << "\n";
+    ReportWarnings(row.budget.warnings,
+                   "largest " + FormatEng(row.largest_ohm, kOhm));
   if (!options.plot_path.empty()) {
     const int drawn = DrawPicture(
         gnuplot, options.plot_path, [&](const std::string& temporary) {
@@ -233,7 +213,7 @@ int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
   }
 
   search.gain_tolerance =
-      ParseOption("--gain-tol", options.gain_tolerance, Quantity::kRatio);
+      QuantityOption("--gain-tol", options.gain_tolerance, Quantity::kRatio);
   if (!(search.gain_tolerance >= 0))
     throw OptionError("--gain-tol",
                       "expected a non-negative tolerance, got \"" +
@@ -247,17 +227,8 @@ int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
                       "expected a weight from 0 to 1, got " +
                           std::to_string(options.offset_weight));
   search.offset_weight = options.offset_weight;
-  if (options.top < 1)
-    throw OptionError(
-        "--top", "expected at least 1, got " + std::to_string(options.top));
   search.top = options.top;
-  if (options.threads < 0)
-    throw OptionError("--threads", "expected 0 (every core) or more, got " +
-                                       std::to_string(options.threads));
-  search.threads =
-      options.threads > 0
-          ? options.threads
-          : std::max(1, static_cast<int>(std::thread::hardware_concurrency()));
+  search.threads = options.threads;
 
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
   const Stage stage = LoadStageFile(options.stage_path, library);
@@ -266,11 +237,16 @@ int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
       (stage.source.resistance_ohm + stage.input_resistor_ohm);
   search.target_gain = stage_gain;
   if (!options.gain.empty()) {
-    search.target_gain = ParseOption("--gain", options.gain, Quantity::kGain);
+    search.target_gain =
+        QuantityOption("--gain", options.gain, Quantity::kGain);
     if (!(search.target_gain > 0))
       throw OptionError(
           "--gain", "expected a positive gain, got \"" + options.gain + "\"");
   }
+
+  ThrowIfInvalid(search.Validate(), {{"top", "--top"},
+                                     {"threads", "--threads"},
+                                     {"relative_tolerance", "--tolerance"}});
 
   TeePlotOptions plot;
   std::string gnuplot;
@@ -288,14 +264,12 @@ int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
   bar.Clear();
 
   if (!result.status.ok) return Refused(options.stage_path, result.status);
-  for (const std::string& w : result.warnings)
-    std::cerr << "warning: " << w << "\n";
-  if (result.cancelled)
-    std::cerr << "interrupted: showing the best found so far\n";
+  ReportWarnings(result.warnings);
+  if (result.cancelled) ReportInterrupted("showing the best found so far");
   if (result.best.empty()) {
     if (result.cancelled) {
-      std::cerr << "error: " << options.stage_path
-                << ": interrupted before any network was found\n";
+      ReportNoResult(options.stage_path,
+                     "interrupted before any network was found");
       return kExitInterrupted;
     }
     char gain[32];
@@ -303,13 +277,13 @@ int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
     char tolerance[32];
     std::snprintf(tolerance, sizeof tolerance, "%.3g %%",
                   100 * search.gain_tolerance);
-    std::cerr << "error: " << options.stage_path << ": no T network of "
-              << SeriesName(*series) << " values from "
-              << FormatEng(min_ohm, kOhm) << " to " << FormatEng(max_ohm, kOhm)
-              << " has a gain within " << tolerance << " of " << gain
-              << "; relax --gain-tol, widen --min/--max or take a denser "
-                 "--series\n";
-    return kExitAnalysisRefused;
+    return ReportNoResult(
+        options.stage_path,
+        "no T network of " + std::string(SeriesName(*series)) +
+            " values from " + FormatEng(min_ohm, kOhm) + " to " +
+            FormatEng(max_ohm, kOhm) + " has a gain within " + tolerance +
+            " of " + gain +
+            "; relax --gain-tol, widen --min/--max or take a denser --series");
   }
 
   TeeSearchQuery query;
@@ -329,7 +303,7 @@ int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
     for (const std::string& w : result.best[i].budget.warnings) {
       if (std::find(seen.begin(), seen.end(), w) != seen.end()) continue;
       seen.push_back(w);
-      std::cerr << "warning: #" << i + 1 << ": " << w << "\n";
+      ReportWarning(w, "#" + std::to_string(i + 1));
     }
   if (!options.plot_path.empty()) {
     const int drawn = DrawPicture(

@@ -5,7 +5,9 @@
 
 #include "base/printf.h"
 #include "circuit/preferred_series.h"
+#include "cli/diagnostics.h"
 #include "cli/exit_codes.h"
+#include "cli/option_values.h"
 #include "cli/output_format.h"
 #include "cli/text_output.h"
 #include "design/tia_suggest.h"
@@ -22,18 +24,6 @@ namespace {
 
 constexpr const char* kCommandLine = "command line";
 
-double ParseOption(const std::string& flag, const std::string& text,
-                   Quantity quantity) {
-  std::string why;
-  std::optional<double> v = ParseQuantity(text, quantity, &why);
-  if (!v || !(*v > 0))
-    throw Error(kCommandLine, "",
-                flag + ": expected a positive " +
-                    std::string(QuantityName(quantity)).substr(2) + ", got \"" +
-                    text + "\"" + (why.empty() ? "" : " (" + why + ")"));
-  return *v;
-}
-
 }  // namespace
 
 int RunTiaSuggestCommand(const TiaSuggestCommandOptions& options) {
@@ -41,10 +31,12 @@ int RunTiaSuggestCommand(const TiaSuggestCommandOptions& options) {
       ResolveOutputFormat(options.format, options.json, options.csv);
   if (options.bandwidth.empty())
     throw Error(kCommandLine, "", "--bandwidth: required");
-  const double bandwidth =
-      ParseOption("--bandwidth", options.bandwidth, Quantity::kFrequency);
-  const double lo = ParseOption("--min", options.min, Quantity::kResistance);
-  const double hi = ParseOption("--max", options.max, Quantity::kResistance);
+  const double bandwidth = PositiveQuantityOption(
+      "--bandwidth", options.bandwidth, Quantity::kFrequency);
+  const double lo =
+      PositiveQuantityOption("--min", options.min, Quantity::kResistance);
+  const double hi =
+      PositiveQuantityOption("--max", options.max, Quantity::kResistance);
   if (hi < lo)
     throw Error(kCommandLine, "",
                 "--max: " + options.max + " is below --min " + options.min);
@@ -53,10 +45,6 @@ int RunTiaSuggestCommand(const TiaSuggestCommandOptions& options) {
     throw Error(kCommandLine, "",
                 "--series: unknown series \"" + options.series + "\"" +
                     DidYouMean(options.series, SeriesNames()));
-  if (options.rows < 1)
-    throw Error(
-        kCommandLine, "",
-        "--rows: expected at least 1, got " + std::to_string(options.rows));
 
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
   Stage stage = LoadStageFile(options.stage_path, library);
@@ -73,12 +61,10 @@ int RunTiaSuggestCommand(const TiaSuggestCommandOptions& options) {
     throw Error(kCommandLine, "",
                 "no " + options.series + " value lies between " + options.min +
                     " and " + options.max);
+  ThrowIfInvalid(suggest.Validate(),
+                 {{"bandwidth_hz", "--bandwidth"}, {"rows", "--rows"}});
   const TiaSuggestion s = SuggestTransimpedance(stage, suggest);
-  if (!s.status.ok) {
-    std::cerr << "error: " << options.stage_path << ": " << s.status.message
-              << "\n";
-    return kExitAnalysisRefused;
-  }
+  if (!s.status.ok) return ReportRefusal(options.stage_path, s.status.message);
   WriteReport(TiaSuggestionReport(format, stage, s, bandwidth), format);
   return kExitOk;
 }

@@ -2,14 +2,14 @@
 
 #include <algorithm>
 #include <cassert>
-#include <chrono>
 #include <cmath>
 #include <cstdio>
+#include <functional>
 #include <limits>
 #include <mutex>
 #include <queue>
-#include <thread>
 
+#include "base/worker_pool.h"
 #include "circuit/inverting_topology.h"
 #include "review/tee_comparison.h"
 
@@ -247,23 +247,6 @@ void Worker(Sweep& s, WorkerOut* out) {
   }
 }
 
-// Runs `fn(i)` for i in [0, count) on up to `threads` threads, statically
-// interleaved (the results do not depend on the thread count).
-template <typename Fn>
-void ParallelFor(int count, int threads, Fn fn) {
-  threads = std::max(1, std::min(threads, count));
-  if (threads == 1) {
-    for (int i = 0; i < count; ++i) fn(i);
-    return;
-  }
-  std::vector<std::thread> pool;
-  for (int t = 0; t < threads; ++t)
-    pool.emplace_back([=, &fn] {
-      for (int i = t; i < count; i += threads) fn(i);
-    });
-  for (std::thread& th : pool) th.join();
-}
-
 struct SweepOutcome {
   std::vector<TeeCandidate> pool;  // best first
   std::uint64_t in_tolerance = 0;
@@ -302,26 +285,17 @@ SweepOutcome RunSweep(const Stage& stage, const TeeSearchOptions& o,
   std::sort(s.rows.begin(), s.rows.end());
   s.total_rows = s.rows.size();
 
-  const int threads = std::max(1, o.threads);
+  const int threads = WorkerCount(o.threads, static_cast<long>(s.total_rows));
   std::vector<WorkerOut> outs(threads);
-  std::vector<std::thread> workers;
-  for (int t = 0; t < threads; ++t)
-    workers.emplace_back(Worker, std::ref(s), &outs[t]);
-  if (o.progress && report) {
-    auto last = std::chrono::steady_clock::now();
-    for (;;) {
+  std::function<void()> tick;
+  if (o.progress && report)
+    tick = [&] {
       const std::uint64_t done = s.rows_done.load(std::memory_order_relaxed);
-      const bool stopped = o.cancel && o.cancel->load();
-      if (done >= s.total_rows || stopped) break;
-      std::this_thread::sleep_for(std::chrono::milliseconds(5));
-      auto now = std::chrono::steady_clock::now();
-      if (now - last >= std::chrono::milliseconds(100)) {
-        last = now;
-        o.progress(static_cast<double>(done) / s.total_rows);
-      }
-    }
-  }
-  for (std::thread& w : workers) w.join();
+      o.progress(static_cast<double>(std::min(done, s.total_rows)) /
+                 std::max<std::uint64_t>(1, s.total_rows));
+    };
+  RunWorkers(
+      threads, [&](int t) { Worker(s, &outs[t]); }, tick);
 
   SweepOutcome result;
   std::vector<std::pair<Key, TeeCandidate>> all;
@@ -382,7 +356,9 @@ std::string TeeSearchOptions::Validate() const {
                   offset_weight);
     return buf;
   }
-  if (top < 1) return "top: expected at least 1, got " + std::to_string(top);
+  if (top < 1 || top > kMaxTeeSearchTop)
+    return "top: expected 1 to " + std::to_string(kMaxTeeSearchTop) + ", got " +
+           std::to_string(top);
   if (pool < 0) return "pool: expected 0 or more, got " + std::to_string(pool);
   if (!(verify_margin >= 0 && verify_margin < 1)) {
     std::snprintf(buf, sizeof buf,
@@ -390,8 +366,10 @@ std::string TeeSearchOptions::Validate() const {
                   verify_margin);
     return buf;
   }
-  if (threads < 1)
-    return "threads: expected at least 1, got " + std::to_string(threads);
+  if (threads < 0 || threads > kMaxWorkerThreads)
+    return "threads: expected 0 (every core) to " +
+           std::to_string(kMaxWorkerThreads) + ", got " +
+           std::to_string(threads);
   return budget.Validate();
 }
 

@@ -36,6 +36,7 @@
 #include <vector>
 
 #include "base/status.h"
+#include "base/worker_pool.h"
 #include "budget/budget.h"
 #include "budget/compute_budget.h"
 #include "circuit/stage.h"
@@ -48,6 +49,9 @@ enum class TeeRanking {
   kOffset,    // worst-case output offset at DC
   kWeighted,  // (1 - w) noise / noise_ref + w offset / offset_ref
 };
+
+// The documented range of --top: 1 to 10000.
+inline constexpr int kMaxTeeSearchTop = 10000;
 
 struct TeeSearchOptions {
   // R1, R2 and R3 are drawn from these values (ohms, ascending, > 0).

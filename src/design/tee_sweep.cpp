@@ -17,8 +17,9 @@ std::string TeeSweepOptions::Validate() const {
                   min_largest_ohm);
     return buf;
   }
-  if (points < 2)
-    return "points: expected at least 2, got " + std::to_string(points);
+  if (points < 2 || points > kMaxTeeSweepPoints)
+    return "points: expected 2 to " + std::to_string(kMaxTeeSweepPoints) +
+           ", got " + std::to_string(points);
   if (r1_over_r2 && !(*r1_over_r2 > 0 && std::isfinite(*r1_over_r2))) {
     std::snprintf(buf, sizeof buf,
                   "r1_over_r2: expected a positive ratio, got %g", *r1_over_r2);

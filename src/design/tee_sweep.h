@@ -32,6 +32,9 @@
 
 namespace hushgain {
 
+// The documented range of --points: 2 to 10000.
+inline constexpr int kMaxTeeSweepPoints = 10000;
+
 struct TeeSweepOptions {
   // The smallest L, ohms; 0 means Req / 1000. Must lie below Req.
   double min_largest_ohm = 0;

@@ -4,9 +4,9 @@
 #include <cmath>
 #include <cstdio>
 #include <limits>
-#include <sstream>
 
 #include "base/physical_constants.h"
+#include "base/printf.h"
 #include "budget/compute_budget.h"
 #include "budget/feedback_capacitor.h"
 
@@ -83,14 +83,15 @@ Status FillRow(const Stage& stage, double rf, double cf, double flat_hz,
 }  // namespace
 
 std::string TiaSuggestOptions::Validate() const {
-  std::ostringstream out;
   if (!(bandwidth_hz > 0 && std::isfinite(bandwidth_hz)))
-    out << "bandwidth is " << bandwidth_hz << " Hz, must be positive";
-  else if (resistors_ohm.empty())
-    out << "no candidate resistors";
-  else if (rows < 1)
-    out << "rows is " << rows << ", must be at least 1";
-  return out.str();
+    return Printf("bandwidth_hz: expected a positive frequency, got %g",
+                  bandwidth_hz);
+  if (resistors_ohm.empty())
+    return "resistors_ohm: expected at least one candidate resistor, got none";
+  if (rows < 1 || rows > kMaxTiaRows)
+    return "rows: expected 1 to " + std::to_string(kMaxTiaRows) + ", got " +
+           std::to_string(rows);
+  return {};
 }
 
 TiaSuggestion SuggestTransimpedance(const Stage& stage,

@@ -20,6 +20,9 @@
 
 namespace hushgain {
 
+// The documented range of --rows: 1 to 1000.
+inline constexpr int kMaxTiaRows = 1000;
+
 struct TiaSuggestOptions {
   double bandwidth_hz = 0;  // the -3 dB target, > 0
   // Candidate feedback resistors, any order; at least one.

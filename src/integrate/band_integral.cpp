@@ -4,7 +4,9 @@
 #include <cassert>
 #include <cmath>
 #include <queue>
-#include <sstream>
+#include <string>
+
+#include "base/printf.h"
 
 namespace hushgain {
 namespace {
@@ -91,22 +93,21 @@ class Integrator {
 }  // namespace
 
 std::string IntegrationOptions::Validate() const {
-  std::ostringstream out;
   if (!(relative_tolerance > 0 && relative_tolerance < 1))
-    out << "relative_tolerance is " << relative_tolerance
-        << ", must be in (0, 1)";
-  else if (!(intervals_per_decade > 0 && intervals_per_decade <= 1000))
-    out << "intervals_per_decade is " << intervals_per_decade
-        << ", must be in (0, 1000]";
-  else if (max_intervals < 1)
-    out << "max_intervals is " << max_intervals << ", must be at least 1";
-  else
-    for (double f : breakpoints_hz)
-      if (!(f > 0 && std::isfinite(f))) {
-        out << "breakpoints_hz holds " << f << ", must be positive";
-        break;
-      }
-  return out.str();
+    return Printf(
+        "relative_tolerance: expected a relative tolerance in (0, "
+        "1), got %g",
+        relative_tolerance);
+  if (!(intervals_per_decade > 0 && intervals_per_decade <= 1000))
+    return Printf("intervals_per_decade: expected a count in (0, 1000], got %g",
+                  intervals_per_decade);
+  if (max_intervals < 1)
+    return "max_intervals: expected at least 1, got " +
+           std::to_string(max_intervals);
+  for (double f : breakpoints_hz)
+    if (!(f > 0 && std::isfinite(f)))
+      return Printf("breakpoints_hz: expected positive frequencies, got %g", f);
+  return {};
 }
 
 IntegrationResult IntegrateBand(double f_low_hz, double f_high_hz, int n,

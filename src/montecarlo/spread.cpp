@@ -1,14 +1,15 @@
 #include "montecarlo/spread.h"
 
 #include <algorithm>
-#include <chrono>
+#include <atomic>
 #include <cmath>
+#include <functional>
 #include <memory>
-#include <sstream>
-#include <thread>
+#include <string>
 
 #include "analysis/restamp_solver.h"
 #include "base/physical_constants.h"
+#include "base/worker_pool.h"
 #include "budget/offset.h"
 #include "budget/resistor_excess.h"
 #include "circuit/expand_stage.h"
@@ -323,14 +324,13 @@ double WorstCaseOffset(const Model& m, Workspace& w) {
 }  // namespace
 
 std::string SpreadOptions::Validate() const {
-  std::ostringstream out;
-  if (samples < 1)
-    out << "samples is " << samples << ", must be at least 1";
-  else if (threads < 0)
-    out << "threads is " << threads << ", must be 0 (all) or more";
-  else
-    out << budget.Validate();
-  return out.str();
+  if (samples < 1 || samples > kMaxSpreadSamples)
+    return "samples: expected 1 to " + std::to_string(kMaxSpreadSamples) +
+           ", got " + std::to_string(samples);
+  if (threads < 0 || threads > kMaxWorkerThreads)
+    return "threads: expected 0 (all) to " + std::to_string(kMaxWorkerThreads) +
+           ", got " + std::to_string(threads);
+  return budget.Validate();
 }
 
 SpreadRun RunSpread(const Stage& stage, const SpreadOptions& options,
@@ -368,14 +368,9 @@ SpreadRun RunSpread(const Stage& stage, const SpreadOptions& options,
   const long total = options.samples;
   run.samples.resize(total);
   run.resistor_ohms.resize(static_cast<std::size_t>(total) * m);
-  int threads =
-      options.threads > 0
-          ? options.threads
-          : static_cast<int>(std::max(1u, std::thread::hardware_concurrency()));
-  threads =
-      static_cast<int>(std::min<long>(threads, (total + kBlock - 1) / kBlock));
+  const int threads =
+      WorkerCount(options.threads, (total + kBlock - 1) / kBlock);
   std::atomic<long> next{0}, done{0};
-  std::atomic<int> running{threads};
   std::atomic<bool> failed{false};
   std::vector<Status> failures(threads);
   auto stopped = [&] {
@@ -403,23 +398,10 @@ SpreadRun RunSpread(const Stage& stage, const SpreadOptions& options,
       }
       done.fetch_add(end - begin);
     }
-    running.fetch_sub(1);
   };
-  std::vector<std::thread> pool;
-  for (int t = 1; t < threads; ++t) pool.emplace_back(worker, t);
-  if (control.progress) {
-    // The calling thread reports progress while the others work, then joins in.
-    std::thread last(worker, 0);
-    while (running.load() > 0) {
-      control.progress(done.load(), total);
-      std::this_thread::sleep_for(std::chrono::milliseconds(100));
-    }
-    last.join();
-    control.progress(done.load(), total);
-  } else {
-    worker(0);
-  }
-  for (std::thread& t : pool) t.join();
+  std::function<void()> tick;
+  if (control.progress) tick = [&] { control.progress(done.load(), total); };
+  RunWorkers(threads, worker, tick);
   for (const Status& s : failures)
     if (!s.ok) {
       run.status = s;

@@ -31,11 +31,16 @@
 #include <vector>
 
 #include "base/status.h"
+#include "base/worker_pool.h"
 #include "budget/budget.h"
 #include "budget/compute_budget.h"
 #include "circuit/stage.h"
 
 namespace hushgain {
+
+// The documented range of --samples: 1 to a hundred million (the samples
+// are held in memory, about 117 bytes each beside the per-resistor values).
+inline constexpr long kMaxSpreadSamples = 100'000'000;
 
 struct SpreadOptions {
   long samples = 10000;    // at least 1

@@ -80,7 +80,7 @@ TEST_CASE("spread refuses zero samples with one line naming the option") {
   const Result r = s.Run("spread " + stage.string() + " --samples 0");
   CHECK(r.code == 2);
   CHECK(r.err ==
-        "error: command line: --samples: expected at least 1, got 0\n");
+        "error: command line: --samples: expected 1 to 100000000, got 0\n");
   CHECK(r.out.empty());
 }
 

@@ -82,7 +82,7 @@ TEST_CASE("tee commands refuse bad input with one line and exit code 2") {
   CheckBadInput(search + "--max 100k --input-min 1k",
                 "error: command line: --input-min: needs --free-input");
   CheckBadInput(search + "--max 100k --top 0",
-                "error: command line: --top: expected at least 1, got 0");
+                "error: command line: --top: expected 1 to 10000, got 0");
   CheckBadInput("tee sweep examples/load-cell-bridge.json",
                 "error: examples/load-cell-bridge.json: /stage/feedback: tee "
                 "sweep needs a T network (\"tee\"), this stage has one "

@@ -272,7 +272,7 @@ TEST_CASE("search options name the field they break") {
         "gain_tolerance: expected a ratio in [0, 1), got -0.01");
   o.gain_tolerance = 0.01;
   o.top = 0;
-  CHECK(o.Validate() == "top: expected at least 1, got 0");
+  CHECK(o.Validate() == "top: expected 1 to 10000, got 0");
   o.top = 3;
   o.values = {2e3, 1e3};
   CHECK(o.Validate() == "values: expected positive values in increasing order");

@@ -208,7 +208,7 @@ TEST_CASE("sweep rows shrink the largest resistor and raise the noise cost") {
 TEST_CASE("sweep options name the field they break") {
   TeeSweepOptions o;
   o.points = 1;
-  CHECK(o.Validate() == "points: expected at least 2, got 1");
+  CHECK(o.Validate() == "points: expected 2 to 10000, got 1");
   o = TeeSweepOptions{};
   o.r1_over_r2 = -2;
   CHECK(o.Validate() == "r1_over_r2: expected a positive ratio, got -2");

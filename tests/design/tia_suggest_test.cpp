@@ -114,7 +114,8 @@ TEST_CASE("a target no candidate reaches says what to change") {
 TEST_CASE("suggestion options validate with a message naming the field") {
   TiaSuggestOptions options;
   options.resistors_ohm = {1e6};
-  CHECK(options.Validate() == "bandwidth is 0 Hz, must be positive");
+  CHECK(options.Validate() ==
+        "bandwidth_hz: expected a positive frequency, got 0");
 }
 
 }  // namespace

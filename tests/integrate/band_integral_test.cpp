@@ -150,7 +150,8 @@ TEST_CASE("options validate with a message naming the field") {
   IntegrationOptions options;
   CHECK(options.Validate().empty());
   options.relative_tolerance = -1;
-  CHECK(options.Validate() == "relative_tolerance is -1, must be in (0, 1)");
+  CHECK(options.Validate() ==
+        "relative_tolerance: expected a relative tolerance in (0, 1), got -1");
 }
 
 }  // namespace
