@@ -20,7 +20,8 @@ using test::RunResult;
 
 struct BadCount {
   std::vector<std::string> args;
-  std::string message;  // the whole stderr line, without "error: command line: "
+  std::string
+      message;  // the whole stderr line, without "error: command line: "
 };
 
 TEST_CASE("count options outside their range are one line and exit 2") {
@@ -66,9 +67,9 @@ TEST_CASE("count options outside their range are one line and exit 2") {
 
 TEST_CASE("the largest seed is accepted as given") {
   const RunResult r =
-      RunBinary(HUSHGAIN_BINARY, {"spread", ExamplePath("hydrophone-preamp"),
-                                  "--samples", "20", "--seed",
-                                  "18446744073709551615", "--format", "json"});
+      RunBinary(HUSHGAIN_BINARY,
+                {"spread", ExamplePath("hydrophone-preamp"), "--samples", "20",
+                 "--seed", "18446744073709551615", "--format", "json"});
   CHECK(r.exit_code == 0);
   CHECK(r.out.find("18446744073709551615") != std::string::npos);
 }
