@@ -48,6 +48,21 @@ Status RefineMaximum(const GainFunction& gain, double a, double b, double* best,
   return Status::Ok();
 }
 
+// Bisects in log f between `inside` (|H| >= threshold) and `outside`
+// (|H| < threshold), either order, to 1e-8 relative.
+Status BisectCrossing(const GainFunction& gain, double threshold, double inside,
+                      double outside, double* f_hz) {
+  std::complex<double> h;
+  for (int i = 0; i < 80 && std::fabs(std::log(outside / inside)) > 1e-8; ++i) {
+    const double mid = std::sqrt(inside * outside);
+    Status st = gain(mid, &h);
+    if (!st.ok) return st;
+    (std::abs(h) >= threshold ? inside : outside) = mid;
+  }
+  *f_hz = std::sqrt(inside * outside);
+  return Status::Ok();
+}
+
 }  // namespace
 
 ResponseMaximum LargestMagnitude(const GainFunction& gain, double f_lo_hz,
@@ -76,53 +91,82 @@ ResponseMaximum LargestMagnitude(const GainFunction& gain, double f_lo_hz,
   return out;
 }
 
-ResponseSummary SummarizeResponse(const GainFunction& gain, double f_ref_hz,
-                                  double f_max_hz, int points_per_decade) {
-  ResponseSummary out;
+PassbandResponse SummarizePassband(const GainFunction& gain, double band_low_hz,
+                                   double band_high_hz, double f_lo_hz,
+                                   double f_max_hz, int points_per_decade) {
+  PassbandResponse out;
   std::complex<double> h;
-  out.status = gain(f_ref_hz, &h);
+  out.status = gain(0.0, &h);
   if (!out.status.ok) return out;
-  const double reference = std::abs(h);
-  const double threshold = reference / std::sqrt(2.0);
-  double peak = reference;
-  out.peak_hz = f_ref_hz;
+  out.dc_gain = std::abs(h);
+  const ResponseMaximum in_band =
+      LargestMagnitude(gain, band_low_hz, band_high_hz, points_per_decade);
+  if (!in_band.status.ok) {
+    out.status = in_band.status;
+    return out;
+  }
+  out.blocks_dc = out.dc_gain < in_band.magnitude / std::sqrt(2.0);
+  out.passband_gain = out.blocks_dc ? in_band.magnitude : out.dc_gain;
+  out.passband_hz = out.blocks_dc ? in_band.f_hz : 0.0;
+  const double threshold = out.passband_gain / std::sqrt(2.0);
 
+  // The scan, from where the response is still in its passband.
+  double f_start = out.blocks_dc ? out.passband_hz : f_lo_hz;
+  out.status = gain(f_start, &h);
+  if (!out.status.ok) return out;
+  for (int i = 0; i < 12 && !out.blocks_dc && std::abs(h) < threshold; ++i) {
+    f_start /= 1e3;
+    out.status = gain(f_start, &h);
+    if (!out.status.ok) return out;
+  }
   const double step = std::pow(10.0, 1.0 / points_per_decade);
-  double f_prev = f_ref_hz;
-  // After the -3 dB point the scan goes on for one more decade, so a caller
-  // that watches other transfers in `gain` (the noise gain) sees past it.
-  double f_stop = f_max_hz * step;
-  for (double f = f_ref_hz * step; f <= f_stop; f *= step) {
+  double peak = out.passband_gain;
+  double f_prev = f_start;
+  for (double f = f_start * step; f <= f_max_hz * step; f *= step) {
     out.status = gain(f, &h);
     if (!out.status.ok) return out;
-    const double magnitude = std::abs(h);
-    if (magnitude > peak) {
-      peak = magnitude;
+    const double m = std::abs(h);
+    if (m > peak) {
+      peak = m;
       out.peak_hz = f;
     }
-    if (!out.bandwidth_found && magnitude < threshold) {
-      // Bisect in log f between f_prev (above threshold) and f (below).
-      double lo = f_prev, hi = f;
-      for (int i = 0; i < 60 && hi / lo > 1 + 1e-8; ++i) {
-        double mid = std::sqrt(lo * hi);
-        out.status = gain(mid, &h);
-        if (!out.status.ok) return out;
-        (std::abs(h) < threshold ? hi : lo) = mid;
-      }
-      out.bandwidth_3db_hz = std::sqrt(lo * hi);
-      out.bandwidth_found = true;
-      f_stop = std::min(f_stop, 10.0 * f);
+    if (!out.high_corner_found && m < threshold) {
+      out.status =
+          BisectCrossing(gain, threshold, f_prev, f, &out.high_corner_hz);
+      if (!out.status.ok) return out;
+      out.high_corner_found = true;
     }
     f_prev = f;
   }
-  if (out.peak_hz > f_ref_hz) {
+  if (out.blocks_dc) {
+    // Down from the in-band maximum to the first fall through -3 dB.
+    f_prev = out.passband_hz;
+    for (double f = out.passband_hz / step; f >= f_lo_hz / step; f /= step) {
+      out.status = gain(f, &h);
+      if (!out.status.ok) return out;
+      const double m = std::abs(h);
+      if (m > peak) {
+        peak = m;
+        out.peak_hz = f;
+      }
+      if (m < threshold) {
+        out.status =
+            BisectCrossing(gain, threshold, f_prev, f, &out.low_corner_hz);
+        if (!out.status.ok) return out;
+        out.low_corner_found = true;
+        break;
+      }
+      f_prev = f;
+    }
+  }
+  if (out.peak_hz > 0) {
     // Refine around the best sample (one scan step either side).
     out.status =
         RefineMaximum(gain, std::log(out.peak_hz / step),
                       std::log(out.peak_hz * step), &peak, &out.peak_hz);
     if (!out.status.ok) return out;
   }
-  out.peaking_db = 20.0 * std::log10(peak / reference);
+  out.peaking_db = 20.0 * std::log10(peak / out.passband_gain);
   return out;
 }
 

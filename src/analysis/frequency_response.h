@@ -17,18 +17,42 @@ namespace hushgain {
 using GainFunction =
     std::function<Status(double f_hz, std::complex<double>* gain)>;
 
-struct ResponseSummary {
+// The response measured against its passband, so the figures are
+// properties of the circuit and not of the band asked about:
+//   - the passband gain is |H(0)| for a stage that passes DC; a stage
+//     whose |H(0)| is more than 3 dB below its largest in-band gain
+//     "blocks DC" (a capacitor in the signal path), and its passband gain
+//     is that largest in-band |H|;
+//   - the high -3 dB corner is the first frequency above the passband
+//     (above DC, or above the in-band maximum) where |H| falls through
+//     passband / sqrt(2); the low corner (DC-blocking stages only) the
+//     first below the in-band maximum where it does; both bisected in
+//     log f to 1e-8;
+//   - the peaking is the largest |H(f)| over the scan against the passband
+//     gain, in dB (0 when |H| never rises above it).
+// The band only decides, for a DC-blocking stage, where the passband gain
+// is read.
+struct PassbandResponse {
   Status status;
-  double bandwidth_3db_hz = 0;  // 0 when no -3 dB point below f_max
-  bool bandwidth_found = false;
+  bool blocks_dc = false;
+  double dc_gain = 0;              // |H(0)|
+  double passband_gain = 0;        // |H(0)|, or the largest in-band |H|
+  double passband_hz = 0;          // 0 (DC), or where that in-band maximum is
+  bool high_corner_found = false;  // false: no -3 dB point below f_max
+  double high_corner_hz = 0;
+  bool low_corner_found = false;  // DC-blocking stages only
+  double low_corner_hz = 0;
   double peaking_db = 0;
-  double peak_hz = 0;
+  double peak_hz = 0;  // 0 when there is no peaking
 };
 
-// Scans f_ref .. f_max_hz at `points_per_decade`; the peak is refined by a
-// golden-section search around the largest sample.
-ResponseSummary SummarizeResponse(const GainFunction& gain, double f_ref_hz,
-                                  double f_max_hz, int points_per_decade = 20);
+// Scans f_lo_hz .. f_max_hz at `points_per_decade` (f_lo_hz far below the
+// band and the circuit's lowest corner for a DC-coupled stage: when |H| is
+// already 3 dB down there, the scan goes down by decades, at most 12, to
+// find where it is not). band_low_hz .. band_high_hz is the band.
+PassbandResponse SummarizePassband(const GainFunction& gain, double band_low_hz,
+                                   double band_high_hz, double f_lo_hz,
+                                   double f_max_hz, int points_per_decade = 20);
 
 // The largest |H(f)| over [f_lo_hz, f_hi_hz]: a log scan at
 // `points_per_decade` (both ends included), then a golden-section search in

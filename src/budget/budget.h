@@ -188,9 +188,16 @@ struct Budget {
   double signal_gain_dc = 0;  // signed (negative for an inverting stage)
   double noise_gain_ref = 0;  // |e_n -> output| at the reference frequency
   double noise_gain_dc = 0;
-  double bandwidth_3db_hz = 0;  // 0 when not found below 100 x GBW
-  double peaking_db = 0;
-  double peak_hz = 0;
+  // The response against its passband (analysis/frequency_response.h,
+  // SummarizePassband): the passband gain is |gain(0)|, or for a stage that
+  // blocks DC (|gain(0)| more than 3 dB below its largest in-band gain) that
+  // largest in-band gain; bandwidth and peaking are measured against it.
+  bool blocks_dc = false;
+  double passband_gain = 0;
+  double bandwidth_3db_hz = 0;  // high corner; 0 when not found below 100 GBW
+  double bandwidth_low_hz = 0;  // low corner of a DC-blocking stage, else 0
+  double peaking_db = 0;        // largest |gain| over the passband gain, dB
+  double peak_hz = 0;           // 0 when there is no peaking
   // The largest |e_n -> output| over frequency (refined), or the DC value
   // with noise_gain_flat when it never rises above DC (peak_hz 0 then).
   double noise_gain_peak = 0;
@@ -205,7 +212,11 @@ struct Budget {
   double output_rms_v = 0;
   double output_peak_to_peak_v = 0;  // 6.6 x rms (about 99.9 % of the time)
   double output_density_ref_v_per_rthz = 0;
-  double input_rms = 0;                   // output rms / |gain(f_ref)|
+  // sqrt(integral of S_out(f) / |gain(f)|^2 df over the band): the noise an
+  // ideal source at the input would need to make the same output.
+  double input_rms = 0;
+  // output rms / |gain(f_ref)|: the same when the gain is flat over the band.
+  double input_rms_at_reference_gain = 0;
   double input_density_ref_per_rthz = 0;  // output density / |gain(f_ref)|
 
   OffsetBlock offset;
@@ -229,6 +240,10 @@ struct Budget {
   double integration_relative_error = 0;  // estimate
   std::vector<std::string> warnings;
 };
+
+// Where input_rms and input_rms_at_reference_gain differ by more than this
+// fraction, the report says which one it prints and why.
+inline constexpr double kInputRmsDefinitionsDiffer = 0.01;
 
 // The crest factor used for peak-to-peak noise: 6.6 x rms holds about
 // 99.9 % of the time for Gaussian noise (common practice; erf(3.3/sqrt 2)

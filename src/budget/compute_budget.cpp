@@ -124,7 +124,7 @@ Status ReferenceFigures(const Stage& /*stage*/, const Ports& p,
 
 // The band integral of every contributor at once.
 Status BandNoise(const Stage& stage, const BudgetOptions& options,
-                 SpectrumEvaluator& ev, Budget& b,
+                 const Ports& p, SpectrumEvaluator& ev, Budget& b,
                  std::vector<LogInterval>* partition) {
   const int n = ev.source_count();
   // A tabulated op-amp density has a kink at each of its points.
@@ -133,9 +133,21 @@ Status BandNoise(const Stage& stage, const BudgetOptions& options,
        {&stage.opamp.voltage_noise_table, &stage.opamp.current_noise_table})
     for (double f : table->Breakpoints(stage.band_low_hz, stage.band_high_hz))
       integration.breakpoints_hz.push_back(f);
+  // Component n is the input-referred density S_out(f) / |G(f)|^2, scaled
+  // by |G(f_ref)|^2 so that it weighs like the output power in the
+  // integrator's error control (equal to it for a flat gain).
+  const double g_ref = b.signal_gain_ref;
   IntegrationResult integral = IntegrateBand(
-      stage.band_low_hz, stage.band_high_hz, n,
-      [&ev](double f, double* out) { return ev.Densities(f, out); },
+      stage.band_low_hz, stage.band_high_hz, n + 1,
+      [&](double f, double* out) {
+        Status st = ev.Densities(f, out);
+        if (!st.ok) return st;
+        double total = 0;
+        for (int k = 0; k < n; ++k) total += out[k];
+        const double g = std::abs(ev.Transfer(p.signal)) / g_ref;
+        out[n] = total / (g * g);
+        return st;
+      },
       integration);
   if (!integral.status.ok) return integral.status;
   double total_power = 0;
@@ -159,10 +171,16 @@ Status BandNoise(const Stage& stage, const BudgetOptions& options,
   *partition = integral.partition;
   b.output_rms_v = std::sqrt(total_power);
   b.output_peak_to_peak_v = kPeakToPeakPerRms * b.output_rms_v;
-  b.input_rms = b.output_rms_v / b.signal_gain_ref;
+  Status finite = CheckFinite(integral.integrals[n],
+                              "the input-referred noise (the signal gain "
+                              "vanishes inside the band)");
+  if (!finite.ok) return finite;
+  b.input_rms = std::sqrt(integral.integrals[n]) / g_ref;
+  b.input_rms_at_reference_gain = b.output_rms_v / g_ref;
   b.integration_evaluations = integral.evaluations;
+  const double summed = total_power + integral.integrals[n];
   b.integration_relative_error =
-      total_power > 0 ? integral.error_estimate / total_power : 0;
+      summed > 0 ? integral.error_estimate / summed : 0;
   if (!integral.converged)
     b.warnings.push_back(Printf(
         "noise integration stopped at an estimated relative error of "
@@ -175,14 +193,27 @@ Status BandNoise(const Stage& stage, const BudgetOptions& options,
 Status ResponseFigures(const Stage& stage, const Ports& p,
                        SpectrumEvaluator& ev, Budget& b) {
   const double f_max = kBandwidthSearchPerGbw * stage.opamp.gbw_hz;
-  ResponseSummary response = SummarizeResponse(
+  // Measured against the passband (the DC gain, or for a stage that blocks
+  // DC its largest in-band gain), so the band and the reference move none
+  // of these figures.
+  const double f_lo =
+      1e-3 * std::min(stage.band_low_hz,
+                      stage.opamp.gbw_hz / stage.opamp.open_loop_gain);
+  PassbandResponse response = SummarizePassband(
       [&](double f, std::complex<double>* h) {
         Status st = ev.SolveAt(f);
         *h = ev.Transfer(p.signal);
         return st;
       },
-      b.reference_hz, f_max, 10);
+      stage.band_low_hz, stage.band_high_hz, f_lo, f_max, 10);
   if (!response.status.ok) return response.status;
+  b.blocks_dc = response.blocks_dc;
+  b.passband_gain = response.passband_gain;
+  b.bandwidth_3db_hz =
+      response.high_corner_found ? response.high_corner_hz : 0.0;
+  b.bandwidth_low_hz = response.low_corner_found ? response.low_corner_hz : 0;
+  b.peaking_db = response.peaking_db;
+  b.peak_hz = response.peak_hz;
   // The e_n noise gain's true maximum over frequency, from three decades
   // below the band to the search limit; "flat" when it never rises above
   // its DC value by more than kFlatNoiseGainDb.
@@ -192,21 +223,21 @@ Status ResponseFigures(const Stage& stage, const Ports& p,
         *h = ev.Transfer(p.e_n);
         return st;
       },
-      1e-3 * stage.band_low_hz, f_max, 10);
+      f_lo, f_max, 10);
   if (!ng.status.ok) return ng.status;
   b.noise_gain_flat =
       ng.at_low_end ||
       ng.magnitude <= b.noise_gain_dc * std::pow(10.0, kFlatNoiseGainDb / 20);
   b.noise_gain_peak = b.noise_gain_flat ? b.noise_gain_dc : ng.magnitude;
   b.noise_gain_peak_hz = b.noise_gain_flat ? 0 : ng.f_hz;
-  if (!response.status.ok) return response.status;
-  b.bandwidth_3db_hz = response.bandwidth_3db_hz;
-  b.peaking_db = response.peaking_db;
-  b.peak_hz = response.peak_hz;
   if (b.bandwidth_3db_hz > 0 && b.bandwidth_3db_hz < b.band_high_hz)
     b.warnings.push_back(
         "the closed-loop -3 dB bandwidth (" + HzText(b.bandwidth_3db_hz) +
         ") is below the band's upper edge (" + HzText(b.band_high_hz) + ")");
+  if (b.bandwidth_low_hz > b.band_low_hz)
+    b.warnings.push_back("the low -3 dB corner (" + HzText(b.bandwidth_low_hz) +
+                         ") is above the band's lower edge (" +
+                         HzText(b.band_low_hz) + ")");
   return Status::Ok();
 }
 
@@ -340,7 +371,8 @@ BudgetOutcome ComputeBudgetAsGiven(const Stage& requested,
   if (s.ok) s = DcFigures(stage, netlist, ports, evaluator, b);
   if (s.ok) s = ReferenceFigures(stage, ports, evaluator, b);
   if (s.ok)
-    s = BandNoise(stage, options, evaluator, b, &outcome.noise_partition);
+    s = BandNoise(stage, options, ports, evaluator, b,
+                  &outcome.noise_partition);
   if (s.ok && full) s = ResponseFigures(stage, ports, evaluator, b);
   if (s.ok && full) s = OutputDrive(stage, evaluator.system(), ports, b);
   if (!s.ok) return {s, b, {}, {}};

@@ -4,7 +4,7 @@
 // budgets (plain resistor, temperature corners, compensation resistor) are
 // composed above it, in review/review.h.
 //   output_rms = sqrt(integral of S_out(f) df over the band)
-//   input_rms  = output_rms / |signal gain(f_ref)|
+//   input_rms  = sqrt(integral of S_out(f) / |signal gain(f)|^2 df)
 #ifndef HUSHGAIN_BUDGET_COMPUTE_BUDGET_H_
 #define HUSHGAIN_BUDGET_COMPUTE_BUDGET_H_
 

@@ -151,4 +151,33 @@ Table TeeChangesTable(const Budget& b) {
   return t;
 }
 
+std::string BandwidthText(const Budget& b) {
+  const std::string high = b.bandwidth_3db_hz > 0
+                               ? FormatEng(b.bandwidth_3db_hz, "Hz")
+                               : std::string("not found");
+  std::string out;
+  if (b.blocks_dc) {
+    out = (b.bandwidth_low_hz > 0 ? FormatEng(b.bandwidth_low_hz, "Hz")
+                                  : std::string("not found")) +
+          " to " + high + " (against the in-band gain " +
+          FormatGain(b.passband_gain) + ")";
+  } else {
+    out = high + " (against the DC gain)";
+  }
+  if (b.peaking_db > 0.01)
+    out += ", peaking " + Printf("%.2f dB", b.peaking_db) + " at " +
+           FormatEng(b.peak_hz, "Hz");
+  return out;
+}
+
+std::string InputRmsNote(const Budget& b) {
+  const double a = b.input_rms, r = b.input_rms_at_reference_gain;
+  if (!(a > 0) || std::fabs(a - r) <= kInputRmsDefinitionsDiffer * a) return "";
+  return "the input-referred rms is the integral of the output density over "
+         "|signal gain(f)|^2 (the noise an ideal source at the input would "
+         "need); the gain is not flat over the band, so output rms / |gain| "
+         "at the reference would say " +
+         FormatEng(r, b.input_unit);
+}
+
 }  // namespace hushgain

@@ -29,6 +29,17 @@ Table TeeSummaryTable(const Budget& budget);
 // Requires budget.tee. One row per contributor of either stage.
 Table TeeChangesTable(const Budget& budget);
 
+// The response line's text, shared by text and Markdown: "19.17 kHz (against
+// the DC gain)", or for a stage that blocks DC "12.0 Hz to 19.17 kHz
+// (against the in-band gain 1000 at 1 kHz)", then ", peaking ..." when the
+// response rises more than 0.01 dB above its passband.
+std::string BandwidthText(const Budget& budget);
+
+// "" when the two input-referred definitions agree within
+// kInputRmsDefinitionsDiffer; otherwise one sentence saying which one is
+// printed and why, with the other's value.
+std::string InputRmsNote(const Budget& budget);
+
 // Shared cell formats: "%.4g" for gains, engineering notation with
 // "<unit>/√Hz" for densities, "12.3 %" (or "<0.1 %") for shares.
 std::string FormatGain(double value);

@@ -48,6 +48,9 @@ std::string BudgetToJson(const Budget& b) {
                        {"peak_Hz", b.noise_gain_peak_hz},
                        {"flat", b.noise_gain_flat}};
   out["response"] = {{"bandwidth_3db_Hz", b.bandwidth_3db_hz},
+                     {"bandwidth_low_Hz", b.bandwidth_low_hz},
+                     {"blocks_dc", b.blocks_dc},
+                     {"passband_gain", b.passband_gain},
                      {"peaking_dB", b.peaking_db},
                      {"peak_Hz", b.peak_hz}};
   // Null margin and crossover when the loop gain never falls through 1.
@@ -84,6 +87,7 @@ std::string BudgetToJson(const Budget& b) {
       {"peak_to_peak_per_rms", kPeakToPeakPerRms},
       {"output_density_V_per_rtHz", b.output_density_ref_v_per_rthz},
       {"input_referred_rms", b.input_rms},
+      {"input_referred_rms_at_reference_gain", b.input_rms_at_reference_gain},
       {"input_referred_density_per_rtHz", b.input_density_ref_per_rthz},
       {"input_referred_unit", b.input_unit},
       {"contributors", contributors},

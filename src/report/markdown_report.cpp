@@ -45,13 +45,7 @@ std::string Header(const Budget& b) {
                        ? std::string(", flat (no peak above DC)")
                        : ", peak " + FormatGain(b.noise_gain_peak) + " at " +
                              FormatEng(b.noise_gain_peak_hz, "Hz")));
-  out += Item("closed-loop -3 dB bandwidth",
-              (b.bandwidth_3db_hz > 0 ? FormatEng(b.bandwidth_3db_hz, "Hz")
-                                      : std::string("not found")) +
-                  (b.peaking_db > 0.01
-                       ? ", peaking " + Printf("%.2f dB", b.peaking_db) +
-                             " at " + FormatEng(b.peak_hz, "Hz")
-                       : ""));
+  out += Item("closed-loop -3 dB bandwidth", BandwidthText(b));
   if (b.loop.crossover_found)
     out += Item("loop gain",
                 "crosses unity at " + FormatEng(b.loop.crossover_hz, "Hz") +
@@ -82,6 +76,8 @@ std::string NoiseSection(const Budget& b) {
               FormatEng(b.input_rms, b.input_unit) + " rms, " +
                   FormatDensity(b.input_density_ref_per_rthz, b.input_unit) +
                   " at " + ref);
+  if (const std::string note = InputRmsNote(b); !note.empty())
+    out += Item("note", note);
   if (b.photodiode && b.photodiode->responsivity_a_per_w > 0)
     out += Item(
         "NEP",

@@ -47,13 +47,7 @@ std::string Header(const Budget& b) {
                             : ", peak " + Gain(b.noise_gain_peak) + " at " +
                                   FormatEng(b.noise_gain_peak_hz, "Hz")) +
          "\n";
-  out += "  closed-loop -3 dB bandwidth " +
-         (b.bandwidth_3db_hz > 0 ? FormatEng(b.bandwidth_3db_hz, "Hz")
-                                 : std::string("not found")) +
-         (b.peaking_db > 0.01 ? ", peaking " + Printf("%.2f dB", b.peaking_db) +
-                                    " at " + FormatEng(b.peak_hz, "Hz")
-                              : "") +
-         "\n";
+  out += "  closed-loop -3 dB bandwidth " + BandwidthText(b) + "\n";
   if (b.loop.crossover_found)
     out += "  loop gain crosses unity at " +
            FormatEng(b.loop.crossover_hz, "Hz") + ", phase margin " +
@@ -80,6 +74,8 @@ std::string NoiseSection(const Budget& b) {
   out += "  input-referred         " + FormatEng(b.input_rms, b.input_unit) +
          " rms, " + Density(b.input_density_ref_per_rthz, b.input_unit) +
          " at " + ref + "\n";
+  if (const std::string note = InputRmsNote(b); !note.empty())
+    out += "  note: " + note + "\n";
   if (b.photodiode && b.photodiode->responsivity_a_per_w > 0) {
     out +=
         "  NEP                    " +

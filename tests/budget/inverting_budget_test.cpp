@@ -168,6 +168,45 @@ TEST_CASE("finite GBW sets the -3 dB bandwidth at GBW/NG + f_p") {
   CHECK(b.peaking_db == doctest::Approx(0.0).epsilon(1e-9));
 }
 
+TEST_CASE("a flat stage's input-referred rms is output rms over its gain") {
+  // G = -R_f/R_in at every frequency (ideal op-amp): the integral of
+  // S_out / |G|^2 is the output power over G^2.
+  const Budget b = Compute(
+      test::InvertingStage(1e3, 100e3, test::IdealOpAmp(5e-9), 300.0), 1e-7);
+  CHECK(RelErr(b.input_rms, b.output_rms_v / 100.0) < 1e-6);
+  CHECK(RelErr(b.input_rms, b.input_rms_at_reference_gain) < 1e-6);
+}
+
+TEST_CASE(
+    "with a pole inside the band the input-referred rms is the integral") {
+  // R_in 1k, R_f 100k, C_f 1.59 nF: f_c = 1/(2 pi R_f C_f) = 1 kHz inside
+  // 0.1 Hz .. 10 kHz; ideal op-amp, e_n 5 nV white, 300 K. Referred to the
+  // input through G(f) = -(R_f/R_in) / (1 + j f/f_c), each density is (a =
+  // R_in/R_f; derived here):
+  //   R_in: 4kT R_in;  R_f: 4kT R_f a^2;
+  //   e_n: e_n^2 |1 + 1/G|^2 = e_n^2 ((1 + a)^2 + a^2 (f/f_c)^2),
+  // so over f1..f2 the input power is
+  //   (4kT R_in + 4kT R_f a^2 + e_n^2 (1 + a)^2) (f2 - f1)
+  //     + e_n^2 a^2 (f2^3 - f1^3) / (3 f_c^2).
+  const double rin = 1e3, rf = 100e3, fc = 1e3, en = 5e-9;
+  const double cf = 1 / (2 * kPi * rf * fc), a = rin / rf;
+  const double f1 = 0.1, f2 = 10e3, four_kt = test::FourKT(300.0);
+  Stage stage = test::InvertingStage(rin, rf, test::IdealOpAmp(en), 300.0);
+  stage.feedback.capacitor_f = cf;
+  stage.band_low_hz = f1;
+  stage.band_high_hz = f2;
+  stage.reference_hz = 10.0;
+  const double power =
+      (four_kt * rin + four_kt * rf * a * a + en * en * (1 + a) * (1 + a)) *
+          (f2 - f1) +
+      en * en * a * a * (f2 * f2 * f2 - f1 * f1 * f1) / (3 * fc * fc);
+  const Budget b = Compute(stage, 1e-7);
+  CHECK(RelErr(b.input_rms, std::sqrt(power)) < 1e-6);
+  // The old definition, output rms / |G(10 Hz)|, is far below it: the
+  // output rolls off above 1 kHz while the input-referred noise does not.
+  CHECK(b.input_rms_at_reference_gain < 0.5 * b.input_rms);
+}
+
 TEST_CASE("a single-pole stage's e_n noise gain is flat: no peak above DC") {
   // NG(s) = NG0 / (1 + s NG0 / w_t) for A(s) = A0 / (1 + s A0 / w_t):
   // |NG| falls monotonically from DC (Sedra and Smith, ch. 2), so there is

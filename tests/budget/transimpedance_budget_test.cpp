@@ -7,6 +7,7 @@
 
 #include <cmath>
 #include <complex>
+#include <tuple>
 
 #include "budget/compute_budget.h"
 #include "budget/feedback_capacitor.h"
@@ -113,6 +114,30 @@ TEST_CASE(
   CHECK(RelErr(b.bandwidth_3db_hz, f0) < 0.01);
   CHECK(b.loop.phase_margin_deg == doctest::Approx(65.59).epsilon(0.005));
   CHECK(b.peaking_db < 0.01);
+}
+
+TEST_CASE("bandwidth, peaking and DC gain do not move with the band") {
+  // The 52-degree C_f of section 7 (1.217 dB of peaking, f_3dB 71 383 Hz):
+  // the same stage asked about a wide band, a narrow band below the corner
+  // and a band whose reference sits on its own roll-off. Before, the
+  // -3 dB point was measured against the gain at the reference.
+  const Budget wide = Compute(WorkedExample(0.282892e-12), 1e-4);
+  for (const auto& [low, high, ref] :
+       {std::tuple{10.0, 5e3, 200.0}, std::tuple{100e3, 1e6, 316e3},
+        std::tuple{1e3, 200e3, 60e3}}) {
+    CAPTURE(ref);
+    Stage stage = WorkedExample(0.282892e-12);
+    stage.band_low_hz = low;
+    stage.band_high_hz = high;
+    stage.reference_hz = ref;
+    const Budget b = Compute(stage, 1e-4);
+    CHECK(RelErr(b.bandwidth_3db_hz, wide.bandwidth_3db_hz) < 1e-6);
+    CHECK(std::fabs(b.peaking_db - wide.peaking_db) < 1e-6);
+    CHECK(RelErr(b.signal_gain_dc, wide.signal_gain_dc) < 1e-6);
+    CHECK(RelErr(b.passband_gain, wide.passband_gain) < 1e-6);
+  }
+  CHECK(RelErr(wide.bandwidth_3db_hz, 71383) < 2e-3);
+  CHECK(wide.peaking_db == doctest::Approx(1.217).epsilon(0.01));
 }
 
 TEST_CASE("the e_n noise gain's peak is its true maximum over frequency") {

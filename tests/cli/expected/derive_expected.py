@@ -498,6 +498,25 @@ class Network:
     def signal_gain(self, f):
         return abs(self.transfers(f)["signal"][0])
 
+    def input_rms(self):
+        """sqrt of the integral of S_out(f) / |signal gain(f)|^2 over the
+        band: the noise an ideal source at the input would need to make
+        the same output, frequency by frequency."""
+        fL, fH = self.s["fL"], self.s["fH"]
+        edges = np.unique(np.concatenate((
+            [math.log(fL), math.log(fH)],
+            np.log(10.0 ** np.arange(math.ceil(math.log10(fL)),
+                                     math.floor(math.log10(fH)) + 1)))))
+        edges = edges[(edges >= math.log(fL)) & (edges <= math.log(fH))]
+        total = 0.0
+        for lo, hi in zip(edges[:-1], edges[1:]):
+            v, _ = integrate.quad(
+                lambda u: self.psd_total(math.exp(u))
+                / self.signal_gain(math.exp(u)) ** 2 * math.exp(u),
+                lo, hi, epsabs=0, epsrel=1e-11, limit=200)
+            total += v
+        return math.sqrt(total)
+
     def offsets(self):
         """(vos term, ib term, ios term, worst case) at DC, finite A0:
         Vout = Vos NG - Ib (H+ + H-) - (Ios/2)(H+ - H-) (DESIGN.md bias
@@ -640,11 +659,16 @@ def tia_closed_form(stage):
         return abs(z) ** 2 * currents + abs(en_gain) ** 2 * ew * ew * (1 + fcv / f)
 
     total = 0.0
+    total_in = 0.0  # S_out / |Z|^2: the input-referred power
     edges = np.log(np.geomspace(fL, fH, 2 * int(math.ceil(math.log10(fH / fL))) + 1))
     for lo, hi in zip(edges[:-1], edges[1:]):
         v, _ = integrate.quad(lambda u: psd(math.exp(u)) * math.exp(u), lo, hi,
                               epsabs=0, epsrel=1e-11, limit=200)
         total += v
+        v, _ = integrate.quad(
+            lambda u: psd(math.exp(u)) / abs(parts(math.exp(u))[0]) ** 2
+            * math.exp(u), lo, hi, epsabs=0, epsrel=1e-11, limit=200)
+        total_in += v
     rms = math.sqrt(total)
     # DC, ideal op-amp: the - input is a virtual ground, so R_sh carries no
     # current and Z(0) = -R_f for every current into it (I_b-, I_os/2,
@@ -652,7 +676,7 @@ def tia_closed_form(stage):
     ng0 = 1 + (rf / rsh if rsh else 0.0)
     worst = (op["offset_voltage"] * ng0 + abs(op["bias_current"]) * rf
              + 0.5 * op["offset_current"] * rf + stage["Idark"] * rf)
-    return rms, rms / abs(parts(stage["fref"])[0]), worst
+    return rms, math.sqrt(total_in), worst
 
 
 
@@ -895,7 +919,6 @@ def main():
                   % (cap, exact, cap / exact - 1, estimate, cap / estimate - 1))
         net = Network(stage)
         rms = net.output_rms()
-        gain_ref = net.signal_gain(stage["fref"])
         worst = net.offsets()[3]
         cf = closed_form(stage)
         if stage["topology"] != "transimpedance":
@@ -903,13 +926,18 @@ def main():
                   "op-amp: %.2g" % check_closed_form(stage))
         figures = {
             "output_rms_V": rms,
-            "input_referred_rms": rms / gain_ref,
+            "input_referred_rms": net.input_rms(),
             "worst_case_V": worst,
         }
         if cap is not None:
             figures["feedback_capacitor_F"] = cap
         if cf[0] is not None:
-            closed.update({"output_rms_V": cf[0], "input_referred_rms": cf[1]})
+            closed["output_rms_V"] = cf[0]
+            # The photodiode closed form integrates S_out / |Z(f)|^2 as the
+            # engine does; the inverting one's rms / |gain| is not that
+            # integral, so it is not written beside it.
+            if stage["topology"] == "transimpedance":
+                closed["input_referred_rms"] = cf[1]
         closed["worst_case_V"] = cf[2]
         if "tee" in stage:
             ratio, plain = tee_cost(stage, given)
