@@ -9,6 +9,7 @@
 #include <string>
 #include <vector>
 
+#include "budget/dc_output.h"
 #include "noise/noise_source.h"
 
 namespace hushgain {
@@ -87,6 +88,11 @@ struct PhotodiodeBlock {
   // 1 + C / C_f, the high-frequency plateau of the e_n noise gain of an
   // ideal op-amp (0 without C_f).
   double noise_gain_plateau_estimate = 0;
+  double photocurrent_a = 0;        // average (signal DC level plus ambient)
+  double reverse_bias_v = 0;        // 0 = zero bias (photovoltaic)
+  double dark_current_a = 0;        // flowing at the stage's temperature; 0 at
+                                    // zero bias
+  double shunt_resistance_ohm = 0;  // at the stage's temperature
 };
 
 // A feedback capacitor chosen for a target ("auto").
@@ -220,6 +226,9 @@ struct Budget {
   double input_density_ref_per_rthz = 0;  // output density / |gain(f_ref)|
 
   OffsetBlock offset;
+  // The photocurrent's, dark current's and dc_input's DC output, in that
+  // order, each present when not zero (budget/dc_output.h).
+  std::vector<DcOutputTerm> dc_outputs;
 
   std::optional<double> full_scale_output_v;
   // The op-amp's output current at the full-scale swing (load and feedback

@@ -16,6 +16,7 @@
 #include "circuit/expand_stage.h"
 #include "circuit/feedback_network.h"
 #include "circuit/stage_at_temperature.h"
+#include "circuit/transimpedance_topology.h"
 #include "noise/spectrum_evaluator.h"
 
 namespace hushgain {
@@ -49,7 +50,13 @@ Status CheckFinite(double value, const std::string& what) {
 // The excitations the budget reads besides the noise sources.
 struct Ports {
   Port signal, e_n, i_plus, i_minus;
-  std::vector<std::pair<Port, double>> junctions;  // port, DC current
+  struct Junction {
+    std::string name;
+    Port port;
+    double amperes = 0;
+    bool is_signal = false;
+  };
+  std::vector<Junction> junctions;
 };
 
 Ports CompilePorts(const Netlist& net, const SpectrumEvaluator& ev) {
@@ -61,8 +68,9 @@ Ports CompilePorts(const Netlist& net, const SpectrumEvaluator& ev) {
   p.i_minus =
       ev.Compile(Excitation{CurrentInjection{net.opamps[0].minus, kGround}});
   for (const JunctionCurrent& j : net.junction_currents)
-    p.junctions.push_back(
-        {ev.Compile(Excitation{CurrentInjection{j.b, j.a}}), j.amperes});
+    p.junctions.push_back({j.name,
+                           ev.Compile(Excitation{CurrentInjection{j.b, j.a}}),
+                           j.amperes, j.is_signal});
   return p;
 }
 
@@ -73,9 +81,16 @@ Status DcFigures(const Stage& stage, const Netlist& net, const Ports& p,
   if (!s.ok) return s;
   b.signal_gain_dc = ev.Transfer(p.signal).real();
   b.noise_gain_dc = std::abs(ev.Transfer(p.e_n));
+  // A dark current is an error of the output; the photocurrent is the
+  // signal's DC level. Both are DC outputs for the headroom.
   double dark_v = 0;
-  for (const auto& [port, amperes] : p.junctions)
-    dark_v += amperes * ev.Transfer(port).real();
+  for (const Ports::Junction& j : p.junctions) {
+    const double volts = j.amperes * ev.Transfer(j.port).real();
+    if (!j.is_signal) dark_v += volts;
+    b.dc_outputs.push_back({j.name, volts});
+  }
+  if (stage.dc_input != 0)
+    b.dc_outputs.push_back({"dc_input", stage.dc_input * b.signal_gain_dc});
   b.offset =
       SumOffsets(stage.opamp, b.noise_gain_dc, ev.Transfer(p.i_plus).real(),
                  ev.Transfer(p.i_minus).real(), dark_v);
@@ -329,6 +344,16 @@ void PhotodiodeFigures(const Stage& stage, Budget& b) {
   if (stage.feedback.capacitor_f > 0)
     pd.noise_gain_plateau_estimate =
         1 + pd.input_capacitance_f / stage.feedback.capacitor_f;
+  const Photodiode& diode = stage.photodiode;
+  pd.photocurrent_a = diode.photocurrent_a;
+  pd.reverse_bias_v = diode.reverse_bias_v;
+  pd.dark_current_a = DarkCurrentFlows(diode) ? diode.dark_current_a : 0;
+  pd.shunt_resistance_ohm = diode.shunt_resistance_ohm;
+  if (!DarkCurrentFlows(diode) && diode.dark_current_a > 0)
+    b.warnings.push_back(
+        "the photodiode's dark current is not counted: at zero bias "
+        "(photovoltaic) it does not flow; give \"reverse_bias\" to count it "
+        "with its shot noise");
   b.photodiode = pd;
 }
 

@@ -19,7 +19,7 @@ Netlist ExpandInverting(const Stage& stage) {
   }
   NodeId summing = net.AddNode("summing");
   NodeId output = net.AddNode("output");
-  net.voltage_sources.push_back({"V_signal", source, kGround});
+  net.voltage_sources.push_back({"V_signal", source, kGround, 0.0});
   net.signal = SourceVoltage{0};
   net.output = output;
   net.resistors.push_back(

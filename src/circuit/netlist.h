@@ -39,21 +39,27 @@ struct OpAmp {
   OpAmpModel model;
 };
 
-// An ideal voltage source from `minus` to `plus`; the signal source is one.
+// An ideal voltage source from `minus` to `plus`; the signal source is one,
+// a photodiode's bias supply another. Its own noise, when it has any, is a
+// white voltage density in series (a noise source of the budget).
 struct VoltageSource {
   std::string name;
   NodeId plus = kGround;
   NodeId minus = kGround;
+  double noise_v_per_rthz = 0;  // 0 = noiseless
 };
 
 // A DC current through a junction from node `a` to node `b` (a photodiode's
-// dark current): no part of the linear network, but a source of shot noise
-// 2 q I and of a DC output.
+// dark current or its average photocurrent): no part of the linear network,
+// but a source of shot noise 2 q I and of a DC output. A dark current is an
+// error of the output (it joins the offset); a photocurrent is the signal's
+// own DC level (it does not).
 struct JunctionCurrent {
   std::string name;
   NodeId a = kGround;
   NodeId b = kGround;
   double amperes = 0;
+  bool is_signal = false;  // true: the photocurrent, not an offset
 };
 
 // Where a unit stimulus enters the network.

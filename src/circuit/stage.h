@@ -56,14 +56,33 @@ struct SignalSource {
   double resistance_ohm = 0;
 };
 
-// A photodiode in photovoltaic (zero-bias) mode: the photocurrent flows into
-// the - input; its junction capacitance and shunt resistance sit from the
-// - input to ground; its dark current has shot noise 2 q I_dark.
+// A photodiode as built. The diode's junction (photocurrent, dark current,
+// capacitance C_d, shunt resistance R_sh) sits between its junction node and
+// its bias node; its series resistance R_s joins the junction node to the
+// - input. The bias node is ground at zero bias, and behind a supply of
+// `reverse_bias_v` otherwise (AC ground; its noise, if given, in series).
+//   photocurrent   the average photocurrent during the measurement (signal
+//                  DC level plus ambient light): shot noise 2 q I_ph and a
+//                  DC output; not an offset
+//   dark current   flows only under reverse bias (photovoltaic mode: no
+//                  dark current, so neither its shot noise nor its DC term;
+//                  the junction's noise is then R_sh's thermal noise, which
+//                  equals 4 q I_s for R_sh = V_T / I_s)
+// The dark current and R_sh are given at 25 °C; at T the dark current is
+// multiplied and R_sh divided by 2^((T - 25 °C) / doubling interval)
+// (circuit/stage_at_temperature.h).
 struct Photodiode {
   double capacitance_f = 0;
-  double shunt_resistance_ohm = 0;  // 0 = none (infinite)
-  double dark_current_a = 0;
-  double responsivity_a_per_w = 0;  // 0 = not given (no NEP)
+  double shunt_resistance_ohm = 0;   // 0 = none (infinite)
+  double dark_current_a = 0;         // at the reverse bias, 25 °C
+  double responsivity_a_per_w = 0;   // 0 = not given (no NEP)
+  double photocurrent_a = 0;         // average, >= 0
+  double reverse_bias_v = 0;         // >= 0; 0 = photovoltaic (zero bias)
+  double bias_noise_v_per_rthz = 0;  // the bias supply's white noise
+  double series_resistance_ohm = 0;  // R_s; 0 = none
+  // Dark current doubles, R_sh halves, every this many kelvin (common
+  // practice: about every 8 to 10 °C for silicon; 10 is the default).
+  double doubling_interval_k = 10;
 };
 
 // The working temperature range; the stage's temperature_k is the nominal.
@@ -105,7 +124,7 @@ struct Stage {
   std::optional<double> full_scale_output_v;  // peak output swing, ±V
   // The technology of the stage's own resistors (R_in, R_f, R1, R2, R3,
   // R_plus, R_load), and per-resistor overrides keyed by contributor name
-  // (these may also give R_source and R_sh one). None = ideal parts: no
+  // (these may also give R_source, R_sh and R_s one). None = ideal parts: no
   // excess noise, no tempco, no tolerance.
   std::optional<ResistorSpec> resistors;
   std::map<std::string, ResistorSpec> resistor_overrides;

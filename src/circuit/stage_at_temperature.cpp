@@ -27,6 +27,12 @@ double CurrentNoiseFactor(const OpAmpModel& opamp, double temperature_k) {
   return std::sqrt(std::fabs(BiasCurrentFactor(opamp, temperature_k)));
 }
 
+double PhotodiodeTemperatureFactor(const Photodiode& photodiode,
+                                   double temperature_k) {
+  return std::exp2((temperature_k - kDeviceReferenceK) /
+                   photodiode.doubling_interval_k);
+}
+
 double ResistorTemperatureFactor(double tempco_per_k, double temperature_k) {
   return 1.0 + tempco_per_k * (temperature_k - kDeviceReferenceK);
 }
@@ -56,6 +62,12 @@ Stage StageAtTemperature(const Stage& stage, double temperature_k) {
     if (spec)
       *ohms *= ResistorTemperatureFactor(spec->technology.tempco_per_k,
                                          temperature_k);
+  }
+  if (out.topology == Topology::kTransimpedance) {
+    const double d =
+        PhotodiodeTemperatureFactor(stage.photodiode, temperature_k);
+    out.photodiode.dark_current_a *= d;
+    out.photodiode.shunt_resistance_ohm /= d;
   }
   return out;
 }

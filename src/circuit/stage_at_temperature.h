@@ -14,8 +14,13 @@
 //   noise      4kT at T (the stage's temperature_k becomes T)
 // An "auto" R_plus is a real part: its value is the balance value at 25 °C,
 // and at T it drifts with its own technology like the others (so the Ib term
-// cancels exactly only where the resistors' tempcos agree). The photodiode's
-// dark current is left as given.
+// cancels exactly only where the resistors' tempcos agree).
+//   photodiode dark current I_dark(T) = I_dark d(T), shunt resistance
+//              R_sh(T) = R_sh / d(T), d(T) = 2^((T - 25 °C) / interval): the
+//              dark current doubles and R_sh halves every interval (common
+//              practice for silicon: about every 8 to 10 °C; the stage's
+//              doubling_interval_C, default 10). A technology given to R_sh
+//              adds its tempco on top. The photocurrent is left as given.
 #ifndef HUSHGAIN_CIRCUIT_STAGE_AT_TEMPERATURE_H_
 #define HUSHGAIN_CIRCUIT_STAGE_AT_TEMPERATURE_H_
 
@@ -33,6 +38,10 @@ double BiasCurrentFactor(const OpAmpModel& opamp, double temperature_k);
 // The factor on the current noise density at T: sqrt(|k(T)|) when the
 // current noise follows the bias current, else 1.
 double CurrentNoiseFactor(const OpAmpModel& opamp, double temperature_k);
+
+// The photodiode's d(T) = 2^((T - 25 °C) / interval); 1 at 25 °C.
+double PhotodiodeTemperatureFactor(const Photodiode& photodiode,
+                                   double temperature_k);
 
 // The resistance factor 1 + tc (T - 25 °C).
 double ResistorTemperatureFactor(double tempco_per_k, double temperature_k);

@@ -8,8 +8,11 @@ std::vector<std::pair<std::string, double*>> StageResistors(Stage& stage) {
     if (stage.source.resistance_ohm > 0)
       out.push_back({"R_source", &stage.source.resistance_ohm});
     out.push_back({"R_in", &stage.input_resistor_ohm});
-  } else if (stage.photodiode.shunt_resistance_ohm > 0) {
-    out.push_back({"R_sh", &stage.photodiode.shunt_resistance_ohm});
+  } else {
+    if (stage.photodiode.shunt_resistance_ohm > 0)
+      out.push_back({"R_sh", &stage.photodiode.shunt_resistance_ohm});
+    if (stage.photodiode.series_resistance_ohm > 0)
+      out.push_back({"R_s", &stage.photodiode.series_resistance_ohm});
   }
   if (stage.feedback.kind == Feedback::Kind::kResistor) {
     out.push_back({"R_f", &stage.feedback.resistor_ohm});

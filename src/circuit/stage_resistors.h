@@ -1,6 +1,7 @@
 // The resistors of a stage by contributor name, as pointers into the Stage,
 // so one loop can scale them (temperature, tolerance): R_source, R_in, R_f
-// or R1, R2, R3, R_plus (a value only; "auto" is computed), R_load, R_sh.
+// or R1, R2, R3, R_plus (a value only; "auto" is computed), R_load, R_sh,
+// R_s.
 #ifndef HUSHGAIN_CIRCUIT_STAGE_RESISTORS_H_
 #define HUSHGAIN_CIRCUIT_STAGE_RESISTORS_H_
 

@@ -187,6 +187,58 @@ Photodiode ParsePhotodiode(ObjectReader& reader) {
                                           Dump(r.Get("responsivity")));
     pd.responsivity_a_per_w = *resp;
   }
+  // The average photocurrent: given, or optical power x responsivity.
+  if (r.Has("photocurrent") && r.Has("optical_power"))
+    throw r.ErrorAt("optical_power",
+                    "expected \"photocurrent\" or \"optical_power\", not both");
+  if (auto amperes = r.OptionalQuantity("photocurrent", Quantity::kCurrent)) {
+    if (!(*amperes >= 0))
+      throw r.ErrorAt("photocurrent", "expected a non-negative current, got " +
+                                          Dump(r.Get("photocurrent")));
+    pd.photocurrent_a = *amperes;
+  }
+  if (auto watts = r.OptionalQuantity("optical_power", Quantity::kPower)) {
+    if (!(*watts >= 0))
+      throw r.ErrorAt("optical_power", "expected a non-negative power, got " +
+                                           Dump(r.Get("optical_power")));
+    if (!r.Has("responsivity"))
+      throw r.ErrorAt("optical_power",
+                      "needs a \"responsivity\" beside it (A/W)");
+    pd.photocurrent_a = *watts * pd.responsivity_a_per_w;
+    if (!std::isfinite(pd.photocurrent_a))
+      throw r.ErrorAt("optical_power",
+                      "expected a power whose photocurrent is finite, got " +
+                          Dump(r.Get("optical_power")));
+  }
+  if (auto volts = r.OptionalQuantity("reverse_bias", Quantity::kVoltage)) {
+    if (!(*volts >= 0))
+      throw r.ErrorAt("reverse_bias",
+                      "expected a non-negative voltage (0 = zero bias), got " +
+                          Dump(r.Get("reverse_bias")));
+    pd.reverse_bias_v = *volts;
+  }
+  if (auto noise =
+          r.OptionalQuantity("bias_noise", Quantity::kVoltageDensity)) {
+    if (!(*noise >= 0))
+      throw r.ErrorAt("bias_noise",
+                      "expected a non-negative voltage density, got " +
+                          Dump(r.Get("bias_noise")));
+    if (!(pd.reverse_bias_v > 0))
+      throw r.ErrorAt("bias_noise",
+                      "needs a positive \"reverse_bias\" (at zero bias the "
+                      "diode returns to ground, no supply)");
+    pd.bias_noise_v_per_rthz = *noise;
+  }
+  if (r.Has("series_resistance"))
+    pd.series_resistance_ohm = PositiveResistance(r, "series_resistance");
+  if (auto interval =
+          r.OptionalQuantity("doubling_interval_C", Quantity::kTemperature)) {
+    if (!(*interval > 0))
+      throw r.ErrorAt("doubling_interval_C",
+                      "expected a positive interval in °C, got " +
+                          Dump(r.Get("doubling_interval_C")));
+    pd.doubling_interval_k = *interval;
+  }
   r.Finish();
   return pd;
 }
@@ -262,7 +314,8 @@ ResistorSpec ParseResistorSpec(ObjectReader& reader,
 
 const std::vector<std::string>& ResistorNames() {
   static const std::vector<std::string> names = {
-      "R_source", "R_in", "R_f", "R1", "R2", "R3", "R_plus", "R_load", "R_sh"};
+      "R_source", "R_in",   "R_f",    "R1",   "R2",
+      "R3",       "R_plus", "R_load", "R_sh", "R_s"};
   return names;
 }
 
@@ -287,7 +340,8 @@ void ParseResistors(ObjectReader& top, const DeviceLibrary& library,
       throw r.ErrorAt(key, "unknown resistor name" + DidYouMean(key, names) +
                                " (expected \"technology\", \"tolerance\" or a "
                                "resistor: R_in, R_f, "
-                               "R1, R2, R3, R_plus, R_load, R_source, R_sh)");
+                               "R1, R2, R3, R_plus, R_load, R_source, R_sh, "
+                               "R_s)");
     if (std::find(present.begin(), present.end(), key) == present.end())
       throw r.ErrorAt(key, "this stage has no " + key);
     ObjectReader o = r.Object(key);
@@ -387,9 +441,14 @@ Stage ParseStage(std::string_view json_text, std::string_view source_name,
   if (st.Has("load")) stage.load_ohm = PositiveResistance(st, "load");
   st.Finish();
 
-  if (top.Has("dc_input"))
+  if (top.Has("dc_input")) {
     stage.dc_input = top.Quantity(
         "dc_input", photodiode ? Quantity::kCurrent : Quantity::kVoltage);
+    if (photodiode && stage.photodiode.photocurrent_a > 0)
+      throw top.ErrorAt("dc_input",
+                        "not with the photodiode's photocurrent (it is the "
+                        "input's DC level); give one of them");
+  }
   ParseResistors(top, *context.library, &stage);
 
   if (auto fs =

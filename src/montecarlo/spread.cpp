@@ -34,6 +34,8 @@ struct ResistorInfo {
   double noise_index_db = 0;
   double excess_per_v2 = 0;  // K of S = K / f per volt^2 of drop
   int a = -1, b = -1;        // unknown indices
+  // A photodiode's R_sh: divided by PhotodiodeTemperatureFactor at T.
+  bool photodiode_shunt = false;
 };
 
 // One noise source with the parts of its density that change per sample.
@@ -45,6 +47,8 @@ struct SourceSlot {
   // An op-amp current noise that follows the bias current: white_25 and the
   // table are the 25 °C values, scaled per sample by CurrentNoiseFactor^2.
   bool follows_bias = false;
+  // A dark current's shot noise: white_25 times PhotodiodeTemperatureFactor.
+  bool follows_dark = false;
   double white_25 = 0;
   int table_row = -1;  // row of Model::table_psd; -1: no table
   double table_scale = 1;
@@ -62,7 +66,12 @@ struct Model {
   // table_psd[r * nodes.size() + node] (fixed per run: tabulated once).
   std::vector<double> table_psd;
   Port signal, e_n, i_plus, i_minus;
-  std::vector<std::pair<Port, double>> junctions;
+  // The photocurrent (the DC point only: it is the signal's DC level) and
+  // the dark currents at 25 °C (the DC point and the offset; times
+  // PhotodiodeTemperatureFactor at T).
+  std::vector<std::pair<Port, double>> photo_junctions;
+  std::vector<std::pair<Port, double>> dark_junctions;
+  Photodiode photodiode;
   OpAmpModel opamp;  // 25 °C values
   double nominal_k = 298.15;
   std::optional<TemperatureRange> range;
@@ -90,6 +99,15 @@ struct Workspace {
   std::vector<double> rhs;
 };
 
+// A resistor's value at T with relative error e: tempco, and the
+// photodiode's law for R_sh.
+double OhmsAt(const Model& m, const ResistorInfo& r, double e, double t) {
+  double ohms =
+      r.ohms_25 * (1.0 + e) * ResistorTemperatureFactor(r.tempco_per_k, t);
+  if (r.photodiode_shunt) ohms /= PhotodiodeTemperatureFactor(m.photodiode, t);
+  return ohms;
+}
+
 double DcOffset(const Model& m, const RestampSolver& s, const Draw& d,
                 double* gain) {
   *gain = s.TransferReal(m.signal);
@@ -97,8 +115,10 @@ double DcOffset(const Model& m, const RestampSolver& s, const Draw& d,
   const double hp = s.TransferReal(m.i_plus);
   const double hm = s.TransferReal(m.i_minus);
   double offset = SignedOffset(d.vos_v, d.ib_a, d.ios_a, te, hp, hm);
-  for (const auto& [port, amperes] : m.junctions)
-    offset += amperes * s.TransferReal(port);
+  const double dark =
+      PhotodiodeTemperatureFactor(m.photodiode, d.temperature_k);
+  for (const auto& [port, amperes] : m.dark_junctions)
+    offset += dark * amperes * s.TransferReal(port);
   return offset;
 }
 
@@ -126,12 +146,19 @@ Status EvaluateAt(const Model& m, const Draw& d, Workspace& w,
     add(m.e_n, d.vos_v);
     add(m.i_plus, -(d.ib_a + 0.5 * d.ios_a));
     add(m.i_minus, -(d.ib_a - 0.5 * d.ios_a));
-    for (const auto& [port, amperes] : m.junctions) add(port, amperes);
+    for (const auto& [port, amperes] : m.photo_junctions) add(port, amperes);
+    const double dark =
+        PhotodiodeTemperatureFactor(m.photodiode, d.temperature_k);
+    for (const auto& [port, amperes] : m.dark_junctions)
+      add(port, dark * amperes);
     s.SolveDirectDc(w.rhs.data());
   }
   const double bias_noise =
       std::pow(CurrentNoiseFactor(m.opamp, d.temperature_k), 2);
+  const double dark_factor =
+      PhotodiodeTemperatureFactor(m.photodiode, d.temperature_k);
   for (SourceSlot& slot : w.slots) {
+    if (slot.follows_dark) slot.white = slot.white_25 * dark_factor;
     if (slot.follows_bias) {
       slot.white = slot.white_25 * bias_noise;
       slot.table_scale = bias_noise;
@@ -176,8 +203,7 @@ Draw DrawSample(const Model& m, RandomStream& rng, std::vector<double>* ohms) {
   for (std::size_t k = 0; k < m.resistors.size(); ++k) {
     const ResistorInfo& r = m.resistors[k];
     const double e = rng.UniformSymmetric(r.tolerance);
-    (*ohms)[k] = r.ohms_25 * (1.0 + e) *
-                 ResistorTemperatureFactor(r.tempco_per_k, d.temperature_k);
+    (*ohms)[k] = OhmsAt(m, r, e, d.temperature_k);
   }
   const bool gaussian =
       m.opamp.offset_distribution == OffsetDistribution::kGaussian;
@@ -212,6 +238,8 @@ Status BuildModel(const Stage& stage, const BudgetOutcome& nominal, Model* m) {
     info.ohms_25 = r.ohms;
     info.a = m->system.NodeIndex(r.a);
     info.b = m->system.NodeIndex(r.b);
+    info.photodiode_shunt =
+        stage.topology == Topology::kTransimpedance && r.name == "R_sh";
     if (const ResistorSpec* spec = ResistorSpecFor(stage, r.name)) {
       info.tolerance = spec->tolerance;
       info.tempco_per_k = spec->technology.tempco_per_k;
@@ -228,9 +256,12 @@ Status BuildModel(const Stage& stage, const BudgetOutcome& nominal, Model* m) {
       Excitation{CurrentInjection{net.opamps[0].plus, kGround}});
   m->i_minus = m->system.Compile(
       Excitation{CurrentInjection{net.opamps[0].minus, kGround}});
-  for (const JunctionCurrent& j : net.junction_currents)
-    m->junctions.push_back(
-        {m->system.Compile(Excitation{CurrentInjection{j.b, j.a}}), j.amperes});
+  m->photodiode = stage.photodiode;
+  for (const JunctionCurrent& j : net.junction_currents) {
+    const Port port = m->system.Compile(Excitation{CurrentInjection{j.b, j.a}});
+    (j.is_signal ? m->photo_junctions : m->dark_junctions)
+        .push_back({port, j.amperes});
+  }
   // The budget's sources, in its order (noise/noise_source.h), then one
   // excess source per resistor with a technology.
   std::vector<int> noisy;
@@ -251,6 +282,7 @@ Status BuildModel(const Stage& stage, const BudgetOutcome& nominal, Model* m) {
       for (const QuadratureNode& node : m->nodes)
         m->table_psd.push_back(src.table.PsdAt(node.f_hz));
     }
+    slot.follows_dark = src.kind == NoiseKind::kShot && src.name == "I_dark";
     if (src.kind == NoiseKind::kThermal)
       slot.thermal_of = noisy[next_thermal++];
     m->sources.push_back(slot);
@@ -291,14 +323,12 @@ double WorstCaseOffset(const Model& m, Workspace& w) {
     double vos_term = 0, ib_term = 0, ios_term = 0, dark_term = 0;
     for (long corner = 0; corner < (1L << varied.size()); ++corner) {
       for (std::size_t k2 = 0; k2 < m.resistors.size(); ++k2) {
-        const ResistorInfo& r = m.resistors[k2];
-        w.ohms[k2] = r.ohms_25 * ResistorTemperatureFactor(r.tempco_per_k, t);
+        w.ohms[k2] = OhmsAt(m, m.resistors[k2], 0.0, t);
       }
       for (std::size_t v = 0; v < varied.size(); ++v) {
         const ResistorInfo& r = m.resistors[varied[v]];
         const double e = (corner >> v) & 1 ? r.tolerance : -r.tolerance;
-        w.ohms[varied[v]] = r.ohms_25 * (1.0 + e) *
-                            ResistorTemperatureFactor(r.tempco_per_k, t);
+        w.ohms[varied[v]] = OhmsAt(m, r, e, t);
       }
       w.solver.SetResistors(w.ohms.data());
       if (!w.solver.SolveAdjoint(0.0).ok) return 0;
@@ -308,8 +338,9 @@ double WorstCaseOffset(const Model& m, Workspace& w) {
       double h_sum = hp + hm;
       if (std::fabs(h_sum) < 1e-9 * (std::fabs(hp) + std::fabs(hm))) h_sum = 0;
       double dark = 0;
-      for (const auto& [port, amperes] : m.junctions)
-        dark += amperes * w.solver.TransferReal(port);
+      for (const auto& [port, amperes] : m.dark_junctions)
+        dark += PhotodiodeTemperatureFactor(m.photodiode, t) * amperes *
+                w.solver.TransferReal(port);
       vos_term = std::max(vos_term, vos * std::fabs(te));
       ib_term = std::max(ib_term, std::fabs(ib * h_sum));
       ios_term = std::max(ios_term, 0.5 * ios * std::fabs(hp - hm));
@@ -355,9 +386,7 @@ SpreadRun RunSpread(const Stage& stage, const SpreadOptions& options,
   {
     Workspace w(model);
     for (std::size_t k = 0; k < m; ++k)
-      w.ohms[k] = model.resistors[k].ohms_25 *
-                  ResistorTemperatureFactor(model.resistors[k].tempco_per_k,
-                                            model.nominal_k);
+      w.ohms[k] = OhmsAt(model, model.resistors[k], 0.0, model.nominal_k);
     w.solver.SetResistors(w.ohms.data());
     run.status = w.solver.SolveAdjoint(0.0);
     if (!run.status.ok) return run;

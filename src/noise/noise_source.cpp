@@ -36,6 +36,18 @@ std::vector<NoiseSource> CollectNoiseSources(const Netlist& net,
                        0.0,
                        {}});
   }
+  for (std::size_t k = 0; k < net.voltage_sources.size(); ++k) {
+    const VoltageSource& v = net.voltage_sources[k];
+    if (!(v.noise_v_per_rthz > 0)) continue;
+    sources.push_back({v.name,
+                       NoiseKind::kSupply,
+                       SourceVoltage{static_cast<int>(k)},
+                       v.noise_v_per_rthz * v.noise_v_per_rthz,
+                       0.0,
+                       0.0,
+                       0.0,
+                       {}});
+  }
   const bool several = net.opamps.size() > 1;
   for (std::size_t k = 0; k < net.opamps.size(); ++k) {
     const OpAmp& op = net.opamps[k];

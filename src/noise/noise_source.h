@@ -9,6 +9,8 @@
 //   op-amp current noise    i_w^2 (1 + f_ci/f) + i_table(f)^2 from each input
 //                           pin to ground
 //   junction shot noise     2 q I across the junction (Schottky 1918)
+//   a voltage source's own  its white density in series with it (a
+//   noise                   photodiode's bias supply)
 //   resistor excess noise   a 1/f current across the resistor from its noise
 //                           index and DC drop (noise/excess_noise.h)
 // Sources are uncorrelated: their output powers add.
@@ -29,6 +31,7 @@ enum class NoiseKind {
   kOpAmpVoltage,  // e_n
   kOpAmpCurrent,  // i_n at one pin
   kExcess,        // current (excess) noise of a resistor with a DC drop
+  kSupply,        // a voltage source's own noise (a photodiode's bias)
 };
 
 // True for the kinds whose source is a current (A/rtHz): shot and i_n.
@@ -54,8 +57,8 @@ struct NoiseSource {
   }
 };
 
-// One source per noisy resistor and junction current, one e_n and two i_n
-// per op-amp. Sources
+// One source per noisy resistor, junction current and noisy voltage source,
+// one e_n and two i_n per op-amp. Sources
 // whose excitation lies wholly on ground (an input pin tied to ground) are
 // left out: they reach no node.
 std::vector<NoiseSource> CollectNoiseSources(const Netlist& netlist,

@@ -14,6 +14,8 @@ const char* NoiseKindWord(NoiseKind kind) {
       return "current_noise";
     case NoiseKind::kExcess:
       return "excess";
+    case NoiseKind::kSupply:
+      return "supply";
   }
   return "?";
 }
@@ -26,6 +28,8 @@ std::string NoiseKindLabel(NoiseKind kind) {
       return "op-amp i_n";
     case NoiseKind::kExcess:
       return "excess 1/f";
+    case NoiseKind::kSupply:
+      return "bias supply";
     default:
       return NoiseKindWord(kind);
   }

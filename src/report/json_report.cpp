@@ -106,12 +106,20 @@ std::string BudgetToJson(const Budget& b) {
       {"plus_resistor_ohm", b.offset.plus_resistor_ohm},
       {"balance_resistor_ohm", b.offset.balance_resistor_ohm},
   };
+  json dc_outputs = json::array();
+  for (const DcOutputTerm& term : b.dc_outputs)
+    dc_outputs.push_back({{"name", term.name}, {"output_V", term.volts}});
+  out["dc_outputs"] = dc_outputs;
   if (b.photodiode) {
     const PhotodiodeBlock& pd = *b.photodiode;
     out["photodiode"] = {
         {"input_capacitance_F", pd.input_capacitance_f},
         {"noise_gain_plateau_estimate", pd.noise_gain_plateau_estimate},
-        {"responsivity_A_per_W", pd.responsivity_a_per_w}};
+        {"responsivity_A_per_W", pd.responsivity_a_per_w},
+        {"photocurrent_A", pd.photocurrent_a},
+        {"reverse_bias_V", pd.reverse_bias_v},
+        {"dark_current_A", pd.dark_current_a},
+        {"shunt_resistance_ohm", pd.shunt_resistance_ohm}};
     if (pd.responsivity_a_per_w > 0) {
       out["noise"]["nep_W_per_rtHz"] = pd.nep_w_per_rthz;
       out["noise"]["nep_rms_W"] = pd.nep_rms_w;

@@ -119,6 +119,11 @@ std::string OffsetSection(const Budget& b) {
                             : std::string("none (+ input grounded)"));
   out += Item("R_plus that cancels the Ib term",
               FormatEng(o.balance_resistor_ohm, "\xCE\xA9"));
+  for (const DcOutputTerm& term : b.dc_outputs)
+    if (term.name != "I_dark")
+      out += Item("DC output of " + term.name,
+                  FormatEng(term.volts, "V") +
+                      " (the input's DC level, not an offset)");
   return out;
 }
 

@@ -116,6 +116,11 @@ std::string OffsetSection(const Budget& b) {
                                   : std::string("none (+ input grounded)")) +
          "; the value that cancels the Ib term is " +
          FormatEng(o.balance_resistor_ohm, "\xCE\xA9") + "\n";
+  // The signal's own DC level is no offset, but it takes output swing.
+  for (const DcOutputTerm& term : b.dc_outputs)
+    if (term.name != "I_dark")
+      out += "  DC output of " + term.name + " " + FormatEng(term.volts, "V") +
+             " (the input's DC level, not an offset)\n";
   return out;
 }
 

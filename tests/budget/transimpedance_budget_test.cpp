@@ -12,6 +12,7 @@
 #include "budget/compute_budget.h"
 #include "budget/feedback_capacitor.h"
 #include "circuit/expand_stage.h"
+#include "circuit/stage_at_temperature.h"
 #include "noise/spectrum_evaluator.h"
 #include "test_support.h"
 
@@ -34,7 +35,11 @@ Stage WorkedExample(double cf) {
   s.reference_hz = 1e3;
   s.topology = Topology::kTransimpedance;
   s.photodiode.capacitance_f = kCd;
-  s.photodiode.dark_current_a = 100e-12;
+  // 100 pA flowing at 300 K: the value at 25 °C under the default doubling
+  // law (circuit/stage_at_temperature.h), and a reverse bias so it flows.
+  s.photodiode.dark_current_a =
+      100e-12 / PhotodiodeTemperatureFactor(s.photodiode, 300);
+  s.photodiode.reverse_bias_v = 5;
   s.photodiode.responsivity_a_per_w = 0.5;
   s.opamp = test::IdealOpAmp(10e-9, 1e-15);
   s.opamp.open_loop_gain = 1e9;

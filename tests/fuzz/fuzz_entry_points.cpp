@@ -114,8 +114,11 @@ std::string CheckStage(const Stage& s) {
   } else {
     const Photodiode& p = s.photodiode;
     for (double v : {p.capacitance_f, p.shunt_resistance_ohm, p.dark_current_a,
-                     p.responsivity_a_per_w})
+                     p.responsivity_a_per_w, p.photocurrent_a, p.reverse_bias_v,
+                     p.bias_noise_v_per_rthz, p.series_resistance_ohm})
       if (!NonNegative(v)) return "photodiode parameter negative";
+    if (!Positive(p.doubling_interval_k))
+      return "doubling interval not positive";
   }
   if (s.plus_resistor.mode == PlusResistor::Mode::kValue &&
       !Positive(s.plus_resistor.ohms))

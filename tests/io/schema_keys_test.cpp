@@ -175,6 +175,19 @@ TEST_CASE("the stage schema and the stage parser know the same keys") {
     "resistors": {"R_sh": {"technology": "thin-film"}}
   })"_json);
   ParseStageJson(photodiode, "photodiode variant", library);
+  json lit = Example("smoke-chamber-receiver");
+  lit.merge_patch(R"({
+    "source": {"photodiode": {"photocurrent": null, "optical_power": "1u",
+                              "reverse_bias": "5", "bias_noise": "10n",
+                              "series_resistance": "20", "dark_current": "1n",
+                              "doubling_interval_C": 8}},
+    "resistors": {"R_s": {"technology": "thin-film"}}
+  })"_json);
+  ParseStageJson(lit, "lit photodiode variant", library);
+  json photocurrent = Example("smoke-chamber-receiver");
+  photocurrent.merge_patch(
+      R"({"source": {"photodiode": {"photocurrent": "10n"}}})"_json);
+  ParseStageJson(photocurrent, "photocurrent variant", library);
 
   const Keys schema = SchemaKeys(kSource / "schema/stage.schema.json").keys();
   INFO("in the parser, not in schema/stage.schema.json:\n"

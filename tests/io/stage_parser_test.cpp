@@ -230,7 +230,7 @@ TEST_CASE(
        R"(stage.json: /resistors/tolerance: expected a tolerance from 0 to below 100 %, got "-1%")"},
       {Good(R"("temperature_C": 25,)",
             R"("resistors": {"technology": "thin-film", "R_fb": {}},)"),
-       R"(stage.json: /resistors/R_fb: unknown resistor name (did you mean "R_f"?) (expected "technology", "tolerance" or a resistor: R_in, R_f, R1, R2, R3, R_plus, R_load, R_source, R_sh))"},
+       R"(stage.json: /resistors/R_fb: unknown resistor name (did you mean "R_f"?) (expected "technology", "tolerance" or a resistor: R_in, R_f, R1, R2, R3, R_plus, R_load, R_source, R_sh, R_s))"},
       {Good(R"("temperature_C": 25,)",
             R"("resistors": {"technology": "thin-film", "R_f": {}},)"),
        R"(stage.json: /resistors/R_f: this stage has no R_f)"},
@@ -245,6 +245,77 @@ TEST_CASE(
   for (const Case& c : cases) {
     CAPTURE(c.text);
     CHECK_THROWS_WITH_AS(Parse(c.text), c.message.c_str(), Error);
+  }
+}
+
+}  // namespace
+}  // namespace hushgain
+
+namespace hushgain {
+namespace {
+
+const char* kReceiver = R"({
+  "name": "receiver",
+  "band_Hz": {"low": "1", "high": "10k"},
+  "opamp": {"device": "precision-bipolar"},
+  "source": {"photodiode": {"capacitance": "100p", "responsivity": "0.5 A/W",
+                            "optical_power": "2 uW", "reverse_bias": "5",
+                            "bias_noise": "20 nV/rtHz", "dark_current": "1n",
+                            "series_resistance": "50", "doubling_interval_C": 8}},
+  "stage": {"topology": "transimpedance", "feedback": {"resistor": "1M"}}
+})";
+
+TEST_CASE("a photodiode's light, bias, series resistance and doubling law") {
+  const Stage s = Parse(kReceiver);
+  // optical power x responsivity: 2 uW x 0.5 A/W = 1 uA.
+  CHECK(RelErr(s.photodiode.photocurrent_a, 1e-6) < test::kRelTight);
+  CHECK(s.photodiode.reverse_bias_v == 5);
+  CHECK(RelErr(s.photodiode.bias_noise_v_per_rthz, 20e-9) < test::kRelTight);
+  CHECK(s.photodiode.series_resistance_ohm == 50);
+  CHECK(s.photodiode.doubling_interval_k == 8);
+  const Stage plain =
+      Parse(Replace(Replace(Replace(kReceiver, R"("optical_power": "2 uW")",
+                                    R"("photocurrent": "3n")"),
+                            R"("bias_noise": "20 nV/rtHz",)", ""),
+                    R"("reverse_bias": "5",)", ""));
+  CHECK(RelErr(plain.photodiode.photocurrent_a, 3e-9) < test::kRelTight);
+  CHECK(plain.photodiode.reverse_bias_v == 0);  // zero bias by default
+  CHECK(Parse(Replace(kReceiver, R"(, "doubling_interval_C": 8)", ""))
+            .photodiode.doubling_interval_k == 10);
+}
+
+TEST_CASE("bad photodiode keys name the JSON path") {
+  const std::string pd = "stage.json: /source/photodiode/";
+  const std::vector<std::pair<std::string, std::string>> cases = {
+      {Replace(kReceiver, R"("optical_power": "2 uW")",
+               R"("optical_power": "2 uW", "photocurrent": "1n")"),
+       pd +
+           R"(optical_power: expected "photocurrent" or "optical_power", not both)"},
+      {Replace(kReceiver, R"("responsivity": "0.5 A/W",)", ""),
+       pd + R"(optical_power: needs a "responsivity" beside it (A/W))"},
+      {Replace(kReceiver, R"("optical_power": "2 uW")",
+               R"("photocurrent": "-1n")"),
+       pd + R"(photocurrent: expected a non-negative current, got "-1n")"},
+      {Replace(kReceiver, R"("reverse_bias": "5")", R"("reverse_bias": "-5")"),
+       pd +
+           R"(reverse_bias: expected a non-negative voltage (0 = zero bias), got "-5")"},
+      {Replace(kReceiver, R"("reverse_bias": "5",)", ""),
+       pd +
+           R"(bias_noise: needs a positive "reverse_bias" (at zero bias the diode returns to ground, no supply))"},
+      {Replace(kReceiver, R"("doubling_interval_C": 8)",
+               R"("doubling_interval_C": 0)"),
+       pd +
+           R"(doubling_interval_C: expected a positive interval in °C, got 0)"},
+      {Replace(kReceiver, R"("series_resistance": "50")",
+               R"("series_resistance": "0")"),
+       pd + R"(series_resistance: expected a positive resistance, got "0")"},
+      {Replace(kReceiver, R"("name": "receiver",)",
+               R"("name": "receiver", "dc_input": "1n",)"),
+       R"(stage.json: /dc_input: not with the photodiode's photocurrent (it is the input's DC level); give one of them)"},
+  };
+  for (const auto& [text, message] : cases) {
+    CAPTURE(text);
+    CHECK_THROWS_WITH_AS(Parse(text), message.c_str(), Error);
   }
 }
 

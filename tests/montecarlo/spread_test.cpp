@@ -8,6 +8,7 @@
 
 #include <cmath>
 
+#include "circuit/stage_at_temperature.h"
 #include "montecarlo/spread_statistics.h"
 #include "test_support.h"
 
@@ -70,6 +71,34 @@ TEST_CASE("with every tolerance zero each sample equals the nominal budget") {
     CHECK(RelErr(s.noise_rms_v, b.output_rms_v) < kRelRounding);
     CHECK(RelErr(s.offset_v, b.offset.ib_v) < kRelRounding);
     CHECK(s.temperature_k == stage.temperature_k);
+  }
+}
+
+TEST_CASE(
+    "a lit reverse-biased photodiode away from 25 C: zero spread equals the "
+    "budget") {
+  // The dark current and R_sh follow the photodiode's doubling law, the
+  // photocurrent is the signal's DC level (no offset) but sets the DC drops
+  // of the excess noise: the same figures as the budget's, to rounding.
+  Stage s;
+  s.name = "lit receiver";
+  s.temperature_k = kDeviceReferenceK + 17;
+  s.band_low_hz = 1;
+  s.band_high_hz = 10e3;
+  s.reference_hz = 100;
+  s.topology = Topology::kTransimpedance;
+  s.opamp = TeeWithFiniteGbw().opamp;
+  s.photodiode = {100e-12, 1e9, 2e-9, 0.5, 300e-9, 5, 0, 0, 9};
+  s.feedback.resistor_ohm = 1e6;
+  s.feedback.capacitor_f = 3e-12;
+  s.resistors =
+      ResistorSpec{"thick-film", {"thick film", -10, 100e-6, 0.01}, 0.0};
+  const SpreadRun run = Run(s, 50);
+  const Budget& b = run.nominal;
+  REQUIRE(b.offset.dark_v != 0);
+  for (const SpreadSample& x : run.samples) {
+    CHECK(RelErr(x.noise_rms_v, b.output_rms_v) < kRelRounding);
+    CHECK(RelErr(x.offset_v, b.offset.ib_v + b.offset.dark_v) < kRelRounding);
   }
 }
 

@@ -38,8 +38,9 @@ drop at the DC operating point, solved here (Network.dc_drops; method 1
 uses the ideal op-amp's DC point, closed_form_drops).
 
 A photodiode (transimpedance) stage: method 2 puts the photodiode's C_d and
-R_sh (noisy) from the - input to ground, the photocurrent and the dark
-current's shot noise 2 q I (REFERENCES.md section 2) into the - input;
+R_sh (noisy) from the - input to ground, the average photocurrent's and
+(under reverse bias only) the dark current's shot noise 2 q I (REFERENCES.md
+section 2) into the - input;
 method 1 is the section 7 model (A(s) = w_t / s) integrated here. A
 feedback capacitor of "auto" (Butterworth) is found on method 2's own
 closed-loop response: Q = |H(f_90)| / |H(f_ref)| at the -90 degree point
@@ -135,7 +136,17 @@ def load_stage(path):
         pd = doc["source"]["photodiode"]
         stage["Cd"] = quantity(pd.get("capacitance", 0))
         stage["Rsh"] = quantity(pd.get("shunt_resistance", 0))
-        stage["Idark"] = quantity(pd.get("dark_current", 0))
+        # The dark current flows only under reverse bias (zero bias:
+        # photovoltaic, no dark current); the average photocurrent is given,
+        # or optical power times responsivity.
+        reverse_bias = quantity(pd.get("reverse_bias", 0))
+        stage["Idark"] = quantity(pd.get("dark_current", 0)) if reverse_bias > 0 else 0.0
+        stage["Iph"] = (quantity(pd["photocurrent"]) if "photocurrent" in pd
+                        else quantity(pd.get("optical_power", 0))
+                        * quantity(pd.get("responsivity", 0)))
+        stage["pd_interval"] = quantity(pd.get("doubling_interval_C", 10))
+        if "series_resistance" in pd or "bias_noise" in pd:
+            raise NotImplementedError("no R_s or bias supply in this nodal model")
     stage["fref"] = (quantity(doc["reference_frequency_Hz"])
                      if "reference_frequency_Hz" in doc
                      else math.sqrt(stage["fL"] * stage["fH"]))
@@ -204,8 +215,9 @@ def at_temperature(stage, T):
     R (1 + tc (T - 25 C)) for a resistor with a technology; |Vos| + |drift|
     |T - 25 C| (the drift's sign is unknown); Ib and Ios times the bias
     law's k(T); 4kT at T. An "auto" R_plus is fitted at 25 C (plus_resistor
-    below) and then drifts like any resistor; the dark current stays as
-    given."""
+    below) and then drifts like any resistor. A photodiode's dark current
+    doubles and its R_sh halves every doubling interval (10 C unless the
+    file says; common practice); the photocurrent stays as given."""
     s = dict(stage)
     s["T"] = T
     dt = T - (25 + ZERO_C)
@@ -227,8 +239,11 @@ def at_temperature(stage, T):
     if not tia:
         s["Rs"] = moved("R_source", stage["Rs"])
         s["Rin"] = moved("R_in", stage["Rin"])
-    elif stage["Rsh"]:
-        s["Rsh"] = moved("R_sh", stage["Rsh"])
+    else:
+        d = 2 ** (dt / stage["pd_interval"])
+        s["Idark"] = stage["Idark"] * d
+        if stage["Rsh"]:
+            s["Rsh"] = moved("R_sh", stage["Rsh"] / d)
     if "tee" in stage:
         s["tee"] = tuple(moved(n, r) for n, r in zip(("R1", "R2", "R3"), stage["tee"]))
     else:
@@ -345,7 +360,7 @@ class Network:
         rhs = np.zeros(self.N, dtype=complex)
         if self.tia:
             if amp_row != self.idx["n"]:
-                rhs[self.idx["n"]] += dc + self.s["Idark"]
+                rhs[self.idx["n"]] += dc + self.s["Idark"] + self.s["Iph"]
         else:
             rhs += -src_col * dc
         rhs[amp_row] += op["offset_voltage"]
@@ -449,6 +464,10 @@ class Network:
             # Schottky: the dark current's shot noise 2 q I (section 2).
             cols.append(current_into("n"))
             names.append(("shot", 2 * Q_E * self.s["Idark"]))
+        if self.tia and self.s["Iph"] > 0:
+            # Schottky: the average photocurrent's shot noise 2 q I_ph.
+            cols.append(current_into("n"))
+            names.append(("shot", 2 * Q_E * self.s["Iph"]))
         if self.tia:
             # Signal: the photocurrent into the - input (V/A).
             cols.append(current_into("n"))
@@ -655,7 +674,7 @@ def tia_closed_form(stage):
     def psd(f):
         z, en_gain = parts(f)
         currents = kt4 / rf + (kt4 / rsh if rsh else 0.0) \
-            + iw * iw * (1 + fci / f) + 2 * Q_E * stage["Idark"]
+            + iw * iw * (1 + fci / f) + 2 * Q_E * (stage["Idark"] + stage["Iph"])
         return abs(z) ** 2 * currents + abs(en_gain) ** 2 * ew * ew * (1 + fcv / f)
 
     total = 0.0
@@ -860,21 +879,23 @@ NOTES = {
         "the pole at 320 Hz); the excess terms, weighted to low frequency, "
         "0.26 %. Offsets: high by about NG_T/A0 = 1.7e-4",
     "smoke-chamber-receiver.json":
-        "a photodiode transimpedance stage at 40 C with C_f chosen for a "
-        "Butterworth response on the stage at 40 C. Noise: the section 7 "
-        "model (integrator "
-        "op-amp, no R_out, no load, C = C_d + C_cm + C_diff) integrated "
-        "here sits 5e-4 below the nodal analysis, which keeps A0, R_out "
-        "and the load. C_f: the nodal response's Q = 1/sqrt 2 point is "
-        "0.48 % above section 7's exact sqrt(2 wt Rf C - 1)/(wt Rf); "
-        "almost all of that is the op-amp's 100 ohm R_out (with R_out = 0 "
-        "the gap is -2.1e-4, with A0 = 1e9 too -7.5e-5, and without R_sh "
-        "as well 1.5e-7, checked by check_capacitor_method below), so the "
-        "closed form is the model's limit and the nodal value is the "
-        "expectation. Offset: ideal-op-amp closed form V_os (1 + R_f/R_sh) "
-        "+ (I_b + I_os/2 + I_dark) R_f, 1e-6 from the finite-A0 solve; "
-        "V_os = 300 uV + 3 uV/C x 15 C, I_b and I_os x 2^1.5 (doubling every "
-        "10 C), the dark current as given",
+        "a photodiode transimpedance stage at 40 C, zero bias (no dark "
+        "current flows), with 2 nA of average photocurrent (its shot noise "
+        "2 q I_ph joins the currents at the - input) and C_f chosen for a "
+        "Butterworth response on the stage at 40 C; R_sh = 500 M at 25 C "
+        "halves every 10 C (x 2^-1.5 at 40 C, common practice). Noise: the "
+        "section 7 model (integrator op-amp, no R_out, no load, C = C_d + "
+        "C_cm + C_diff) integrated here sits 5e-4 below the nodal analysis, "
+        "which keeps A0, R_out and the load. C_f: the nodal response's "
+        "Q = 1/sqrt 2 point is 0.47 % above section 7's exact "
+        "sqrt(2 wt Rf C - 1)/(wt Rf); that is the op-amp's 100 ohm R_out, "
+        "finite A0 and R_sh (without them check_capacitor_method below "
+        "reproduces the closed form to 1e-6), so the closed form is the "
+        "model's limit and the nodal value is the expectation. Offset: "
+        "ideal-op-amp closed form V_os (1 + R_f/R_sh) + (I_b + I_os/2) R_f, "
+        "1e-6 from the finite-A0 solve; V_os = 300 uV + 3 uV/C x 15 C, I_b "
+        "and I_os x 2^1.5 (doubling every 10 C); the photocurrent is the "
+        "signal's DC level, no offset",
     "thermopile-stage.json":
         "a capacitor across a T network at 35 C (V_os + 0.2 uV/C x 10 C, "
         "I_b and I_os x 0.97; no resistors block). With an ideal op-amp "
