@@ -93,6 +93,10 @@ struct PhotodiodeBlock {
   double dark_current_a = 0;        // flowing at the stage's temperature; 0 at
                                     // zero bias
   double shunt_resistance_ohm = 0;  // at the stage's temperature
+  // A T network in the feedback: its noise-equivalent resistance R_n
+  // (circuit/tee_equivalents.h), the one resistor whose thermal current
+  // noise matches the T's at the summing node; 0 for a plain R_f.
+  double tee_noise_equivalent_ohm = 0;
 };
 
 // A feedback capacitor chosen for a target ("auto").

@@ -16,6 +16,7 @@
 #include "circuit/expand_stage.h"
 #include "circuit/feedback_network.h"
 #include "circuit/stage_at_temperature.h"
+#include "circuit/tee_equivalents.h"
 #include "circuit/transimpedance_topology.h"
 #include "noise/spectrum_evaluator.h"
 
@@ -349,6 +350,8 @@ void PhotodiodeFigures(const Stage& stage, Budget& b) {
   pd.reverse_bias_v = diode.reverse_bias_v;
   pd.dark_current_a = DarkCurrentFlows(diode) ? diode.dark_current_a : 0;
   pd.shunt_resistance_ohm = diode.shunt_resistance_ohm;
+  if (stage.feedback.kind == Feedback::Kind::kTee)
+    pd.tee_noise_equivalent_ohm = TeeNoiseEquivalentOhm(stage.feedback.tee);
   if (!DarkCurrentFlows(diode) && diode.dark_current_a > 0)
     b.warnings.push_back(
         "the photodiode's dark current is not counted: at zero bias "

@@ -120,6 +120,9 @@ std::string BudgetToJson(const Budget& b) {
         {"reverse_bias_V", pd.reverse_bias_v},
         {"dark_current_A", pd.dark_current_a},
         {"shunt_resistance_ohm", pd.shunt_resistance_ohm}};
+    if (pd.tee_noise_equivalent_ohm > 0)
+      out["photodiode"]["tee_noise_equivalent_resistance_ohm"] =
+          pd.tee_noise_equivalent_ohm;
     if (pd.responsivity_a_per_w > 0) {
       out["noise"]["nep_W_per_rtHz"] = pd.nep_w_per_rthz;
       out["noise"]["nep_rms_W"] = pd.nep_rms_w;

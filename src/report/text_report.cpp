@@ -94,6 +94,12 @@ std::string NoiseSection(const Budget& b) {
            " with C = C_d + C_in = " +
            FormatEng(b.photodiode->input_capacitance_f, "F") + ")\n";
   }
+  if (b.photodiode && b.photodiode->tee_noise_equivalent_ohm > 0)
+    out += "  T network noise        as noisy as one " +
+           FormatEng(b.photodiode->tee_noise_equivalent_ohm, "\xCE\xA9") +
+           " feedback resistor (its noise-equivalent resistance; the "
+           "transimpedance is " +
+           FormatEng(std::fabs(b.signal_gain_dc), "\xCE\xA9") + ")\n";
   if (b.snr_db) {
     out += "  full scale             \xC2\xB1" +
            FormatEng(*b.full_scale_output_v, "V") + ": SNR " +

@@ -248,5 +248,40 @@ TEST_CASE(
         test::kRelTight);
 }
 
+TEST_CASE(
+    "a T network in a photodiode stage reports its noise-equivalent "
+    "resistance: 102 MOhm as a T is as noisy as about 1 MOhm") {
+  // R1 = R2 = 1 M, R3 = 10 k: Req = R1 + R2 + R1 R2 / R3 = 102 M (Kennelly
+  // 1899). R_n = Req^2 / (R1 (1 + R2/R3)^2 + R2 + R3 (R2/R3)^2)
+  // (REFERENCES.md section 6 noise gains) = 1.0099 M, computed here.
+  constexpr double kR1 = 1e6, kR2 = 1e6, kR3 = 10e3;
+  const double req = kR1 + kR2 + kR1 * kR2 / kR3;
+  const double k = kR2 / kR3;
+  const double rn = req * req / (kR1 * (1 + k) * (1 + k) + kR2 + kR3 * k * k);
+  CHECK(req == doctest::Approx(102e6));
+  CHECK(rn == doctest::Approx(1.0099e6).epsilon(1e-4));
+  Stage s = Receiver();
+  s.opamp = test::IdealOpAmp(0, 0);
+  s.feedback.kind = Feedback::Kind::kTee;
+  s.feedback.tee = {kR1, kR2, kR3};
+  s.feedback.capacitor_f = 0;
+  s.photodiode.shunt_resistance_ohm = 0;
+  const Budget b = test::ComputeOrFail(s, 1e-8);
+  REQUIRE(b.photodiode.has_value());
+  CHECK(RelErr(b.photodiode->tee_noise_equivalent_ohm, rn) < test::kRelTight);
+  // The T's three resistors together make the output noise of R_n's
+  // current 4kT/R_n through Req, over the band (ideal op-amp, no C_f: flat).
+  double tee_power = 0;
+  for (const char* name : {"R1", "R2", "R3"})
+    tee_power += std::pow(FindContributor(b, name).output_rms_v, 2);
+  const double band = s.band_high_hz - s.band_low_hz;
+  CHECK(RelErr(std::sqrt(tee_power),
+               std::sqrt(test::FourKT(s.temperature_k) / rn * band) * req) <
+        1e-6);
+  // A plain R_f has none.
+  CHECK(test::ComputeOrFail(Receiver(), 1e-6)
+            .photodiode->tee_noise_equivalent_ohm == 0);
+}
+
 }  // namespace
 }  // namespace hushgain
