@@ -5,7 +5,7 @@ get_filename_component(out_dir "${OUT}" DIRECTORY)
 set(include_file "${out_dir}/hushgain-commands.h2m")
 file(READ "${SECTIONS}" text)
 string(APPEND text "\n[COMMANDS]\n")
-foreach(command "budget" "tee sweep" "tee search" "tia suggest" "plot" "spread")
+foreach(command "budget" "tee sweep" "tee search" "tia suggest" "tia snr" "plot" "spread")
   separate_arguments(words UNIX_COMMAND "${command}")
   execute_process(COMMAND "${PROGRAM}" ${words} --help
     OUTPUT_VARIABLE help RESULT_VARIABLE status)

@@ -20,6 +20,7 @@
 #include "cli/tee_command.h"
 #include "cli/text_output.h"
 #include "cli/tia_command.h"
+#include "cli/tia_snr_command.h"
 #include "cli/version.h"
 #include "io/error.h"
 #include "io/suggest.h"
@@ -180,9 +181,10 @@ std::function<int()> DefineTee(CLI::App* app, const GlobalOptions& global) {
 }
 
 std::function<int()> DefineTia(CLI::App* app, const GlobalOptions& global) {
-  RequireSubcommand(app, "tia", {"suggest"});
+  RequireSubcommand(app, "tia", {"suggest", "snr"});
   auto options = std::make_shared<TiaSuggestCommandOptions>();
-  auto chosen = std::make_shared<bool>(false);
+  auto snr = std::make_shared<TiaSnrCommandOptions>();
+  auto chosen = std::make_shared<std::function<int()>>();
   CLI::App* s = app->add_subcommand(
       "suggest", "feedback resistor and capacitor for a bandwidth target");
   s->allow_extras(false);
@@ -203,12 +205,36 @@ std::function<int()> DefineTia(CLI::App* app, const GlobalOptions& global) {
                 "text, json, markdown or csv (default text)");
   s->add_flag("--csv", options->csv, "the same as --format csv");
   s->add_flag("--json", options->json, "the same as --format json");
-  s->callback([chosen] { *chosen = true; });
-  return [options, chosen, &global] {
-    if (!*chosen) return kExitUsage;
-    options->devices_dir = global.devices_dir;
-    return RunTiaSuggestCommand(*options);
-  };
+  s->callback([options, chosen, &global] {
+    *chosen = [options, &global] {
+      options->devices_dir = global.devices_dir;
+      return RunTiaSuggestCommand(*options);
+    };
+  });
+  CLI::App* n = app->add_subcommand(
+      "snr", "signal-to-noise ratio against optical power, NEP, saturation");
+  n->allow_extras(false);
+  n->add_option("stage", snr->stage_path, "transimpedance stage file (JSON)")
+      ->required();
+  n->add_option("--power-range", snr->power_range,
+                "incident optical power LOW..HIGH, e.g. 1n..1m (required)")
+      ->required();
+  n->add_option("--points", snr->points,
+                "log-spaced powers, both ends included (default 31)")
+      ->check(WholeNumber<int>());
+  n->add_option("--format", snr->format,
+                "text, json, markdown or csv (default text)");
+  n->add_flag("--csv", snr->csv, "the same as --format csv");
+  n->add_flag("--json", snr->json, "the same as --format json");
+  n->add_option("--plot", snr->plot_path,
+                "also draw SNR against power, log-log (.png, .svg or .pdf)");
+  n->callback([snr, chosen, &global] {
+    *chosen = [snr, &global] {
+      snr->devices_dir = global.devices_dir;
+      return RunTiaSnrCommand(*snr);
+    };
+  });
+  return [chosen] { return *chosen ? (*chosen)() : kExitUsage; };
 }
 
 std::function<int()> DefinePlot(CLI::App* app, const GlobalOptions& global) {
@@ -264,7 +290,9 @@ const std::vector<Command>& Commands() {
       {"budget", "noise and offset budget of a stage", DefineBudget},
       {"tee", "T-network design: sweep the largest resistor, search E-series",
        DefineTee},
-      {"tia", "photodiode stages: suggest R_f and C_f for a bandwidth",
+      {"tia",
+       "photodiode stages: suggest R_f and C_f for a bandwidth; SNR against "
+       "optical power",
        DefineTia},
       {"plot", "noise spectra, cumulative noise and gains as a picture",
        DefinePlot},
