@@ -46,11 +46,91 @@ std::string LineAndColumn(std::string_view text, std::size_t before) {
   return "line " + std::to_string(line) + ", column " + std::to_string(column);
 }
 
+// RFC 6901: "~" as "~0", "/" as "~1".
+std::string PointerToken(const std::string& key) {
+  std::string out;
+  for (char c : key) {
+    if (c == '~')
+      out += "~0";
+    else if (c == '/')
+      out += "~1";
+    else
+      out += c;
+  }
+  return out;
+}
+
+// Follows the parser's events to know the JSON pointer of every key, and
+// throws at the second occurrence of a key in one object: nlohmann keeps the
+// last value silently, so "resistor": "100k", "resistor": "1k" would budget
+// 1 k without a word.
+class DuplicateKeyGuard {
+ public:
+  explicit DuplicateKeyGuard(const std::string& source) : source_(source) {}
+
+  bool operator()(int /*depth*/, nlohmann::json::parse_event_t event,
+                  nlohmann::json& parsed) {
+    using Event = nlohmann::json::parse_event_t;
+    switch (event) {
+      case Event::object_start:
+      case Event::array_start:
+        frames_.push_back(
+            {event == Event::array_start, ChildToken(), {}, "", 0});
+        break;
+      case Event::object_end:
+      case Event::array_end:
+        frames_.pop_back();
+        break;
+      case Event::key: {
+        Frame& object = frames_.back();
+        const std::string& key = parsed.get_ref<const std::string&>();
+        if (!object.keys.insert(key).second)
+          throw Error(source_, PathTo(PointerToken(key)),
+                      "duplicate key (given twice in one object)");
+        object.key = key;
+        break;
+      }
+      case Event::value:
+        ChildToken();  // a plain value in an array takes its index
+        break;
+    }
+    return true;
+  }
+
+ private:
+  struct Frame {
+    bool array = false;
+    std::string token;  // the pointer token of this object or array
+    std::set<std::string> keys;
+    std::string key;         // objects: the last key read
+    std::size_t next_index;  // arrays: the index of the next element
+  };
+
+  // The token of the value that starts now inside the innermost frame.
+  std::string ChildToken() {
+    if (frames_.empty()) return "";
+    Frame& parent = frames_.back();
+    if (!parent.array) return PointerToken(parent.key);
+    return std::to_string(parent.next_index++);
+  }
+
+  std::string PathTo(const std::string& last) const {
+    std::string path;
+    for (std::size_t i = 1; i < frames_.size(); ++i)
+      path += "/" + frames_[i].token;
+    return path + "/" + last;
+  }
+
+  const std::string& source_;
+  std::vector<Frame> frames_;
+};
+
 }  // namespace
 
 nlohmann::json ParseJsonText(std::string_view text, const std::string& source) {
   try {
-    return nlohmann::json::parse(text.begin(), text.end(), nullptr,
+    return nlohmann::json::parse(text.begin(), text.end(),
+                                 DuplicateKeyGuard(source),
                                  /*allow_exceptions=*/true,
                                  /*ignore_comments=*/true);
   } catch (const nlohmann::json::parse_error& e) {

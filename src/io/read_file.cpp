@@ -1,5 +1,6 @@
 #include "io/read_file.h"
 
+#include <fcntl.h>
 #include <unistd.h>
 
 #include <cerrno>
@@ -7,7 +8,6 @@
 #include <cstring>
 #include <filesystem>
 #include <fstream>
-#include <sstream>
 
 #include "io/error.h"
 
@@ -22,20 +22,45 @@ std::string LowercaseReason(int error_number) {
   return why;
 }
 
+// Reads `fd` to its end, refusing more than kMaxInputBytes.
+std::string ReadBounded(int fd, const std::string& source) {
+  std::string text;
+  char buffer[65536];
+  for (;;) {
+    const ssize_t n = ::read(fd, buffer, sizeof buffer);
+    if (n < 0 && errno == EINTR) continue;
+    if (n < 0)
+      throw Error(source, "", "cannot read: " + LowercaseReason(errno));
+    if (n == 0) return text;
+    if (text.size() + static_cast<std::size_t>(n) > kMaxInputBytes)
+      throw Error(source, "",
+                  "larger than " + std::to_string(kMaxInputBytes >> 20) +
+                      " MiB, the limit of an input file");
+    text.append(buffer, static_cast<std::size_t>(n));
+  }
+}
+
 }  // namespace
 
 std::string ReadTextFile(const std::string& path) {
-  // An ifstream opens a folder without complaint and reads nothing from
-  // it, which would pass for an empty (malformed) file.
+  // A folder opens without complaint on some systems; say what it is.
   std::error_code ignored;
   if (std::filesystem::is_directory(path, ignored))
     throw Error(path, "", "cannot read: " + LowercaseReason(EISDIR));
-  std::ifstream in(path, std::ios::binary);
-  if (!in) throw Error(path, "", "cannot read: " + LowercaseReason(errno));
-  std::ostringstream out;
-  out << in.rdbuf();
-  if (in.bad()) throw Error(path, "", "cannot read");
-  return out.str();
+  const int fd = ::open(path.c_str(), O_RDONLY | O_CLOEXEC);
+  if (fd < 0) throw Error(path, "", "cannot read: " + LowercaseReason(errno));
+  try {
+    std::string text = ReadBounded(fd, path);
+    ::close(fd);
+    return text;
+  } catch (...) {
+    ::close(fd);
+    throw;
+  }
+}
+
+std::string ReadStandardInput(const std::string& source) {
+  return ReadBounded(STDIN_FILENO, source);
 }
 
 void WriteFileAtomically(const std::string& path, const std::string& contents) {

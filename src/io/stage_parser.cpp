@@ -464,9 +464,14 @@ Stage ParseStage(std::string_view json_text, std::string_view source_name,
 }
 
 Stage LoadStageFile(const std::string& path, const DeviceLibrary& library) {
-  const std::string text = ReadTextFile(path);
+  // "-" is standard input; its device files are found from the current
+  // folder.
+  const bool from_stdin = path == "-";
+  const std::string text =
+      from_stdin ? ReadStandardInput(kStandardInputName) : ReadTextFile(path);
   const std::filesystem::path folder =
-      std::filesystem::path(path).parent_path();
+      from_stdin ? std::filesystem::path()
+                 : std::filesystem::path(path).parent_path();
   StageContext context;
   context.library = &library;
   context.read_file = [folder](const std::string& device_path) {
@@ -474,7 +479,7 @@ Stage LoadStageFile(const std::string& path, const DeviceLibrary& library) {
     if (p.is_relative()) p = folder / p;
     return ReadTextFile(p.string());
   };
-  return ParseStage(text, path, context);
+  return ParseStage(text, from_stdin ? kStandardInputName : path, context);
 }
 
 }  // namespace hushgain

@@ -26,7 +26,12 @@ struct StageContext {
 Stage ParseStage(std::string_view json_text, std::string_view source_name,
                  const StageContext& context);
 
+// How errors name standard input.
+inline constexpr const char* kStandardInputName = "stdin";
+
 // Reads and parses a stage file; device paths are relative to its folder.
+// "-" reads standard input (device paths relative to the current folder).
+// Files are read through ReadTextFile, so never more than kMaxInputBytes.
 Stage LoadStageFile(const std::string& path, const DeviceLibrary& library);
 
 }  // namespace hushgain

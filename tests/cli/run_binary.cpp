@@ -34,7 +34,8 @@ std::string TemporaryFile(const char* tag) {
 
 RunResult RunBinary(const std::string& program,
                     const std::vector<std::string>& args,
-                    const std::string& working_dir) {
+                    const std::string& working_dir,
+                    const std::string& stdin_path) {
   RunResult result;
   const std::string out_path = TemporaryFile("out");
   const std::string err_path = TemporaryFile("err");
@@ -56,6 +57,12 @@ RunResult RunBinary(const std::string& program,
     ::dup2(err_fd, STDERR_FILENO);
     ::close(out_fd);
     ::close(err_fd);
+    if (!stdin_path.empty()) {
+      const int in_fd = ::open(stdin_path.c_str(), O_RDONLY);
+      if (in_fd < 0) ::_exit(126);
+      ::dup2(in_fd, STDIN_FILENO);
+      ::close(in_fd);
+    }
     if (!working_dir.empty() && ::chdir(working_dir.c_str()) != 0) ::_exit(126);
     ::execv(program.c_str(), argv.data());
     ::_exit(127);

@@ -20,9 +20,11 @@ struct RunResult {
 // Runs `program` with `args` (argv[1..]); the child's stdout and stderr go
 // to temporary files that are read back and removed. Blocks until the child
 // exits. `working_dir`, when not empty, is the child's current directory.
+// `stdin_path`, when not empty, is opened as the child's standard input.
 RunResult RunBinary(const std::string& program,
                     const std::vector<std::string>& args,
-                    const std::string& working_dir = "");
+                    const std::string& working_dir = "",
+                    const std::string& stdin_path = "");
 
 // The lines of `text` (split at '\n'; a final newline ends the last line
 // and does not start a new one).
