@@ -33,6 +33,11 @@ struct Feedback {
   TeeNetwork tee;           // kTee
   // Across the whole feedback path, - input to output; 0 = none.
   double capacitor_f = 0;
+  // The feedback resistor's own capacitance, which `tia suggest` counts in
+  // C_f when it fits capacitors of a series (0.2 pF for a small
+  // surface-mount part: common practice). The budget takes capacitor_f as
+  // the whole C_f.
+  double parasitic_capacitance_f = 0.2e-12;
 };
 
 // What a feedback capacitor given as "auto" is chosen for: a maximally flat

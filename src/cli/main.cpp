@@ -201,6 +201,15 @@ std::function<int()> DefineTia(CLI::App* app, const GlobalOptions& global) {
   s->add_option("--rows", options->rows,
                 "proposals at or below the best R_f (default 6)")
       ->check(WholeNumber<int>());
+  s->add_option("--background", options->background,
+                "background photocurrent, e.g. 400n (default: the stage's "
+                "photocurrent)");
+  s->add_option("--full-scale", options->full_scale,
+                "output swing for the headroom, e.g. 4 (default: the stage's "
+                "full_scale_output_V, else half the supply)");
+  s->add_option("--cap-series", options->cap_series,
+                "fit C_f from a capacitor series, e.g. E6 or E12, the "
+                "resistor's parasitic counted in");
   s->add_option("--format", options->format,
                 "text, json, markdown or csv (default text)");
   s->add_flag("--csv", options->csv, "the same as --format csv");

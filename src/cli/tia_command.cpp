@@ -46,17 +46,42 @@ int RunTiaSuggestCommand(const TiaSuggestCommandOptions& options) {
                 "--series: unknown series \"" + options.series + "\"" +
                     DidYouMean(options.series, SeriesNames()));
 
+  std::optional<PreferredSeries> cap_series;
+  if (!options.cap_series.empty()) {
+    cap_series = SeriesFromName(options.cap_series);
+    if (!cap_series)
+      throw Error(kCommandLine, "",
+                  "--cap-series: unknown series \"" + options.cap_series +
+                      "\"" + DidYouMean(options.cap_series, SeriesNames()));
+  }
+  std::optional<double> background, full_scale;
+  if (!options.background.empty()) {
+    background =
+        QuantityOption("--background", options.background, Quantity::kCurrent);
+    if (!(*background >= 0))
+      throw OptionError("--background",
+                        "expected a non-negative current, got \"" +
+                            options.background + "\"");
+  }
+  if (!options.full_scale.empty())
+    full_scale = PositiveQuantityOption("--full-scale", options.full_scale,
+                                        Quantity::kVoltage);
+
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
   Stage stage = LoadStageFile(options.stage_path, library);
   if (stage.topology != Topology::kTransimpedance)
     throw Error(options.stage_path, "/stage/topology",
                 "tia suggest needs a \"transimpedance\" stage");
   stage.reference_hz = ReferenceFrequencyHz(stage);
+  if (background) stage.photodiode.photocurrent_a = *background;
+  if (full_scale) stage.full_scale_output_v = *full_scale;
 
   TiaSuggestOptions suggest;
   suggest.bandwidth_hz = bandwidth;
   suggest.resistors_ohm = SeriesValuesInRange(*series, lo, hi);
   suggest.rows = options.rows;
+  suggest.capacitor_series = cap_series;
+  suggest.parasitic_capacitance_f = stage.feedback.parasitic_capacitance_f;
   if (suggest.resistors_ohm.empty())
     throw Error(kCommandLine, "",
                 "no " + options.series + " value lies between " + options.min +

@@ -15,6 +15,9 @@ struct TiaSuggestCommandOptions {
   std::string min = "1k";      // candidate range
   std::string max = "10G";
   int rows = 6;
+  std::string background;       // photocurrent "400n"; empty: the stage's own
+  std::string full_scale;       // volts "4"; empty: the stage's own (or none)
+  std::string cap_series;       // IEC 60063 series of C_f parts; empty: any C_f
   std::string format = "text";  // text, json, markdown or csv
   bool json = false;            // the same as --format json
   bool csv = false;             // the same as --format csv

@@ -9,6 +9,8 @@
 #include "base/printf.h"
 #include "budget/compute_budget.h"
 #include "budget/feedback_capacitor.h"
+#include "circuit/transimpedance_topology.h"
+#include "design/tia_snr.h"
 
 namespace hushgain {
 namespace {
@@ -61,11 +63,53 @@ Status CapacitorForBandwidth(const Stage& stage, double rf, double cf_flat,
   return Status::Ok();
 }
 
+// The DC output of the photocurrent and dark current, and with the
+// worst-case offset the headroom it takes.
+void Headroom(const Budget& x, double limit_v, TiaCandidate* row) {
+  row->dc_output_v = 0;
+  for (const DcOutputTerm& t : x.dc_outputs) row->dc_output_v += t.volts;
+  row->headroom_used_v = std::fabs(row->dc_output_v) + x.offset.worst_case_v;
+  row->fits_headroom = row->headroom_used_v <= limit_v;
+}
+
+// Whether `rf` fits the headroom (C_f plays no part at DC).
+Status FitsHeadroom(const Stage& stage, double rf, double limit_v, bool* fits) {
+  BudgetOptions options = QuickOptions();
+  options.noise_and_offset_only = true;
+  BudgetOutcome b = ComputeBudget(WithFeedback(stage, rf, 0), options);
+  if (!b.status.ok) return b.status;
+  TiaCandidate row;
+  Headroom(b.budget, limit_v, &row);
+  *fits = row.fits_headroom;
+  return Status::Ok();
+}
+
+// The part of `series` for a C_f of `cf` (the target's) with `cf_flat`
+// the Butterworth C_f: the largest part with parasitic + part <= cf and >=
+// cf_flat, else the smallest part above cf - parasitic; 0 when the
+// parasitic alone reaches cf.
+double SeriesPart(PreferredSeries series, double parasitic_f, double cf,
+                  double cf_flat) {
+  const double needed = cf - parasitic_f;
+  if (needed <= 0) return 0;
+  const std::vector<double> parts =
+      SeriesValuesInRange(series, needed / 100, needed * 100);
+  double best = 0;
+  for (double part : parts)
+    if (part <= needed * (1 + 1e-9) && parasitic_f + part >= cf_flat)
+      best = part;
+  if (best > 0) return best;
+  for (double part : parts)
+    if (part >= needed) return part;
+  return parts.empty() ? needed : parts.back();
+}
+
 Status FillRow(const Stage& stage, double rf, double cf, double flat_hz,
-               bool meets, TiaCandidate* row) {
+               bool meets, double limit_v, TiaCandidate* row) {
   BudgetOutcome b = ComputeBudget(WithFeedback(stage, rf, cf), QuickOptions());
   if (!b.status.ok) return b.status;
   const Budget& x = b.budget;
+  Headroom(x, limit_v, row);
   row->rf_ohm = rf;
   row->cf_f = cf;
   row->meets_target = meets;
@@ -91,6 +135,10 @@ std::string TiaSuggestOptions::Validate() const {
   if (rows < 1 || rows > kMaxTiaRows)
     return "rows: expected 1 to " + std::to_string(kMaxTiaRows) + ", got " +
            std::to_string(rows);
+  if (!(parasitic_capacitance_f >= 0 && std::isfinite(parasitic_capacitance_f)))
+    return Printf(
+        "parasitic_capacitance_f: expected a non-negative capacitance, got %g",
+        parasitic_capacitance_f);
   return {};
 }
 
@@ -133,6 +181,50 @@ TiaSuggestion SuggestTransimpedance(const Stage& stage,
     (bw >= f ? lo : hi) = mid;
   }
 
+  // The headroom: the largest index that fits, by the same bisection.
+  const HeadroomLimit limit = OutputHeadroomLimit(stage);
+  out.headroom_limit_v = limit.volts;
+  out.headroom_limit_name = limit.name;
+  out.background_current_a =
+      stage.photodiode.photocurrent_a + (DarkCurrentFlows(stage.photodiode)
+                                             ? stage.photodiode.dark_current_a
+                                             : 0);
+  bool fits = false;
+  out.status = FitsHeadroom(stage, rf[0], limit.volts, &fits);
+  if (!out.status.ok) return out;
+  if (!fits) {
+    out.status = Status::Fail(
+        "even the smallest candidate R_f (" + Printf("%.4g ohm", rf[0]) +
+        ") puts the output's DC level and offset beyond the " + limit.name +
+        " (" + Printf("%.4g V", limit.volts) +
+        "): less background light or a larger swing is needed");
+    return out;
+  }
+  int fit_lo = 0, fit_hi = static_cast<int>(rf.size());
+  while (fit_hi - fit_lo > 1) {
+    const int mid = (fit_lo + fit_hi) / 2;
+    out.status = FitsHeadroom(stage, rf[mid], limit.volts, &fits);
+    if (!out.status.ok) return out;
+    (fits ? fit_lo : fit_hi) = mid;
+  }
+  if (fit_lo < lo) {
+    out.limited_by = TiaLimit::kHeadroom;
+    lo = fit_lo;
+    hi = fit_lo + 1;
+  }
+
+  // A C_f of the series, the parasitic counted in; the row's figures are
+  // those of the C_f as built.
+  auto built = [&](double cf, double cf_flat, TiaCandidate* row) {
+    if (!options.capacitor_series) return cf;
+    const double part =
+        SeriesPart(*options.capacitor_series, options.parasitic_capacitance_f,
+                   cf, cf_flat);
+    row->capacitor_part_f = part;
+    row->parasitic_alone = part == 0;
+    return options.parasitic_capacitance_f + part;
+  };
+
   const int first = std::max(0, lo - options.rows + 1);
   for (int i = first; i <= lo; ++i) {
     double cf_flat = 0, bw_flat = 0, cf = 0;
@@ -140,19 +232,31 @@ TiaSuggestion SuggestTransimpedance(const Stage& stage,
     if (out.status.ok)
       out.status = CapacitorForBandwidth(stage, rf[i], cf_flat, f, &cf);
     TiaCandidate row;
-    if (out.status.ok)
-      out.status = FillRow(stage, rf[i], cf, bw_flat, true, &row);
+    if (out.status.ok) {
+      const double total = built(cf, cf_flat, &row);
+      out.status =
+          FillRow(stage, rf[i], total, bw_flat, true, limit.volts, &row);
+      // A C_f as built above the target's (the parasitic alone, or the
+      // next part up) may leave the -3 dB point below the target.
+      if (total > cf * (1 + 1e-9)) row.meets_target = row.bandwidth_3db_hz >= f;
+    }
     if (!out.status.ok) return out;
     out.rows.push_back(row);
   }
   out.best = static_cast<int>(out.rows.size()) - 1;
   if (hi < static_cast<int>(rf.size())) {
-    // The next value up, Butterworth-compensated, to show what is missed.
-    double cf_flat = 0, bw_flat = 0;
+    // The next value up, to show what is missed: Butterworth-compensated
+    // when the bandwidth binds, at the target's C_f when the headroom does.
+    double cf_flat = 0, bw_flat = 0, cf = 0;
     out.status = flat(hi, &cf_flat, &bw_flat);
+    const bool reaches = bw_flat >= f;
+    cf = cf_flat;
+    if (out.status.ok && reaches)
+      out.status = CapacitorForBandwidth(stage, rf[hi], cf_flat, f, &cf);
     TiaCandidate row;
     if (out.status.ok)
-      out.status = FillRow(stage, rf[hi], cf_flat, bw_flat, false, &row);
+      out.status = FillRow(stage, rf[hi], built(cf, cf_flat, &row), bw_flat,
+                           reaches, limit.volts, &row);
     if (!out.status.ok) return out;
     out.rows.push_back(row);
   }

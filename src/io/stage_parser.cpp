@@ -93,6 +93,9 @@ Feedback ParseFeedback(ObjectReader& reader,
     fb.tee.r3_ohm = PositiveResistance(tee, "r3");
     tee.Finish();
   }
+  if (reader.Has("parasitic_capacitance"))
+    fb.parasitic_capacitance_f =
+        NonNegativeCapacitance(reader, "parasitic_capacitance");
   const bool automatic = reader.Has("capacitor") &&
                          reader.Get("capacitor").is_string() &&
                          reader.Get("capacitor").get<std::string>() == "auto";

@@ -35,6 +35,16 @@ std::string NoiseKindLabel(NoiseKind kind) {
   }
 }
 
+const char* TiaLimitWord(TiaLimit limit) {
+  switch (limit) {
+    case TiaLimit::kBandwidth:
+      return "bandwidth";
+    case TiaLimit::kHeadroom:
+      return "headroom";
+  }
+  return "?";
+}
+
 const char* TeeRankingWord(TeeRanking ranking) {
   switch (ranking) {
     case TeeRanking::kNoise:

@@ -7,12 +7,13 @@
 #include <string>
 
 #include "design/tee_search.h"
+#include "design/tia_suggest.h"
 #include "noise/noise_source.h"
 
 namespace hushgain {
 
 // The JSON and CSV names: "thermal", "shot", "voltage_noise",
-// "current_noise", "excess".
+// "current_noise", "excess", "supply".
 const char* NoiseKindWord(NoiseKind kind);
 
 // The label of the budget table's kind column: "thermal", "shot",
@@ -21,6 +22,9 @@ std::string NoiseKindLabel(NoiseKind kind);
 
 // "noise", "offset" or "weighted" (also the values of `tee search --rank`).
 const char* TeeRankingWord(TeeRanking ranking);
+
+// "bandwidth" or "headroom": which limit sets tia suggest's largest R_f.
+const char* TiaLimitWord(TiaLimit limit);
 
 }  // namespace hushgain
 

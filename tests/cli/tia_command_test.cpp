@@ -75,6 +75,14 @@ TEST_CASE("tia suggest refuses bad input with exit code 2 and one line") {
        "error: command line: --series: unknown series \"E69\" (did you mean "
        "\"E6\"?)\n"},
       {{"suggest", "examples/smoke-chamber-receiver.json", "--bandwidth", "50k",
+        "--cap-series", "E7"},
+       "error: command line: --cap-series: unknown series \"E7\" (did you "
+       "mean \"E6\"?)\n"},
+      {{"suggest", "examples/smoke-chamber-receiver.json", "--bandwidth", "50k",
+        "--background", "-1u"},
+       "error: command line: --background: expected a non-negative current, "
+       "got \"-1u\"\n"},
+      {{"suggest", "examples/smoke-chamber-receiver.json", "--bandwidth", "50k",
         "--min", "1M", "--max", "1k"},
        "error: command line: --max: 1k is below --min 1M\n"},
       {{"suggest", "examples/nowhere.json", "--bandwidth", "50k"},
@@ -99,6 +107,35 @@ TEST_CASE(
   CHECK(r.out == "");
   CHECK(r.err.find("a faster op-amp or a smaller photodiode is needed") !=
         std::string::npos);
+}
+
+TEST_CASE(
+    "tia suggest with background light and an E6 capacitor series says the "
+    "headroom binds") {
+  // 1 uA of background light on the example's 4 V full scale: R_f at most
+  // about 4 M (I_bg R_f plus the offset), far below the 5 kHz target's.
+  const test::RunResult r =
+      Tia({"suggest", "examples/smoke-chamber-receiver.json", "--bandwidth",
+           "5k", "--background", "1u", "--cap-series", "E6", "--json"});
+  INFO("stderr: " << r.err);
+  REQUIRE(r.exit_code == 0);
+  const nlohmann::json doc = nlohmann::json::parse(r.out);
+  CHECK(doc.at("limited_by") == "headroom");
+  CHECK(doc.at("headroom_limit") == "full-scale swing");
+  CHECK(doc.at("background_current_A").get<double>() == 1e-6);
+  const auto& best = doc.at("rows").at(doc.at("best").get<int>());
+  CHECK(best.at("fits_headroom").get<bool>());
+  CHECK(best.at("rf_ohm").get<double>() <= 4e6);
+  CHECK(best.at("headroom_used_V").get<double>() <= 4);
+  // C_f = 0.2 pF parasitic + an E6 part (IEC 60063: 1.0 1.5 2.2 3.3 4.7 6.8).
+  const double part = best.at("capacitor_part_F").get<double>();
+  const double cf = best.at("cf_F").get<double>();
+  CHECK(std::fabs(cf - part - 0.2e-12) < 1e-18);
+  const double m = part / std::pow(10.0, std::floor(std::log10(part)));
+  bool in_e6 = false;
+  for (double v : {1.0, 1.5, 2.2, 3.3, 4.7, 6.8})
+    in_e6 = in_e6 || std::fabs(m / v - 1) < 1e-9;
+  CHECK(in_e6);
 }
 
 }  // namespace

@@ -118,5 +118,89 @@ TEST_CASE("suggestion options validate with a message naming the field") {
         "bandwidth_hz: expected a positive frequency, got 0");
 }
 
+TEST_CASE(
+    "background light and a full-scale swing cap R_f where the headroom "
+    "binds") {
+  // Ideal op-amp, no offsets: the DC output is I_bg R_f, so a 4 V swing
+  // with 1 uA of background light allows R_f <= 4 M; the 50 kHz target
+  // alone would allow 12 M (the test above). E12: 3.9 M is the largest.
+  Stage stage = Photodiode();
+  stage.photodiode.photocurrent_a = 1e-6;
+  stage.full_scale_output_v = 4;
+  TiaSuggestOptions options;
+  options.bandwidth_hz = 50e3;
+  for (double decade : {1e6, 1e7})
+    for (double v :
+         {1.0, 1.2, 1.5, 1.8, 2.2, 2.7, 3.3, 3.9, 4.7, 5.6, 6.8, 8.2})
+      options.resistors_ohm.push_back(v * decade);
+  options.rows = 2;
+  const TiaSuggestion s = SuggestTransimpedance(stage, options);
+  REQUIRE_MESSAGE(s.status.ok, s.status.message);
+  CHECK(s.limited_by == TiaLimit::kHeadroom);
+  CHECK(s.headroom_limit_v == 4);
+  CHECK(s.headroom_limit_name == "full-scale swing");
+  REQUIRE(s.best == 1);
+  CHECK(s.rows[s.best].rf_ohm == 3.9e6);
+  CHECK(s.rows[s.best].fits_headroom);
+  CHECK(RelErr(s.rows[s.best].dc_output_v, -1e-6 * 3.9e6) < 1e-6);
+  // The next value up meets the bandwidth but not the headroom.
+  REQUIRE(s.rows.size() == 3);
+  CHECK(s.rows[2].rf_ohm == 4.7e6);
+  CHECK(s.rows[2].meets_target);
+  CHECK_FALSE(s.rows[2].fits_headroom);
+  // Without the light the bandwidth binds again.
+  stage.photodiode.photocurrent_a = 0;
+  CHECK(SuggestTransimpedance(stage, options).limited_by ==
+        TiaLimit::kBandwidth);
+}
+
+TEST_CASE(
+    "C_f from the E6 series with the resistor's parasitic counted in; a "
+    "parasitic above the need is the parasitic alone") {
+  // IEC 60063 E6: 1.0 1.5 2.2 3.3 4.7 6.8 per decade.
+  const double e6[] = {1.0, 1.5, 2.2, 3.3, 4.7, 6.8};
+  auto in_e6 = [&](double farads) {
+    const double m = farads / std::pow(10.0, std::floor(std::log10(farads)));
+    for (double v : e6)
+      if (std::fabs(m / v - 1) < 1e-9) return true;
+    return false;
+  };
+  TiaSuggestOptions options;
+  options.bandwidth_hz = 20e3;
+  options.resistors_ohm = {1e6, 2.2e6, 4.7e6, 10e6};
+  options.rows = 3;
+  options.capacitor_series = PreferredSeries::kE6;
+  options.parasitic_capacitance_f = 0.2e-12;
+  const TiaSuggestion s = SuggestTransimpedance(Photodiode(), options);
+  REQUIRE_MESSAGE(s.status.ok, s.status.message);
+  for (int i = 0; i <= s.best; ++i) {
+    const TiaCandidate& r = s.rows[i];
+    CAPTURE(r.rf_ohm);
+    REQUIRE_FALSE(r.parasitic_alone);
+    CHECK(in_e6(r.capacitor_part_f));
+    CHECK(RelErr(r.cf_f, 0.2e-12 + r.capacitor_part_f) < test::kRelTight);
+    // At or below the target's C_f: the -3 dB point at or above the target,
+    // and no peaking (at or above the Butterworth C_f).
+    CHECK(r.bandwidth_3db_hz >= 20e3 * (1 - 1e-3));
+    CHECK(r.peaking_db < 0.01);
+  }
+  // A 5 pF parasitic is more than a 20 kHz target allows at 10 M (about
+  // 1 / (2 pi 10 M 20 kHz) = 0.8 pF): the parasitic alone, no part, and
+  // the -3 dB point falls to the pole of R_f || 5 pF, 1 / (2 pi R_f C_f) =
+  // 3.18 kHz (the loop, with GBW 10 MHz and a noise gain of 11 there, moves
+  // it by well under 1 %), so the row misses the target.
+  options.parasitic_capacitance_f = 5e-12;
+  options.resistors_ohm = {10e6};
+  const TiaSuggestion alone = SuggestTransimpedance(Photodiode(), options);
+  REQUIRE_MESSAGE(alone.status.ok, alone.status.message);
+  REQUIRE(alone.best == 0);
+  const TiaCandidate& r = alone.rows[0];
+  CHECK(r.parasitic_alone);
+  CHECK(r.capacitor_part_f == 0);
+  CHECK(r.cf_f == 5e-12);
+  CHECK(RelErr(r.bandwidth_3db_hz, 1 / (2 * kPi * 10e6 * 5e-12)) < 0.01);
+  CHECK_FALSE(r.meets_target);
+}
+
 }  // namespace
 }  // namespace hushgain

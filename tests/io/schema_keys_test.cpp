@@ -186,7 +186,8 @@ TEST_CASE("the stage schema and the stage parser know the same keys") {
   ParseStageJson(lit, "lit photodiode variant", library);
   json photocurrent = Example("smoke-chamber-receiver");
   photocurrent.merge_patch(
-      R"({"source": {"photodiode": {"photocurrent": "10n"}}})"_json);
+      R"({"source": {"photodiode": {"photocurrent": "10n"}},
+          "stage": {"feedback": {"parasitic_capacitance": "0.1p"}}})"_json);
   ParseStageJson(photocurrent, "photocurrent variant", library);
 
   const Keys schema = SchemaKeys(kSource / "schema/stage.schema.json").keys();
