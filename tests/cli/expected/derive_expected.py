@@ -844,6 +844,15 @@ def tee_cost(stage, given):
 
 # Why each example does or does not sit in closed-form territory.
 NOTES = {
+    "large-area-receiver.json":
+        "a large-area photodiode (470 pF) at zero bias, 25 C, 47 k "
+        "transimpedance with 220 pF across it (its pole at 15.4 kHz, above "
+        "the 10 kHz band); 20 uA "
+        "of background photocurrent, whose shot noise 2 q I_ph (Schottky, "
+        "REFERENCES.md section 2: 2.53 pA/rtHz) is most of the noise: "
+        "4kT/R_f gives 0.59 pA/rtHz. Offset: V_os (1 + R_f/R_sh) + "
+        "(I_b + I_os/2) R_f; the photocurrent's DC output (-0.94 V) is the "
+        "signal's DC level, no offset",
     "hydrophone-preamp.json":
         "at 15 C: V_os = 300 uV + 3 uV/C x 10 C, I_b and I_os halved "
         "(doubling every 10 C), 4kT at 288.15 K; no resistors block, so no "
