@@ -55,8 +55,9 @@ std::string TiaSnrOptions::Validate() const {
     return Printf("power_max_w: expected a power above power_min_w (%g W)",
                   power_min_w) +
            Printf(", got %g", power_max_w);
-  if (points < 2)
-    return "points: expected at least 2, got " + std::to_string(points);
+  if (points < 2 || points > kMaxTiaSnrPoints)
+    return "points: expected 2 to " + std::to_string(kMaxTiaSnrPoints) +
+           ", got " + std::to_string(points);
   return "";
 }
 

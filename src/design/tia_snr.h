@@ -37,10 +37,12 @@
 
 namespace hushgain {
 
+inline constexpr int kMaxTiaSnrPoints = 10000;
+
 struct TiaSnrOptions {
   double power_min_w = 0;  // > 0
   double power_max_w = 0;  // > power_min_w
-  int points = 31;         // log-spaced, both ends included; >= 2
+  int points = 31;  // log-spaced, both ends included; 2 to kMaxTiaSnrPoints
 
   // Empty when valid; otherwise "field: expected ..., got ...".
   std::string Validate() const;

@@ -55,6 +55,8 @@ TEST_CASE("count options outside their range are one line and exit 2") {
        "--points: expected 2 to 10000, got 100000"},
       {{"tia", "suggest", tia, "--bandwidth", "10k", "--rows", "5000"},
        "--rows: expected 1 to 1000, got 5000"},
+      {{"tia", "snr", tia, "--power-range", "1n..1m", "--points", "20000"},
+       "--points: expected 2 to 10000, got 20000"},
   };
   for (const BadCount& c : cases) {
     CAPTURE(c.message);

@@ -146,7 +146,7 @@ TEST_CASE("tia snr options name the field and the rule") {
         "power_max_w: expected a power above power_min_w (0.001 W), got 1e-06");
   o.power_max_w = 1;
   o.points = 1;
-  CHECK(o.Validate() == "points: expected at least 2, got 1");
+  CHECK(o.Validate() == "points: expected 2 to 10000, got 1");
 }
 
 }  // namespace
