@@ -70,6 +70,11 @@ struct OpAmpModel {
   double supply_v = 30;  // total supply span, V
 };
 
+// The model's densities at one frequency (the formulas at the top), V/rtHz
+// and A/rtHz; f_hz > 0.
+double VoltageNoiseDensity(const OpAmpModel& model, double f_hz);
+double CurrentNoiseDensity(const OpAmpModel& model, double f_hz);
+
 }  // namespace hushgain
 
 #endif  // HUSHGAIN_CIRCUIT_OPAMP_MODEL_H_

@@ -11,6 +11,7 @@
 #include "cli/exit_codes.h"
 #include "cli/option_values.h"
 #include "cli/output_format.h"
+#include "cli/stage_input.h"
 #include "cli/text_output.h"
 #include "io/device_library.h"
 #include "io/error.h"
@@ -44,7 +45,8 @@ int RunBudgetCommand(const BudgetCommandOptions& options) {
                  {{"relative_tolerance", "--tolerance"}});
 
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
-  const Stage stage = LoadStageFile(options.stage_path, library);
+  const Stage stage =
+      LoadStageForCommand(options.stage_path, library, options.device);
   for (const auto& [name, technology] : library.resistors)
     budget_options.upgrade_candidates.push_back(
         {name, technology, technology.tolerance});

@@ -9,6 +9,7 @@ namespace hushgain {
 struct BudgetCommandOptions {
   std::string stage_path;
   std::string devices_dir;
+  std::string device;  // --device: replaces the stage's op-amp when set
   // text (default), json, markdown or csv.
   std::string format = "text";
   bool json = false;        // --json: the same as --format json

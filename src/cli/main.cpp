@@ -13,6 +13,7 @@
 
 #include "cli/budget_command.h"
 #include "cli/device_folder.h"
+#include "cli/devices_command.h"
 #include "cli/exit_codes.h"
 #include "cli/option_values.h"
 #include "cli/plot_command.h"
@@ -64,6 +65,10 @@ std::function<int()> DefineBudget(CLI::App* app, const GlobalOptions& global) {
   auto options = std::make_shared<BudgetCommandOptions>();
   app->add_option("stage", options->stage_path, "stage file (JSON)")
       ->required();
+  app->add_option("--device", options->device,
+                  "op-amp device (a name in the device folder or a part file) "
+                  "replacing the stage's op-amp")
+      ->type_name("NAME");
   app->add_flag("--json", options->json, "the same as --format json");
   app->add_option("--format", options->format,
                   "text, json, markdown or csv (default text)");
@@ -112,6 +117,10 @@ std::function<int()> DefineTee(CLI::App* app, const GlobalOptions& global) {
   s->allow_extras(false);  // the group allows them only to name a command
   s->add_option("stage", sweep->stage_path, "stage file (JSON) with a tee")
       ->required();
+  s->add_option("--device", sweep->device,
+                "op-amp device (a name in the device folder or a part file) "
+                "replacing the stage's op-amp")
+      ->type_name("NAME");
   s->add_option("--min", sweep->min,
                 "smallest largest-resistor value (default Req / 1000)");
   s->add_option("--points", sweep->points, "rows, both ends included (13)")
@@ -139,6 +148,10 @@ std::function<int()> DefineTee(CLI::App* app, const GlobalOptions& global) {
       "search", "standard-value T networks for the gain, least noise first");
   q->allow_extras(false);
   q->add_option("stage", search->stage_path, "stage file (JSON)")->required();
+  q->add_option("--device", search->device,
+                "op-amp device (a name in the device folder or a part file) "
+                "replacing the stage's op-amp")
+      ->type_name("NAME");
   q->add_option("--series", search->series,
                 "E6, E12, E24, E48, E96 or E192 (default E96)");
   q->add_option("--max", search->max, "largest R1, R2, R3 (required)");
@@ -191,6 +204,10 @@ std::function<int()> DefineTia(CLI::App* app, const GlobalOptions& global) {
   s->add_option("stage", options->stage_path,
                 "transimpedance stage file (JSON)")
       ->required();
+  s->add_option("--device", options->device,
+                "op-amp device (a name in the device folder or a part file) "
+                "replacing the stage's op-amp")
+      ->type_name("NAME");
   s->add_option("--bandwidth", options->bandwidth,
                 "the -3 dB target, e.g. 50k (required)")
       ->required();
@@ -250,6 +267,10 @@ std::function<int()> DefinePlot(CLI::App* app, const GlobalOptions& global) {
   auto options = std::make_shared<PlotCommandOptions>();
   app->add_option("stage", options->stage_path, "stage file (JSON)")
       ->required();
+  app->add_option("--device", options->device,
+                  "op-amp device (a name in the device folder or a part file) "
+                  "replacing the stage's op-amp")
+      ->type_name("NAME");
   app->add_option("-o,--output", options->output_path,
                   "picture to write, .png, .svg or .pdf")
       ->required();
@@ -266,6 +287,10 @@ std::function<int()> DefinePlot(CLI::App* app, const GlobalOptions& global) {
 std::function<int()> DefineSpread(CLI::App* app, const GlobalOptions& global) {
   auto o = std::make_shared<SpreadCommandOptions>();
   app->add_option("stage", o->stage_path, "stage file (JSON)")->required();
+  app->add_option("--device", o->device,
+                  "op-amp device (a name in the device folder or a part file) "
+                  "replacing the stage's op-amp")
+      ->type_name("NAME");
   app->add_option("--samples", o->samples,
                   "number of Monte Carlo samples (default 10000)")
       ->check(WholeNumber<long>());
@@ -294,6 +319,19 @@ std::function<int()> DefineSpread(CLI::App* app, const GlobalOptions& global) {
   };
 }
 
+std::function<int()> DefineDevices(CLI::App* app, const GlobalOptions& global) {
+  auto o = std::make_shared<DevicesCommandOptions>();
+  app->add_option("name", o->name,
+                  "one device to print in full (default: list them all)");
+  app->add_option("--format", o->format,
+                  "text, json, markdown or csv (default text)");
+  app->add_flag("--json", o->json, "the same as --format json");
+  return [o, &global] {
+    o->devices_dir = global.devices_dir;
+    return RunDevicesCommand(*o);
+  };
+}
+
 const std::vector<Command>& Commands() {
   static const std::vector<Command> commands = {
       {"budget", "noise and offset budget of a stage", DefineBudget},
@@ -307,6 +345,8 @@ const std::vector<Command>& Commands() {
        DefinePlot},
       {"spread", "Monte Carlo over tolerances, offsets and temperature",
        DefineSpread},
+      {"devices", "the device folder: op-amp classes, user parts, resistors",
+       DefineDevices},
   };
   return commands;
 }

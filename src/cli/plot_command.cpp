@@ -11,6 +11,7 @@
 #include "cli/diagnostics.h"
 #include "cli/draw_picture.h"
 #include "cli/exit_codes.h"
+#include "cli/stage_input.h"
 #include "integrate/cumulative_power.h"
 #include "io/device_library.h"
 #include "io/error.h"
@@ -65,7 +66,8 @@ PlotData CumulativeOnBand(const Budget& budget, SpectrumSamples samples) {
 int RunPlotCommand(const PlotCommandOptions& options) {
   PlotScriptOptions script_options = ScriptOptions(options);
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
-  const Stage stage = LoadStageFile(options.stage_path, library);
+  const Stage stage =
+      LoadStageForCommand(options.stage_path, library, options.device);
 
   const std::string gnuplot = GnuplotOrExplain("plot");
   if (gnuplot.empty()) return kExitToolFailed;

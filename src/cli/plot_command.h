@@ -12,6 +12,7 @@ namespace hushgain {
 struct PlotCommandOptions {
   std::string stage_path;
   std::string devices_dir;
+  std::string device;  // --device: replaces the stage's op-amp when set
   // Required; the extension picks the format: .png (pngcairo) or .svg.
   std::string output_path;
   // "" for the whole sheet, or one of spectrum, cumulative, gain.

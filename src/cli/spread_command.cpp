@@ -16,6 +16,7 @@
 #include "cli/option_values.h"
 #include "cli/output_format.h"
 #include "cli/progress_bar.h"
+#include "cli/stage_input.h"
 #include "cli/text_output.h"
 #include "io/device_library.h"
 #include "io/error.h"
@@ -83,7 +84,8 @@ int RunSpreadCommand(const SpreadCommandOptions& options) {
     if (gnuplot.empty()) return kExitToolFailed;
   }
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
-  const Stage stage = LoadStageFile(options.stage_path, library);
+  const Stage stage =
+      LoadStageForCommand(options.stage_path, library, options.device);
 
   SpreadControl control;
   ProgressBar bar("sampling");

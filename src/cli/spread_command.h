@@ -13,6 +13,7 @@ namespace hushgain {
 struct SpreadCommandOptions {
   std::string stage_path;
   std::string devices_dir;
+  std::string device;    // --device: replaces the stage's op-amp when set
   long samples = 10000;  // at least 1
   std::uint64_t seed = 1;
   int threads = 0;       // 0 = every hardware thread

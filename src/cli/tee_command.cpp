@@ -19,6 +19,7 @@
 #include "cli/option_values.h"
 #include "cli/output_format.h"
 #include "cli/progress_bar.h"
+#include "cli/stage_input.h"
 #include "cli/text_output.h"
 #include "design/tee_search.h"
 #include "design/tee_sweep.h"
@@ -132,7 +133,8 @@ int RunTeeSweepCommand(const TeeSweepCommandOptions& options) {
   }
 
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
-  const Stage stage = LoadStageFile(options.stage_path, library);
+  const Stage stage =
+      LoadStageForCommand(options.stage_path, library, options.device);
   if (stage.feedback.kind != Feedback::Kind::kTee)
     throw Error(options.stage_path, "/stage/feedback",
                 "tee sweep needs a T network (\"tee\"), this stage has one "
@@ -231,7 +233,8 @@ int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
   search.threads = options.threads;
 
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
-  const Stage stage = LoadStageFile(options.stage_path, library);
+  const Stage stage =
+      LoadStageForCommand(options.stage_path, library, options.device);
   const double stage_gain =
       FeedbackEquivalentOhm(stage.feedback) /
       (stage.source.resistance_ohm + stage.input_resistor_ohm);

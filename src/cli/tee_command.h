@@ -13,7 +13,8 @@ namespace hushgain {
 struct TeeSweepCommandOptions {
   std::string stage_path;
   std::string devices_dir;
-  std::string min;  // smallest "largest resistor"; empty: Req / 1000
+  std::string device;  // --device: replaces the stage's op-amp when set
+  std::string min;     // smallest "largest resistor"; empty: Req / 1000
   int points = 13;
   std::string ratio;  // R1/R2: a number, "stage", or empty (the default rule)
   // text (default), json, markdown or csv; --csv and --json are synonyms
@@ -30,6 +31,7 @@ struct TeeSweepCommandOptions {
 struct TeeSearchCommandOptions {
   std::string stage_path;
   std::string devices_dir;
+  std::string device;  // --device: replaces the stage's op-amp when set
   std::string series = "E96";
   std::string min;  // empty: max / 1000
   std::string max;

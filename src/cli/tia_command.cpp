@@ -9,6 +9,7 @@
 #include "cli/exit_codes.h"
 #include "cli/option_values.h"
 #include "cli/output_format.h"
+#include "cli/stage_input.h"
 #include "cli/text_output.h"
 #include "design/tia_suggest.h"
 #include "io/device_library.h"
@@ -68,7 +69,8 @@ int RunTiaSuggestCommand(const TiaSuggestCommandOptions& options) {
                                         Quantity::kVoltage);
 
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
-  Stage stage = LoadStageFile(options.stage_path, library);
+  Stage stage =
+      LoadStageForCommand(options.stage_path, library, options.device);
   if (stage.topology != Topology::kTransimpedance)
     throw Error(options.stage_path, "/stage/topology",
                 "tia suggest needs a \"transimpedance\" stage");

@@ -10,6 +10,7 @@ namespace hushgain {
 struct TiaSuggestCommandOptions {
   std::string stage_path;
   std::string devices_dir;
+  std::string device;          // --device: replaces the stage's op-amp when set
   std::string bandwidth = "";  // a frequency with prefix: "50k"
   std::string series = "E24";  // IEC 60063 series of the candidate R_f
   std::string min = "1k";      // candidate range

@@ -5,6 +5,7 @@
 #include <sstream>
 
 #include "io/read_file.h"
+#include "io/suggest.h"
 
 namespace hushgain {
 namespace {
@@ -314,6 +315,37 @@ DeviceLibrary LoadDeviceLibrary(const std::string& directory) {
     }
   }
   return library;
+}
+
+namespace {
+
+bool LooksLikePath(const std::string& device) {
+  return device.find('/') != std::string::npos ||
+         (device.size() > 5 &&
+          device.compare(device.size() - 5, 5, ".json") == 0);
+}
+
+}  // namespace
+
+OpAmpModel FindOpAmp(
+    const DeviceLibrary& library, const std::string& device,
+    const std::string& source, const std::string& path,
+    const std::function<std::string(const std::string&)>& read_file) {
+  if (LooksLikePath(device)) {
+    std::string text;
+    try {
+      text = read_file(device);
+    } catch (const Error& e) {
+      throw Error(source, path, e.message() + " (" + device + ")");
+    }
+    return ParseOpAmpDevice(text, device);
+  }
+  auto it = library.opamps.find(device);
+  if (it == library.opamps.end())
+    throw Error(source, path,
+                "unknown op-amp device \"" + device + "\"" +
+                    DidYouMean(device, library.OpAmpNames()));
+  return it->second;
 }
 
 }  // namespace hushgain

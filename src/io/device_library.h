@@ -9,6 +9,7 @@
 #ifndef HUSHGAIN_IO_DEVICE_LIBRARY_H_
 #define HUSHGAIN_IO_DEVICE_LIBRARY_H_
 
+#include <functional>
 #include <map>
 #include <string>
 #include <string_view>
@@ -59,6 +60,15 @@ void ApplyOpAmpParameters(ObjectReader& reader, OpAmpModel* model);
 // Throws unless `reader` gives every parameter an op-amp cannot do without
 // (voltage_noise, current_noise, open_loop_gain, gbw).
 void RequireCoreOpAmpParameters(ObjectReader& reader);
+
+// The op-amp a command-line or stage "device" names: a name in `library`,
+// or a path to a device file (it holds a "/" or ends in ".json"), read
+// through `read_file`. Throws Error(source, path, ...) with a "did you mean"
+// for an unknown name.
+OpAmpModel FindOpAmp(
+    const DeviceLibrary& library, const std::string& device,
+    const std::string& source, const std::string& path,
+    const std::function<std::string(const std::string&)>& read_file);
 
 // Reads every device file under `directory` (opamps/ and resistors/).
 // Throws Error naming the file on a bad one, or when the folder is missing.

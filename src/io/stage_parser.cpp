@@ -32,34 +32,13 @@ double NonNegativeCapacitance(ObjectReader& reader, const std::string& key) {
   return farads;
 }
 
-bool LooksLikePath(const std::string& device) {
-  return device.find('/') != std::string::npos ||
-         (device.size() > 5 &&
-          device.compare(device.size() - 5, 5, ".json") == 0);
-}
-
 OpAmpModel ParseOpAmp(ObjectReader& reader, const StageContext& context) {
   OpAmpModel model;
   bool from_device = false;
   if (auto device = reader.OptionalString("device")) {
     from_device = true;
-    if (LooksLikePath(*device)) {
-      std::string text;
-      try {
-        text = context.read_file(*device);
-      } catch (const Error& e) {
-        throw reader.ErrorAt("device", e.message() + " (" + *device + ")");
-      }
-      model = ParseOpAmpDevice(text, *device);
-    } else {
-      const DeviceLibrary& lib = *context.library;
-      auto it = lib.opamps.find(*device);
-      if (it == lib.opamps.end())
-        throw reader.ErrorAt("device",
-                             "unknown op-amp device \"" + *device + "\"" +
-                                 DidYouMean(*device, lib.OpAmpNames()));
-      model = it->second;
-    }
+    model = FindOpAmp(*context.library, *device, reader.source(),
+                      reader.PathOf("device"), context.read_file);
   }
   if (reader.Has("set")) {
     ObjectReader set = reader.Object("set");

@@ -1,0 +1,21 @@
+#include "cli/stage_input.h"
+
+#include "io/read_file.h"
+#include "io/stage_parser.h"
+
+namespace hushgain {
+
+Stage LoadStageForCommand(const std::string& stage_path,
+                          const DeviceLibrary& library,
+                          const std::string& device_override) {
+  Stage stage = LoadStageFile(stage_path, library);
+  if (!device_override.empty()) {
+    // A path on the command line is taken relative to the working folder.
+    stage.opamp =
+        FindOpAmp(library, device_override, "command line", "--device",
+                  [](const std::string& path) { return ReadTextFile(path); });
+  }
+  return stage;
+}
+
+}  // namespace hushgain
