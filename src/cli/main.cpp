@@ -242,6 +242,10 @@ std::function<int()> DefineTia(CLI::App* app, const GlobalOptions& global) {
   n->allow_extras(false);
   n->add_option("stage", snr->stage_path, "transimpedance stage file (JSON)")
       ->required();
+  n->add_option("--device", snr->device,
+                "op-amp device (a name in the device folder or a part file) "
+                "replacing the stage's op-amp")
+      ->type_name("NAME");
   n->add_option("--power-range", snr->power_range,
                 "incident optical power LOW..HIGH, e.g. 1n..1m (required)")
       ->required();

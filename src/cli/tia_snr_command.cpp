@@ -5,6 +5,7 @@
 #include "cli/exit_codes.h"
 #include "cli/option_values.h"
 #include "cli/output_format.h"
+#include "cli/stage_input.h"
 #include "cli/text_output.h"
 #include "design/tia_snr.h"
 #include "io/device_library.h"
@@ -45,7 +46,8 @@ int RunTiaSnrCommand(const TiaSnrCommandOptions& options) {
                                   {"points", "--points"}});
 
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
-  const Stage stage = LoadStageFile(options.stage_path, library);
+  const Stage stage =
+      LoadStageForCommand(options.stage_path, library, options.device);
   if (stage.topology != Topology::kTransimpedance)
     throw Error(options.stage_path, "/stage/topology",
                 "tia snr needs a \"transimpedance\" stage");

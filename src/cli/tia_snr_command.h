@@ -12,6 +12,7 @@ namespace hushgain {
 struct TiaSnrCommandOptions {
   std::string stage_path;
   std::string devices_dir;
+  std::string device;       // --device: replaces the stage's op-amp when set
   std::string power_range;  // "LOW..HIGH", optical powers: "1n..1m"
   int points = 31;
   std::string format = "text";  // text, json, markdown or csv

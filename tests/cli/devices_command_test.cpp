@@ -148,7 +148,9 @@ TEST_CASE("--device is refused with a suggestion when the name is unknown") {
            {"tee", "sweep", ExamplePath("hydrophone-preamp")},
            {"tee", "search", ExamplePath("hydrophone-preamp"), "--max", "100k"},
            {"tia", "suggest", ExamplePath("smoke-chamber-receiver"),
-            "--bandwidth", "10k"}}) {
+            "--bandwidth", "10k"},
+           {"tia", "snr", ExamplePath("smoke-chamber-receiver"),
+            "--power-range", "1n..1u"}}) {
     std::vector<std::string> args = command;
     for (const char* a : {"--devices", "", "--device", "jfet-inptu"})
       args.push_back(a);
