@@ -38,18 +38,16 @@ std::string Render(const Budget& budget, const std::string& format) {
 int RunBudgetCommand(const BudgetCommandOptions& options) {
   const std::string format =
       ResolveOutputFormat(options.format, options.json, false);
-  ReviewOptions review_options;
-  BudgetOptions& budget_options = review_options.budget;
-  budget_options.integration.relative_tolerance = options.tolerance;
-  ThrowIfInvalid(review_options.Validate(),
+  ReviewOptions tolerance_only;
+  tolerance_only.budget.integration.relative_tolerance = options.tolerance;
+  ThrowIfInvalid(tolerance_only.Validate(),
                  {{"relative_tolerance", "--tolerance"}});
 
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
   const Stage stage =
       LoadStageForCommand(options.stage_path, library, options.device);
-  for (const auto& [name, technology] : library.resistors)
-    budget_options.upgrade_candidates.push_back(
-        {name, technology, technology.tolerance});
+  const ReviewOptions review_options =
+      FullReviewOptions(library, options.tolerance);
   const BudgetOutcome outcome = ReviewStage(stage, review_options);
   if (!outcome.status.ok)
     return ReportRefusal(options.stage_path, outcome.status.message);

@@ -15,6 +15,7 @@
 #include "cli/device_folder.h"
 #include "cli/devices_command.h"
 #include "cli/exit_codes.h"
+#include "cli/note_command.h"
 #include "cli/option_values.h"
 #include "cli/plot_command.h"
 #include "cli/spread_command.h"
@@ -336,6 +337,24 @@ std::function<int()> DefineDevices(CLI::App* app, const GlobalOptions& global) {
   };
 }
 
+std::function<int()> DefineNote(CLI::App* app, const GlobalOptions& global) {
+  auto o = std::make_shared<NoteCommandOptions>();
+  app->add_option("stage", o->stage_path, "stage file (JSON)")->required();
+  app->add_option("-o,--output", o->output_path,
+                  "the note: one self-contained .html file, or .md with the "
+                  "plot sheet as an SVG beside it")
+      ->required();
+  app->add_option("--format", o->format, "html or markdown (default html)");
+  app->add_option("--device", o->device,
+                  "op-amp device (a name in the device folder or a part "
+                  "file) replacing the stage's op-amp")
+      ->type_name("NAME");
+  return [o, &global] {
+    o->devices_dir = global.devices_dir;
+    return RunNoteCommand(*o);
+  };
+}
+
 const std::vector<Command>& Commands() {
   static const std::vector<Command> commands = {
       {"budget", "noise and offset budget of a stage", DefineBudget},
@@ -351,6 +370,8 @@ const std::vector<Command>& Commands() {
        DefineSpread},
       {"devices", "the device folder: op-amp classes, user parts, resistors",
        DefineDevices},
+      {"note", "a design note: the budget, tables and plots in one HTML file",
+       DefineNote},
   };
   return commands;
 }

@@ -63,6 +63,22 @@ PlotData CumulativeOnBand(const Budget& budget, SpectrumSamples samples) {
 
 }  // namespace
 
+SheetData SampleSheet(const Stage& stage, const Budget& budget) {
+  const auto [f_min, f_max] = PlotFrequencyRangeHz(budget);
+  const std::vector<double> grid = JoinGrids(
+      {LogFrequencyGrid(f_min, budget.band_low_hz, kPlotPointsPerDecade),
+       LogFrequencyGrid(budget.band_low_hz, budget.band_high_hz,
+                        kPlotPointsPerDecade),
+       LogFrequencyGrid(budget.band_high_hz, f_max, kPlotPointsPerDecade)});
+  SpectrumOutcome spectrum =
+      SampleSpectra(StageAsBudgeted(stage, budget), grid);
+  SheetData sheet;
+  sheet.status = spectrum.status;
+  if (spectrum.status.ok)
+    sheet.data = CumulativeOnBand(budget, std::move(spectrum.samples));
+  return sheet;
+}
+
 int RunPlotCommand(const PlotCommandOptions& options) {
   PlotScriptOptions script_options = ScriptOptions(options);
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
@@ -75,16 +91,9 @@ int RunPlotCommand(const PlotCommandOptions& options) {
   const BudgetOutcome outcome = ComputeBudget(stage, BudgetOptions{});
   if (!outcome.status.ok) return Refused(options, outcome.status.message);
   const Budget& budget = outcome.budget;
-  const auto [f_min, f_max] = PlotFrequencyRangeHz(budget);
-  const std::vector<double> grid = JoinGrids(
-      {LogFrequencyGrid(f_min, budget.band_low_hz, kPlotPointsPerDecade),
-       LogFrequencyGrid(budget.band_low_hz, budget.band_high_hz,
-                        kPlotPointsPerDecade),
-       LogFrequencyGrid(budget.band_high_hz, f_max, kPlotPointsPerDecade)});
-  SpectrumOutcome spectrum =
-      SampleSpectra(StageAsBudgeted(stage, budget), grid);
-  if (!spectrum.status.ok) return Refused(options, spectrum.status.message);
-  const PlotData data = CumulativeOnBand(budget, std::move(spectrum.samples));
+  const SheetData sheet = SampleSheet(stage, budget);
+  if (!sheet.status.ok) return Refused(options, sheet.status.message);
+  const PlotData& data = sheet.data;
 
   const std::string& target = options.output_path;
   const int drawn =

@@ -7,6 +7,11 @@
 
 #include <string>
 
+#include "base/status.h"
+#include "budget/budget.h"
+#include "circuit/stage.h"
+#include "report/plot_script.h"
+
 namespace hushgain {
 
 struct PlotCommandOptions {
@@ -24,6 +29,15 @@ struct PlotCommandOptions {
 
 // Points per decade of the plot grid (band edges on the grid).
 inline constexpr double kPlotPointsPerDecade = 50;
+
+// The plot sheet's data for a budgeted stage: samples on a log grid from
+// below the band to above it (band edges on the grid), and the cumulative
+// rms over the band. `status` says when a frequency could not be solved.
+struct SheetData {
+  Status status = Status::Ok();
+  PlotData data;
+};
+SheetData SampleSheet(const Stage& stage, const Budget& budget);
 
 // Returns an exit code (cli/exit_codes.h): kExitToolFailed when gnuplot is
 // missing (the message names the package gnuplot-nox) or fails. Throws

@@ -18,4 +18,14 @@ Stage LoadStageForCommand(const std::string& stage_path,
   return stage;
 }
 
+ReviewOptions FullReviewOptions(const DeviceLibrary& library,
+                                double relative_tolerance) {
+  ReviewOptions options;
+  options.budget.integration.relative_tolerance = relative_tolerance;
+  for (const auto& [name, technology] : library.resistors)
+    options.budget.upgrade_candidates.push_back(
+        {name, technology, technology.tolerance});
+  return options;
+}
+
 }  // namespace hushgain

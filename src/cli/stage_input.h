@@ -11,6 +11,7 @@
 
 #include "circuit/stage.h"
 #include "io/device_library.h"
+#include "review/review.h"
 
 namespace hushgain {
 
@@ -19,6 +20,12 @@ namespace hushgain {
 Stage LoadStageForCommand(const std::string& stage_path,
                           const DeviceLibrary& library,
                           const std::string& device_override);
+
+// The review `budget` prints: every block on, the integral to
+// `relative_tolerance`, and the library's resistor technologies as the
+// candidates of the excess-noise upgrade advice.
+ReviewOptions FullReviewOptions(const DeviceLibrary& library,
+                                double relative_tolerance);
 
 }  // namespace hushgain
 

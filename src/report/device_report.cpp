@@ -234,6 +234,20 @@ std::string ResistorDetail(const std::string& name, const ResistorTechnology& r,
 
 }  // namespace
 
+Table OpAmpParameterTable(const OpAmpModel& m) {
+  Table t;
+  t.header = {"parameter", "value"};
+  t.align = {Table::Align::kLeft, Table::Align::kRight};
+  for (const Field& f : OpAmpFields(m)) t.AddRow({f.key, f.shown});
+  t.AddRow({"bias_current_temperature", BiasLawText(m)});
+  t.AddRow(
+      {"current_noise_temperature",
+       m.current_noise_temperature == CurrentNoiseTemperature::kWithBiasCurrent
+           ? "with_bias_current"
+           : "constant"});
+  return t;
+}
+
 std::string DeviceListReport(const DeviceLibrary& library,
                              const std::string& format) {
   if (format == "csv") return RenderCsv(OpAmpTable(library, true));

@@ -13,12 +13,17 @@
 #include <string>
 
 #include "io/device_library.h"
+#include "report/table.h"
 
 namespace hushgain {
 
 // The frequency at which the list quotes e_n and i_n (a datasheet's usual
 // spot frequency: common practice, no source).
 inline constexpr double kDeviceSpotHz = 1e3;
+
+// One op-amp's parameters, one row each (parameter, value with its unit),
+// as `devices NAME` and the design note show them.
+Table OpAmpParameterTable(const OpAmpModel& model);
 
 std::string DeviceListReport(const DeviceLibrary& library,
                              const std::string& format);
