@@ -10,6 +10,7 @@
 #include <vector>
 
 #include "budget/dc_output.h"
+#include "budget/stage_problem.h"
 #include "noise/noise_source.h"
 
 namespace hushgain {
@@ -252,6 +253,9 @@ struct Budget {
   int integration_evaluations = 0;
   double integration_relative_error = 0;  // estimate
   std::vector<std::string> warnings;
+  // What the warnings that say the stage cannot work found, as data (for
+  // the flags of tee sweep, tee search and spread rows).
+  std::vector<StageProblem> problems;
 };
 
 // Where input_rms and input_rms_at_reference_gain differ by more than this

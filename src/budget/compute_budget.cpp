@@ -10,6 +10,7 @@
 #include "analysis/loop_gain.h"
 #include "base/physical_constants.h"
 #include "budget/feedback_capacitor.h"
+#include "budget/headroom.h"
 #include "budget/offset.h"
 #include "budget/resistor_excess.h"
 #include "budget/stage_evaluator.h"
@@ -319,18 +320,77 @@ Status OutputDrive(const Stage& stage, const MnaSystem& system, const Ports& p,
   const double amperes =
       std::abs(x[system.OpAmpRow(0)].real()) * fs / std::fabs(b.signal_gain_dc);
   b.full_scale_output_current_a = amperes;
-  if (amperes > stage.opamp.output_current_limit_a)
+  if (amperes > stage.opamp.output_current_limit_a) {
+    b.problems.push_back(StageProblem::kOutputCurrent);
     b.warnings.push_back(
         Printf("at the full-scale %.4g V the op-amp must source %.3g mA", fs,
                amperes * 1e3) +
         Printf(", beyond its %.3g mA output limit: raise the load or feedback "
                "resistance",
                stage.opamp.output_current_limit_a * 1e3));
-  if (fs > 0.5 * stage.opamp.supply_v)
+  }
+  return Status::Ok();
+}
+
+// The DC output against the full-scale swing and the supply
+// (budget/headroom.h).
+void Headroom(const Stage& stage, Budget& b) {
+  HeadroomInputs in;
+  in.offset_v = b.offset.worst_case_v;
+  double dc_sum = 0;
+  for (const DcOutputTerm& t : b.dc_outputs) dc_sum += t.volts;
+  in.dc_total_v = std::fabs(b.offset.vos_v) + std::fabs(b.offset.ib_v) +
+                  std::fabs(b.offset.ios_v) + std::fabs(dc_sum);
+  in.dc_outputs = b.dc_outputs;
+  in.full_scale_v = stage.full_scale_output_v;
+  in.supply_span_v = stage.opamp.supply_v;
+  HeadroomCheck check = CheckHeadroom(in);
+  for (std::string& w : check.warnings) b.warnings.push_back(std::move(w));
+  for (StageProblem p : check.problems) b.problems.push_back(p);
+}
+
+// The signal gain of the same network with an ideal op-amp (A0 1e12, its
+// pole at 1 GHz, no output resistance): what the resistors and capacitors
+// ask for. Where the real gain at the band's edges or the reference falls
+// more than 3 dB below it, the op-amp cannot deliver the stage.
+Status GainCollapse(const Stage& stage, const Ports& p, SpectrumEvaluator& ev,
+                    Budget& b) {
+  Stage ideal = stage;
+  ideal.opamp.open_loop_gain = 1e12;
+  ideal.opamp.gbw_hz = 1e21;
+  ideal.opamp.output_resistance_ohm = 0;
+  const Netlist net = ExpandStage(ideal);
+  MnaSystem system;
+  Status s = MnaSystem::Build(net, &system);
+  if (!s.ok) return s;
+  AdjointSolver solver(system);
+  const Port signal = system.Compile(net.signal);
+  double worst_ratio = 1, worst_hz = 0, worst_real = 0, worst_ideal = 0;
+  for (double f : {b.band_low_hz, b.reference_hz, b.band_high_hz}) {
+    s = solver.SolveAt(f);
+    if (!s.ok) return s;
+    const double g_ideal = std::abs(solver.Transfer(signal));
+    s = ev.SolveAt(f);
+    if (!s.ok) return s;
+    const double g = std::abs(ev.Transfer(p.signal));
+    if (g_ideal > 0 && g / g_ideal < worst_ratio) {
+      worst_ratio = g / g_ideal;
+      worst_hz = f;
+      worst_real = g;
+      worst_ideal = g_ideal;
+    }
+  }
+  if (worst_ratio < 1 / std::sqrt(2.0)) {
+    b.problems.push_back(StageProblem::kGainCollapsed);
     b.warnings.push_back(
-        Printf("the full-scale swing of \xC2\xB1%.4g V exceeds half the %.4g V "
-               "supply span",
-               fs, stage.opamp.supply_v));
+        Printf("the signal gain has collapsed %.1f dB below the ideal "
+               "network's",
+               -20 * std::log10(worst_ratio)) +
+        " at " + HzText(worst_hz) +
+        Printf(" (%.4g against %.4g)", worst_real, worst_ideal) +
+        ": the op-amp's gain (GBW, A0, output resistance) cannot deliver the "
+        "stage in its band");
+  }
   return Status::Ok();
 }
 
@@ -403,7 +463,9 @@ BudgetOutcome ComputeBudgetAsGiven(const Stage& requested,
                   &outcome.noise_partition);
   if (s.ok && full) s = ResponseFigures(stage, ports, evaluator, b);
   if (s.ok && full) s = OutputDrive(stage, evaluator.system(), ports, b);
+  if (s.ok && full) s = GainCollapse(stage, ports, evaluator, b);
   if (!s.ok) return {s, b, {}, {}};
+  Headroom(stage, b);
 
   if (stage.full_scale_output_v && b.output_rms_v > 0) {
     const double fs = *stage.full_scale_output_v;

@@ -5,11 +5,13 @@
 #include <cmath>
 #include <functional>
 #include <memory>
+#include <optional>
 #include <string>
 
 #include "analysis/restamp_solver.h"
 #include "base/physical_constants.h"
 #include "base/worker_pool.h"
+#include "budget/headroom.h"
 #include "budget/offset.h"
 #include "budget/resistor_excess.h"
 #include "circuit/expand_stage.h"
@@ -77,6 +79,9 @@ struct Model {
   std::optional<TemperatureRange> range;
   double dc_input = 0;
   bool any_excess = false;
+  // The headroom check's fixed inputs (budget/headroom.h).
+  std::optional<double> full_scale_v;
+  double supply_v = 0;
 };
 
 // The parts of a sample that its random stream decides.
@@ -97,6 +102,7 @@ struct Workspace {
   std::vector<double> ohms;
   std::vector<SourceSlot> slots;
   std::vector<double> rhs;
+  HeadroomInputs headroom;  // reused per sample
 };
 
 // A resistor's value at T with relative error e: tempco, and the
@@ -133,6 +139,22 @@ Status EvaluateAt(const Model& m, const Draw& d, Workspace& w,
   out->vos_v = d.vos_v;
   out->ios_a = d.ios_a;
   out->offset_v = DcOffset(m, s, d, &out->gain);
+  // The sample's DC output against its full scale and supply: its own
+  // offset (the dark current inside it), the photocurrent's and the
+  // dc_input's outputs at its own transfers, signs known.
+  double photo_v = 0;
+  for (const auto& [port, amperes] : m.photo_junctions)
+    photo_v += amperes * s.TransferReal(port);
+  const double input_v = out->gain * m.dc_input;
+  HeadroomInputs& h = w.headroom;
+  h.offset_v = std::fabs(out->offset_v);
+  h.dc_total_v = std::fabs(out->offset_v + photo_v + input_v);
+  h.full_scale_v = m.full_scale_v;
+  h.supply_span_v = m.supply_v;
+  if (h.dc_outputs.empty()) h.dc_outputs = {{"I_ph", 0}, {"dc_input", 0}};
+  h.dc_outputs[0].volts = photo_v;
+  h.dc_outputs[1].volts = input_v;
+  out->problems = HeadroomProblemBits(h);
 
   const double four_kt = 4.0 * kBoltzmannJPerK * d.temperature_k;
   if (m.any_excess) {
@@ -231,6 +253,8 @@ Status BuildModel(const Stage& stage, const BudgetOutcome& nominal, Model* m) {
   m->nominal_k = stage.temperature_k;
   m->range = stage.temperature_range;
   m->dc_input = stage.dc_input;
+  m->full_scale_v = stage.full_scale_output_v;
+  m->supply_v = stage.opamp.supply_v;
   m->nodes = QuadratureNodes(nominal.noise_partition);
   const Netlist& net = m->netlist;
   for (const Resistor& r : net.resistors) {

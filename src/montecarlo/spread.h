@@ -60,6 +60,9 @@ struct SpreadSample {
   double gain_error = 0;
   double offset_v = 0;
   double noise_rms_v = 0;
+  // StageProblemBit()s of the sample's headroom check (budget/headroom.h):
+  // offset or DC output beyond full scale or half the supply, clipping.
+  std::uint32_t problems = 0;
 };
 
 struct SpreadRun {

@@ -57,4 +57,41 @@ const char* TeeRankingWord(TeeRanking ranking) {
   return "?";
 }
 
+const char* StageProblemWord(StageProblem problem) {
+  switch (problem) {
+    case StageProblem::kOffsetBeyondFullScale:
+      return "offset>FS";
+    case StageProblem::kOffsetBeyondSupply:
+      return "offset>supply";
+    case StageProblem::kDcBeyondFullScale:
+      return "dc>FS";
+    case StageProblem::kDcBeyondSupply:
+      return "dc>supply";
+    case StageProblem::kSwingBeyondSupply:
+      return "clips";
+    case StageProblem::kFullScaleBeyondSupply:
+      return "FS>supply";
+    case StageProblem::kGainCollapsed:
+      return "gain-collapsed";
+    case StageProblem::kOutputCurrent:
+      return "current>limit";
+  }
+  return "?";
+}
+
+std::string StageProblemFlags(const std::vector<StageProblem>& problems) {
+  std::string out;
+  for (StageProblem p : problems)
+    out += (out.empty() ? "" : " ") + std::string(StageProblemWord(p));
+  return out.empty() ? "-" : out;
+}
+
+std::string StageProblemFlags(std::uint32_t bits) {
+  std::vector<StageProblem> problems;
+  for (int i = 0; i < kStageProblemCount; ++i)
+    if (bits & StageProblemBit(static_cast<StageProblem>(i)))
+      problems.push_back(static_cast<StageProblem>(i));
+  return StageProblemFlags(problems);
+}
+
 }  // namespace hushgain

@@ -4,8 +4,11 @@
 #ifndef HUSHGAIN_REPORT_ENUM_WORDS_H_
 #define HUSHGAIN_REPORT_ENUM_WORDS_H_
 
+#include <cstdint>
 #include <string>
+#include <vector>
 
+#include "budget/stage_problem.h"
 #include "design/tee_search.h"
 #include "design/tia_suggest.h"
 #include "noise/noise_source.h"
@@ -25,6 +28,16 @@ const char* TeeRankingWord(TeeRanking ranking);
 
 // "bandwidth" or "headroom": which limit sets tia suggest's largest R_f.
 const char* TiaLimitWord(TiaLimit limit);
+
+// A row's flag for a stage that cannot work: "offset>FS",
+// "offset>supply", "dc>FS", "dc>supply", "clips", "FS>supply",
+// "gain-collapsed", "current>limit".
+const char* StageProblemWord(StageProblem problem);
+
+// The flags of a row, joined with spaces; "-" for none.
+std::string StageProblemFlags(const std::vector<StageProblem>& problems);
+// The same from StageProblemBit()s (a spread sample's).
+std::string StageProblemFlags(std::uint32_t bits);
 
 }  // namespace hushgain
 

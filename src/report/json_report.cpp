@@ -159,6 +159,9 @@ std::string BudgetToJson(const Budget& b) {
     };
   }
   AddRealPartsJson(b, out);
+  json flags = json::array();
+  for (StageProblem p : b.problems) flags.push_back(StageProblemWord(p));
+  out["flags"] = flags;
   out["warnings"] = b.warnings;
   return out.dump(2) + "\n";
 }

@@ -10,6 +10,7 @@
 #include "base/printf.h"
 #include "io/units.h"
 #include "report/csv_report.h"
+#include "report/enum_words.h"
 #include "report/table.h"
 #include "report/text_escape.h"
 
@@ -71,6 +72,30 @@ const char* kPercentileNote =
     "(the percentiles are the +-3 sigma points of a Gaussian; linear "
     "interpolation between samples)";
 
+// "" when no sample is flagged; else how many cannot work as asked, by
+// flag (budget/headroom.h on each sample).
+std::string FlaggedLine(const SpreadRun& run) {
+  long flagged = 0;
+  long by_kind[kStageProblemCount] = {};
+  for (const SpreadSample& s : run.samples) {
+    if (s.problems != 0) ++flagged;
+    for (int i = 0; i < kStageProblemCount; ++i)
+      if (s.problems & StageProblemBit(static_cast<StageProblem>(i)))
+        ++by_kind[i];
+  }
+  if (flagged == 0) return "";
+  std::string kinds;
+  for (int i = 0; i < kStageProblemCount; ++i)
+    if (by_kind[i] > 0)
+      kinds += (kinds.empty() ? "" : ", ") +
+               std::string(StageProblemWord(static_cast<StageProblem>(i))) +
+               " " + std::to_string(by_kind[i]);
+  return "flagged: " + std::to_string(flagged) + " of " +
+         std::to_string(run.samples.size()) +
+         " samples cannot work as asked (" + kinds +
+         "; the flags column of --csv names each)";
+}
+
 std::string WorstCaseLine(const SpreadRun& run) {
   return "worst-case offset over the tolerance corners and the range: "
          "\xC2\xB1" +
@@ -109,6 +134,8 @@ std::string Text(const SpreadRun& run, const SpreadSummary& s,
   out += "\n" + RenderText(DistributionTable(s));
   out += std::string("  ") + kPercentileNote + "\n";
   if (run.worst_case_offset_v > 0) out += "  " + WorstCaseLine(run) + "\n";
+  if (const std::string f = FlaggedLine(run); !f.empty())
+    out += "  " + f + "\n";
   const Table yield = YieldTable(s, limits);
   if (!yield.rows.empty()) out += "\nYield\n" + RenderText(yield);
   return out;
@@ -124,6 +151,8 @@ std::string Markdown(const SpreadRun& run, const SpreadSummary& s,
          EscapeMarkdown(kPercentileNote) + "\n";
   if (run.worst_case_offset_v > 0)
     out += "\n" + EscapeMarkdown(WorstCaseLine(run)) + "\n";
+  if (const std::string f = FlaggedLine(run); !f.empty())
+    out += "\n" + EscapeMarkdown(f) + "\n";
   const Table yield = YieldTable(s, limits);
   if (!yield.rows.empty()) out += "\n### Yield\n\n" + RenderMarkdown(yield);
   return out;
@@ -182,6 +211,19 @@ std::string Json(const SpreadRun& run, const SpreadSummary& s,
         {"offset", optional(s.yield.offset)},
         {"noise", optional(s.yield.noise)},
         {"all", optional(s.yield.all)}}}};
+  // How many samples each flag of the headroom check marks.
+  nlohmann::json flagged = nlohmann::json::object();
+  long any = 0;
+  for (const SpreadSample& sample : run.samples) any += sample.problems != 0;
+  for (int i = 0; i < kStageProblemCount; ++i) {
+    long n = 0;
+    for (const SpreadSample& sample : run.samples)
+      n += (sample.problems & StageProblemBit(static_cast<StageProblem>(i))) !=
+           0;
+    if (n > 0) flagged[StageProblemWord(static_cast<StageProblem>(i))] = n;
+  }
+  out["flagged_samples"] = any;
+  out["flags"] = flagged;
   return out.dump(2) + "\n";
 }
 
@@ -198,7 +240,8 @@ std::string SpreadReport(const std::string& format, const SpreadRun& run,
 
 std::string SpreadToCsv(const SpreadRun& run) {
   std::string out =
-      "index,temperature_C,vos_V,ios_A,gain,gain_error,offset_V,noise_rms_V";
+      "index,temperature_C,vos_V,ios_A,gain,gain_error,offset_V,noise_rms_V,"
+      "flags";
   for (const std::string& name : run.resistor_names) out += "," + name + "_ohm";
   out += "\n";
   const std::size_t m = run.resistor_names.size();
@@ -211,6 +254,7 @@ std::string SpreadToCsv(const SpreadRun& run) {
       std::snprintf(buf, sizeof buf, ",%.17g", v);
       out += buf;
     }
+    out += "," + StageProblemFlags(s.problems);
     for (std::size_t k = 0; k < m; ++k) {
       std::snprintf(buf, sizeof buf, ",%.17g", run.resistor_ohms[i * m + k]);
       out += buf;

@@ -18,6 +18,12 @@ constexpr const char* kOhm = "\xCE\xA9";
 
 std::string Ohms(double value) { return FormatEng(value, kOhm); }
 
+nlohmann::json Flags(const Budget& b) {
+  nlohmann::json out = nlohmann::json::array();
+  for (StageProblem p : b.problems) out.push_back(StageProblemWord(p));
+  return out;
+}
+
 nlohmann::json BudgetFigures(const Budget& b) {
   return {
       {"noise_gain_dc", b.noise_gain_dc},
@@ -28,6 +34,7 @@ nlohmann::json BudgetFigures(const Budget& b) {
       {"offset_worst_case_V", b.offset.worst_case_v},
       {"offset_rss_V", b.offset.rss_v},
       {"bandwidth_3db_Hz", b.bandwidth_3db_hz},
+      {"flags", Flags(b)},
   };
 }
 

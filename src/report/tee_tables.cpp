@@ -8,6 +8,7 @@
 #include "base/printf.h"
 #include "io/units.h"
 #include "report/csv_report.h"
+#include "report/enum_words.h"
 
 namespace hushgain {
 namespace {
@@ -75,6 +76,16 @@ void AddBudgetColumns(std::vector<Column<Row>>& columns,
                      }});
 }
 
+// The last column of every row: why its stage cannot work
+// (budget/stage_problem.h), "-" when nothing is wrong.
+template <typename Row, typename BudgetOf>
+void AddFlagsColumn(std::vector<Column<Row>>& columns, BudgetOf budget_of) {
+  columns.push_back(
+      {"flags", "flags",
+       [=](const Row& r) { return StageProblemFlags(budget_of(r).problems); },
+       [=](const Row& r) { return StageProblemFlags(budget_of(r).problems); }});
+}
+
 struct RankedCandidate {
   int rank = 0;
   const TeeCandidate* candidate = nullptr;
@@ -115,6 +126,7 @@ Table SweepTable(const TeeSweepResult& s, TeeCells cells) {
   columns.push_back({"noise cost", "noise_cost_ratio",
                      [](Row r) { return Ratio(r->noise_cost_ratio); },
                      [](Row r) { return CsvNumber(r->noise_cost_ratio); }});
+  AddFlagsColumn(columns, [](Row r) -> const Budget& { return r->budget; });
   std::vector<Row> rows;
   for (const TeeSweepRow& r : s.rows) rows.push_back(&r);
   return Build(columns, rows, cells);
@@ -165,6 +177,9 @@ Table SearchTable(const TeeSearchResult& s, const TeeSearchQuery& q,
       {q.ranking == TeeRanking::kWeighted ? "score" : "", "score",
        [](const Row& r) { return Printf("%.4f", r.candidate->score); },
        [](const Row& r) { return CsvNumber(r.candidate->score); }});
+  AddFlagsColumn(columns, [](const Row& r) -> const Budget& {
+    return r.candidate->budget;
+  });
   std::vector<Row> rows;
   for (std::size_t i = 0; i < s.best.size(); ++i)
     rows.push_back({static_cast<int>(i) + 1, &s.best[i]});

@@ -5,11 +5,13 @@
 #include <sys/wait.h>
 #include <unistd.h>
 
+#include <algorithm>
 #include <cstdlib>
 #include <filesystem>
 #include <fstream>
 #include <sstream>
 #include <string>
+#include <vector>
 
 namespace hushgain {
 namespace {
@@ -143,7 +145,7 @@ TEST_CASE(
   CHECK(csv == Slurp(two));
   CHECK(a.out == b.out);
   CHECK(csv.rfind("index,temperature_C,vos_V,ios_A,gain,gain_error,offset_V,"
-                  "noise_rms_V,R_source_ohm,"
+                  "noise_rms_V,flags,R_source_ohm,"
                   "R_in_ohm,R_f_ohm\n",
                   0) == 0);
   long lines = 0;
@@ -159,4 +161,37 @@ TEST_CASE(
 }
 
 }  // namespace
+
+TEST_CASE("spread flags every sample whose offset leaves no room") {
+  // A 20 V full scale on the jfet-input class's 36 V span (half 18 V):
+  // every sample's swing leaves the rails, so the flags column of each
+  // names it and the summary counts them all. Before, no column existed.
+  Scratch s;
+  std::string text = StageText("25", "1%");
+  text.insert(text.rfind('}'), R"(, "full_scale_output_V": 20)");
+  const fs::path stage = s.Write("flags.json", text);
+  const fs::path csv = s.dir() / "flags.csv";
+  const Result r =
+      s.Run("spread " + stage.string() + " --samples 50 --csv " + csv.string());
+  REQUIRE(r.code == 0);
+  // The per-sample file is plain LF-ended lines of unquoted cells.
+  std::vector<std::vector<std::string>> rows;
+  std::istringstream lines(Slurp(csv));
+  for (std::string line; std::getline(lines, line);) {
+    rows.emplace_back();
+    std::istringstream cells(line);
+    for (std::string cell; std::getline(cells, cell, ',');)
+      rows.back().push_back(cell);
+  }
+  REQUIRE(rows.size() == 51);
+  const auto& header = rows[0];
+  const auto flags = std::find(header.begin(), header.end(), "flags");
+  REQUIRE(flags != header.end());
+  const std::size_t col = flags - header.begin();
+  for (std::size_t i = 1; i < rows.size(); ++i)
+    CHECK(rows[i][col].find("FS>supply") != std::string::npos);
+  CHECK(r.out.find("flagged: 50 of 50 samples cannot work as asked") !=
+        std::string::npos);
+}
+
 }  // namespace hushgain

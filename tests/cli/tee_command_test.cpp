@@ -4,6 +4,7 @@
 #include <sys/wait.h>
 #include <unistd.h>
 
+#include <algorithm>
 #include <cstdlib>
 #include <filesystem>
 #include <fstream>
@@ -151,4 +152,34 @@ TEST_CASE("tee sweep JSON starts at the plain resistor") {
 }
 
 }  // namespace
+
+TEST_CASE(
+    "tee sweep --min 300 flags the rows whose offset exceeds full scale") {
+  // The hydrophone's full scale is 10 V; down at 300 ohm the T network's
+  // noise gain (3.3e4) takes the worst-case offset to 10.79 V. Every row
+  // whose offset is beyond 10 V carries offset>FS, and no other row does.
+  const Run r =
+      RunHushgain(std::string("tee sweep ") + kTee + " --min 300 --format csv");
+  REQUIRE(r.exit_code == 0);
+  const auto rows = test::ReadCsv(r.out);
+  REQUIRE(rows.size() > 2);
+  const auto& header = rows[0];
+  const auto at = [&](const std::string& name) {
+    const auto it = std::find(header.begin(), header.end(), name);
+    REQUIRE(it != header.end());
+    return static_cast<std::size_t>(it - header.begin());
+  };
+  const std::size_t flags = at("flags"), offset = at("offset_worst_case_V");
+  int flagged = 0;
+  for (std::size_t i = 1; i < rows.size(); ++i) {
+    CAPTURE(i);
+    const bool beyond = std::stod(rows[i][offset]) > 10.0;
+    CHECK((rows[i][flags].find("offset>FS") != std::string::npos) == beyond);
+    flagged += beyond;
+  }
+  CHECK(flagged >= 1);
+  CHECK(r.err.find("the worst-case output offset (10.79 V) exceeds the "
+                   "full-scale swing") != std::string::npos);
+}
+
 }  // namespace hushgain
