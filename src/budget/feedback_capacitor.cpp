@@ -143,25 +143,52 @@ CapacitorOutcome ChooseFeedbackCapacitor(const Stage& stage,
     *pm = r.loop.crossover_found ? r.loop.phase_margin_deg : 180.0;
     return r.status;
   };
-  double pm_max = 0, pm_min = 0;
-  out.status = measure(kLargestF, &pm_max);
-  if (out.status.ok) out.status = measure(kSmallestF, &pm_min);
+  // The phase margin is not monotonic in C_f when R_out and the pin
+  // capacitances shape the loop, so the set that meets the target is
+  // bracketed on a log grid over 1 aF .. 1 uF (kGridPerDecade points a
+  // decade) and its lower edge bisected between the last grid point that
+  // fails and the first that meets it: the smallest C_f that meets it.
+  constexpr int kGridPerDecade = 8;
+  const int n = static_cast<int>(
+      std::round(kGridPerDecade * std::log10(kLargestF / kSmallestF)));
+  double pm_min = 0;
+  out.status = measure(kSmallestF, &pm_min);
   if (!out.status.ok) return out;
   if (pm_min >= target.phase_margin_deg) {
     out.choice.chosen_f = 0;
     return out;
   }
-  if (pm_max < target.phase_margin_deg) {
-    char buf[160];
-    std::snprintf(buf, sizeof buf,
-                  "no feedback capacitor up to 1 uF gives a phase margin of "
-                  "%.4g deg (at most %.4g)",
-                  target.phase_margin_deg, pm_max);
-    out.status = Status::Fail(buf);
-    return out;
+  double best_pm = pm_min, best_f = kSmallestF, prev_f = kSmallestF;
+  for (int i = 1; i <= n; ++i) {
+    const double cf = kSmallestF * std::pow(kLargestF / kSmallestF,
+                                            static_cast<double>(i) / n);
+    double pm = 0;
+    out.status = measure(cf, &pm);
+    if (!out.status.ok) return out;
+    if (pm >= target.phase_margin_deg) {
+      double lo = std::log(prev_f), hi = std::log(cf);
+      for (int k = 0; k < 80 && hi - lo > 1e-7; ++k) {
+        const double mid = 0.5 * (lo + hi);
+        double value = 0;
+        out.status = measure(std::exp(mid), &value);
+        if (!out.status.ok) return out;
+        (value >= target.phase_margin_deg ? hi : lo) = mid;
+      }
+      out.choice.chosen_f = std::exp(hi);
+      return out;
+    }
+    if (pm > best_pm) {
+      best_pm = pm;
+      best_f = cf;
+    }
+    prev_f = cf;
   }
-  out.status = Bisect(measure, target.phase_margin_deg, /*rising=*/true,
-                      &out.choice.chosen_f);
+  char buf[200];
+  std::snprintf(buf, sizeof buf,
+                "no feedback capacitor from 1 aF to 1 uF gives a phase margin "
+                "of %.4g deg (the best found: %.4g deg at %.3g F)",
+                target.phase_margin_deg, best_pm, best_f);
+  out.status = Status::Fail(buf);
   return out;
 }
 

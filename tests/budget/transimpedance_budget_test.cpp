@@ -121,6 +121,35 @@ TEST_CASE(
   CHECK(b.peaking_db < 0.01);
 }
 
+TEST_CASE("a phase-margin C_f is the smallest that meets the target") {
+  // 60 deg over photodiodes of 10 pF .. 10 nF on 100 kohm, with and without
+  // 100 ohm of output resistance (which makes the margin non-monotonic in
+  // C_f). Before, a bisection over the whole range refused the 1 nF case
+  // ("at most 31.59 deg") though larger C_f meet it.
+  for (double cd : {10e-12, 100e-12, 1e-9, 10e-9})
+    for (double rout : {0.0, 100.0}) {
+      CAPTURE(cd);
+      CAPTURE(rout);
+      Stage stage = WorkedExample(0);
+      stage.photodiode.capacitance_f = cd;
+      stage.feedback.resistor_ohm = 100e3;
+      stage.opamp.output_resistance_ohm = rout;
+      const CapacitorOutcome cap = ChooseFeedbackCapacitor(
+          stage, CapacitorTarget{CapacitorTarget::Kind::kPhaseMargin, 60});
+      REQUIRE_MESSAGE(cap.status.ok, cap.status.message);
+      REQUIRE(cap.choice.chosen_f > 0);
+      auto margin = [&](double cf) {
+        Stage s = stage;
+        s.feedback.capacitor_f = cf;
+        const StageLoop loop = ComputeStageLoop(s);
+        REQUIRE(loop.status.ok);
+        return loop.loop.crossover_found ? loop.loop.phase_margin_deg : 180.0;
+      };
+      CHECK(margin(cap.choice.chosen_f) >= 60 - 1e-3);
+      CHECK(margin(0.95 * cap.choice.chosen_f) < 60);
+    }
+}
+
 TEST_CASE("bandwidth, peaking and DC gain do not move with the band") {
   // The 52-degree C_f of section 7 (1.217 dB of peaking, f_3dB 71 383 Hz):
   // the same stage asked about a wide band, a narrow band below the corner
