@@ -100,6 +100,17 @@ struct PhotodiodeBlock {
   double tee_noise_equivalent_ohm = 0;
 };
 
+// The input-referred noise in the measured quantity's units, from
+// source.sensitivity: the input-referred figures divided by the sensitivity
+// (the smallest change of the measurand the stage resolves; the NEP in the
+// optical case).
+struct MeasurandBlock {
+  std::string unit;        // the sensitivity's "per": "g", "Pa", "W"
+  double sensitivity = 0;  // input units per measurand unit
+  double input_referred_rms = 0;
+  double input_referred_density_at_reference = 0;  // per rtHz
+};
+
 // A feedback capacitor chosen for a target ("auto").
 struct CapacitorChoice {
   std::string target;         // "butterworth" or "phase margin 60 deg"
@@ -228,7 +239,8 @@ struct Budget {
   double input_rms = 0;
   // output rms / |gain(f_ref)|: the same when the gain is flat over the band.
   double input_rms_at_reference_gain = 0;
-  double input_density_ref_per_rthz = 0;  // output density / |gain(f_ref)|
+  double input_density_ref_per_rthz = 0;    // output density / |gain(f_ref)|
+  std::optional<MeasurandBlock> measurand;  // with source.sensitivity
 
   OffsetBlock offset;
   // The photocurrent's, dark current's and dc_input's DC output, in that

@@ -473,6 +473,15 @@ BudgetOutcome ComputeBudgetAsGiven(const Stage& requested,
     b.dynamic_range_db = 20.0 * std::log10(2.0 * fs / b.output_peak_to_peak_v);
   }
   if (stage.topology == Topology::kTransimpedance) PhotodiodeFigures(stage, b);
+  if (stage.sensitivity) {
+    MeasurandBlock m;
+    m.unit = stage.sensitivity->per;
+    m.sensitivity = stage.sensitivity->value;
+    m.input_referred_rms = b.input_rms / m.sensitivity;
+    m.input_referred_density_at_reference =
+        b.input_density_ref_per_rthz / m.sensitivity;
+    b.measurand = m;
+  }
 
   for (double v :
        {b.signal_gain_ref, b.noise_gain_ref, b.output_rms_v, b.input_rms,

@@ -5,7 +5,9 @@
 
 namespace hushgain {
 
-Netlist ExpandStage(const Stage& stage) {
+namespace {
+
+Netlist ExpandTopology(const Stage& stage) {
   switch (stage.topology) {
     case Topology::kInverting:
       return ExpandInverting(stage);
@@ -13,6 +15,16 @@ Netlist ExpandStage(const Stage& stage) {
       return ExpandTransimpedance(stage);
   }
   return ExpandInverting(stage);
+}
+
+}  // namespace
+
+Netlist ExpandStage(const Stage& stage) {
+  Netlist net = ExpandTopology(stage);
+  if (stage.sensor_noise)
+    net.signal_noise = {stage.sensor_noise->density,
+                        stage.sensor_noise->corner_hz};
+  return net;
 }
 
 double BalanceResistorOhm(const Stage& stage) {

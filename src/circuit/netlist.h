@@ -80,6 +80,14 @@ struct SourceVoltage {
 using Excitation =
     std::variant<CurrentInjection, OpAmpInputVoltage, SourceVoltage>;
 
+// The source's own noise, a stimulus at the signal's excitation (so it
+// reaches the output with the signal gain): density^2 (1 + corner / f), in
+// V^2/Hz or A^2/Hz as the signal is a voltage or a current.
+struct SignalNoise {
+  double density = 0;  // 0 = noiseless
+  double corner_hz = 0;
+};
+
 struct Netlist {
   std::vector<std::string> node_names{"ground"};  // index = NodeId
   std::vector<Resistor> resistors;
@@ -88,6 +96,7 @@ struct Netlist {
   std::vector<VoltageSource> voltage_sources;
   std::vector<JunctionCurrent> junction_currents;
   Excitation signal = SourceVoltage{0};  // the stage's input
+  SignalNoise signal_noise;              // the sensor's own noise
   NodeId output = kGround;               // where the output voltage is read
 
   NodeId AddNode(std::string name) {

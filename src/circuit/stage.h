@@ -90,6 +90,21 @@ struct Photodiode {
   double doubling_interval_k = 10;
 };
 
+// The sensor's own noise at the source (source.noise): a white density with
+// a 1/f corner, e(f)^2 = density^2 (1 + corner / f), in V/rtHz for a voltage
+// source and A/rtHz for a photodiode; it enters where the signal does.
+struct SensorNoise {
+  double density = 0;
+  double corner_hz = 0;  // 0 = white
+};
+
+// How the measurand becomes the source quantity (source.sensitivity): `value`
+// source units (V, A) per one `per` (a unit name: "g", "Pa", "W").
+struct Sensitivity {
+  double value = 0;  // > 0, SI source units per measurand unit
+  std::string per;
+};
+
 // The working temperature range; the stage's temperature_k is the nominal.
 struct TemperatureRange {
   double min_k = 298.15;
@@ -116,8 +131,10 @@ struct Stage {
   double band_high_hz = 0;
   std::optional<double> reference_hz;  // default: sqrt(low * high)
   OpAmpModel opamp;
-  SignalSource source;    // kInverting
-  Photodiode photodiode;  // kTransimpedance
+  SignalSource source;                      // kInverting
+  Photodiode photodiode;                    // kTransimpedance
+  std::optional<SensorNoise> sensor_noise;  // source.noise
+  std::optional<Sensitivity> sensitivity;   // source.sensitivity
   Topology topology = Topology::kInverting;
   double input_resistor_ohm = 0;  // kInverting
   Feedback feedback;

@@ -225,6 +225,50 @@ Photodiode ParsePhotodiode(ObjectReader& reader) {
   return pd;
 }
 
+// source.noise: {"density": ..., "corner": ...}, a voltage density for a
+// voltage source, a current density for a photodiode.
+SensorNoise ParseSensorNoise(ObjectReader& src, bool current) {
+  ObjectReader r = src.Object("noise");
+  SensorNoise noise;
+  noise.density = r.Quantity("density", current ? Quantity::kCurrentDensity
+                                                : Quantity::kVoltageDensity);
+  if (!(noise.density >= 0))
+    throw r.ErrorAt("density", std::string("expected a non-negative ") +
+                                   (current ? "current" : "voltage") +
+                                   " density, got " + Dump(r.Get("density")));
+  if (auto corner = r.OptionalQuantity("corner", Quantity::kFrequency)) {
+    if (!(*corner >= 0))
+      throw r.ErrorAt("corner",
+                      "expected a non-negative frequency (0 = white), got " +
+                          Dump(r.Get("corner")));
+    noise.corner_hz = *corner;
+  }
+  r.Finish();
+  return noise;
+}
+
+// source.sensitivity: {"value": "10 pC", "per": "g"}; the value is in the
+// source's own quantity.
+Sensitivity ParseSensitivity(ObjectReader& src, Quantity source_quantity) {
+  ObjectReader r = src.Object("sensitivity");
+  Sensitivity sens;
+  sens.value = r.Quantity("value", source_quantity);
+  if (!(sens.value > 0))
+    throw r.ErrorAt(
+        "value", "expected a positive " +
+                     std::string(QuantityName(source_quantity)).substr(2) +
+                     " per unit of the measurand, got " + Dump(r.Get("value")));
+  sens.per = r.String("per");
+  if (sens.per.empty() || sens.per.size() > 32 ||
+      sens.per.find_first_of(" \t\n\r\"") != std::string::npos)
+    throw r.ErrorAt("per",
+                    "expected the measurand's unit, a short word without "
+                    "spaces (\"g\", \"Pa\", \"W\"), got " +
+                        Dump(r.Get("per")));
+  r.Finish();
+  return sens;
+}
+
 double Celsius(ObjectReader& reader, const std::string& key) {
   const double celsius = reader.Quantity(key, Quantity::kTemperature);
   if (!(celsius > -kZeroCelsiusK && celsius < 1000))
@@ -395,6 +439,23 @@ Stage ParseStage(std::string_view json_text, std::string_view source_name,
       stage.photodiode = ParsePhotodiode(src);
     else
       stage.source = ParseVoltageSource(src);
+    if (src.Has("noise"))
+      stage.sensor_noise = ParseSensorNoise(src, photodiode);
+    if (src.Has("sensitivity")) {
+      stage.sensitivity = ParseSensitivity(
+          src, photodiode ? Quantity::kCurrent : Quantity::kVoltage);
+      // A photodiode's sensitivity in A per W is its responsivity.
+      if (photodiode && stage.sensitivity->per == "W") {
+        const double given = stage.photodiode.responsivity_a_per_w;
+        const double value = stage.sensitivity->value;
+        if (given > 0 && std::fabs(given - value) > 1e-12 * given)
+          throw src.ErrorAt("sensitivity",
+                            "expected the photodiode's responsivity (" +
+                                Dump(given) + " A/W) when per \"W\", got " +
+                                Dump(value) + " A/W");
+        if (!(given > 0)) stage.photodiode.responsivity_a_per_w = value;
+      }
+    }
     src.Finish();
   } else if (photodiode) {
     throw top.ErrorAt(

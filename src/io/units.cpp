@@ -68,6 +68,8 @@ std::vector<std::string_view> UnitSymbols(Quantity quantity) {
       return {};
     case Quantity::kPower:
       return {"W"};
+    case Quantity::kCharge:
+      return {"C"};
   }
   return {};
 }
@@ -293,6 +295,8 @@ std::string_view QuantityName(Quantity quantity) {
       return "a ratio";
     case Quantity::kPower:
       return "a power";
+    case Quantity::kCharge:
+      return "a charge";
   }
   return "a value";
 }

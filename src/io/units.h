@@ -31,6 +31,7 @@ enum class Quantity {
   kResponsivity,    // A/W
   kRatio,           // dimensionless, may take "%" or "ppm"
   kPower,           // W
+  kCharge,          // C (coulombs)
 };
 
 // What the quantity is called in an error message: "a resistance".

@@ -1,13 +1,15 @@
 #include "noise/noise_source.h"
 
 #include <cmath>
+#include <variant>
 
 #include "base/physical_constants.h"
 
 namespace hushgain {
 
 bool IsCurrentNoise(NoiseKind kind) {
-  return kind == NoiseKind::kShot || kind == NoiseKind::kOpAmpCurrent;
+  return kind == NoiseKind::kShot || kind == NoiseKind::kOpAmpCurrent ||
+         kind == NoiseKind::kSensorCurrent;
 }
 
 std::vector<NoiseSource> CollectNoiseSources(const Netlist& net,
@@ -47,6 +49,18 @@ std::vector<NoiseSource> CollectNoiseSources(const Netlist& net,
                        0.0,
                        0.0,
                        {}});
+  }
+  if (net.signal_noise.density > 0) {
+    const bool current = std::holds_alternative<CurrentInjection>(net.signal);
+    sources.push_back(
+        {"sensor",
+         current ? NoiseKind::kSensorCurrent : NoiseKind::kSensorVoltage,
+         net.signal,
+         net.signal_noise.density * net.signal_noise.density,
+         net.signal_noise.corner_hz,
+         0.0,
+         0.0,
+         {}});
   }
   const bool several = net.opamps.size() > 1;
   for (std::size_t k = 0; k < net.opamps.size(); ++k) {

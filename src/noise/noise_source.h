@@ -11,6 +11,8 @@
 //   junction shot noise     2 q I across the junction (Schottky 1918)
 //   a voltage source's own  its white density in series with it (a
 //   noise                   photodiode's bias supply)
+//   the sensor's own noise  density^2 (1 + corner/f) at the signal's
+//                           excitation, so it passes with the signal gain
 //   resistor excess noise   a 1/f current across the resistor from its noise
 //                           index and DC drop (noise/excess_noise.h)
 // Sources are uncorrelated: their output powers add.
@@ -26,15 +28,18 @@
 namespace hushgain {
 
 enum class NoiseKind {
-  kThermal,       // 4kTR of a resistor
-  kShot,          // 2qI of a current
-  kOpAmpVoltage,  // e_n
-  kOpAmpCurrent,  // i_n at one pin
-  kExcess,        // current (excess) noise of a resistor with a DC drop
-  kSupply,        // a voltage source's own noise (a photodiode's bias)
+  kThermal,        // 4kTR of a resistor
+  kShot,           // 2qI of a current
+  kOpAmpVoltage,   // e_n
+  kOpAmpCurrent,   // i_n at one pin
+  kExcess,         // current (excess) noise of a resistor with a DC drop
+  kSupply,         // a voltage source's own noise (a photodiode's bias)
+  kSensorVoltage,  // the sensor's own noise, a voltage (source.noise)
+  kSensorCurrent,  // the sensor's own noise, a current (a photodiode's)
 };
 
-// True for the kinds whose source is a current (A/rtHz): shot and i_n.
+// True for the kinds whose source is a current (A/rtHz): shot, i_n and a
+// photodiode's own noise.
 bool IsCurrentNoise(NoiseKind kind);
 
 struct NoiseSource {

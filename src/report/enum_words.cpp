@@ -16,6 +16,9 @@ const char* NoiseKindWord(NoiseKind kind) {
       return "excess";
     case NoiseKind::kSupply:
       return "supply";
+    case NoiseKind::kSensorVoltage:
+    case NoiseKind::kSensorCurrent:
+      return "sensor";
   }
   return "?";
 }

@@ -128,6 +128,16 @@ std::string BudgetToJson(const Budget& b) {
       out["noise"]["nep_rms_W"] = pd.nep_rms_w;
     }
   }
+  if (b.measurand) {
+    const MeasurandBlock& m = *b.measurand;
+    out["noise"]["measurand"] = {
+        {"unit", m.unit},
+        {"sensitivity_per_unit", m.sensitivity},
+        {"input_referred_rms", m.input_referred_rms},
+        {"input_referred_density_at_reference",
+         m.input_referred_density_at_reference},
+    };
+  }
   if (b.full_scale_output_v) {
     out["full_scale_output_V"] = *b.full_scale_output_v;
     if (b.full_scale_output_current_a)

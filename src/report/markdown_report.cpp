@@ -84,6 +84,15 @@ std::string NoiseSection(const Budget& b) {
         FormatDensity(b.photodiode->nep_w_per_rthz, "W") + " at " + ref + ", " +
             FormatEng(b.photodiode->nep_rms_w, "W") + " rms over the band (" +
             Printf("%.3g A/W", b.photodiode->responsivity_a_per_w) + ")");
+  if (b.measurand) {
+    const MeasurandBlock& m = *b.measurand;
+    out += Item("in the measurand",
+                Printf("%.4g ", m.input_referred_rms) + m.unit + " rms, " +
+                    Printf("%.4g ", m.input_referred_density_at_reference) +
+                    m.unit + "/\xE2\x88\x9AHz at " + ref + " (" +
+                    FormatEng(m.sensitivity, b.input_unit) + " per " + m.unit +
+                    ")");
+  }
   if (b.photodiode && b.photodiode->noise_gain_plateau_estimate > 0)
     out +=
         Item("e_n x C",

@@ -84,6 +84,14 @@ std::string NoiseSection(const Budget& b) {
         " rms over the band (" +
         Printf("%.3g A/W", b.photodiode->responsivity_a_per_w) + ")\n";
   }
+  if (b.measurand) {
+    const MeasurandBlock& m = *b.measurand;
+    out += "  in the measurand       " + Printf("%.4g ", m.input_referred_rms) +
+           m.unit + " rms, " +
+           Printf("%.4g ", m.input_referred_density_at_reference) + m.unit +
+           kPerRtHz + " at " + ref + " (" +
+           FormatEng(m.sensitivity, b.input_unit) + " per " + m.unit + ")\n";
+  }
   if (b.photodiode && b.photodiode->noise_gain_plateau_estimate > 0) {
     out += "  e_n x C                " +
            (b.noise_gain_flat

@@ -189,6 +189,11 @@ TEST_CASE("the stage schema and the stage parser know the same keys") {
       R"({"source": {"photodiode": {"photocurrent": "10n"}},
           "stage": {"feedback": {"parasitic_capacitance": "0.1p"}}})"_json);
   ParseStageJson(photocurrent, "photocurrent variant", library);
+  json sensor = Example("load-cell-bridge");
+  sensor.merge_patch(
+      R"({"source": {"noise": {"density": "5n", "corner": "10"},
+                     "sensitivity": {"value": "2 mV", "per": "V"}}})"_json);
+  ParseStageJson(sensor, "sensor noise and sensitivity variant", library);
 
   const Keys schema = SchemaKeys(kSource / "schema/stage.schema.json").keys();
   INFO("in the parser, not in schema/stage.schema.json:\n"

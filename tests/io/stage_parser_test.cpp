@@ -319,5 +319,65 @@ TEST_CASE("bad photodiode keys name the JSON path") {
   }
 }
 
+TEST_CASE("the sensor's own noise and its sensitivity, in the source's units") {
+  const Stage v = Parse(Good(R"("source": {"voltage": {"resistance": "350"}})",
+                             R"("source": {"voltage": {"resistance": "350"},
+                    "noise": {"density": "12 nV/rtHz", "corner": "3 Hz"},
+                    "sensitivity": {"value": "2 mV", "per": "V"}})"));
+  REQUIRE(v.sensor_noise);
+  CHECK(RelErr(v.sensor_noise->density, 12e-9) < test::kRelTight);
+  CHECK(v.sensor_noise->corner_hz == 3);
+  REQUIRE(v.sensitivity);
+  CHECK(RelErr(v.sensitivity->value, 2e-3) < test::kRelTight);
+  CHECK(v.sensitivity->per == "V");
+  CHECK_FALSE(Parse(kGood).sensor_noise);
+  CHECK_FALSE(Parse(kGood).sensitivity);
+
+  // A photodiode's noise is a current; its sensitivity per W is its
+  // responsivity, which it supplies when the diode does not give one.
+  const Stage pd = Parse(
+      Replace(Replace(Replace(kReceiver, R"("responsivity": "0.5 A/W",)", ""),
+                      R"("optical_power": "2 uW")", R"("photocurrent": "1n")"),
+              R"("doubling_interval_C": 8})",
+              R"("doubling_interval_C": 8}, "noise": {"density": "3 fA/rtHz"},
+         "sensitivity": {"value": "0.55 A", "per": "W"})"));
+  REQUIRE(pd.sensor_noise);
+  CHECK(RelErr(pd.sensor_noise->density, 3e-15) < test::kRelTight);
+  CHECK(pd.sensor_noise->corner_hz == 0);
+  CHECK(RelErr(pd.photodiode.responsivity_a_per_w, 0.55) < test::kRelTight);
+}
+
+TEST_CASE("bad sensor noise and sensitivity name the JSON path") {
+  const std::string voltage = R"("source": {"voltage": {"resistance": "350"}})";
+  auto with = [&](const std::string& extra) {
+    return Good(voltage, R"("source": {"voltage": {"resistance": "350"}, )" +
+                             extra + "}");
+  };
+  const std::vector<std::pair<std::string, std::string>> cases = {
+      {with(R"("noise": {"density": "1 pA/rtHz"})"),
+       R"(stage.json: /source/noise/density: expected a voltage noise density, got "1 pA/rtHz" (unknown unit "pA/rtHz"))"},
+      {with(R"("noise": {"density": "-1n"})"),
+       R"(stage.json: /source/noise/density: expected a non-negative voltage density, got "-1n")"},
+      {with(R"("noise": {"density": "1n", "corner": "-1"})"),
+       R"(stage.json: /source/noise/corner: expected a non-negative frequency (0 = white), got "-1")"},
+      {with(R"("noise": {"corner": "1"})"),
+       R"(stage.json: /source/noise/density: missing (required))"},
+      {with(R"("sensitivity": {"value": "10 pC", "per": "g"})"),
+       R"(stage.json: /source/sensitivity/value: expected a voltage, got "10 pC" (unknown unit "pC"))"},
+      {with(R"("sensitivity": {"value": "0", "per": "g"})"),
+       R"(stage.json: /source/sensitivity/value: expected a positive voltage per unit of the measurand, got "0")"},
+      {with(R"("sensitivity": {"value": "1m", "per": "m/s 2"})"),
+       R"(stage.json: /source/sensitivity/per: expected the measurand's unit, a short word without spaces ("g", "Pa", "W"), got "m/s 2")"},
+      {Replace(
+           kReceiver, R"("doubling_interval_C": 8})",
+           R"("doubling_interval_C": 8}, "sensitivity": {"value": "0.6 A", "per": "W"})"),
+       R"(stage.json: /source/sensitivity: expected the photodiode's responsivity (0.5 A/W) when per "W", got 0.6 A/W)"},
+  };
+  for (const auto& [text, message] : cases) {
+    CAPTURE(text);
+    CHECK_THROWS_WITH_AS(Parse(text), message.c_str(), Error);
+  }
+}
+
 }  // namespace
 }  // namespace hushgain

@@ -56,6 +56,8 @@ typo = copy.deepcopy(base); typo["stage"]["lod"] = "2k"; bad.append(("stage key 
 noband = copy.deepcopy(base); del noband["band_Hz"]; bad.append(("no band", stage, noband))
 both = copy.deepcopy(base); both["stage"]["feedback"]["resistor"] = "1M"; bad.append(("resistor and tee", stage, both))
 pd = copy.deepcopy(base); pd["stage"]["topology"] = "transimpedance"; bad.append(("transimpedance with a voltage source", stage, pd))
+twosrc = copy.deepcopy(base); twosrc["source"]["photodiode"] = {"capacitance": "10p"}; bad.append(("a voltage source and a photodiode", stage, twosrc))
+noper = copy.deepcopy(base); noper["source"]["sensitivity"] = {"value": "2 mV"}; bad.append(("sensitivity without per", stage, noper))
 opamp = json.loads(devices[0].read_text())
 kind = copy.deepcopy(opamp); kind["kind"] = "comparator"; bad.append(("device kind", device, kind))
 param = copy.deepcopy(opamp); param["parameters"]["gbw_hz"] = 1e6; bad.append(("parameter typo", device, param))
