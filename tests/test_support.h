@@ -1,5 +1,6 @@
 // Shared helpers for the test suite: named tolerances, one relative-error
-// helper, an ideal op-amp, stages built in code.
+// helper; the stages built in code are in fixture_stages.h (shared with
+// bench/).
 #ifndef HUSHGAIN_TESTS_TEST_SUPPORT_H_
 #define HUSHGAIN_TESTS_TEST_SUPPORT_H_
 
@@ -14,6 +15,7 @@
 #include "budget/budget.h"
 #include "budget/compute_budget.h"
 #include "circuit/stage.h"
+#include "fixture_stages.h"
 #include "review/review.h"
 
 namespace hushgain::test {
@@ -28,43 +30,8 @@ inline double RelErr(double actual, double expected) {
   return std::fabs(actual - expected) / std::fabs(expected);
 }
 
-// An op-amp close enough to ideal that its finite gain is below kRelIdeal
-// at low frequency for noise gains up to ~1e4: A0 = 1e12, GBW = 1e15 Hz.
-inline OpAmpModel IdealOpAmp(double e_w = 0, double i_w = 0) {
-  OpAmpModel m;
-  m.class_name = "ideal";
-  m.e_w_v_per_rthz = e_w;
-  m.i_w_a_per_rthz = i_w;
-  m.open_loop_gain = 1e12;
-  m.gbw_hz = 1e15;
-  return m;
-}
-
 inline double FourKT(double temperature_k) {
   return 4.0 * kBoltzmannJPerK * temperature_k;
-}
-
-inline Stage InvertingStage(double rin, double rf, const OpAmpModel& opamp,
-                            double temperature_k = 300.0) {
-  Stage s;
-  s.name = "test stage";
-  s.temperature_k = temperature_k;
-  s.band_low_hz = 0.1;
-  s.band_high_hz = 10.0;
-  s.reference_hz = 1.0;
-  s.opamp = opamp;
-  s.input_resistor_ohm = rin;
-  s.feedback.kind = Feedback::Kind::kResistor;
-  s.feedback.resistor_ohm = rf;
-  return s;
-}
-
-inline Stage TeeStage(double rin, double r1, double r2, double r3,
-                      const OpAmpModel& opamp, double temperature_k = 300.0) {
-  Stage s = InvertingStage(rin, 1.0, opamp, temperature_k);
-  s.feedback.kind = Feedback::Kind::kTee;
-  s.feedback.tee = {r1, r2, r3};
-  return s;
 }
 
 // The reviewed budget of `stage` (every review block on, as `budget`

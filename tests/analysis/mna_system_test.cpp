@@ -23,17 +23,7 @@ MnaSystem Build(const Netlist& net) {
 TEST_CASE("adjoint transfers equal one direct solve per source") {
   // REFERENCES.md section 10 (Director and Rohrer 1969): z^T b_k from one
   // transposed solve equals x_out from solving Y x = b_k.
-  OpAmpModel m = test::IdealOpAmp(5e-9, 0.5e-12);
-  m.open_loop_gain = 2e5;
-  m.gbw_hz = 3e6;
-  m.output_resistance_ohm = 75;
-  m.c_cm_f = 4e-12;
-  m.c_diff_f = 2e-12;
-  Stage stage = test::TeeStage(4.7e3, 47e3, 220e3, 2.2e3, m);
-  stage.source.resistance_ohm = 50;
-  stage.feedback.capacitor_f = 10e-12;
-  stage.plus_resistor.mode = PlusResistor::Mode::kAuto;
-  stage.load_ohm = 2e3;
+  const Stage stage = test::EveryElementTeeStage();
   const Netlist net = ExpandStage(stage);
   const MnaSystem system = Build(net);
   std::vector<NoiseSource> sources = CollectNoiseSources(net, 300);

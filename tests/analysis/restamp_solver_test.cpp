@@ -21,19 +21,11 @@ using test::RelErr;
 
 constexpr double kRelSolve = 1e-10;
 
+// The every-element T-network stage with its compensation resistor
+// bypassed (so the bypass capacitor's restamp is exercised too).
 Stage NetworkStage() {
-  OpAmpModel m = test::IdealOpAmp(5e-9, 0.5e-12);
-  m.open_loop_gain = 2e5;
-  m.gbw_hz = 3e6;
-  m.output_resistance_ohm = 75;
-  m.c_cm_f = 4e-12;
-  m.c_diff_f = 2e-12;
-  Stage stage = test::TeeStage(4.7e3, 47e3, 220e3, 2.2e3, m);
-  stage.source.resistance_ohm = 50;
-  stage.feedback.capacitor_f = 10e-12;
-  stage.plus_resistor.mode = PlusResistor::Mode::kAuto;
+  Stage stage = test::EveryElementTeeStage();
   stage.plus_resistor_bypass_f = 1e-9;
-  stage.load_ohm = 2e3;
   return stage;
 }
 

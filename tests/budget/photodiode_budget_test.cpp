@@ -28,19 +28,8 @@ constexpr double kRf = 10e6, kCf = 1e-12, kCd = 100e-12, kRsh = 1e9;
 // A transimpedance stage on an ideal op-amp (A0 = 1e12) at 25 °C, where the
 // dark current and R_sh are as given.
 Stage Receiver() {
-  Stage s;
-  s.name = "receiver";
-  s.temperature_k = kDeviceReferenceK;
-  s.band_low_hz = 1;
-  s.band_high_hz = 10e3;
-  s.reference_hz = 100;
-  s.topology = Topology::kTransimpedance;
-  s.opamp = test::IdealOpAmp(10e-9, 1e-15);
-  s.photodiode.capacitance_f = kCd;
-  s.photodiode.shunt_resistance_ohm = kRsh;
-  s.feedback.resistor_ohm = kRf;
-  s.feedback.capacitor_f = kCf;
-  return s;
+  return test::ReceiverStage(test::IdealOpAmp(10e-9, 1e-15), kCd, kRsh, kRf,
+                             kCf);
 }
 
 // The output density of the source named `name`, and |Z_t| (the signal's

@@ -83,17 +83,9 @@ Netlist PiNetlist(const Netlist& tee_net, const TeeNetwork& t) {
 TEST_CASE("the pi network solved by the engine has the T's transfer") {
   // A real op-amp (finite A0 and GBW, R_out, pin capacitances), a load and
   // C_f, so the comparison covers the whole frequency range.
-  OpAmpModel m = test::IdealOpAmp(5e-9, 0.5e-12);
-  m.open_loop_gain = 2e5;
-  m.gbw_hz = 3e6;
-  m.output_resistance_ohm = 75;
-  m.c_cm_f = 4e-12;
-  m.c_diff_f = 2e-12;
-  const TeeNetwork t{47e3, 220e3, 2.2e3};
-  Stage stage = test::TeeStage(4.7e3, t.r1_ohm, t.r2_ohm, t.r3_ohm, m);
-  stage.source.resistance_ohm = 50;
-  stage.feedback.capacitor_f = 10e-12;
-  stage.load_ohm = 2e3;
+  Stage stage = test::EveryElementTeeStage();
+  stage.plus_resistor.mode = PlusResistor::Mode::kNone;
+  const TeeNetwork t = stage.feedback.tee;
   const Netlist tee_net = ExpandStage(stage);
   Netlist pi_net = PiNetlist(tee_net, t);
   // The T's centre node is left without parts; tie it to ground through a

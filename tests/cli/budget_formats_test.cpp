@@ -21,7 +21,7 @@ namespace {
 using nlohmann::json;
 using test::RelErr;
 using test::RunHushgain;
-using test::ScratchDir;
+using test::TempFolder;
 
 // Markdown and text cells carry 4 significant digits: a value read back is
 // within half a unit of the 4th digit, 5e-4 relative at worst.
@@ -174,7 +174,7 @@ TEST_CASE("the csv budget holds every contributor with SI numbers") {
 }
 
 TEST_CASE("the spectrum csv integrates to the budget's output rms") {
-  ScratchDir dir("spectrum");
+  TempFolder dir("spectrum");
   for (const std::string& example : test::ExamplePaths()) {
     INFO("example " << example);
     const json j = BudgetJson(example);
@@ -245,7 +245,7 @@ TEST_CASE("a bad --format is one line naming the option and exit code 2") {
 }
 
 TEST_CASE("--spectrum into a missing folder fails and leaves nothing") {
-  ScratchDir dir("spectrumfail");
+  TempFolder dir("spectrumfail");
   const std::string target = dir / "no-such-folder/spectrum.csv";
   const auto r = RunHushgain(
       {"budget", "--spectrum", target, test::ExamplePath("load-cell-bridge")});

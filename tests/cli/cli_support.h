@@ -1,6 +1,6 @@
-// Helpers for the end-to-end tests of `budget` formats and `plot`: every
-// example stage in examples/, a scratch folder per test, and the built
-// binary run through RunBinary (cli/run_binary.h: fork and exec, no shell).
+// Helpers for the end-to-end tests: every example stage in examples/, the
+// scratch folder (cli/temp_folder.h), and the built binary run through
+// RunBinary (cli/run_binary.h: fork and exec, no shell).
 #ifndef HUSHGAIN_TESTS_CLI_CLI_SUPPORT_H_
 #define HUSHGAIN_TESTS_CLI_CLI_SUPPORT_H_
 
@@ -16,6 +16,7 @@
 #include <vector>
 
 #include "cli/run_binary.h"
+#include "cli/temp_folder.h"
 
 namespace hushgain::test {
 
@@ -36,48 +37,6 @@ inline std::string ExamplePath(const std::string& name) {
 inline std::string Stem(const std::string& path) {
   return std::filesystem::path(path).stem().string();
 }
-
-inline std::string ReadAll(const std::string& path) {
-  std::ifstream in(path, std::ios::binary);
-  std::ostringstream out;
-  out << in.rdbuf();
-  return out.str();
-}
-
-// A fresh empty folder under the system temporary folder, removed on
-// destruction.
-class ScratchDir {
- public:
-  explicit ScratchDir(const std::string& tag) {
-    static int counter = 0;
-    path_ = std::filesystem::temp_directory_path() /
-            ("hushgain-test-" + tag + "-" + std::to_string(::getpid()) + "-" +
-             std::to_string(counter++));
-    std::filesystem::remove_all(path_);
-    std::filesystem::create_directories(path_);
-  }
-  ~ScratchDir() {
-    std::error_code ec;
-    std::filesystem::remove_all(path_, ec);
-  }
-  ScratchDir(const ScratchDir&) = delete;
-  ScratchDir& operator=(const ScratchDir&) = delete;
-
-  std::string operator/(const std::string& name) const {
-    return (path_ / name).string();
-  }
-  // The names of the files in the folder, sorted.
-  std::vector<std::string> Files() const {
-    std::vector<std::string> out;
-    for (const auto& e : std::filesystem::directory_iterator(path_))
-      out.push_back(e.path().filename().string());
-    std::sort(out.begin(), out.end());
-    return out;
-  }
-
- private:
-  std::filesystem::path path_;
-};
 
 // A minimal XML well-formedness check (XML 1.0, section 2.1 production
 // "document"): tags balance and nest, with comments, processing

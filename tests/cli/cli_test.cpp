@@ -19,6 +19,7 @@
 
 #include "cli/base_stage.h"
 #include "cli/run_binary.h"
+#include "cli/temp_folder.h"
 #include "test_support.h"
 
 namespace hushgain::test {
@@ -48,13 +49,6 @@ RunResult Hushgain(const std::vector<std::string>& args,
   return RunBinary(HUSHGAIN_BINARY, args, working_dir);
 }
 
-std::string ReadAll(const fs::path& path) {
-  std::ifstream in(path, std::ios::binary);
-  std::ostringstream out;
-  out << in.rdbuf();
-  return out.str();
-}
-
 std::vector<fs::path> Examples() {
   std::vector<fs::path> out;
   for (const fs::directory_entry& e :
@@ -78,42 +72,6 @@ void CheckFiniteNumber(const json& doc, const std::string& pointer) {
   if (v.is_number())
     CHECK_MESSAGE(std::isfinite(v.get<double>()), pointer << " = " << v);
 }
-
-// A folder of its own under the system temporary folder, removed with the
-// object; bad stage files go here, never into the source tree.
-class TempFolder {
- public:
-  TempFolder() {
-    std::string pattern =
-        (fs::temp_directory_path() / "hushgain-cli-test-XXXXXX").string();
-    REQUIRE(::mkdtemp(pattern.data()) != nullptr);
-    path_ = pattern;
-  }
-  ~TempFolder() {
-    std::error_code ignored;
-    fs::remove_all(path_, ignored);
-  }
-  TempFolder(const TempFolder&) = delete;
-  TempFolder& operator=(const TempFolder&) = delete;
-
-  const fs::path& path() const { return path_; }
-
-  void Write(const std::string& name, const std::string& text) const {
-    std::ofstream out(path_ / name, std::ios::binary);
-    out << text;
-  }
-
-  // Every file in the folder with its contents.
-  std::map<std::string, std::string> Snapshot() const {
-    std::map<std::string, std::string> files;
-    for (const fs::directory_entry& e : fs::directory_iterator(path_))
-      files[e.path().filename().string()] = ReadAll(e.path());
-    return files;
-  }
-
- private:
-  fs::path path_;
-};
 
 // A valid stage; each bad-input case below changes one thing.
 json GoodStage() { return json::parse(test::BadInputBaseStageText()); }

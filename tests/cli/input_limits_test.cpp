@@ -21,7 +21,7 @@ using test::ExamplePath;
 using test::ReadAll;
 using test::RunBinary;
 using test::RunResult;
-using test::ScratchDir;
+using test::TempFolder;
 
 constexpr std::size_t kLimitBytes = 16u << 20;  // README: 16 MiB
 
@@ -43,7 +43,7 @@ struct Duplicate {
 };
 
 TEST_CASE("a key given twice in a stage file is exit 2 at its second place") {
-  ScratchDir dir("duplicate-key");
+  TempFolder dir("duplicate-key");
   const std::string stage = ReadAll(ExamplePath("hydrophone-preamp"));
   const std::vector<Duplicate> cases = {
       {"\"r2\": \"100k\",", "\"r2\": \"100k\", \"r2\": \"1k\",",
@@ -71,7 +71,7 @@ TEST_CASE("a key given twice in a stage file is exit 2 at its second place") {
 }
 
 TEST_CASE("a duplicate key inside an array names the element's index") {
-  ScratchDir dir("duplicate-in-array");
+  TempFolder dir("duplicate-in-array");
   // The pointer's array index counts plain values and objects alike
   // (RFC 6901 section 4: the index of the element).
   WriteText(dir / "s.json", R"({"x": [1, "two", {"a": 1, "a": 2}]})");
@@ -82,7 +82,7 @@ TEST_CASE("a duplicate key inside an array names the element's index") {
 }
 
 TEST_CASE("a key given twice in a device file is exit 2 naming that file") {
-  ScratchDir dir("duplicate-device");
+  TempFolder dir("duplicate-device");
   namespace fs = std::filesystem;
   const fs::path devices = fs::path(dir / "devices");
   fs::copy(fs::path(HUSHGAIN_SOURCE_DIR) / "devices", devices,
@@ -101,7 +101,7 @@ TEST_CASE("a key given twice in a device file is exit 2 naming that file") {
 }
 
 TEST_CASE("a stage file of exactly 16 MiB is read; one byte more is refused") {
-  ScratchDir dir("size-limit");
+  TempFolder dir("size-limit");
   const std::string stage = ReadAll(ExamplePath("hydrophone-preamp"));
   REQUIRE(stage.size() < kLimitBytes);
   // JSON allows any amount of white space after the value (RFC 8259

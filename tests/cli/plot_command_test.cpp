@@ -20,7 +20,7 @@ namespace {
 using nlohmann::json;
 using test::ReadAll;
 using test::RunHushgain;
-using test::ScratchDir;
+using test::TempFolder;
 using test::WellFormedXml;
 
 // A sheet of three panels is far above this; an empty or truncated
@@ -40,7 +40,7 @@ std::vector<std::string> ContributorNames(const std::string& stage) {
 bool HasPython() { return std::filesystem::exists("/usr/bin/python3"); }
 
 TEST_CASE("plot writes a valid PNG for every example") {
-  ScratchDir dir("png");
+  TempFolder dir("png");
   for (const std::string& example : test::ExamplePaths()) {
     INFO("example " << example);
     const std::string png = dir / (test::Stem(example) + ".png");
@@ -68,7 +68,7 @@ bool WholePdf(const std::string& bytes) {
 }
 
 TEST_CASE("plot tee sweep and spread write a whole PDF for a .pdf name") {
-  ScratchDir dir("pdf");
+  TempFolder dir("pdf");
   const std::string tee = test::ExamplePath("hydrophone-preamp");
   const std::vector<std::vector<std::string>> runs = {
       {"plot", tee, "-o", dir / "sheet.pdf"},
@@ -88,7 +88,7 @@ TEST_CASE("plot tee sweep and spread write a whole PDF for a .pdf name") {
 }
 
 TEST_CASE("plot writes a well-formed SVG naming every contributor") {
-  ScratchDir dir("svg");
+  TempFolder dir("svg");
   for (const std::string& stage : test::ExamplePaths()) {
     INFO("example " << stage);
     const std::string svg = dir / (test::Stem(stage) + ".svg");
@@ -115,7 +115,7 @@ TEST_CASE("plot writes a well-formed SVG naming every contributor") {
 }
 
 TEST_CASE("--only draws one panel in a smaller picture") {
-  ScratchDir dir("only");
+  TempFolder dir("only");
   const std::string stage = test::ExamplePath("hydrophone-preamp");
   const auto full = RunHushgain({"plot", stage, "-o", dir / "full.svg"});
   REQUIRE(full.exit_code == 0);
@@ -142,7 +142,7 @@ TEST_CASE("--only draws one panel in a smaller picture") {
 TEST_CASE("names from the stage file reach gnuplot as text and never as code") {
   // Quotes of both kinds, semicolons, system(), backquotes and a macro:
   // each would run a command if it reached gnuplot unquoted.
-  ScratchDir dir("inject");
+  TempFolder dir("inject");
   const std::string pwned = dir / "pwned";
   const std::vector<std::string> names = {
       "\"; system(\"touch " + pwned + "\") ; \"",
@@ -199,7 +199,7 @@ TEST_CASE("names from the stage file reach gnuplot as text and never as code") {
 
 TEST_CASE(
     "without gnuplot the plot command names the package and writes nothing") {
-  ScratchDir dir("nognuplot");
+  TempFolder dir("nognuplot");
   const std::string png = dir / "out.png";
   const auto r =
       RunHushgain({"plot", test::ExamplePath("load-cell-bridge"), "-o", png},
@@ -212,7 +212,7 @@ TEST_CASE(
 }
 
 TEST_CASE("plot refuses an unknown picture type or panel with exit code 2") {
-  ScratchDir dir("plotusage");
+  TempFolder dir("plotusage");
   const std::string stage = test::ExamplePath("load-cell-bridge");
   auto r = RunHushgain({"plot", stage, "-o", dir / "out.gif"});
   CHECK(r.exit_code == 2);
@@ -229,7 +229,7 @@ TEST_CASE("plot refuses an unknown picture type or panel with exit code 2") {
 }
 
 TEST_CASE("plot into a missing folder is a write error naming the file") {
-  ScratchDir dir("plotfolder");
+  TempFolder dir("plotfolder");
   const std::string png = dir / "missing/out.png";
   const auto r =
       RunHushgain({"plot", test::ExamplePath("load-cell-bridge"), "-o", png});

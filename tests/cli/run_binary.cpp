@@ -13,13 +13,6 @@
 namespace hushgain::test {
 namespace {
 
-std::string Slurp(const std::string& path) {
-  std::ifstream in(path, std::ios::binary);
-  std::ostringstream out;
-  out << in.rdbuf();
-  return out.str();
-}
-
 // A fresh, empty file under the system temporary folder; returns its path.
 std::string TemporaryFile(const char* tag) {
   std::string pattern =
@@ -31,6 +24,13 @@ std::string TemporaryFile(const char* tag) {
 }
 
 }  // namespace
+
+std::string ReadAll(const std::filesystem::path& path) {
+  std::ifstream in(path, std::ios::binary);
+  std::ostringstream out;
+  out << in.rdbuf();
+  return out.str();
+}
 
 RunResult RunBinary(const std::string& program,
                     const std::vector<std::string>& args,
@@ -80,8 +80,8 @@ RunResult RunBinary(const std::string& program,
     else if (WIFSIGNALED(status))
       result.exit_code = 128 + WTERMSIG(status);
   }
-  result.out = Slurp(out_path);
-  result.err = Slurp(err_path);
+  result.out = ReadAll(out_path);
+  result.err = ReadAll(err_path);
   std::filesystem::remove(out_path);
   std::filesystem::remove(err_path);
   return result;

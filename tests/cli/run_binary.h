@@ -4,6 +4,7 @@
 #ifndef HUSHGAIN_TESTS_CLI_RUN_BINARY_H_
 #define HUSHGAIN_TESTS_CLI_RUN_BINARY_H_
 
+#include <filesystem>
 #include <string>
 #include <vector>
 
@@ -25,6 +26,9 @@ RunResult RunBinary(const std::string& program,
                     const std::vector<std::string>& args,
                     const std::string& working_dir = "",
                     const std::string& stdin_path = "");
+
+// The whole file at `path` as bytes; empty when it cannot be read.
+std::string ReadAll(const std::filesystem::path& path);
 
 // The lines of `text` (split at '\n'; a final newline ends the last line
 // and does not start a new one).

@@ -21,7 +21,7 @@ using test::HostileStageNames;
 using test::ReadAll;
 using test::RunHushgain;
 using test::RunResult;
-using test::ScratchDir;
+using test::TempFolder;
 
 // Three histogram panels are far above this; an empty or cut picture below.
 constexpr std::size_t kMinPictureBytes = 20000;
@@ -37,7 +37,7 @@ RunResult Spread(const std::string& stage, const std::string& picture,
 }
 
 TEST_CASE("spread --plot writes a valid PNG and a well-formed SVG") {
-  ScratchDir dir("spreadplot");
+  TempFolder dir("spreadplot");
   const std::string png = dir / "hist.png";
   const auto p = Spread(Example(), png);
   INFO("stderr: " << p.err);
@@ -70,7 +70,7 @@ TEST_CASE("spread --plot writes a valid PNG and a well-formed SVG") {
 }
 
 TEST_CASE("spread --plot draws a hostile stage name as text and runs nothing") {
-  ScratchDir dir("spreadinject");
+  TempFolder dir("spreadinject");
   const std::string pwned = dir / "pwned";
   const std::vector<std::string> names = HostileStageNames(pwned);
 
@@ -98,7 +98,7 @@ TEST_CASE("spread --plot draws a hostile stage name as text and runs nothing") {
 
 TEST_CASE(
     "spread --plot without gnuplot names the package and writes nothing") {
-  ScratchDir dir("spreadnognuplot");
+  TempFolder dir("spreadnognuplot");
   const auto r = RunHushgain({"spread", Example(), "--samples", "100", "--csv",
                               dir / "s.csv", "--plot", dir / "out.png"},
                              {"PATH=" + dir / "empty-path"});
@@ -112,7 +112,7 @@ TEST_CASE(
 
 TEST_CASE(
     "spread --plot refuses a picture name that is not .png .svg or .pdf") {
-  ScratchDir dir("spreadbadname");
+  TempFolder dir("spreadbadname");
   const auto r = RunHushgain(
       {"spread", Example(), "--samples", "100", "--plot", dir / "out.gif"});
   CHECK(r.exit_code == 2);

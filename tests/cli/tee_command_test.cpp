@@ -1,8 +1,6 @@
 // `hushgain tee sweep` and `hushgain tee search` end to end: the built
 // binary is run, its exit code, whole stderr message and output checked.
 #include <doctest/doctest.h>
-#include <sys/wait.h>
-#include <unistd.h>
 
 #include <algorithm>
 #include <cstdlib>
@@ -13,47 +11,27 @@
 #include <string>
 #include <vector>
 
+#include "cli/run_binary.h"
 #include "test_support.h"
 
 namespace hushgain {
 namespace {
 
-struct Run {
-  int exit_code = -1;
-  std::string out;
-  std::string err;
-};
+using test::RunResult;
 
-std::string Slurp(const std::filesystem::path& p) {
-  std::ifstream in(p);
-  std::stringstream ss;
-  ss << in.rdbuf();
-  return ss.str();
-}
-
-// Runs the binary from the source folder with `args` (shell words).
-Run RunHushgain(const std::string& args) {
-  const std::filesystem::path dir =
-      std::filesystem::temp_directory_path() /
-      ("hushgain-tee-" + std::to_string(getpid()));
-  std::filesystem::create_directories(dir);
-  const std::string command = std::string("cd ") + HUSHGAIN_SOURCE_DIR +
-                              " && " + HUSHGAIN_BINARY + " " + args + " >" +
-                              (dir / "out").string() + " 2>" +
-                              (dir / "err").string();
-  const int status = std::system(command.c_str());
-  Run r;
-  r.exit_code = WIFEXITED(status) ? WEXITSTATUS(status) : -1;
-  r.out = Slurp(dir / "out");
-  r.err = Slurp(dir / "err");
-  std::filesystem::remove_all(dir);
-  return r;
+// Runs the binary in the source folder with `args`, plain words split at
+// spaces (no shell: nothing here needs quoting).
+RunResult RunHushgain(const std::string& args) {
+  std::vector<std::string> words;
+  std::istringstream in(args);
+  for (std::string word; in >> word;) words.push_back(word);
+  return test::RunBinary(HUSHGAIN_BINARY, words, HUSHGAIN_SOURCE_DIR);
 }
 
 const char* kTee = "examples/hydrophone-preamp.json";
 
 void CheckBadInput(const std::string& args, const std::string& message) {
-  const Run r = RunHushgain(args);
+  const RunResult r = RunHushgain(args);
   CAPTURE(args);
   CHECK(r.exit_code == 2);
   CHECK(r.err == message + "\n");
@@ -97,8 +75,8 @@ TEST_CASE("tee commands refuse bad input with one line and exit code 2") {
 }
 
 TEST_CASE("a search with nothing in tolerance says what to relax, exit 1") {
-  const Run r = RunHushgain(std::string("tee search ") + kTee +
-                            " --series E6 --max 100k --gain-tol 0.1%");
+  const RunResult r = RunHushgain(std::string("tee search ") + kTee +
+                                  " --series E6 --max 100k --gain-tol 0.1%");
   CHECK(r.exit_code == 1);
   CHECK(r.err ==
         "error: examples/hydrophone-preamp.json: no T network of E6 values "
@@ -112,9 +90,9 @@ TEST_CASE("tee search prints networks in tolerance, least noise first") {
   // The example's own gain is Req / (R_source + R_in) = 10.2 M / 11 k
   // (R1 = R2 = 100k, R3 = 1.02k; Kennelly's Req).
   const double target = (100e3 + 100e3 + 100e3 * 100e3 / 1.02e3) / 11e3;
-  const Run r = RunHushgain(std::string("tee search ") + kTee +
-                            " --series E96 --max 100k --gain-tol 0.5% "
-                            "--top 5 --csv");
+  const RunResult r = RunHushgain(std::string("tee search ") + kTee +
+                                  " --series E96 --max 100k --gain-tol 0.5% "
+                                  "--top 5 --csv");
   REQUIRE(r.exit_code == 0);
   // RFC 4180 records (CRLF), read by test::ReadCsv.
   const auto rows = test::ReadCsv(r.out);
@@ -138,7 +116,7 @@ TEST_CASE("tee search prints networks in tolerance, least noise first") {
 }
 
 TEST_CASE("tee sweep JSON starts at the plain resistor") {
-  const Run r = RunHushgain(std::string("tee sweep ") + kTee + " --json");
+  const RunResult r = RunHushgain(std::string("tee sweep ") + kTee + " --json");
   REQUIRE(r.exit_code == 0);
   const nlohmann::json doc = nlohmann::json::parse(r.out);
   const double req = 100e3 + 100e3 + 100e3 * 100e3 / 1.02e3;
@@ -158,7 +136,7 @@ TEST_CASE(
   // The hydrophone's full scale is 10 V; down at 300 ohm the T network's
   // noise gain (3.3e4) takes the worst-case offset to 10.79 V. Every row
   // whose offset is beyond 10 V carries offset>FS, and no other row does.
-  const Run r =
+  const RunResult r =
       RunHushgain(std::string("tee sweep ") + kTee + " --min 300 --format csv");
   REQUIRE(r.exit_code == 0);
   const auto rows = test::ReadCsv(r.out);

@@ -24,7 +24,7 @@ using test::HostileStageNames;
 using test::ReadAll;
 using test::RelErr;
 using test::RunHushgain;
-using test::ScratchDir;
+using test::TempFolder;
 
 // Markdown cells carry 4 significant digits (5e-4 relative at worst); the
 // noise cost "x1.0603" 5 (5e-5 relative at worst, near 1). CSV cells are
@@ -222,7 +222,7 @@ TEST_CASE("tee format options conflict in one line, exit code 2") {
 }
 
 TEST_CASE("tee sweep and search --plot write a valid PNG and a valid SVG") {
-  ScratchDir dir("teeplot");
+  TempFolder dir("teeplot");
   for (const char* sub : {"sweep", "search"}) {
     INFO(sub);
     const std::string png = dir / (std::string(sub) + ".png");
@@ -260,7 +260,7 @@ TEST_CASE("tee sweep and search --plot write a valid PNG and a valid SVG") {
 }
 
 TEST_CASE("tee --plot draws a hostile stage name as text and runs nothing") {
-  ScratchDir dir("teeinject");
+  TempFolder dir("teeinject");
   const std::string pwned = dir / "pwned";
   const std::vector<std::string> names = HostileStageNames(pwned);
   for (const std::string& name : names) {
@@ -297,7 +297,7 @@ TEST_CASE("tee --plot draws a hostile stage name as text and runs nothing") {
 }
 
 TEST_CASE("tee --plot without gnuplot names the package and writes nothing") {
-  ScratchDir dir("teenognuplot");
+  TempFolder dir("teenognuplot");
   for (const char* sub : {"sweep", "search"}) {
     std::vector<std::string> args = {"tee", sub, Example()};
     if (std::string(sub) == "search")

@@ -16,7 +16,7 @@ namespace {
 
 using test::ReadAll;
 using test::RunBinary;
-using test::ScratchDir;
+using test::TempFolder;
 
 constexpr const char* kStage = "examples/smoke-chamber-receiver.json";
 
@@ -109,7 +109,7 @@ TEST_CASE("tia snr refuses bad input with exit code 2 and one line") {
 }
 
 TEST_CASE("tia snr --plot writes a log-log picture of SNR against power") {
-  ScratchDir dir("tiasnrplot");
+  TempFolder dir("tiasnrplot");
   const std::string svg = dir / "snr.svg";
   const test::RunResult r =
       Snr({kStage, "--power-range", "1p..10u", "--points", "9", "--plot", svg});

@@ -22,22 +22,12 @@ constexpr double kRf = 1e6, kResp = 0.5, kBackground = 100e-9;
 
 // A lit receiver at 25 °C on an ideal op-amp with e_n and i_n.
 Stage Receiver() {
-  Stage s;
-  s.name = "receiver";
-  s.temperature_k = kDeviceReferenceK;
-  s.band_low_hz = 1;
-  s.band_high_hz = 10e3;
-  s.reference_hz = 100;
-  s.topology = Topology::kTransimpedance;
-  s.opamp = test::IdealOpAmp(10e-9, 10e-15);
+  Stage s = test::ReceiverStage(test::IdealOpAmp(10e-9, 10e-15), 100e-12, 1e9,
+                                kRf, 2e-12);
   s.opamp.vos_v = 1e-3;
   s.opamp.supply_v = 10;
-  s.photodiode.capacitance_f = 100e-12;
-  s.photodiode.shunt_resistance_ohm = 1e9;
   s.photodiode.responsivity_a_per_w = kResp;
   s.photodiode.photocurrent_a = kBackground;
-  s.feedback.resistor_ohm = kRf;
-  s.feedback.capacitor_f = 2e-12;
   s.full_scale_output_v = 3;
   return s;
 }

@@ -21,29 +21,19 @@ using test::RelErr;
 // order of sums and the solver's pivoting: agreement to rounding.
 constexpr double kRelRounding = 1e-11;
 
-// A T-network stage with a finite GBW, pin capacitances, an output
-// resistance, a load and thin-film-like parts.
+// The shared JFET-like T-network stage at one temperature, with a DC input,
+// no offsets to draw (Vos = Ios = 0, no drift, a constant bias current) and
+// parts without a tolerance of their own (tests set the ones they draw).
 Stage TeeWithFiniteGbw() {
-  OpAmpModel m;
-  m.class_name = "test JFET-like";
-  m.e_w_v_per_rthz = 6e-9;
-  m.f_cv_hz = 50;
-  m.i_w_a_per_rthz = 3e-15;
-  m.open_loop_gain = 1e6;
-  m.gbw_hz = 20e6;
-  m.output_resistance_ohm = 100;
-  m.c_cm_f = 5e-12;
-  m.c_diff_f = 5e-12;
-  m.ib_a = 5e-12;
-  Stage s = test::TeeStage(10e3, 100e3, 100e3, 1.02e3, m, 298.15);
-  s.band_low_hz = 10;
-  s.band_high_hz = 5e3;
-  s.reference_hz = 1e3;
-  s.source.resistance_ohm = 1e3;
-  s.load_ohm = 2e3;
+  Stage s = test::JfetTeeStage();
+  s.temperature_range.reset();
+  s.opamp.vos_v = 0;
+  s.opamp.vos_drift_v_per_k = 0;
+  s.opamp.ios_a = 0;
+  s.opamp.ib_law = BiasTemperatureLaw::kNone;
+  s.opamp.ib_law_value = 0;
   s.dc_input = 1e-3;
-  s.resistors =
-      ResistorSpec{"thin-film", {"thin film", -35, 25e-6, 0.001}, 0.0};
+  s.resistors->tolerance = 0;
   return s;
 }
 
