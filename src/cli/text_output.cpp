@@ -8,6 +8,7 @@
 #include <iostream>
 #include <streambuf>
 
+#include "base/control_characters.h"
 #include "report/ascii_text.h"
 
 namespace hushgain {
@@ -78,10 +79,11 @@ void UseAsciiOutput() {
 }
 
 void WriteReport(const std::string& report, const std::string& format) {
+  const std::string safe = EscapeControlCharacters(report, LineBreaks::kKeep);
   if (ascii_output && (format == "text" || format == "markdown"))
-    std::cout << AsciiText(report);
+    std::cout << AsciiText(safe);
   else
-    std::cout << report;
+    std::cout << safe;
   std::cout << std::flush;
 }
 

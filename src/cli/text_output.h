@@ -23,7 +23,11 @@ bool LocaleWantsAscii();
 void UseAsciiOutput();
 
 // Writes `report` to stdout (`format`: text, markdown, json or csv) and
-// flushes.
+// flushes. Whatever a report quotes from a stage or device file, no control
+// character reaches the terminal: every one but the line breaks (LF, and
+// CR LF as CSV ends its records) is made visible
+// (base/control_characters.h), and a C1 control becomes \u00HH, which in
+// JSON is the same character.
 void WriteReport(const std::string& report, const std::string& format);
 
 }  // namespace hushgain

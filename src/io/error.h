@@ -9,6 +9,8 @@
 #include <stdexcept>
 #include <string>
 
+#include "base/control_characters.h"
+
 namespace hushgain {
 
 class Error : public std::runtime_error {
@@ -26,30 +28,12 @@ class Error : public std::runtime_error {
   const std::string& path() const { return path_; }
   const std::string& message() const { return message_; }
 
-  // `text` with its control characters escaped (\n, \r, \t, \xHH), so a
-  // message that quotes the user's keys and values (JSON lets a key hold
-  // "resist\nce") stays one line. Every Error message goes through it.
+  // `text` with its control characters escaped (\n, \r, \t, \xHH, \u00HH:
+  // base/control_characters.h), so a message that quotes the user's keys
+  // and values (JSON lets a key hold "resist\nce") stays one line and
+  // cannot drive the terminal. Every Error message goes through it.
   static std::string OneLine(const std::string& text) {
-    static constexpr char kHex[] = "0123456789abcdef";
-    std::string out;
-    out.reserve(text.size());
-    for (char c : text) {
-      const auto byte = static_cast<unsigned char>(c);
-      if (c == '\n') {
-        out += "\\n";
-      } else if (c == '\r') {
-        out += "\\r";
-      } else if (c == '\t') {
-        out += "\\t";
-      } else if (byte < 0x20 || byte == 0x7f) {
-        out += "\\x";
-        out += kHex[byte >> 4];
-        out += kHex[byte & 0xf];
-      } else {
-        out += c;
-      }
-    }
-    return out;
+    return EscapeControlCharacters(text, LineBreaks::kEscape);
   }
 
  private:

@@ -189,8 +189,9 @@ std::string OpAmpDetail(const std::string& name, const OpAmpModel& m,
            "\n- data: " + EscapeMarkdown(about) + "\n\n";
     return head + RenderMarkdown(t);
   }
-  head = name + " (" + m.class_name + ")\n  file: " + info.path +
-         "\n  data: " + about + "\n\n";
+  head = EscapeText(name) + " (" + EscapeText(m.class_name) +
+         ")\n  file: " + EscapeText(info.path) +
+         "\n  data: " + EscapeText(about) + "\n\n";
   return head + RenderText(t);
 }
 
@@ -228,8 +229,9 @@ std::string ResistorDetail(const std::string& name, const ResistorTechnology& r,
     return "## " + EscapeMarkdown(name) + " (" + EscapeMarkdown(r.class_name) +
            ")\n\n- file: " + EscapeMarkdown(info.path) +
            "\n- data: " + EscapeMarkdown(about) + "\n\n" + RenderMarkdown(t);
-  return name + " (" + r.class_name + ")\n  file: " + info.path +
-         "\n  data: " + about + "\n\n" + RenderText(t);
+  return EscapeText(name) + " (" + EscapeText(r.class_name) +
+         ")\n  file: " + EscapeText(info.path) +
+         "\n  data: " + EscapeText(about) + "\n\n" + RenderText(t);
 }
 
 }  // namespace

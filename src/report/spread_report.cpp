@@ -128,7 +128,7 @@ Table YieldTable(const SpreadSummary& s, const SpreadLimits& limits) {
 
 std::string Text(const SpreadRun& run, const SpreadSummary& s,
                  const SpreadLimits& limits, std::uint64_t seed) {
-  std::string out = run.nominal.stage_name + "\n";
+  std::string out = EscapeText(run.nominal.stage_name) + "\n";
   for (const std::string& line : HeaderLines(run, seed))
     out += "  " + line + "\n";
   out += "\n" + RenderText(DistributionTable(s));

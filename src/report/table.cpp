@@ -7,7 +7,13 @@
 
 namespace hushgain {
 
-std::string RenderText(const Table& table, int indent) {
+std::string RenderText(const Table& given, int indent) {
+  // Cells may quote a stage or device file: each stays on one line, its
+  // control characters visible.
+  Table table = given;
+  for (std::string& cell : table.header) cell = EscapeText(cell);
+  for (auto& row : table.rows)
+    for (std::string& cell : row) cell = EscapeText(cell);
   const std::size_t columns = table.header.size();
   std::vector<int> width(columns, 0);
   auto measure = [&](const std::vector<std::string>& row) {

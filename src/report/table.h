@@ -23,7 +23,8 @@ struct Table {
 };
 
 // Two spaces between columns, `indent` spaces before each line, a dashed
-// rule under the header and at each rules_after.
+// rule under the header and at each rules_after. Every cell passes through
+// EscapeText (report/text_escape.h): one line, control characters visible.
 std::string RenderText(const Table& table, int indent = 2);
 
 // A GitHub-flavoured Markdown pipe table: the header, the delimiter row

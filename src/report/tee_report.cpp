@@ -92,7 +92,7 @@ std::string Temperature(const Budget& b) {
 std::string SweepToText(const TeeSweepResult& s) {
   const Budget* first = FirstBudget(s);
   if (!first) return "";
-  std::string out = first->stage_name + "\n";
+  std::string out = EscapeText(first->stage_name) + "\n";
   out += "  T-network sweep at Req = " + Ohms(s.equivalent_ohm) +
          " (gain kept), largest resistor " + Ohms(s.rows.front().largest_ohm) +
          " down to " + Ohms(s.rows.back().largest_ohm) + "\n";
@@ -151,7 +151,8 @@ std::string SweepToJson(const TeeSweepResult& s) {
 
 std::string SearchToText(const TeeSearchResult& s, const TeeSearchQuery& q) {
   std::string out;
-  if (!s.best.empty()) out += s.best.front().budget.stage_name + "\n";
+  if (!s.best.empty())
+    out += EscapeText(s.best.front().budget.stage_name) + "\n";
   out += "  " + SearchSpace(q) + "\n";
   out += "  gain " + SearchGain(q) + "\n";
   out += "  " + SearchCounts(s) + "\n";

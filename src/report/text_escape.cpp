@@ -3,7 +3,13 @@
 #include <cctype>
 #include <cstdio>
 
+#include "base/control_characters.h"
+
 namespace hushgain {
+
+std::string EscapeText(std::string_view text) {
+  return EscapeControlCharacters(text, LineBreaks::kEscape);
+}
 
 std::string EscapeMarkdown(std::string_view text) {
   std::string out;
@@ -32,7 +38,7 @@ std::string EscapeMarkdown(std::string_view text) {
         out += c;
     }
   }
-  return out;
+  return EscapeControlCharacters(out, LineBreaks::kEscape);
 }
 
 std::string CsvField(std::string_view text) {

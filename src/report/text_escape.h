@@ -8,10 +8,16 @@
 
 namespace hushgain {
 
+// Plain text for the text reports: one line, every control character made
+// visible (\n, \r, \t, \xHH, \u00HH: base/control_characters.h), so a stage
+// name cannot split a line or drive the terminal (ESC, BEL, CSI).
+std::string EscapeText(std::string_view text);
+
 // Markdown (CommonMark / GitHub tables): a backslash before each of
 //   \ ` * _ [ ] < > | ~ #
 // (all ASCII punctuation may be backslash-escaped in CommonMark); line
-// breaks become spaces, so a cell or heading stays on one line.
+// breaks become spaces, so a cell or heading stays on one line; other
+// control characters are made visible as EscapeText does.
 std::string EscapeMarkdown(std::string_view text);
 
 // One CSV field per RFC 4180: quoted when it holds a comma, a double quote,

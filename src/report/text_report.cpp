@@ -9,6 +9,7 @@
 #include "report/budget_tables.h"
 #include "report/real_parts_text.h"
 #include "report/table.h"
+#include "report/text_escape.h"
 
 namespace hushgain {
 namespace {
@@ -22,7 +23,7 @@ std::string Density(double value, const std::string& unit) {
 }
 
 std::string Header(const Budget& b) {
-  std::string out = b.stage_name + "\n";
+  std::string out = EscapeText(b.stage_name) + "\n";
   out += "  temperature " + Printf("%.2f", b.temperature_k - kZeroCelsiusK) +
          " \xC2\xB0"
          "C (" +

@@ -189,7 +189,7 @@ std::string TiaSuggestionReport(const std::string& format, const Stage& stage,
            EscapeMarkdown(EstimateLine(s)) + ".\n\n" + RenderMarkdown(table) +
            "\n" + EscapeMarkdown(BandLine(stage)) + "; " +
            EscapeMarkdown(HeadroomLine(s)) + ".\n";
-  return stage.name + "\n  " + TargetLine(target_hz) + "\n  " +
+  return EscapeText(stage.name) + "\n  " + TargetLine(target_hz) + "\n  " +
          EstimateLine(s) + "\n\n" + RenderText(table) + "  " + BandLine(stage) +
          "\n  " + HeadroomLine(s) + "\n";
 }

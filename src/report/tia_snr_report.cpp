@@ -116,7 +116,8 @@ std::string TiaSnrReport(const std::string& format, const Stage& stage,
            RenderMarkdown(table) + warnings;
   }
   for (const std::string& w : r.warnings) warnings += "\nwarning: " + w + "\n";
-  return stage.name + "\n  SNR against optical power over the band: signal " +
+  return EscapeText(stage.name) +
+         "\n  SNR against optical power over the band: signal " +
          "current R x P against the input noise rms\n  " + LightLine(r) +
          "\n  " + NepLine(r) + "\n  " + SaturationLine(r) + "\n\n" +
          RenderText(table) + warnings;

@@ -35,6 +35,13 @@ TEST_CASE("markdown escaping keeps names as text on one line") {
   CHECK(EscapeMarkdown("two\nlines") == "two lines");
 }
 
+TEST_CASE("markdown and text escaping show control characters") {
+  // ESC starts an ECMA-48 escape sequence and BEL rings the bell: shown as
+  // text (a backslash before x or u is a literal backslash in CommonMark).
+  CHECK(EscapeMarkdown("a\x1b]0;t\x07 b") == "a\\x1b\\]0;t\\x07 b");
+  CHECK(EscapeText("a\x1b[31m\r\nb") == "a\\x1b[31m\\r\\nb");
+}
+
 TEST_CASE("csv fields are quoted only when they need it") {
   // RFC 4180 section 2, rules 5 to 7.
   CHECK(CsvField("R1") == "R1");
