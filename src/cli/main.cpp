@@ -168,7 +168,9 @@ std::function<int()> DefineTee(CLI::App* app, const GlobalOptions& global) {
                 "smallest R_in with --free-input (default --min)");
   q->add_option("--input-max", search->input_max,
                 "largest R_in with --free-input (default --max)");
-  q->add_option("--rank", search->rank, "noise, offset or weighted (noise)");
+  q->add_option("--rank", search->rank,
+                "input-noise, noise (output), offset or weighted "
+                "(input-noise)");
   q->add_option("--offset-weight", search->offset_weight,
                 "offset weight of --rank weighted, 0 to 1 (0.5)");
   q->add_option("--top", search->top, "how many networks to show (10)")

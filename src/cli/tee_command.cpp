@@ -85,8 +85,8 @@ int Refused(const std::string& path, const Status& status) {
 
 TeeRanking ParseRanking(const std::string& text) {
   std::vector<std::string> words;
-  for (TeeRanking r :
-       {TeeRanking::kNoise, TeeRanking::kOffset, TeeRanking::kWeighted}) {
+  for (TeeRanking r : {TeeRanking::kInputNoise, TeeRanking::kNoise,
+                       TeeRanking::kOffset, TeeRanking::kWeighted}) {
     if (text == TeeRankingWord(r)) return r;
     words.push_back(TeeRankingWord(r));
   }

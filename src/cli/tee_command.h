@@ -38,9 +38,10 @@ struct TeeSearchCommandOptions {
   std::string gain;  // empty: the stage's own
   std::string gain_tolerance = "1%";
   bool free_input = false;
-  std::string input_min;       // empty: the same as min
-  std::string input_max;       // empty: the same as max
-  std::string rank = "noise";  // noise, offset, weighted
+  std::string input_min;  // empty: the same as min
+  std::string input_max;  // empty: the same as max
+  // input-noise, noise (output), offset, weighted
+  std::string rank = "input-noise";
   double offset_weight = 0.5;
   int top = 10;
   int threads = 0;              // 0: one per core

@@ -65,7 +65,33 @@ ClosedFormModel MakeClosedFormModel(const Stage& stage) {
   m.half_ios_a = 0.5 * std::fabs(op.ios_a);
   m.plus_mode = stage.plus_resistor.mode;
   m.plus_ohm = stage.plus_resistor.ohms;
+  m.open_loop_gain = op.open_loop_gain;
+  m.output_ohm = op.output_resistance_ohm;
+  m.load_siemens = stage.load_ohm ? 1 / *stage.load_ohm : 0;
   return m;
+}
+
+double ClosedFormTeeDcGain(const ClosedFormModel& m, double r_in, double r1,
+                           double r2, double r3) {
+  // Eliminate v_t with the first equation and v_o with the second:
+  // v_t = a v_n - b, v_o = c v_n - d; the third gives v_n.
+  const double ga = 1 / (m.source_ohm + r_in);
+  const double g1 = 1 / r1, g2 = 1 / r2, g3 = 1 / r3;
+  const double sum = g1 + g2 + g3;
+  const double a = (ga + g1) / g1;
+  const double b = ga / g1;
+  const double c = (sum * a - g1) / g2;
+  const double d = sum * b / g2;
+  const double a0 = m.open_loop_gain;
+  double v_n = 0;
+  if (m.output_ohm > 0) {
+    const double go = 1 / m.output_ohm;
+    const double so = g2 + m.load_siemens + go;
+    v_n = (so * d - g2 * b) / (so * c - g2 * a + go * a0);
+  } else {
+    v_n = d / (c + a0);
+  }
+  return std::fabs(c * v_n - d);
 }
 
 ClosedFormFigures ClosedFormTee(const ClosedFormModel& model, double r_in,

@@ -19,6 +19,17 @@
 // + input resistor (none, a value, or "auto" = Ra || (R1 + R2 || R3)).
 // The load draws no noise at an ideal output. The worst-case DC offset is
 //   |Vos| NG + |Ib (Req - Rp NG)| + |Ios|/2 (Req + Rp NG).
+//
+// The DC gain with the op-amp's finite open-loop gain A0 and output
+// resistance R_o into the load R_L (the macro model of
+// analysis/mna_system.h at f = 0: a controlled source A0 (v+ - v-) behind
+// R_o, no input current) is the nodal solution of the summing node n, the
+// T's centre t and the output o with the source at 1 V (v+ = 0):
+//   (ga + g1) v_n - g1 v_t = ga
+//   -g1 v_n + (g1 + g2 + g3) v_t - g2 v_o = 0
+//   -g2 v_t + (g2 + gL + go) v_o + go A0 v_n = 0      (R_o > 0)
+//   v_o = -A0 v_n                                     (R_o = 0)
+// with g = 1/R. It tends to -Req/Ra as A0 grows.
 #ifndef HUSHGAIN_DESIGN_CLOSED_FORM_BUDGET_H_
 #define HUSHGAIN_DESIGN_CLOSED_FORM_BUDGET_H_
 
@@ -38,7 +49,10 @@ struct ClosedFormModel {
   double ib_a = 0;        // Ib, signed
   double half_ios_a = 0;  // |Ios| / 2
   PlusResistor::Mode plus_mode = PlusResistor::Mode::kNone;
-  double plus_ohm = 0;  // kValue
+  double plus_ohm = 0;        // kValue
+  double open_loop_gain = 0;  // A0 at DC
+  double output_ohm = 0;      // R_o
+  double load_siemens = 0;    // 1 / R_L, 0 without a load
 };
 
 ClosedFormModel MakeClosedFormModel(const Stage& stage);
@@ -55,6 +69,11 @@ struct ClosedFormFigures {
 // A T network R1, R2, R3 with input resistor R_in.
 ClosedFormFigures ClosedFormTee(const ClosedFormModel& model, double r_in,
                                 double r1, double r2, double r3);
+
+// |DC gain| of a T network with the finite A0, R_o and load of the model
+// (the nodal solution above).
+double ClosedFormTeeDcGain(const ClosedFormModel& model, double r_in, double r1,
+                           double r2, double r3);
 
 // The plain stage: one feedback resistor Rf.
 ClosedFormFigures ClosedFormPlain(const ClosedFormModel& model, double r_in,

@@ -24,10 +24,15 @@ constexpr double kBoundSlack = 1e-9;
 constexpr double kIntervalSlack = 1e-12;
 // Rows handed to a worker at a time.
 constexpr int kRowsPerGrab = 8;
-// Full-engine budgets at most, for the ranking (about 0.5 ms each). Where
-// thousands of networks lie within the margin of each other, their order
-// is finer than anything a designer acts on.
+// Full-engine budgets at most for the rankings without a proven bound
+// (output noise, weighted; about 0.5 ms each). Where thousands of networks
+// lie within the margin of each other, their order is finer than anything a
+// designer acts on. The exact rankings have no cap.
 constexpr std::size_t kMaxVerified = 512;
+// A candidate's closed-form DC gain passes the window when within the
+// tolerance plus this (relative to the target): rounding between the closed
+// form and the engine's solve, so that the engine's gain decides.
+constexpr double kGainSlack = 1e-9;
 
 // The total order of candidates: figure of merit, then the values.
 struct Key {
@@ -53,8 +58,10 @@ struct Scorer {
   double noise_ref = 0;
   double offset_ref = 0;
 
-  double operator()(double rms, double offset) const {
+  double operator()(double rms, double offset, double input_rms) const {
     switch (ranking) {
+      case TeeRanking::kInputNoise:
+        return input_rms;
       case TeeRanking::kNoise:
         return rms;
       case TeeRanking::kOffset:
@@ -74,6 +81,15 @@ struct Scorer {
 struct Sweep {
   const TeeSearchOptions* options = nullptr;
   ClosedFormModel model;
+  // The model without the + input resistor, whose noise a bypass capacitor
+  // or the input capacitance may remove: the input-noise bound's.
+  ClosedFormModel bound_model;
+  // The ideal gain Req/Ra of a network whose DC gain (finite A0) is in the
+  // window is below ideal_gain_max (header: the DC gain's shortfall).
+  double ideal_gain_max = kInf;
+  // 1 / (1 + delta): the smallest DC gain / ideal gain of any network.
+  double loop_factor_min = 0;
+  double bound_factor = 1;  // 1 - epsilon of the ranking (header)
   Scorer scorer;
   std::vector<double> values;
   std::vector<double> inv_values;
@@ -114,7 +130,19 @@ double LowerBound(const Sweep& s, double ra, double g_lo, double r1_lb,
       m.e_n_power * ng * ng +
       m.i_n_power * (req_lo * req_lo + rp_lb * rp_lb * ng * ng);
   const double offset = m.vos_v * ng + m.half_ios_a * (req_lo + rp_lb * ng);
-  return s.scorer(std::sqrt(power), offset) * (1 - kBoundSlack);
+  // The input-referred bound's terms over G^2 fall as G grows: take the
+  // largest ideal gain of the window (no + input resistor terms).
+  double input_rms = 0;
+  if (s.scorer.ranking == TeeRanking::kInputNoise) {
+    const double gm = s.ideal_gain_max;
+    const double q = (1 + k_lb) / gm;  // 0 when the window is unbounded
+    const double in_power =
+        m.thermal_w * (ra + r1_lb * (1 + k_lb) * q / gm + r2_lb * q / gm) +
+        m.e_n_power * (1 + q) * (1 + q) + m.i_n_power * ra * ra;
+    input_rms = std::sqrt(in_power);
+  }
+  return s.scorer(std::sqrt(power), offset * s.loop_factor_min, input_rms) *
+         s.bound_factor * (1 - kBoundSlack);
 }
 
 double PlusLowerBound(const Sweep& s, double ra, double fb_lb) {
@@ -164,11 +192,14 @@ void Worker(Sweep& s, WorkerOut* out) {
   const double g = o.target_gain;
   const double tol = o.gain_tolerance;
   const double g_lo = g * (1 - tol);
-  const double g_hi = g * (1 + tol);
   Heap heap(HeapLess);
   std::vector<double> power(n);
-  const bool need_offset = o.ranking != TeeRanking::kNoise;
-  const bool need_rms = o.ranking != TeeRanking::kOffset;
+  const bool need_offset =
+      o.ranking == TeeRanking::kOffset || o.ranking == TeeRanking::kWeighted;
+  const bool need_power = o.ranking != TeeRanking::kOffset;
+  // The input-noise bound leaves out the + input resistor's terms.
+  const ClosedFormModel& power_model =
+      o.ranking == TeeRanking::kInputNoise ? s.bound_model : s.model;
 
   for (;;) {
     if (o.cancel && o.cancel->load(std::memory_order_relaxed)) break;
@@ -183,7 +214,7 @@ void Worker(Sweep& s, WorkerOut* out) {
       const double ra = s.model.source_ohm + r_in;
       const double r1 = v[spec.i1];
       const double req_lo = g_lo * ra;
-      const double req_hi = g_hi * ra;
+      const double req_hi = s.ideal_gain_max * ra;  // may be infinite
       double threshold = s.threshold.load(std::memory_order_relaxed);
       if (spec.bound > threshold) {
         ++out->rows_pruned;
@@ -196,7 +227,9 @@ void Worker(Sweep& s, WorkerOut* out) {
         const double r2 = v[i2];
         const double sum = r1 + r2;
         if (sum >= req_hi) break;
-        const double r3_lo = r1 * r2 / (req_hi - sum) * (1 - kIntervalSlack);
+        const double r3_lo = std::isinf(req_hi) ? 0
+                                                : r1 * r2 / (req_hi - sum) *
+                                                      (1 - kIntervalSlack);
         if (r3_lo > vmax) break;
         const double r3_hi =
             req_lo > sum ? r1 * r2 / (req_lo - sum) * (1 + kIntervalSlack)
@@ -205,22 +238,36 @@ void Worker(Sweep& s, WorkerOut* out) {
         if (hi < lo) hi = lo;
         while (hi < n && v[hi] <= r3_hi) ++hi;
         if (lo >= hi) continue;
-        ClosedFormTeePowerRow(s.model, r_in, r1, r2, &s.inv_values[lo], hi - lo,
-                              power.data());
+        if (need_power)
+          ClosedFormTeePowerRow(power_model, r_in, r1, r2, &s.inv_values[lo],
+                                hi - lo, power.data());
         for (int i3 = lo; i3 < hi; ++i3) {
-          // The exact gain test, with the arithmetic of the power row.
+          // The DC gain is below the ideal Req / Ra: below the window's
+          // lower edge already, the network cannot be in tolerance.
           const double k = r2 * s.inv_values[i3];
-          const double gain = (r1 + r2 + r1 * k) * inv_ra;
-          if (!(std::fabs(gain - g) <= tol * g)) continue;
+          const double ideal_gain = (r1 + r2 + r1 * k) * inv_ra;
+          if (ideal_gain < g_lo * (1 - kGainSlack)) continue;
+          // The tolerance applies to the DC gain with A0, R_o and the load.
+          const double dc_gain =
+              ClosedFormTeeDcGain(s.model, r_in, r1, r2, v[i3]);
+          if (!(std::fabs(dc_gain - g) <= (tol + kGainSlack) * g)) continue;
           ++out->in_tolerance;
-          const double rms = need_rms ? std::sqrt(power[i3 - lo]) : 0;
+          const double rms = need_power ? std::sqrt(power[i3 - lo]) : 0;
           double offset = 0;
-          ClosedFormFigures figures;
-          if (need_offset) {
-            figures = ClosedFormTee(s.model, r_in, r1, r2, v[i3]);
-            offset = figures.offset_worst_case_v;
+          if (need_offset)
+            offset =
+                ClosedFormTee(s.model, r_in, r1, r2, v[i3]).offset_worst_case_v;
+          double score = 0;
+          switch (o.ranking) {
+            case TeeRanking::kInputNoise:
+              score = rms / ideal_gain * s.bound_factor;
+              break;
+            case TeeRanking::kOffset:
+              score = offset * (dc_gain / ideal_gain) * s.bound_factor;
+              break;
+            default:
+              score = s.scorer(rms, offset, 0);
           }
-          const double score = s.scorer(rms, offset);
           if (score > threshold) continue;
           const Key key{score, r_in, r1, r2, v[i3]};
           if (heap.size() >= s.pool && !(key < heap.top().first)) continue;
@@ -262,6 +309,8 @@ SweepOutcome RunSweep(const Stage& stage, const TeeSearchOptions& o,
   Sweep s;
   s.options = &o;
   s.model = MakeClosedFormModel(stage);
+  s.bound_model = s.model;
+  s.bound_model.plus_mode = PlusResistor::Mode::kNone;
   s.scorer = scorer;
   s.values = o.values;
   for (double x : s.values) s.inv_values.push_back(1 / x);
@@ -272,6 +321,10 @@ SweepOutcome RunSweep(const Stage& stage, const TeeSearchOptions& o,
   const double vmin = s.values.front();
   const double vmax = s.values.back();
   const double g_lo = o.target_gain * (1 - o.gain_tolerance);
+  const DcGainWindow window = WindowOf(s.model, o, vmin, vmax);
+  s.ideal_gain_max = window.ideal_gain_max;
+  s.loop_factor_min = window.loop_factor_min;
+  s.bound_factor = BoundFactor(o);
   for (std::uint32_t in = 0; in < s.inputs.size(); ++in) {
     const double ra = s.model.source_ohm + s.inputs[in];
     for (std::uint32_t i1 = 0; i1 < s.values.size(); ++i1) {
@@ -324,6 +377,38 @@ std::string Describe(const TeeCandidate& c) {
 }
 
 }  // namespace
+
+DcGainWindow WindowOf(const ClosedFormModel& model,
+                      const TeeSearchOptions& options, double vmin,
+                      double vmax) {
+  DcGainWindow w;
+  const double g_hi = options.target_gain * (1 + options.gain_tolerance);
+  // The output divider: R_o into the load in parallel with the T network,
+  // which loads the output with at least R2 >= vmin.
+  double rho = 1;
+  if (model.output_ohm > 0) {
+    const double r_eff = 1 / (1 / vmin + model.load_siemens);
+    rho = r_eff / (r_eff + model.output_ohm);
+  }
+  const double ng_max = 1 + vmax / vmin + 2 * g_hi;
+  const double t_min = model.open_loop_gain * rho / ng_max;
+  if (t_min > 4) {
+    const double delta = 2 / t_min + 1e-6;
+    w.ideal_gain_max = g_hi * (1 + delta) * (1 + kGainSlack);
+    w.loop_factor_min = 1 / (1 + delta);
+  }
+  return w;
+}
+
+double BoundFactor(const TeeSearchOptions& options) {
+  switch (options.ranking) {
+    case TeeRanking::kInputNoise:
+    case TeeRanking::kOffset:
+      return 1 - 1e-6;
+    default:
+      return 1;
+  }
+}
 
 std::string TeeSearchOptions::Validate() const {
   auto sorted_positive = [](const std::vector<double>& xs) {
@@ -386,7 +471,8 @@ double FullScore(const Budget& budget, const TeeSearchOptions& options,
                  double noise_ref_v, double offset_ref_v) {
   Scorer scorer{options.ranking, options.offset_weight, noise_ref_v,
                 offset_ref_v};
-  return scorer(budget.output_rms_v, budget.offset.worst_case_v);
+  return scorer(budget.output_rms_v, budget.offset.worst_case_v,
+                budget.input_rms);
 }
 
 TeeSearchResult SearchTee(const Stage& stage, const TeeSearchOptions& o) {
@@ -446,9 +532,15 @@ TeeSearchResult SearchTee(const Stage& stage, const TeeSearchOptions& o) {
 
   // Verification by the full engine, in closed-form order, in batches of a
   // fixed size so that the stop rule sees the same sequence on any number
-  // of threads.
+  // of threads. Only networks whose engine DC gain is within the tolerance
+  // are ranked.
+  const bool exact =
+      o.ranking == TeeRanking::kInputNoise || o.ranking == TeeRanking::kOffset;
+  const double g = o.target_gain;
   std::vector<TeeCandidate> verified;
   std::vector<std::pair<Key, int>> ranked;  // full-engine keys of verified
+  int budgets = 0;
+  bool bound_failed = false;
   double ratio_min = kInf;
   std::size_t next = 0;
   for (;;) {
@@ -466,7 +558,7 @@ TeeSearchResult SearchTee(const Stage& stage, const TeeSearchOptions& o) {
       if (next >= sweep.pool.size()) break;
     }
     const std::size_t batch_size =
-        verified.empty() ? static_cast<std::size_t>(o.top) : 8;
+        budgets == 0 ? static_cast<std::size_t>(o.top) : 8;
     const std::size_t end = std::min(sweep.pool.size(), next + batch_size);
     std::vector<BudgetOutcome> outcomes(end - next);
     ParallelFor(static_cast<int>(end - next), o.threads, [&](int i) {
@@ -482,22 +574,48 @@ TeeSearchResult SearchTee(const Stage& stage, const TeeSearchOptions& o) {
             Status::Fail(Describe(c) + ": " + outcomes[i].status.message);
         return result;
       }
+      ++budgets;
       c.budget = std::move(outcomes[i].budget);
       c.score = FullScore(c.budget, o, noise_ref, offset_ref);
-      if (c.closed_score > 0)
+      if (!(std::fabs(std::fabs(c.budget.signal_gain_dc) / g - 1) <=
+            o.gain_tolerance))
+        continue;
+      // The full figure carries the integrator's error (relative, on the
+      // total power: at most 3 tol on an rms with margin).
+      const double check = o.ranking == TeeRanking::kInputNoise
+                               ? 1 - 3 * o.budget.integration.relative_tolerance
+                               : 1.0;
+      if (exact && c.score < c.closed_score * check && !bound_failed) {
+        bound_failed = true;
+        result.warnings.push_back(
+            "the closed-form bound failed for " + Describe(c) +
+            " (the full engine's figure is below it): the list may miss a "
+            "network that belongs in it");
+      }
+      if (!exact && c.closed_score > 0)
         ratio_min = std::min(ratio_min, c.score / c.closed_score);
       ranked.push_back({KeyOf(c, c.score), static_cast<int>(verified.size())});
       verified.push_back(std::move(c));
     }
     next = end;
     if (result.cancelled) break;
-    if (verified.size() >= kMaxVerified) {
+    const bool full_top = ranked.size() >= static_cast<std::size_t>(o.top);
+    if (exact) {
+      // Every unverified network's full figure is at least its bound, and
+      // the pool is in order of the bound: once the next bound is above
+      // the top-th verified figure, no unverified network can enter.
+      if (full_top && next < sweep.pool.size()) {
+        std::sort(ranked.begin(), ranked.end());
+        if (sweep.pool[next].closed_score > ranked[o.top - 1].first.score)
+          break;
+      }
+      continue;
+    }
+    if (static_cast<std::size_t>(budgets) >= kMaxVerified) {
       std::string why = "verification stopped after " +
-                        std::to_string(verified.size()) +
-                        " full-engine budgets";
-      if (next < sweep.pool.size() &&
-          ranked.size() >= static_cast<std::size_t>(o.top) &&
-          ratio_min < kInf && ratio_min > 0) {
+                        std::to_string(budgets) + " full-engine budgets";
+      if (next < sweep.pool.size() && full_top && ratio_min < kInf &&
+          ratio_min > 0) {
         std::sort(ranked.begin(), ranked.end());
         // How far below the smallest full/closed ratio seen an unverified
         // network's ratio would have to fall to enter the top.
@@ -517,10 +635,8 @@ TeeSearchResult SearchTee(const Stage& stage, const TeeSearchOptions& o) {
     }
     // Without a positive closed-form figure there is no ratio to bound the
     // rest with: the closed-form order stands.
-    if (ratio_min == kInf && verified.size() >= static_cast<std::size_t>(o.top))
-      break;
-    if (ranked.size() >= static_cast<std::size_t>(o.top) &&
-        next < sweep.pool.size()) {
+    if (ratio_min == kInf && full_top) break;
+    if (full_top && next < sweep.pool.size()) {
       std::sort(ranked.begin(), ranked.end());
       const double top_score = ranked[o.top - 1].first.score;
       const double bound =
@@ -528,7 +644,7 @@ TeeSearchResult SearchTee(const Stage& stage, const TeeSearchOptions& o) {
       if (bound > top_score) break;
     }
   }
-  result.verified = static_cast<int>(verified.size());
+  result.verified = budgets;
   std::sort(ranked.begin(), ranked.end());
   const std::size_t shown = std::min<std::size_t>(o.top, ranked.size());
   for (std::size_t i = 0; i < shown; ++i)

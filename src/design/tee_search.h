@@ -1,37 +1,70 @@
 // The standard-value T-network search: every (R1, R2, R3) drawn from a
 // sorted list of values (and, with a free input resistor, every R_in from a
-// second list) whose closed-loop gain Req / (R_source + R_in) lies within a
-// relative tolerance of the target, ranked by a figure of merit; the best
-// `top` are re-verified by the full engine and ranked by its figures.
+// second list) whose DC gain, as the full engine computes it (finite A0,
+// output resistance, load), lies within a relative tolerance of the target,
+// ranked by a figure of merit; only networks the full engine finds in
+// tolerance are listed, in the full engine's order.
+//
+// What is guaranteed. For the rankings by input-referred noise (the
+// default) and by offset, the list is the true top N of every network in
+// tolerance under the full engine's figure (for input noise: to the
+// integrator's accuracy, below):
+//  - Gain. The DC gain is below the ideal Req/Ra (the loop's T/(1+T) < 1;
+//    design/closed_form_budget.h gives it exactly for the macro model), so a
+//    network with Req/Ra below the window cannot be in it; above it, the
+//    shortfall is at most delta = 2/T_min + 1e-6 with the smallest loop gain
+//    T_min = A0 rho / NG_max (rho: R_o into the load parallel to R2 >= the
+//    smallest value; NG_max = 1 + vmax/vmin + 2 g_hi). Every network whose
+//    closed-form DC gain is within the tolerance (+1e-9) is a candidate;
+//    the engine's gain then decides.
+//  - Input noise. With an ideal op-amp the input-referred density of R_in,
+//    R_source, R1, R2, R3 and i_n- is exactly the closed form's at every
+//    frequency (each injects a current into the virtual ground that does
+//    not depend on C_f or the pin capacitances: referred through the input
+//    admittance 1/Ra, which is real), and e_n's is at least the closed
+//    form's (|Y_f + 1/Ra + Y_arm + j w C| / (1/Ra) is at least its real
+//    part, the DC value). The finite loop gain cancels between the signal
+//    and every source it does not bypass. So the full figure is at least
+//    sqrt(P0)/(Req/Ra), P0 the closed-form power without the + input
+//    resistor's terms (a bypass capacitor may remove those); the bound is
+//    that times 1 - 1e-6 (rounding, the output resistance's feedthrough).
+//    The engine's figure itself is exact only to the integrator's relative
+//    tolerance tol on the power, so a network left out is at worst
+//    3 tol below the N-th listed (networks that close differ by less than
+//    the figures' own accuracy), and a verified network counts as breaking
+//    the bound only when it falls below it by more than 3 tol.
+//  - Offset. The DC offsets pass through the loop as the signal does: the
+//    full figure is the closed form times DC gain / ideal gain, less 1e-6.
+// The candidates are ordered by that bound and verified until the next
+// bound exceeds the N-th verified figure. Every verified network is checked
+// against its bound; a failure is a warning (the list may then miss one).
+// For output noise and the weighted figure there is no such bound: the full
+// engine verifies the closed-form best until the next one's closed-form
+// figure times the smallest full/closed ratio seen, less `verify_margin`,
+// is worse than the N-th, at most 512 budgets (a warning says so).
 //
 // How it stays exhaustive and fast:
-//  1. For each (R_in, R1) the gain window fixes Req in [Req_lo, Req_hi], so
+//  1. For each (R_in, R1) the gain window fixes Req in an interval, so
 //     R3 = R1 R2 / (Req - R1 - R2) lies in an interval that moves up with
 //     R2; a two-pointer walk over the sorted R3 values finds the candidates
-//     of every R2 without scanning (the exact gain test then decides).
-//  2. Closed-form lower bounds (ideal op-amp, design/closed_form_budget.h)
-//     of the figure over all R2, R3 for a given (R_in, R1), and over all R1
-//     for a given R_in, skip whole rows that cannot beat the current pool
-//     (a strict comparison, so the result does not depend on the order).
-//  3. Survivors are scored by the closed-form budget and kept in a pool of
-//     the best `pool` candidates (ties broken on R_in, R1, R2, R3).
-//  4. The full engine (finite GBW, every contributor, band integration)
-//     verifies pool members in closed-form order until no unverified one
-//     can enter the top: verification stops when the next candidate's
-//     closed-form figure times the smallest full/closed ratio seen so far,
-//     less `verify_margin`, is worse than the current top-th full figure.
-//     When the pool runs out first, the search runs again with a pool four
-//     times larger. At most 512 budgets are computed (a warning says so).
-//     The shown ranking is the full engine's.
-// Work is shared between `threads` std::threads by rows; the answer is the
-// same for any thread count. Nothing here prints: progress reaches the
-// caller through a callback, cancellation through an atomic flag.
+//     of every R2 without scanning (the DC gain test then decides).
+//  2. Lower bounds of the figure over all R2, R3 for a given (R_in, R1)
+//     skip whole rows that cannot beat the current pool (a strict
+//     comparison, so the result does not depend on the order).
+//  3. Survivors are kept in a pool of the best `pool` candidates (ties
+//     broken on R_in, R1, R2, R3); when verification exhausts it, the
+//     search runs again with a pool four times larger.
+// Work is shared between `threads` workers by rows; the list and every
+// count reported are the same for any thread count. Nothing here prints:
+// progress reaches the caller through a callback, cancellation through an
+// atomic flag.
 #ifndef HUSHGAIN_DESIGN_TEE_SEARCH_H_
 #define HUSHGAIN_DESIGN_TEE_SEARCH_H_
 
 #include <atomic>
 #include <cstdint>
 #include <functional>
+#include <limits>
 #include <string>
 #include <vector>
 
@@ -45,9 +78,10 @@
 namespace hushgain {
 
 enum class TeeRanking {
-  kNoise,     // total output noise rms over the band
-  kOffset,    // worst-case output offset at DC
-  kWeighted,  // (1 - w) noise / noise_ref + w offset / offset_ref
+  kInputNoise,  // input-referred noise rms over the band (the default)
+  kNoise,       // total output noise rms over the band
+  kOffset,      // worst-case output offset at DC
+  kWeighted,    // (1 - w) noise / noise_ref + w offset / offset_ref
 };
 
 // The documented range of --top: 1 to 10000.
@@ -63,7 +97,7 @@ struct TeeSearchOptions {
   double target_gain = 0;
   // Relative: |gain / target - 1| <= gain_tolerance. Default 1 %.
   double gain_tolerance = 0.01;
-  TeeRanking ranking = TeeRanking::kNoise;
+  TeeRanking ranking = TeeRanking::kInputNoise;
   // kWeighted: the weight w of the offset, in [0, 1]. The references are the
   // figures of the stage as given (closed form for the closed-form score,
   // full engine for the shown one); a zero reference drops its term.
@@ -108,10 +142,11 @@ struct TeeSearchResult {
   Status status;                   // numerical trouble in a full-engine budget
   std::vector<TeeCandidate> best;  // at most `top`, best first
   std::uint64_t combinations = 0;  // size of the space before pruning
-  std::uint64_t in_tolerance = 0;  // closed-form evaluations (gain met);
-                                   // rows skipped by a bound not counted
+  // Work counters for benchmarks: they depend on how the workers met the
+  // pool's threshold, so they vary with the thread count; not reported.
+  std::uint64_t in_tolerance = 0;  // closed-form evaluations (gain met)
   std::uint64_t rows_pruned = 0;   // (R_in, R1) rows skipped by a bound
-  int verified = 0;                // full-engine budgets for the ranking
+  int verified = 0;                // full-engine budgets computed
   bool cancelled = false;
   std::vector<std::string> warnings;
 };
@@ -120,6 +155,22 @@ struct TeeSearchResult {
 // R_plus mode, load) and, when input_values is empty, R_in. Options must be
 // valid (asserted).
 TeeSearchResult SearchTee(const Stage& stage, const TeeSearchOptions& options);
+
+// The ideal-gain window of the search (see "Gain" above): a network whose
+// DC gain is at most g_hi has Req/Ra below ideal_gain_max (infinite when
+// the loop gain may be below 4), and DC gain / ideal gain at least
+// loop_factor_min (0 then).
+struct DcGainWindow {
+  double ideal_gain_max = std::numeric_limits<double>::infinity();
+  double loop_factor_min = 0;
+};
+DcGainWindow WindowOf(const ClosedFormModel& model,
+                      const TeeSearchOptions& options, double vmin,
+                      double vmax);
+
+// 1 - epsilon of the ranking's bound: 1 - 1e-6 for input noise and offset,
+// 1 otherwise.
+double BoundFactor(const TeeSearchOptions& options);
 
 // The stage with R_in and the T network replaced.
 Stage WithTee(const Stage& stage, double r_in, double r1, double r2, double r3);

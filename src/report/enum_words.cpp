@@ -50,6 +50,8 @@ const char* TiaLimitWord(TiaLimit limit) {
 
 const char* TeeRankingWord(TeeRanking ranking) {
   switch (ranking) {
+    case TeeRanking::kInputNoise:
+      return "input-noise";
     case TeeRanking::kNoise:
       return "noise";
     case TeeRanking::kOffset:

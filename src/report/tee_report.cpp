@@ -68,8 +68,7 @@ std::string SearchGain(const TeeSearchQuery& q) {
 
 std::string SearchCounts(const TeeSearchResult& s) {
   return Printf("%.4g", static_cast<double>(s.combinations)) +
-         " combinations, " + std::to_string(s.in_tolerance) +
-         " evaluated in closed form, " + std::to_string(s.verified) +
+         " combinations, " + std::to_string(s.verified) +
          " verified by the full engine";
 }
 
@@ -204,7 +203,6 @@ std::string SearchToJson(const TeeSearchResult& s, const TeeSearchQuery& q) {
   if (q.ranking == TeeRanking::kWeighted)
     out["offset_weight"] = q.offset_weight;
   out["combinations"] = s.combinations;
-  out["evaluated_closed_form"] = s.in_tolerance;
   out["verified_full_engine"] = s.verified;
   out["cancelled"] = s.cancelled;
   json best = json::array();

@@ -38,7 +38,7 @@ struct TeeSearchQuery {
   std::optional<double> input_max_ohm;
   double target_gain = 0;
   double gain_tolerance = 0;
-  TeeRanking ranking = TeeRanking::kNoise;
+  TeeRanking ranking = TeeRanking::kInputNoise;
   double offset_weight = 0;
 };
 

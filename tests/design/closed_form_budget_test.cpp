@@ -161,3 +161,54 @@ TEST_CASE("the power row equals the closed form network by network") {
 
 }  // namespace
 }  // namespace hushgain
+
+namespace hushgain {
+namespace {
+
+TEST_CASE(
+    "the closed-form DC gain equals the engine's with finite A0 and R_o") {
+  // The nodal solution in closed_form_budget.h against the MNA solve of the
+  // whole macro model at DC (finite A0, R_o into a load, pin capacitances
+  // that do not act at DC), for networks whose noise gain spans 10 to 1e4
+  // so that A0 = 2e4 takes from 0.05 % to a third of the ideal gain.
+  OpAmpModel m = test::IdealOpAmp(5e-9, 1e-13);
+  m.open_loop_gain = 2e4;
+  m.gbw_hz = 1e6;
+  m.output_resistance_ohm = 150;
+  m.c_cm_f = 5e-12;
+  struct Net {
+    double r_in, r1, r2, r3;
+  };
+  for (const Net& n : {Net{10e3, 10e3, 10e3, 1e6}, Net{1e3, 47e3, 47e3, 470},
+                       Net{10e3, 100e3, 100e3, 100}, Net{220, 1e3, 2.2e3, 2.2},
+                       Net{4.7e3, 1e6, 33e3, 33e3}}) {
+    for (double load : {0.0, 600.0}) {
+      Stage s = test::TeeStage(n.r_in, n.r1, n.r2, n.r3, m);
+      s.source.resistance_ohm = 50;
+      if (load > 0) s.load_ohm = load;
+      const ClosedFormModel model = MakeClosedFormModel(s);
+      const BudgetOutcome full = ComputeBudget(s, BudgetOptions{});
+      REQUIRE_MESSAGE(full.status.ok, full.status.message);
+      CAPTURE(n.r3);
+      CAPTURE(load);
+      const double closed =
+          ClosedFormTeeDcGain(model, n.r_in, n.r1, n.r2, n.r3);
+      CHECK(test::RelErr(closed, std::fabs(full.budget.signal_gain_dc)) <
+            test::kRelTight);
+      // And below the ideal Req / Ra, the search's window rule.
+      const double ideal = (n.r1 + n.r2 + n.r1 * n.r2 / n.r3) / (50 + n.r_in);
+      CHECK(closed < ideal);
+    }
+  }
+  // R_o = 0: the source's output is the amplifier node itself.
+  m.output_resistance_ohm = 0;
+  Stage s = test::TeeStage(1e3, 47e3, 47e3, 470, m);
+  const BudgetOutcome full = ComputeBudget(s, BudgetOptions{});
+  REQUIRE(full.status.ok);
+  CHECK(test::RelErr(
+            ClosedFormTeeDcGain(MakeClosedFormModel(s), 1e3, 47e3, 47e3, 470),
+            std::fabs(full.budget.signal_gain_dc)) < test::kRelTight);
+}
+
+}  // namespace
+}  // namespace hushgain
