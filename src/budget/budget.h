@@ -9,6 +9,7 @@
 #include <string>
 #include <vector>
 
+#include "budget/chain_block.h"
 #include "budget/dc_output.h"
 #include "budget/stage_problem.h"
 #include "noise/noise_source.h"
@@ -261,6 +262,9 @@ struct Budget {
   std::optional<ExcessAdvice> excess_advice;
   std::optional<TemperatureBlock> temperature;
   std::optional<CompensationBlock> compensation;
+  // The signal chain to the converter (stage file "chain"), composed by
+  // review/review.h; none without a chain.
+  std::optional<ChainBlock> chain;
 
   int integration_evaluations = 0;
   double integration_relative_error = 0;  // estimate

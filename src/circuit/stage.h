@@ -10,6 +10,7 @@
 
 #include "circuit/opamp_model.h"
 #include "circuit/resistor_technology.h"
+#include "circuit/signal_chain.h"
 
 namespace hushgain {
 
@@ -153,6 +154,9 @@ struct Stage {
   // The DC level at the input for the DC solution (excess noise): volts of
   // the voltage source, or amperes of photocurrent; default 0.
   double dc_input = 0;
+  // What follows the stage up to the converter (the "chain" block); none:
+  // the budget ends at the stage's output.
+  std::optional<SignalChain> chain;
 };
 
 // The spec of the netlist resistor named `name` ("R_in", "R1", ...): the

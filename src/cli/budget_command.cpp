@@ -17,9 +17,11 @@
 #include "io/error.h"
 #include "io/read_file.h"
 #include "io/stage_parser.h"
+#include "report/chain_tables.h"
 #include "report/csv_report.h"
 #include "report/json_report.h"
 #include "report/markdown_report.h"
+#include "report/table.h"
 #include "report/text_report.h"
 #include "review/review.h"
 
@@ -46,6 +48,9 @@ int RunBudgetCommand(const BudgetCommandOptions& options) {
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
   const Stage stage =
       LoadStageForCommand(options.stage_path, library, options.device);
+  if (!options.chain_csv_path.empty() && !stage.chain)
+    throw Error("command line", "",
+                "--chain-csv: the stage has no \"chain\" block");
   const ReviewOptions review_options =
       FullReviewOptions(library, options.tolerance);
   const BudgetOutcome outcome = ReviewStage(stage, review_options);
@@ -61,6 +66,10 @@ int RunBudgetCommand(const BudgetCommandOptions& options) {
     WriteFileAtomically(options.spectrum_path,
                         SpectrumToCsv(outcome.budget, spectrum.samples));
   }
+  if (!options.chain_csv_path.empty())
+    WriteFileAtomically(
+        options.chain_csv_path,
+        RenderCsv(ChainTable(outcome.budget, ChainCells::kCsv)));
   const std::string text = Render(outcome.budget, format);
   ReportWarnings(outcome.budget.warnings);
   WriteReport(text, format);

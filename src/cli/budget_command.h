@@ -18,13 +18,18 @@ struct BudgetCommandOptions {
   // the band (kSpectrumPointsPerDecade, band edges included) go to this CSV
   // file (report/csv_report.h SpectrumToCsv), written atomically.
   std::string spectrum_path;
+  // When set, the chain table (report/chain_tables.h, ChainTable in SI
+  // numbers) goes to this CSV file, written atomically; the stage must
+  // have a chain.
+  std::string chain_csv_path;
 };
 
 inline constexpr double kSpectrumPointsPerDecade = 50;
 
 // Prints the budget on stdout; returns an exit code (cli/exit_codes.h).
 // Throws Error for bad input (the caller prints it), naming the option:
-// an unknown --format, or --json beside a --format other than json.
+// an unknown --format, --json beside a --format other than json, or
+// --chain-csv for a stage without a chain.
 int RunBudgetCommand(const BudgetCommandOptions& options);
 
 }  // namespace hushgain

@@ -76,6 +76,9 @@ std::function<int()> DefineBudget(CLI::App* app, const GlobalOptions& global) {
   app->add_option("--spectrum", options->spectrum_path,
                   "also write the output densities across the band to this "
                   "CSV file");
+  app->add_option("--chain-csv", options->chain_csv_path,
+                  "also write the signal chain's table (a stage with a "
+                  "\"chain\" block) to this CSV file");
   app->add_option("--tolerance", options->tolerance,
                   "relative error target of the noise integral (default 1e-4)")
       ->check(NumberValidator());

@@ -6,6 +6,7 @@
 
 #include "base/physical_constants.h"
 #include "circuit/stage_resistors.h"
+#include "io/chain_parser.h"
 #include "io/json_reader.h"
 #include "io/read_file.h"
 #include "io/suggest.h"
@@ -501,6 +502,10 @@ Stage ParseStage(std::string_view json_text, std::string_view source_name,
                         "expected a positive voltage, got " +
                             Dump(top.Get("full_scale_output_V")));
     stage.full_scale_output_v = *fs;
+  }
+  if (top.Has("chain")) {
+    ObjectReader chain = top.Object("chain");
+    stage.chain = ParseChain(chain, stage.band_low_hz);
   }
   top.Finish();
   return stage;

@@ -99,4 +99,18 @@ std::string StageProblemFlags(std::uint32_t bits) {
   return StageProblemFlags(problems);
 }
 
+const char* FilterKindWord(ChainFilter::Kind kind) {
+  switch (kind) {
+    case ChainFilter::Kind::kButterworth:
+      return "butterworth";
+    case ChainFilter::Kind::kBessel:
+      return "bessel";
+    case ChainFilter::Kind::kSinglePole:
+      return "single_pole";
+    case ChainFilter::Kind::kNone:
+      return "none";
+  }
+  return "none";
+}
+
 }  // namespace hushgain

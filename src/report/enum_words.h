@@ -9,6 +9,7 @@
 #include <vector>
 
 #include "budget/stage_problem.h"
+#include "circuit/signal_chain.h"
 #include "design/tee_search.h"
 #include "design/tia_suggest.h"
 #include "noise/noise_source.h"
@@ -22,6 +23,10 @@ const char* NoiseKindWord(NoiseKind kind);
 // The label of the budget table's kind column: "thermal", "shot",
 // "op-amp e_n", "op-amp i_n", "excess 1/f".
 std::string NoiseKindLabel(NoiseKind kind);
+
+// The stage file's words, also in JSON: "butterworth", "bessel",
+// "single_pole", "none".
+const char* FilterKindWord(ChainFilter::Kind kind);
 
 // "noise", "offset" or "weighted" (also the values of `tee search --rank`).
 const char* TeeRankingWord(TeeRanking ranking);

@@ -24,6 +24,63 @@ const char* ChangeName(TeeChange::Kind kind) {
   return "same";
 }
 
+// "chain": the blocks and the fold; "adc": the converter's figures (the
+// keys snr_dB, enob_bits, noise_free_bits, effective_resolution_bits).
+void AddChainJson(const ChainBlock& c, nlohmann::json& out) {
+  using nlohmann::json;
+  json filter = nullptr;
+  if (c.chain.filter) {
+    const ChainFilter& f = *c.chain.filter;
+    filter = {{"kind", FilterKindWord(f.kind)},
+              {"order", f.order},
+              {"cutoff_Hz", f.cutoff_hz},
+              {"gain", f.gain},
+              {"noise_V_per_rtHz", f.noise_v_per_rthz},
+              {"enbw_Hz", c.filter_enbw_hz}};
+  }
+  auto shares = [](const std::vector<ChainNoiseShare>& list) {
+    json a = json::array();
+    for (const ChainNoiseShare& s : list)
+      a.push_back({{"name", s.name}, {"rms_V", s.rms_v}, {"share", s.share}});
+    return a;
+  };
+  out["chain"] = {
+      {"filter", filter},
+      {"gain_dc", c.chain_gain_dc},
+      {"blocks", shares(c.blocks)},
+      {"front_end_contributors", shares(c.front_end_contributors)},
+      {"dominant", c.dominant},
+      {"analog_rms_V", c.analog_rms_v},
+      {"total_rms_V", c.total_rms_v},
+      {"total_lsb_rms", c.adc.noise_lsb_rms},
+      {"fold",
+       {{"nyquist_Hz", c.nyquist_hz},
+        {"in_zone_rms_V", c.in_zone_rms_v},
+        {"folded_rms_V", c.folded_rms_v},
+        {"counted_to_Hz", c.counted_to_hz},
+        {"tail_fraction", c.tail_fraction},
+        {"limited", c.fold_limited},
+        {"below_converter_Hz",
+         c.below_converter_hz > 0 ? json(c.below_converter_hz) : json()},
+        {"converter_density_V_per_rtHz", c.converter_density_v_per_rthz}}},
+  };
+  const ChainAdc& adc = c.chain.adc;
+  out["adc"] = {
+      {"bits", adc.bits},
+      {"full_scale_V", adc.full_scale_v},
+      {"sample_rate_Hz", adc.sample_rate_hz},
+      {"lsb_V", c.adc.lsb_v},
+      {"quantization_rms_V", c.adc.quantization_rms_v},
+      {"own_noise_rms_V", c.adc.own_noise_rms_v},
+      {"noise_rms_V", c.total_rms_v},
+      {"noise_lsb_rms", c.adc.noise_lsb_rms},
+      {"snr_dB", c.adc.snr_db},
+      {"enob_bits", c.adc.enob_bits},
+      {"noise_free_bits", c.adc.noise_free_bits},
+      {"effective_resolution_bits", c.adc.effective_resolution_bits},
+  };
+}
+
 }  // namespace
 
 std::string BudgetToJson(const Budget& b) {
@@ -168,6 +225,7 @@ std::string BudgetToJson(const Budget& b) {
         {"contributors", changes},
     };
   }
+  if (b.chain) AddChainJson(*b.chain, out);
   AddRealPartsJson(b, out);
   json flags = json::array();
   for (StageProblem p : b.problems) flags.push_back(StageProblemWord(p));

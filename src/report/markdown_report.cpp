@@ -7,6 +7,7 @@
 #include "base/printf.h"
 #include "io/units.h"
 #include "report/budget_tables.h"
+#include "report/chain_tables.h"
 #include "report/table.h"
 #include "report/text_escape.h"
 
@@ -156,11 +157,21 @@ std::string TeeSection(const Budget& b) {
   return out;
 }
 
+std::string ChainSection(const Budget& b) {
+  std::string out =
+      "\n### Signal chain to the converter: " + EscapeMarkdown(ChainTitle(b)) +
+      "\n\n";
+  out += RenderMarkdown(ChainTable(b, ChainCells::kDisplay)) + "\n";
+  for (const auto& [label, text] : ChainNotes(b)) out += Item(label, text);
+  return out;
+}
+
 }  // namespace
 
 std::string BudgetToMarkdown(const Budget& b) {
   std::string out = Header(b) + NoiseSection(b) + OffsetSection(b);
   if (b.tee) out += TeeSection(b);
+  if (b.chain) out += ChainSection(b);
   for (const std::string& w : b.warnings)
     out += "\n> warning: " + EscapeMarkdown(w) + "\n";
   return out;

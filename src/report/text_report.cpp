@@ -1,5 +1,6 @@
 #include "report/text_report.h"
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 
@@ -7,6 +8,7 @@
 #include "base/printf.h"
 #include "io/units.h"
 #include "report/budget_tables.h"
+#include "report/chain_tables.h"
 #include "report/real_parts_text.h"
 #include "report/table.h"
 #include "report/text_escape.h"
@@ -152,12 +154,24 @@ std::string TeeSection(const Budget& b) {
   return out;
 }
 
+std::string ChainSection(const Budget& b) {
+  std::string out = "\nSignal chain to the converter: " + ChainTitle(b) + "\n";
+  out += RenderText(ChainTable(b, ChainCells::kDisplay));
+  for (const auto& [label, text] : ChainNotes(b)) {
+    std::string padded = "  " + label;
+    padded.resize(std::max<std::size_t>(padded.size() + 1, 25), ' ');
+    out += padded + text + "\n";
+  }
+  return out;
+}
+
 }  // namespace
 
 std::string BudgetToText(const Budget& b) {
   std::string out = Header(b) + NoiseSection(b) + OffsetSection(b);
   out += RealPartsText(b);
   if (b.tee) out += TeeSection(b);
+  if (b.chain) out += ChainSection(b);
   for (const std::string& w : b.warnings) out += "\nwarning: " + w + "\n";
   return out;
 }

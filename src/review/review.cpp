@@ -1,5 +1,6 @@
 #include "review/review.h"
 
+#include "chain/chain_budget.h"
 #include "circuit/feedback_network.h"
 #include "circuit/stage_at_temperature.h"
 #include "review/compensation_resistor.h"
@@ -56,6 +57,13 @@ BudgetOutcome ReviewStage(const Stage& stage, const ReviewOptions& options) {
       return outcome;
     }
     outcome.budget.temperature = block;
+  }
+  if (options.chain && outcome.stage_used.chain) {
+    ChainOutcome chain = ComputeChain(outcome.stage_used, options.budget);
+    if (!chain.status.ok) return fail(chain.status);
+    outcome.budget.chain = chain.block;
+    for (std::string& w : chain.warnings)
+      outcome.budget.warnings.push_back(std::move(w));
   }
   return outcome;
 }

@@ -7,7 +7,9 @@
 //     feedback resistor equal to the tee's equivalent resistance (review/
 //     tee_comparison.h);
 //   - temperature corners: with a temperature range, the budget at each end
-//     (review/temperature_corners.h).
+//     (review/temperature_corners.h);
+//   - the signal chain: with a chain, the stage's noise through its filter
+//     to its converter (chain/chain_budget.h), on the stage as computed.
 // Each block calls budget/compute_budget.h downward; nothing calls back up,
 // so no flag exists to stop a recursion.
 #ifndef HUSHGAIN_REVIEW_REVIEW_H_
@@ -29,6 +31,8 @@ struct ReviewOptions {
   bool temperature_corners = true;
   // The compensation-resistor block (default on).
   bool compensation = true;
+  // With a chain, the chain block (default on).
+  bool chain = true;
 
   // Empty when valid; otherwise "field: expected ..., got ...".
   std::string Validate() const { return budget.Validate(); }
@@ -36,8 +40,8 @@ struct ReviewOptions {
 
 // The stage must be valid (io validates user input). Returns the budget of
 // the stage with the requested blocks filled in (Budget::compensation,
-// Budget::tee, Budget::temperature); a failed block fails the whole review
-// with its status. Never prints.
+// Budget::tee, Budget::temperature, Budget::chain); a failed block fails the
+// whole review with its status. Never prints.
 BudgetOutcome ReviewStage(const Stage& stage, const ReviewOptions& options);
 
 }  // namespace hushgain

@@ -3,7 +3,8 @@
 // they read every example and device file and the variants below, which
 // take the branches the examples do not (a plain resistor with an automatic
 // capacitor and a phase-margin target, an inline op-amp, every bias-current
-// law, every resistor override); the schemas' keys are collected by walking
+// law, every resistor override, a chain with each way of giving the
+// converter's noise); the schemas' keys are collected by walking
 // "properties" through $ref, allOf/anyOf/oneOf and then/else. Both sides
 // are sets of (JSON pointer of the object, key); the test prints what one
 // side has and the other lacks. A new parser key fails here until the
@@ -194,6 +195,17 @@ TEST_CASE("the stage schema and the stage parser know the same keys") {
       R"({"source": {"noise": {"density": "5n", "corner": "10"},
                      "sensitivity": {"value": "2 mV", "per": "V"}}})"_json);
   ParseStageJson(sensor, "sensor noise and sensitivity variant", library);
+  json chain = Example("load-cell-bridge");
+  chain.merge_patch(R"({"chain": {
+      "filter": {"kind": "bessel", "order": 3, "cutoff": "2k", "gain": 2,
+                 "noise": "20n"},
+      "adc": {"bits": 24, "full_scale": 5, "sample_rate": "10k",
+              "input_noise_rms": "1u"}}})"_json);
+  ParseStageJson(chain, "chain variant", library);
+  json converter = Example("load-cell-bridge");
+  converter.merge_patch(R"({"chain": {"adc": {"bits": 16, "full_scale": 5,
+      "sample_rate": "10k", "snr_dB": 90}}})"_json);
+  ParseStageJson(converter, "converter variant", library);
 
   const Keys schema = SchemaKeys(kSource / "schema/stage.schema.json").keys();
   INFO("in the parser, not in schema/stage.schema.json:\n"

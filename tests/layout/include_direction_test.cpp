@@ -1,7 +1,7 @@
 // The layout rule of DEVELOPERS.md ("includes only point down"), checked on
 // the source tree itself: every `#include "folder/file.h"` in src/ must name
 // the including file's own folder or a folder below it.
-//   cli -> report -> design / montecarlo -> review -> budget
+//   cli -> report -> design / montecarlo -> review -> chain -> budget
 //       -> noise / integrate -> analysis -> circuit -> base
 // and io (files, JSON, units) is used by cli and report only; io itself
 // builds circuit values and may use circuit and base.
@@ -26,9 +26,9 @@ namespace {
 // other.
 const std::map<std::string, int>& Heights() {
   static const std::map<std::string, int> heights = {
-      {"base", 0},       {"circuit", 1}, {"analysis", 2}, {"noise", 3},
-      {"integrate", 3},  {"budget", 4},  {"review", 5},   {"design", 6},
-      {"montecarlo", 6}, {"report", 7},  {"cli", 8},
+      {"base", 0},      {"circuit", 1},    {"analysis", 2}, {"noise", 3},
+      {"integrate", 3}, {"budget", 4},     {"chain", 5},    {"review", 6},
+      {"design", 7},    {"montecarlo", 7}, {"report", 8},   {"cli", 9},
   };
   return heights;
 }
@@ -93,6 +93,9 @@ TEST_CASE("the layout rule accepts downward arrows and refuses upward ones") {
   CHECK(CheckArrow("noise", "budget") == "points up");
   CHECK(CheckArrow("analysis", "noise") == "points up");
   CHECK(CheckArrow("review", "design") == "points up");
+  CHECK(CheckArrow("review", "chain").empty());
+  CHECK(CheckArrow("chain", "budget").empty());
+  CHECK(CheckArrow("chain", "review") == "points up");
   CHECK(CheckArrow("design", "montecarlo") == "side-by-side folders");
   CHECK(CheckArrow("budget", "io") == "only cli and report use io");
   CHECK(CheckArrow("io", "budget") == "io uses only circuit and base");
@@ -116,8 +119,9 @@ TEST_CASE("the computing core includes no file or JSON header") {
       std::filesystem::path(HUSHGAIN_SOURCE_DIR) / "src";
   const std::regex banned(
       R"re(^\s*#\s*include\s+[<"](iostream|fstream|nlohmann/json\.hpp|nlohmann/json_fwd\.hpp)[>"])re");
-  for (const char* room : {"base", "circuit", "analysis", "noise", "integrate",
-                           "budget", "review", "design", "montecarlo"}) {
+  for (const char* room :
+       {"base", "circuit", "analysis", "noise", "integrate", "budget", "chain",
+        "review", "design", "montecarlo"}) {
     for (const auto& entry :
          std::filesystem::recursive_directory_iterator(src / room)) {
       std::ifstream in(entry.path());

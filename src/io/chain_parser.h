@@ -1,0 +1,26 @@
+// The stage file's "chain" block -> SignalChain (circuit/signal_chain.h):
+//   "chain": {
+//     "filter": {"kind": "butterworth" | "bessel" | "single_pole" | "none",
+//                "order": n, "cutoff": f, "gain": g, "noise": e},
+//     "adc": {"bits": N, "full_scale": V peak to peak, "sample_rate": f,
+//             "input_noise_rms": V or "snr_dB": dB}
+//   }
+// "filter" is optional; "adc" is required (the chain ends at a converter).
+// Errors name the file and the JSON path; unknown keys and kinds get a
+// "did you mean".
+#ifndef HUSHGAIN_IO_CHAIN_PARSER_H_
+#define HUSHGAIN_IO_CHAIN_PARSER_H_
+
+#include "circuit/signal_chain.h"
+#include "io/json_reader.h"
+
+namespace hushgain {
+
+// `chain` reads the "chain" object; `band_low_hz` is the stage's band low
+// edge, which must lie below the converter's Nyquist frequency. Throws
+// Error.
+SignalChain ParseChain(ObjectReader& chain, double band_low_hz);
+
+}  // namespace hushgain
+
+#endif  // HUSHGAIN_IO_CHAIN_PARSER_H_

@@ -1,0 +1,121 @@
+#include "report/chain_tables.h"
+
+#include <cstdio>
+
+#include "base/printf.h"
+#include "io/units.h"
+#include "report/budget_tables.h"
+#include "report/csv_report.h"
+#include "report/enum_words.h"
+
+namespace hushgain {
+namespace {
+
+std::string FilterText(const ChainBlock& c) {
+  if (!c.chain.filter) return "none (the stage drives the converter)";
+  const ChainFilter& f = *c.chain.filter;
+  std::string out = FilterKindWord(f.kind);
+  if (f.kind != ChainFilter::Kind::kNone) {
+    if (f.kind != ChainFilter::Kind::kSinglePole)
+      out += " order " + std::to_string(f.order);
+    out += ", -3 dB at " + FormatEng(f.cutoff_hz, "Hz") + ", ENBW " +
+           FormatEng(c.filter_enbw_hz, "Hz") +
+           Printf(" (%.4f x cutoff)", c.filter_enbw_hz / f.cutoff_hz);
+  }
+  out += ", gain " + FormatGain(f.gain);
+  if (f.noise_v_per_rthz > 0)
+    out += ", its noise " + FormatDensity(f.noise_v_per_rthz, "V");
+  return out;
+}
+
+}  // namespace
+
+std::string ChainTitle(const Budget& b) {
+  const ChainBlock& c = *b.chain;
+  return std::to_string(c.chain.adc.bits) + " bits, " +
+         FormatEng(c.chain.adc.full_scale_v, "V") +
+         " full scale (peak to peak), " +
+         FormatEng(c.chain.adc.sample_rate_hz, "Hz") + " sampling (Nyquist " +
+         FormatEng(c.nyquist_hz, "Hz") + ")";
+}
+
+Table ChainTable(const Budget& b, ChainCells cells) {
+  const ChainBlock& c = *b.chain;
+  const bool csv = cells == ChainCells::kCsv;
+  Table t;
+  t.header =
+      csv ? std::vector<std::string>{"block", "rms_V", "lsb_rms", "share"}
+          : std::vector<std::string>{"block", "rms at the ADC input", "LSB rms",
+                                     "share"};
+  t.align = {Table::Align::kLeft, Table::Align::kRight, Table::Align::kRight,
+             Table::Align::kRight};
+  auto row = [&](const std::string& name, double rms, double share) {
+    const double lsb = rms / c.adc.lsb_v;
+    if (csv)
+      t.AddRow({name, CsvNumber(rms), CsvNumber(lsb), CsvNumber(share)});
+    else
+      t.AddRow(
+          {name, FormatEng(rms, "V"), Printf("%.4g", lsb), FormatShare(share)});
+  };
+  for (const ChainNoiseShare& block : c.blocks)
+    row(block.name, block.rms_v, block.share);
+  t.AddRule();
+  row("total", c.total_rms_v, 1.0);
+  return t;
+}
+
+std::vector<std::pair<std::string, std::string>> ChainNotes(const Budget& b) {
+  const ChainBlock& c = *b.chain;
+  std::vector<std::pair<std::string, std::string>> notes;
+  notes.push_back({"filter", FilterText(c)});
+  std::string counted = FormatEng(b.band_low_hz, "Hz") +
+                        " to Nyquist: " + FormatEng(c.in_zone_rms_v, "V") +
+                        " rms; folded from above it, " +
+                        FormatEng(c.nyquist_hz, "Hz") + " to " +
+                        FormatEng(c.counted_to_hz, "Hz") + ": " +
+                        FormatEng(c.folded_rms_v, "V") + " rms";
+  counted += c.fold_limited
+                 ? " (the search limit: the tail had not fallen away)"
+                 : Printf(" (the tail beyond is below %.0e of the noise power)",
+                          c.tail_fraction);
+  notes.push_back({"counted", counted});
+  const std::string converter_density =
+      FormatDensity(c.converter_density_v_per_rthz, "V");
+  if (c.below_converter_hz <= 0)
+    notes.push_back({"against the converter",
+                     "the chain's noise density stays above the converter's "
+                     "own (" +
+                         converter_density + ") up to " +
+                         FormatEng(c.counted_to_hz, "Hz")});
+  else if (c.below_converter_hz <= c.nyquist_hz)
+    notes.push_back({"against the converter",
+                     "the chain's noise density is below the converter's "
+                     "own (" +
+                         converter_density + ") from Nyquist on"});
+  else
+    notes.push_back({"against the converter",
+                     "the chain's noise density falls below the converter's "
+                     "own (" +
+                         converter_density + ") at " +
+                         FormatEng(c.below_converter_hz, "Hz")});
+  notes.push_back({"converter",
+                   Printf("SNR %.2f dB (full-scale sine)", c.adc.snr_db) +
+                       Printf(", ENOB %.2f bits", c.adc.enob_bits) +
+                       Printf(", noise-free bits %.2f", c.adc.noise_free_bits) +
+                       Printf(", effective resolution %.2f bits",
+                              c.adc.effective_resolution_bits) +
+                       "; 1 LSB = " + FormatEng(c.adc.lsb_v, "V")});
+  std::string dominant = c.dominant;
+  for (const ChainNoiseShare& block : c.blocks)
+    if (block.name == c.dominant)
+      dominant += " (" + FormatShare(block.share) + ")";
+  if (c.dominant == "front end" && !c.front_end_contributors.empty()) {
+    const ChainNoiseShare& top = c.front_end_contributors.front();
+    dominant += "; its largest contributor " + top.name + " (" +
+                FormatShare(top.share) + " of the total)";
+  }
+  notes.push_back({"dominant", dominant});
+  return notes;
+}
+
+}  // namespace hushgain

@@ -1,0 +1,131 @@
+// `hushgain budget` of a stage with a chain, end to end: the converter's
+// figures under the JSON keys adc.snr_dB, adc.enob_bits,
+// adc.noise_free_bits and adc.effective_resolution_bits, the chain table in
+// text and Markdown agreeing with the JSON, the CSV table, and the examples
+// without a chain printing no chain at all.
+#include <doctest/doctest.h>
+
+#include <cmath>
+#include <nlohmann/json.hpp>
+#include <string>
+
+#include "cli/base_stage.h"
+#include "cli/cli_support.h"
+#include "cli/temp_folder.h"
+#include "io/units.h"
+#include "test_support.h"
+
+namespace hushgain {
+namespace {
+
+using nlohmann::json;
+using test::RelErr;
+using test::RunHushgain;
+using test::TempFolder;
+
+std::string StageWithChain() {
+  json stage = json::parse(test::BadInputBaseStageText());
+  stage["chain"] = json::parse(R"({
+      "filter": {"kind": "butterworth", "order": 2, "cutoff": "2k"},
+      "adc": {"bits": 16, "full_scale": "4.096", "sample_rate": "100k",
+              "snr_dB": 90}})");
+  return stage.dump(2);
+}
+
+TEST_CASE("budget of a stage with a chain reports the converter's figures") {
+  TempFolder dir("chain");
+  const std::string path = dir.Write("stage.json", StageWithChain()).string();
+  const auto r = RunHushgain({"budget", "--format", "json", path});
+  REQUIRE(r.exit_code == 0);
+  const json j = json::parse(r.out);
+  REQUIRE(j.contains("adc"));
+  REQUIRE(j.contains("chain"));
+  const json& adc = j["adc"];
+  const double total = j["chain"]["total_rms_V"].get<double>();
+  // The definitions (budget/chain_block.h, REFERENCES.md section 13):
+  // SNR against a full-scale sine of rms 4.096 / (2 sqrt 2), ENOB
+  // (SNR - 1.76) / 6.02 with exact constants, noise-free bits
+  // log2(FS / (6.6 rms)), effective resolution log2(FS / rms).
+  CHECK(RelErr(adc["snr_dB"].get<double>(),
+               20 * std::log10(4.096 / (2 * std::sqrt(2.0)) / total)) <
+        test::kRelTight);
+  CHECK(RelErr(adc["enob_bits"].get<double>(),
+               (adc["snr_dB"].get<double>() - 10 * std::log10(1.5)) /
+                   (20 * std::log10(2.0))) < test::kRelTight);
+  CHECK(RelErr(adc["noise_free_bits"].get<double>(),
+               std::log2(4.096 / (6.6 * total))) < test::kRelTight);
+  CHECK(RelErr(adc["effective_resolution_bits"].get<double>(),
+               std::log2(4.096 / total)) < test::kRelTight);
+  // The front end's white density through a 2nd-order Butterworth adds to
+  // the converter's 90 dB: the SNR is below 90 dB.
+  CHECK(adc["snr_dB"].get<double>() < 90.0);
+  double power = 0;
+  for (const json& block : j["chain"]["blocks"])
+    power += std::pow(block["rms_V"].get<double>(), 2);
+  CHECK(RelErr(std::sqrt(power), total) < 1e-12);
+
+  // Text and Markdown show the same rows.
+  const auto text = RunHushgain({"budget", path});
+  REQUIRE(text.exit_code == 0);
+  CHECK(text.out.find("Signal chain to the converter: 16 bits, 4.096 V full "
+                      "scale (peak to peak), 100.0 kHz sampling (Nyquist "
+                      "50.00 kHz)") != std::string::npos);
+  const std::string front =
+      FormatEng(j["chain"]["blocks"][0]["rms_V"].get<double>(), "V");
+  CHECK(text.out.find("front end") != std::string::npos);
+  CHECK(text.out.find(front) != std::string::npos);
+  const auto md = RunHushgain({"budget", "--format", "markdown", path});
+  REQUIRE(md.exit_code == 0);
+  CHECK(md.out.find("| front end | " + front + " |") != std::string::npos);
+  CHECK(md.out.find("- converter: SNR ") != std::string::npos);
+}
+
+TEST_CASE("budget --chain-csv writes the chain table in SI numbers") {
+  TempFolder dir("chain-csv");
+  const std::string path = dir.Write("stage.json", StageWithChain()).string();
+  const std::string csv = dir / "chain.csv";
+  const auto r = RunHushgain({"budget", "--chain-csv", csv, path});
+  REQUIRE(r.exit_code == 0);
+  const auto rows = test::ReadCsv(test::ReadAll(csv));
+  REQUIRE(rows.size() == 6);
+  CHECK(rows[0] ==
+        std::vector<std::string>{"block", "rms_V", "lsb_rms", "share"});
+  CHECK(rows[1][0] == "front end");
+  CHECK(rows[5][0] == "total");
+  const json j =
+      json::parse(RunHushgain({"budget", "--format", "json", path}).out);
+  CHECK(RelErr(std::stod(rows[5][1]), j["chain"]["total_rms_V"].get<double>()) <
+        1e-8);
+  CHECK(RelErr(std::stod(rows[5][2]), j["adc"]["noise_lsb_rms"].get<double>()) <
+        1e-8);
+}
+
+TEST_CASE("budget --chain-csv of a stage without a chain is refused") {
+  TempFolder dir("chain-csv-none");
+  const auto r = RunHushgain({"budget", "--chain-csv", dir / "chain.csv",
+                              test::ExamplePath("load-cell-bridge")});
+  CHECK(r.exit_code == 2);
+  CHECK(r.out.empty());
+  CHECK(r.err ==
+        "error: command line: --chain-csv: the stage has no \"chain\" "
+        "block\n");
+  CHECK(dir.Files().empty());
+}
+
+TEST_CASE("examples without a chain print no chain") {
+  for (const std::string& example : test::ExamplePaths()) {
+    const json stage = json::parse(test::ReadAll(example));
+    if (stage.contains("chain")) continue;
+    CAPTURE(example);
+    const auto r = RunHushgain({"budget", "--format", "json", example});
+    REQUIRE(r.exit_code == 0);
+    const json j = json::parse(r.out);
+    CHECK_FALSE(j.contains("chain"));
+    CHECK_FALSE(j.contains("adc"));
+    const auto text = RunHushgain({"budget", example});
+    CHECK(text.out.find("Signal chain") == std::string::npos);
+  }
+}
+
+}  // namespace
+}  // namespace hushgain

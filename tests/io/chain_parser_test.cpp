@@ -1,0 +1,160 @@
+// The stage file's "chain" block (io/chain_parser.h): values to SI, the
+// defaults, and every refusal as one whole message with its JSON path.
+#include "io/chain_parser.h"
+
+#include <doctest/doctest.h>
+
+#include <string>
+#include <utility>
+#include <vector>
+
+#include "io/stage_parser.h"
+#include "test_support.h"
+
+namespace hushgain {
+namespace {
+
+using test::RelErr;
+
+Stage Parse(const std::string& chain) {
+  static const DeviceLibrary library = [] {
+    DeviceLibrary lib;
+    OpAmpModel m;
+    m.class_name = "test class";
+    m.e_w_v_per_rthz = 4e-9;
+    m.gbw_hz = 8e6;
+    m.open_loop_gain = 1e6;
+    lib.opamps["precision-bipolar"] = m;
+    return lib;
+  }();
+  StageContext context;
+  context.library = &library;
+  context.read_file = [](const std::string& path) -> std::string {
+    throw Error(path, "", "cannot read");
+  };
+  const std::string text = R"({
+    "name": "chain test",
+    "band_Hz": {"low": "10", "high": "10k"},
+    "opamp": {"device": "precision-bipolar"},
+    "stage": {"topology": "inverting", "input_resistor": "1k",
+              "feedback": {"resistor": "100k"}})" +
+                           (chain.empty() ? "" : ",\n    \"chain\": " + chain) +
+                           "\n}";
+  return ParseStage(text, "stage.json", context);
+}
+
+TEST_CASE("a chain block resolves its filter and converter to SI") {
+  const Stage s = Parse(R"({
+      "filter": {"kind": "butterworth", "order": 4, "cutoff": "20k",
+                 "gain": "6 dB", "noise": "15 nV/rtHz"},
+      "adc": {"bits": 16, "full_scale": "4.096", "sample_rate": "200k",
+              "snr_dB": 90}})");
+  REQUIRE(s.chain);
+  REQUIRE(s.chain->filter);
+  const ChainFilter& f = *s.chain->filter;
+  CHECK(f.kind == ChainFilter::Kind::kButterworth);
+  CHECK(f.order == 4);
+  CHECK(RelErr(f.cutoff_hz, 20e3) < test::kRelTight);
+  // 6 dB = 10^(6/20) = 1.99526.
+  CHECK(RelErr(f.gain, std::pow(10.0, 6.0 / 20)) < test::kRelTight);
+  CHECK(RelErr(f.noise_v_per_rthz, 15e-9) < test::kRelTight);
+  const ChainAdc& adc = s.chain->adc;
+  CHECK(adc.bits == 16);
+  CHECK(RelErr(adc.full_scale_v, 4.096) < test::kRelTight);
+  CHECK(RelErr(adc.sample_rate_hz, 200e3) < test::kRelTight);
+  REQUIRE(adc.snr_db);
+  CHECK(*adc.snr_db == 90);
+  CHECK_FALSE(adc.input_noise_rms_v);
+}
+
+TEST_CASE("a chain without a filter and a single pole without an order") {
+  const Stage bare =
+      Parse(R"({"adc": {"bits": 12, "full_scale": 2, "sample_rate": "1M"}})");
+  REQUIRE(bare.chain);
+  CHECK_FALSE(bare.chain->filter);
+  CHECK_FALSE(bare.chain->adc.snr_db);
+  CHECK_FALSE(bare.chain->adc.input_noise_rms_v);
+  const Stage pole = Parse(R"({
+      "filter": {"kind": "single_pole", "cutoff": "5k"},
+      "adc": {"bits": 12, "full_scale": 2, "sample_rate": "1M",
+              "input_noise_rms": "100u"}})");
+  REQUIRE(pole.chain->filter);
+  CHECK(pole.chain->filter->order == 1);
+  CHECK(pole.chain->filter->gain == 1);
+  CHECK(RelErr(*pole.chain->adc.input_noise_rms_v, 1e-4) < test::kRelTight);
+  CHECK_FALSE(Parse("").chain);
+}
+
+TEST_CASE("bad chain blocks name the JSON path") {
+  const std::string adc =
+      R"("adc": {"bits": 16, "full_scale": 4, "sample_rate": "100k"})";
+  auto filter = [&](const std::string& f) {
+    return "{\"filter\": " + f + ", " + adc + "}";
+  };
+  auto converter = [](const std::string& a) {
+    return R"({"adc": {"bits": 16, "full_scale": 4, )" + a + "}}";
+  };
+  const std::vector<std::pair<std::string, std::string>> cases = {
+      {filter(R"({"kind": "buterworth", "order": 2, "cutoff": "1k"})"),
+       R"(stage.json: /chain/filter/kind: unknown filter kind "buterworth" (did you mean "butterworth"?) (expected butterworth, bessel, single_pole or none))"},
+      {filter(R"({"kind": "bessel", "order": 2, "cutof": "1k"})"),
+       R"(stage.json: /chain/filter/cutoff: missing (required; is "cutof" a typo?))"},
+      {filter(R"({"kind": "bessel", "order": 2, "cutoff": "1k", "gian": 2})"),
+       R"(stage.json: /chain/filter/gian: unknown key (did you mean "gain"?))"},
+      {filter(R"({"kind": "butterworth", "order": 2.5, "cutoff": "1k"})"),
+       R"(stage.json: /chain/filter/order: expected a whole number from 1 to 10, got 2.5)"},
+      {filter(R"({"kind": "butterworth", "order": 11, "cutoff": "1k"})"),
+       R"(stage.json: /chain/filter/order: expected a whole number from 1 to 10, got 11)"},
+      {filter(R"({"kind": "single_pole", "order": 2, "cutoff": "1k"})"),
+       R"(stage.json: /chain/filter/order: expected a whole number from 1 to 1, got 2)"},
+      {filter(R"({"kind": "none", "cutoff": "1k"})"),
+       R"(stage.json: /chain/filter/cutoff: not with a filter of kind "none")"},
+      {filter(R"({"kind": "butterworth", "order": 2, "cutoff": "0"})"),
+       R"(stage.json: /chain/filter/cutoff: expected a positive frequency, got "0")"},
+      {filter(
+           R"({"kind": "butterworth", "order": 2, "cutoff": "1k", "gain": -2})"),
+       R"(stage.json: /chain/filter/gain: expected a positive gain, got -2)"},
+      {filter(
+           R"({"kind": "butterworth", "order": 2, "cutoff": "1k", "noise": "-1n"})"),
+       R"(stage.json: /chain/filter/noise: expected a non-negative voltage density, got "-1n")"},
+      {R"({"filter": {"kind": "none"}})",
+       R"(stage.json: /chain/adc: missing (required))"},
+      {R"({"adc": {"bits": 16, "full_scale": 4, "sample_rate": "100k"}, "second": 1})",
+       R"(stage.json: /chain/second: unknown key)"},
+      {R"({"adc": {"bits": 0, "full_scale": 4, "sample_rate": "100k"}})",
+       R"(stage.json: /chain/adc/bits: expected a whole number from 1 to 32, got 0)"},
+      {R"({"adc": {"bits": "16", "full_scale": 4, "sample_rate": "100k"}})",
+       R"(stage.json: /chain/adc/bits: expected a whole number from 1 to 32, got a string)"},
+      {R"({"adc": {"bits": 16, "full_scale": "-4", "sample_rate": "100k"}})",
+       R"(stage.json: /chain/adc/full_scale: expected a positive voltage (the peak-to-peak input range), got "-4")"},
+      {converter(R"("sample_rate": "15")"),
+       R"(stage.json: /chain/adc/sample_rate: expected a rate above twice the band's low edge (20.00 Hz), got "15")"},
+      {converter(
+           R"("sample_rate": "100k", "snr_dB": 90, "input_noise_rms": "1u")"),
+       R"(stage.json: /chain/adc/snr_dB: expected "input_noise_rms" or "snr_dB", not both)"},
+      {converter(R"("sample_rate": "100k", "snr_dB": 99)"),
+       R"(stage.json: /chain/adc/snr_dB: expected a number of dB above 0 and at most the ideal 98.09 dB of a 16-bit converter, got 99)"},
+      {converter(R"("sample_rate": "100k", "snr_dB": "90 dB")"),
+       R"(stage.json: /chain/adc/snr_dB: expected a number of dB above 0 and at most the ideal 98.09 dB of a 16-bit converter, got a string)"},
+      {converter(R"("sample_rate": "100k", "input_noise_rms": "-1u")"),
+       R"(stage.json: /chain/adc/input_noise_rms: expected a non-negative voltage, got "-1u")"},
+      {converter(R"("sample_rate": "100k", "sample_rat": 1)"),
+       R"(stage.json: /chain/adc/sample_rat: unknown key (did you mean "sample_rate"?))"},
+  };
+  for (const auto& [text, message] : cases) {
+    CAPTURE(text);
+    CHECK_THROWS_WITH_AS(Parse(text), message.c_str(), Error);
+  }
+}
+
+TEST_CASE("a data-sheet SNR within the printed rounding of the ideal is kept") {
+  // 16 bits: the ideal 98.0905 dB is printed 98.09; 98.09 is accepted and
+  // means an ideal converter.
+  const Stage s = Parse(
+      R"({"adc": {"bits": 16, "full_scale": 4, "sample_rate": "100k", "snr_dB": 98.09}})");
+  REQUIRE(s.chain->adc.snr_db);
+  CHECK(*s.chain->adc.snr_db == doctest::Approx(98.09));
+}
+
+}  // namespace
+}  // namespace hushgain
