@@ -101,13 +101,45 @@ struct PhotodiodeBlock {
   double tee_noise_equivalent_ohm = 0;
 };
 
+// What a capacitive (charge) sensor adds to the budget. The signal is the
+// sensor's open-circuit voltage V = Q / C_s (the budget's input unit stays
+// volts "at the sensor"), so every charge figure is a voltage figure times
+// C_s. The corners are the response's (Budget::bandwidth_low_hz and
+// bandwidth_3db_hz, measured against the passband).
+struct ChargeBlock {
+  double sensor_capacitance_f = 0;    // C_s
+  double leakage_resistance_ohm = 0;  // R_leak at the stage's temperature;
+                                      // 0 = none
+  double input_resistor_ohm = 0;      // 0: the sensor drives the - input
+  // |output| per coulomb in the passband: Budget::passband_gain / C_s
+  // (1 / C_f for a charge amplifier with an ideal op-amp).
+  double charge_gain_v_per_c = 0;
+  double input_rms_c = 0;                   // Budget::input_rms x C_s
+  double input_density_ref_c_per_rthz = 0;  // at the reference frequency
+  // The feedback's DC resistance (R_f, or the T network's R1 + R2 +
+  // R1 R2 / R3) and the corner it makes with C_f, 1 / (2 pi R C_f): the
+  // charge amplifier's low corner (0 without C_f).
+  double feedback_dc_ohm = 0;
+  bool feedback_is_tee = false;
+  double low_corner_estimate_hz = 0;
+  // Without R_in: C_s + the op-amp's pin capacitance at the - input, and
+  // 1 + that / C_f, the e_n noise gain in the passband (0 without C_f or
+  // with R_in).
+  double input_capacitance_f = 0;
+  double noise_gain_plateau_estimate = 0;
+};
+
 // The input-referred noise in the measured quantity's units, from
 // source.sensitivity: the input-referred figures divided by the sensitivity
 // (the smallest change of the measurand the stage resolves; the NEP in the
 // optical case).
 struct MeasurandBlock {
   std::string unit;        // the sensitivity's "per": "g", "Pa", "W"
-  double sensitivity = 0;  // input units per measurand unit
+  double sensitivity = 0;  // sensitivity_unit per measurand unit
+  // The unit of `sensitivity`: the input unit ("V", "A"), or "C" when a
+  // capacitive sensor's is given in charge (the figures are then the
+  // input-referred charge over it).
+  std::string sensitivity_unit = "V";
   double input_referred_rms = 0;
   double input_referred_density_at_reference = 0;  // per rtHz
 };
@@ -230,6 +262,7 @@ struct Budget {
   double feedback_capacitor_f = 0;  // as used (chosen when "auto")
   std::optional<CapacitorChoice> capacitor_choice;
   std::optional<PhotodiodeBlock> photodiode;
+  std::optional<ChargeBlock> charge;  // a capacitive sensor
 
   std::vector<Contributor> contributors;  // largest share first
   double output_rms_v = 0;

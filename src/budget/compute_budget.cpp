@@ -420,6 +420,34 @@ void PhotodiodeFigures(const Stage& stage, Budget& b) {
   b.photodiode = pd;
 }
 
+// The charge figures of a capacitive sensor (budget.h, ChargeBlock).
+void ChargeFigures(const Stage& stage, Budget& b) {
+  const CapacitiveSensor& sensor = *stage.capacitive;
+  ChargeBlock c;
+  const double cs = sensor.capacitance_f;
+  c.sensor_capacitance_f = cs;
+  c.leakage_resistance_ohm = sensor.leakage_resistance_ohm;
+  c.input_resistor_ohm = stage.input_resistor_ohm;
+  c.charge_gain_v_per_c = b.passband_gain / cs;
+  c.input_rms_c = b.input_rms * cs;
+  c.input_density_ref_c_per_rthz = b.input_density_ref_per_rthz * cs;
+  c.feedback_dc_ohm = FeedbackEquivalentOhm(stage.feedback);
+  c.feedback_is_tee = stage.feedback.kind == Feedback::Kind::kTee;
+  const double cf = stage.feedback.capacitor_f;
+  if (cf > 0) c.low_corner_estimate_hz = 1 / (2 * kPi * c.feedback_dc_ohm * cf);
+  if (!(stage.input_resistor_ohm > 0)) {
+    c.input_capacitance_f = InputCapacitanceF(stage);
+    if (cf > 0) c.noise_gain_plateau_estimate = 1 + c.input_capacitance_f / cf;
+    if (!(cf > 0))
+      b.warnings.push_back(
+          "no feedback capacitor: the sensor's capacitance drives the - input "
+          "straight into the feedback resistance, so the stage differentiates "
+          "its charge (gain rising with frequency) instead of measuring it; "
+          "a charge amplifier needs C_f");
+  }
+  b.charge = c;
+}
+
 }  // namespace
 
 BudgetOutcome ComputeBudgetAsGiven(const Stage& requested,
@@ -473,13 +501,20 @@ BudgetOutcome ComputeBudgetAsGiven(const Stage& requested,
     b.dynamic_range_db = 20.0 * std::log10(2.0 * fs / b.output_peak_to_peak_v);
   }
   if (stage.topology == Topology::kTransimpedance) PhotodiodeFigures(stage, b);
+  if (stage.capacitive) ChargeFigures(stage, b);
   if (stage.sensitivity) {
     MeasurandBlock m;
     m.unit = stage.sensitivity->per;
     m.sensitivity = stage.sensitivity->value;
-    m.input_referred_rms = b.input_rms / m.sensitivity;
-    m.input_referred_density_at_reference =
-        b.input_density_ref_per_rthz / m.sensitivity;
+    m.sensitivity_unit = b.input_unit;
+    double rms = b.input_rms, density = b.input_density_ref_per_rthz;
+    if (stage.sensitivity->in_charge && b.charge) {
+      m.sensitivity_unit = "C";
+      rms = b.charge->input_rms_c;
+      density = b.charge->input_density_ref_c_per_rthz;
+    }
+    m.input_referred_rms = rms / m.sensitivity;
+    m.input_referred_density_at_reference = density / m.sensitivity;
     b.measurand = m;
   }
 

@@ -84,9 +84,11 @@ Status Bisect(Measure measure, double target, bool rising, double* found) {
 }  // namespace
 
 double InputCapacitanceF(const Stage& stage) {
-  const double diode = stage.topology == Topology::kTransimpedance
-                           ? stage.photodiode.capacitance_f
-                           : 0;
+  double diode = 0;
+  if (stage.topology == Topology::kTransimpedance)
+    diode = stage.photodiode.capacitance_f;
+  else if (stage.capacitive && !(stage.input_resistor_ohm > 0))
+    diode = stage.capacitive->capacitance_f;
   return diode + stage.opamp.c_cm_f + stage.opamp.c_diff_f;
 }
 

@@ -27,7 +27,8 @@ CapacitorOutcome ChooseFeedbackCapacitor(const Stage& stage,
                                          const CapacitorTarget& target);
 
 // The capacitance at the - input that the textbook estimates use:
-// C_d + C_cm + C_diff (the + input at AC ground).
+// C_d + C_cm + C_diff (the + input at AC ground); a capacitive sensor's C_s
+// in place of C_d when it drives the - input directly (no R_in).
 double InputCapacitanceF(const Stage& stage);
 
 // The phase margin and crossover of a stage's loop (every topology).

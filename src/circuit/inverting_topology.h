@@ -8,6 +8,18 @@
 //   Vs --R_source--+--R_in--+-- (-) op-amp out --+-- output
 //                           |                    |
 //                           +---- feedback ------+
+//
+// A capacitive sensor replaces the source: its open-circuit voltage Vs
+// behind its capacitance C_s, the leakage R_leak across its terminals (the
+// sensor node to ground), then R_in when given, else the sensor node is the
+// summing node itself (a charge amplifier: the sensor's charge flows into
+// C_f, V_out = -Q / C_f in the passband).
+//
+//   Vs --C_s--+-- [R_in] --+-- (-) op-amp out --+-- output
+//             |            +---- feedback ------+
+//           R_leak
+//             |
+//            gnd
 #ifndef HUSHGAIN_CIRCUIT_INVERTING_TOPOLOGY_H_
 #define HUSHGAIN_CIRCUIT_INVERTING_TOPOLOGY_H_
 
@@ -18,8 +30,10 @@
 namespace hushgain {
 
 // The DC resistance seen from the - input with the op-amp output and the
-// source at AC ground: (R_source + R_in) || (R_f, or R1 + R2 || R3). Bias
-// currents cancel when R_plus equals it.
+// source at AC ground: (R_source + R_in) || (R_f, or R1 + R2 || R3). For a
+// capacitive sensor the input's DC path is R_in + R_leak (none without a
+// leakage resistance: C_s blocks DC). Bias currents cancel when R_plus
+// equals it.
 double InvertingBalanceOhm(const Stage& stage);
 
 // Builds the netlist. Element values are taken as given; io has validated

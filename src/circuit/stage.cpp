@@ -13,9 +13,11 @@ const ResistorSpec* ResistorSpecFor(const Stage& stage,
                                     const std::string& name) {
   auto it = stage.resistor_overrides.find(name);
   if (it != stage.resistor_overrides.end()) return &it->second;
-  // The source's resistance and the photodiode's shunt and series
-  // resistances belong to the sensor, not to the stage's parts.
-  if (name == "R_source" || name == "R_sh" || name == "R_s") return nullptr;
+  // The source's resistance, the photodiode's shunt and series resistances
+  // and a capacitive sensor's leakage belong to the sensor, not to the
+  // stage's parts.
+  if (name == "R_source" || name == "R_sh" || name == "R_s" || name == "R_leak")
+    return nullptr;
   return stage.resistors ? &*stage.resistors : nullptr;
 }
 

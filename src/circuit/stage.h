@@ -62,6 +62,18 @@ struct SignalSource {
   double resistance_ohm = 0;
 };
 
+// A capacitive (charge) sensor in an inverting stage: a piezo element, a
+// hydrophone, an accelerometer. Its charge Q is an open-circuit voltage
+// V = Q / C_s behind its capacitance C_s (the Thevenin form of a charge
+// generator sQ in parallel with C_s), with an optional leakage resistance
+// R_leak across its terminals (noisy, a contributor). The signal is that
+// open-circuit voltage, so the signal gain stays in V/V and the charge
+// figures are the voltage figures scaled by C_s: Q = C_s V.
+struct CapacitiveSensor {
+  double capacitance_f = 0;           // C_s > 0
+  double leakage_resistance_ohm = 0;  // R_leak; 0 = none (infinite)
+};
+
 // A photodiode as built. The diode's junction (photocurrent, dark current,
 // capacitance C_d, shunt resistance R_sh) sits between its junction node and
 // its bias node; its series resistance R_s joins the junction node to the
@@ -100,10 +112,13 @@ struct SensorNoise {
 };
 
 // How the measurand becomes the source quantity (source.sensitivity): `value`
-// source units (V, A) per one `per` (a unit name: "g", "Pa", "W").
+// source units (V, A) per one `per` (a unit name: "g", "Pa", "W"). A
+// capacitive sensor may state it in coulombs instead (`in_charge`), the
+// charge it produces per unit; its volts are that charge over C_s.
 struct Sensitivity {
-  double value = 0;  // > 0, SI source units per measurand unit
+  double value = 0;  // > 0, SI source units (or C) per measurand unit
   std::string per;
+  bool in_charge = false;  // value in C per unit (capacitive sensors only)
 };
 
 // The working temperature range; the stage's temperature_k is the nominal.
@@ -132,12 +147,15 @@ struct Stage {
   double band_high_hz = 0;
   std::optional<double> reference_hz;  // default: sqrt(low * high)
   OpAmpModel opamp;
-  SignalSource source;                      // kInverting
+  SignalSource source;  // kInverting
+  // kInverting: a capacitive sensor instead of the voltage source; then
+  // input_resistor_ohm may be 0 (the sensor drives the - input directly).
+  std::optional<CapacitiveSensor> capacitive;
   Photodiode photodiode;                    // kTransimpedance
   std::optional<SensorNoise> sensor_noise;  // source.noise
   std::optional<Sensitivity> sensitivity;   // source.sensitivity
   Topology topology = Topology::kInverting;
-  double input_resistor_ohm = 0;  // kInverting
+  double input_resistor_ohm = 0;  // kInverting; 0 = none (capacitive only)
   Feedback feedback;
   // When set, feedback.capacitor_f is chosen by the budget for this target.
   std::optional<CapacitorTarget> capacitor_target;

@@ -4,7 +4,12 @@ namespace hushgain {
 
 std::vector<std::pair<std::string, double*>> StageResistors(Stage& stage) {
   std::vector<std::pair<std::string, double*>> out;
-  if (stage.topology == Topology::kInverting) {
+  if (stage.topology == Topology::kInverting && stage.capacitive) {
+    if (stage.capacitive->leakage_resistance_ohm > 0)
+      out.push_back({"R_leak", &stage.capacitive->leakage_resistance_ohm});
+    if (stage.input_resistor_ohm > 0)
+      out.push_back({"R_in", &stage.input_resistor_ohm});
+  } else if (stage.topology == Topology::kInverting) {
     if (stage.source.resistance_ohm > 0)
       out.push_back({"R_source", &stage.source.resistance_ohm});
     out.push_back({"R_in", &stage.input_resistor_ohm});

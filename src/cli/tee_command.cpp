@@ -235,6 +235,11 @@ int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
   const Stage stage =
       LoadStageForCommand(options.stage_path, library, options.device);
+  if (stage.capacitive)
+    throw Error(options.stage_path, "/source/capacitive",
+                "tee search needs a voltage source (its gain target is "
+                "R_eq / (R_source + R_in)); tee sweep takes a capacitive "
+                "sensor");
   const double stage_gain =
       FeedbackEquivalentOhm(stage.feedback) /
       (stage.source.resistance_ohm + stage.input_resistor_ohm);

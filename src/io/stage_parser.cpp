@@ -152,6 +152,20 @@ SignalSource ParseVoltageSource(ObjectReader& reader) {
   return source;
 }
 
+// source.capacitive: {"capacitance", "leakage_resistance"}.
+CapacitiveSensor ParseCapacitiveSensor(ObjectReader& reader) {
+  CapacitiveSensor sensor;
+  ObjectReader r = reader.Object("capacitive");
+  sensor.capacitance_f = r.Quantity("capacitance", Quantity::kCapacitance);
+  if (!(sensor.capacitance_f > 0))
+    throw r.ErrorAt("capacitance", "expected a positive capacitance, got " +
+                                       Dump(r.Get("capacitance")));
+  if (r.Has("leakage_resistance"))
+    sensor.leakage_resistance_ohm = PositiveResistance(r, "leakage_resistance");
+  r.Finish();
+  return sensor;
+}
+
 Photodiode ParsePhotodiode(ObjectReader& reader) {
   Photodiode pd;
   ObjectReader r = reader.Object("photodiode");
@@ -248,16 +262,42 @@ SensorNoise ParseSensorNoise(ObjectReader& src, bool current) {
   return noise;
 }
 
+// A capacitive sensor's sensitivity: a charge ("10 pC") or a voltage
+// ("2 mV") per unit, told apart by the unit, which must be given.
+void ReadChargeOrVoltage(ObjectReader& r, Sensitivity* sens) {
+  const nlohmann::json& v = r.Get("value");
+  std::optional<double> charge, volts;
+  if (v.is_string()) {
+    const std::string text = v.get<std::string>();
+    charge = ParseQuantity(text, Quantity::kCharge);
+    volts = ParseQuantity(text, Quantity::kVoltage);
+  }
+  // A bare number or prefix ("10p") reads as either: ask for the unit.
+  if (charge.has_value() == volts.has_value())
+    throw r.ErrorAt("value",
+                    "expected a charge (\"10 pC\") or a voltage (\"2 mV\") "
+                    "with its unit, got " +
+                        Dump(v));
+  sens->in_charge = charge.has_value();
+  sens->value = charge ? *charge : *volts;
+}
+
 // source.sensitivity: {"value": "10 pC", "per": "g"}; the value is in the
-// source's own quantity.
-Sensitivity ParseSensitivity(ObjectReader& src, Quantity source_quantity) {
+// source's own quantity (for a capacitive sensor a charge or a voltage).
+Sensitivity ParseSensitivity(ObjectReader& src, Quantity source_quantity,
+                             bool capacitive) {
   ObjectReader r = src.Object("sensitivity");
   Sensitivity sens;
-  sens.value = r.Quantity("value", source_quantity);
+  if (capacitive)
+    ReadChargeOrVoltage(r, &sens);
+  else
+    sens.value = r.Quantity("value", source_quantity);
   if (!(sens.value > 0))
     throw r.ErrorAt(
         "value", "expected a positive " +
-                     std::string(QuantityName(source_quantity)).substr(2) +
+                     std::string(QuantityName(sens.in_charge ? Quantity::kCharge
+                                                             : source_quantity))
+                         .substr(2) +
                      " per unit of the measurand, got " + Dump(r.Get("value")));
   sens.per = r.String("per");
   if (sens.per.empty() || sens.per.size() > 32 ||
@@ -341,8 +381,8 @@ ResistorSpec ParseResistorSpec(ObjectReader& reader,
 
 const std::vector<std::string>& ResistorNames() {
   static const std::vector<std::string> names = {
-      "R_source", "R_in",   "R_f",    "R1",   "R2",
-      "R3",       "R_plus", "R_load", "R_sh", "R_s"};
+      "R_source", "R_in",   "R_f",  "R1",  "R2",    "R3",
+      "R_plus",   "R_load", "R_sh", "R_s", "R_leak"};
   return names;
 }
 
@@ -368,7 +408,7 @@ void ParseResistors(ObjectReader& top, const DeviceLibrary& library,
                                " (expected \"technology\", \"tolerance\" or a "
                                "resistor: R_in, R_f, "
                                "R1, R2, R3, R_plus, R_load, R_source, R_sh, "
-                               "R_s)");
+                               "R_s, R_leak)");
     if (std::find(present.begin(), present.end(), key) == present.end())
       throw r.ErrorAt(key, "this stage has no " + key);
     ObjectReader o = r.Object(key);
@@ -432,19 +472,28 @@ Stage ParseStage(std::string_view json_text, std::string_view source_name,
 
   if (top.Has("source")) {
     ObjectReader src = top.Object("source");
-    const char* wanted = photodiode ? "photodiode" : "voltage";
-    if (!src.Has(wanted))
-      throw src.ErrorHere(std::string("expected \"") + wanted + "\" for a " +
-                          topology + " stage");
-    if (photodiode)
+    if (photodiode) {
+      if (!src.Has("photodiode"))
+        throw src.ErrorHere("expected \"photodiode\" for a " + topology +
+                            " stage");
       stage.photodiode = ParsePhotodiode(src);
-    else
-      stage.source = ParseVoltageSource(src);
+    } else {
+      const bool voltage = src.Has("voltage");
+      if (voltage == src.Has("capacitive"))
+        throw src.ErrorHere(
+            "expected exactly one of \"voltage\" or \"capacitive\" for an " +
+            topology + " stage");
+      if (voltage)
+        stage.source = ParseVoltageSource(src);
+      else
+        stage.capacitive = ParseCapacitiveSensor(src);
+    }
     if (src.Has("noise"))
       stage.sensor_noise = ParseSensorNoise(src, photodiode);
     if (src.Has("sensitivity")) {
       stage.sensitivity = ParseSensitivity(
-          src, photodiode ? Quantity::kCurrent : Quantity::kVoltage);
+          src, photodiode ? Quantity::kCurrent : Quantity::kVoltage,
+          stage.capacitive.has_value());
       // A photodiode's sensitivity in A per W is its responsivity.
       if (photodiode && stage.sensitivity->per == "W") {
         const double given = stage.photodiode.responsivity_a_per_w;
@@ -469,11 +518,19 @@ Stage ParseStage(std::string_view json_text, std::string_view source_name,
       throw st.ErrorAt("input_resistor",
                        "not used by a transimpedance stage (the photodiode "
                        "drives the - input)");
+  } else if (stage.capacitive) {
+    // Optional: without it the sensor drives the - input directly.
+    if (st.Has("input_resistor"))
+      stage.input_resistor_ohm = PositiveResistance(st, "input_resistor");
   } else {
     stage.input_resistor_ohm = PositiveResistance(st, "input_resistor");
   }
   ObjectReader fb = st.Object("feedback");
   stage.feedback = ParseFeedback(fb, &stage.capacitor_target);
+  if (stage.capacitive && stage.capacitor_target)
+    throw fb.ErrorAt("capacitor",
+                     "\"auto\" is not for a capacitive sensor: C_f sets its "
+                     "charge gain (-1/C_f); give a capacitance");
   stage.plus_resistor = ParsePlusResistor(st);
   if (st.Has("plus_resistor_bypass")) {
     if (stage.plus_resistor.mode == PlusResistor::Mode::kNone)
@@ -486,6 +543,10 @@ Stage ParseStage(std::string_view json_text, std::string_view source_name,
   st.Finish();
 
   if (top.Has("dc_input")) {
+    if (stage.capacitive)
+      throw top.ErrorAt("dc_input",
+                        "not with a capacitive sensor (its capacitance "
+                        "passes no DC)");
     stage.dc_input = top.Quantity(
         "dc_input", photodiode ? Quantity::kCurrent : Quantity::kVoltage);
     if (photodiode && stage.photodiode.photocurrent_a > 0)

@@ -82,6 +82,9 @@ struct Model {
   // The headroom check's fixed inputs (budget/headroom.h).
   std::optional<double> full_scale_v;
   double supply_v = 0;
+  // Where a sample's gain is read: 0 for DC; a stage that blocks DC (a
+  // capacitive sensor) has no DC gain, so its |gain| at the reference.
+  double gain_hz = 0;
 };
 
 // The parts of a sample that its random stream decides.
@@ -115,8 +118,8 @@ double OhmsAt(const Model& m, const ResistorInfo& r, double e, double t) {
 }
 
 double DcOffset(const Model& m, const RestampSolver& s, const Draw& d,
-                double* gain) {
-  *gain = s.TransferReal(m.signal);
+                double* dc_gain) {
+  *dc_gain = s.TransferReal(m.signal);
   const double te = s.TransferReal(m.e_n);
   const double hp = s.TransferReal(m.i_plus);
   const double hm = s.TransferReal(m.i_minus);
@@ -138,14 +141,16 @@ Status EvaluateAt(const Model& m, const Draw& d, Workspace& w,
   out->temperature_k = d.temperature_k;
   out->vos_v = d.vos_v;
   out->ios_a = d.ios_a;
-  out->offset_v = DcOffset(m, s, d, &out->gain);
+  double dc_gain = 0;
+  out->offset_v = DcOffset(m, s, d, &dc_gain);
+  out->gain = dc_gain;
   // The sample's DC output against its full scale and supply: its own
   // offset (the dark current inside it), the photocurrent's and the
   // dc_input's outputs at its own transfers, signs known.
   double photo_v = 0;
   for (const auto& [port, amperes] : m.photo_junctions)
     photo_v += amperes * s.TransferReal(port);
-  const double input_v = out->gain * m.dc_input;
+  const double input_v = dc_gain * m.dc_input;
   HeadroomInputs& h = w.headroom;
   h.offset_v = std::fabs(out->offset_v);
   h.dc_total_v = std::fabs(out->offset_v + photo_v + input_v);
@@ -213,6 +218,11 @@ Status EvaluateAt(const Model& m, const Draw& d, Workspace& w,
     power += node.weight_hz * psd;
   }
   out->noise_rms_v = std::sqrt(power);
+  if (m.gain_hz > 0) {
+    st = s.SolveAdjoint(m.gain_hz);
+    if (!st.ok) return st;
+    out->gain = std::sqrt(s.TransferNorm(m.signal));
+  }
   return Status::Ok();
 }
 
@@ -415,6 +425,17 @@ SpreadRun RunSpread(const Stage& stage, const SpreadOptions& options,
     run.status = w.solver.SolveAdjoint(0.0);
     if (!run.status.ok) return run;
     run.nominal_gain = w.solver.TransferReal(model.signal);
+    // A DC gain more than 3 dB below the gain at the reference (the rule of
+    // analysis/frequency_response.h) is no gain to measure errors against.
+    const double ref_hz = ReferenceFrequencyHz(stage);
+    run.status = w.solver.SolveAdjoint(ref_hz);
+    if (!run.status.ok) return run;
+    const double at_ref = std::sqrt(w.solver.TransferNorm(model.signal));
+    if (std::fabs(run.nominal_gain) < at_ref / std::sqrt(2.0)) {
+      model.gain_hz = ref_hz;
+      run.gain_hz = ref_hz;
+      run.nominal_gain = at_ref;
+    }
     run.worst_case_offset_v = WorstCaseOffset(model, w);
   }
 

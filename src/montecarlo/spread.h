@@ -12,7 +12,10 @@
 //   Ios          like Vos (uniform within +-Ios or Gaussian), then scaled
 //                with the bias-current law k(T); Ib = Ib_25 k(T)
 // and computes, through the engine (analysis/restamp_solver.h):
-//   gain         the DC signal gain (finite A0), V/V or V/A
+//   gain         the DC signal gain (finite A0), V/V or V/A; for a stage
+//                that blocks DC (a capacitive sensor: its DC gain more than
+//                3 dB below its gain at the reference) the |gain| at the
+//                reference frequency
 //   gain error   gain / nominal gain - 1
 //   offset       Vos NG - Ib (H+ + H-) - (Ios/2)(H+ - H-) + dark, signed
 //   noise        the total output rms over the band, integrated on the
@@ -69,7 +72,8 @@ struct SpreadRun {
   Status status;
   bool interrupted = false;
   Budget nominal;                     // the budget at the nominal temperature
-  double nominal_gain = 0;            // the DC gain the errors are relative to
+  double nominal_gain = 0;            // the gain the errors are relative to
+  double gain_hz = 0;                 // where the gains are read: 0 = DC
   bool gaussian_offsets = false;      // the op-amp's offset_distribution
   std::vector<SpreadSample> samples;  // index order
   std::vector<std::string> resistor_names;  // netlist order

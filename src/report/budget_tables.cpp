@@ -3,6 +3,7 @@
 #include <cmath>
 #include <cstdio>
 
+#include "base/physical_constants.h"
 #include "base/printf.h"
 #include "io/units.h"
 #include "report/enum_words.h"
@@ -168,6 +169,68 @@ std::string BandwidthText(const Budget& b) {
     out += ", peaking " + Printf("%.2f dB", b.peaking_db) + " at " +
            FormatEng(b.peak_hz, "Hz");
   return out;
+}
+
+std::string FormatCharge(double coulombs) {
+  if (coulombs != 0 && std::fabs(coulombs) < 1e-15)
+    return Printf("%.4g aC", coulombs * 1e18);
+  return FormatEng(coulombs, "C");
+}
+
+std::string FormatChargeGain(double v_per_c) {
+  return Printf("%.4g mV/pC", v_per_c * 1e-9);
+}
+
+std::string ChargeGainText(const Budget& b) {
+  const ChargeBlock& c = *b.charge;
+  return FormatChargeGain(c.charge_gain_v_per_c) + " in the passband (|gain| " +
+         FormatGain(b.passband_gain) +
+         " V/V from the sensor's open-circuit voltage, C_s " +
+         FormatEng(c.sensor_capacitance_f, "F") + "); " +
+         FormatGain(b.signal_gain_ref) + " V/V at " +
+         FormatEng(b.reference_hz, "Hz");
+}
+
+std::string ChargeSensorText(const Budget& b) {
+  const ChargeBlock& c = *b.charge;
+  std::string out =
+      "C_s " + FormatEng(c.sensor_capacitance_f, "F") + ", " +
+      (c.leakage_resistance_ohm > 0
+           ? "leakage " + FormatEng(c.leakage_resistance_ohm, kOhm)
+           : std::string("no leakage given")) +
+      ", " +
+      (c.input_resistor_ohm > 0
+           ? "through R_in " + FormatEng(c.input_resistor_ohm, kOhm)
+           : std::string("straight into the - input"));
+  if (c.low_corner_estimate_hz > 0)
+    out += std::string("; low corner 1/(2 pi ") +
+           (c.feedback_is_tee ? "R_eq" : "R_f") +
+           " C_f) = " + FormatEng(c.low_corner_estimate_hz, "Hz") +
+           (c.feedback_is_tee ? " with the T network's R_eq " +
+                                    FormatEng(c.feedback_dc_ohm, kOhm)
+                              : std::string());
+  return out;
+}
+
+std::string ChargeNoiseText(const Budget& b) {
+  const ChargeBlock& c = *b.charge;
+  return FormatCharge(c.input_rms_c) + " rms (" +
+         Printf("%.4g", c.input_rms_c / kElementaryChargeC) + " electrons), " +
+         FormatCharge(c.input_density_ref_c_per_rthz) + kPerRtHz + " at " +
+         FormatEng(b.reference_hz, "Hz", 3) +
+         " (the volts at the sensor x C_s)";
+}
+
+std::string ChargeNoiseGainText(const Budget& b) {
+  const ChargeBlock& c = *b.charge;
+  if (!(c.noise_gain_plateau_estimate > 0)) return "";
+  return (b.noise_gain_flat
+              ? std::string("the e_n noise gain stays flat")
+              : "the e_n noise gain rises to " + FormatGain(b.noise_gain_peak) +
+                    " at " + FormatEng(b.noise_gain_peak_hz, "Hz")) +
+         " (1 + (C_s + C_in)/C_f = " +
+         FormatGain(c.noise_gain_plateau_estimate) +
+         " with C_s + C_in = " + FormatEng(c.input_capacitance_f, "F") + ")";
 }
 
 std::string InputRmsNote(const Budget& b) {

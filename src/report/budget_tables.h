@@ -40,6 +40,26 @@ std::string BandwidthText(const Budget& budget);
 // printed and why, with the other's value.
 std::string InputRmsNote(const Budget& budget);
 
+// A capacitive sensor's lines (budget.charge required), shared by text and
+// Markdown:
+//   gain       "10 mV/pC in the passband (|gain| 10 V/V from the sensor's
+//              open-circuit voltage, C_s 1 nF); 9.95 V/V at 1 kHz"
+//   sensor     "C_s 1 nF, leakage 10 GΩ, straight into the - input; low
+//              corner 1/(2 pi R_f C_f) = 1.592 Hz" (R_eq for a T network)
+//   noise      "352.1 aC rms (2198 electrons), ... C/√Hz at 1 kHz (the
+//              input-referred volts x C_s)"
+//   e_n x C    "the e_n noise gain rises to 11 at ... (1 + (C_s + C_in)/C_f
+//              = 11 with C_s + C_in = 1 nF)", "" with R_in or without C_f
+std::string ChargeGainText(const Budget& budget);
+std::string ChargeSensorText(const Budget& budget);
+std::string ChargeNoiseText(const Budget& budget);
+std::string ChargeNoiseGainText(const Budget& budget);
+
+// A charge in engineering notation, below 1 fC in aC: "352.1 aC".
+std::string FormatCharge(double coulombs);
+// A charge gain in the trade's unit: "10.00 mV/pC".
+std::string FormatChargeGain(double v_per_c);
+
 // Shared cell formats: "%.4g" for gains, engineering notation with
 // "<unit>/√Hz" for densities, "12.3 %" (or "<0.1 %") for shares.
 std::string FormatGain(double value);

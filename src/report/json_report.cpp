@@ -185,11 +185,29 @@ std::string BudgetToJson(const Budget& b) {
       out["noise"]["nep_rms_W"] = pd.nep_rms_w;
     }
   }
+  if (b.charge) {
+    const ChargeBlock& c = *b.charge;
+    out["charge"] = {
+        {"sensor_capacitance_F", c.sensor_capacitance_f},
+        {"leakage_resistance_ohm", c.leakage_resistance_ohm},
+        {"input_resistor_ohm", c.input_resistor_ohm},
+        {"charge_gain_V_per_C", c.charge_gain_v_per_c},
+        {"low_corner_Hz", b.bandwidth_low_hz},
+        {"high_corner_Hz", b.bandwidth_3db_hz},
+        {"feedback_dc_resistance_ohm", c.feedback_dc_ohm},
+        {"low_corner_estimate_Hz", c.low_corner_estimate_hz},
+        {"input_capacitance_F", c.input_capacitance_f},
+        {"noise_gain_plateau_estimate", c.noise_gain_plateau_estimate}};
+    out["noise"]["input_referred_charge_rms_C"] = c.input_rms_c;
+    out["noise"]["input_referred_charge_density_C_per_rtHz"] =
+        c.input_density_ref_c_per_rthz;
+  }
   if (b.measurand) {
     const MeasurandBlock& m = *b.measurand;
     out["noise"]["measurand"] = {
         {"unit", m.unit},
         {"sensitivity_per_unit", m.sensitivity},
+        {"sensitivity_unit", m.sensitivity_unit},
         {"input_referred_rms", m.input_referred_rms},
         {"input_referred_density_at_reference",
          m.input_referred_density_at_reference},

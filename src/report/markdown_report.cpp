@@ -31,7 +31,10 @@ std::string Header(const Budget& b) {
   out += Item("op-amp", b.opamp_class + ", GBW " +
                             FormatEng(b.opamp_gbw_hz, "Hz") + ", A0 " +
                             Printf("%.3g", b.opamp_open_loop_gain));
-  if (b.input_unit == "A")
+  if (b.charge) {
+    out += Item("charge gain", ChargeGainText(b));
+    out += Item("sensor", ChargeSensorText(b));
+  } else if (b.input_unit == "A")
     out += Item("transimpedance",
                 FormatEng(b.signal_gain_dc, "\xCE\xA9") + " at DC, magnitude " +
                     FormatEng(b.signal_gain_ref, "\xCE\xA9") + " at " + ref);
@@ -77,6 +80,7 @@ std::string NoiseSection(const Budget& b) {
               FormatEng(b.input_rms, b.input_unit) + " rms, " +
                   FormatDensity(b.input_density_ref_per_rthz, b.input_unit) +
                   " at " + ref);
+  if (b.charge) out += Item("input-referred charge", ChargeNoiseText(b));
   if (const std::string note = InputRmsNote(b); !note.empty())
     out += Item("note", note);
   if (b.photodiode && b.photodiode->responsivity_a_per_w > 0)
@@ -91,8 +95,8 @@ std::string NoiseSection(const Budget& b) {
                 Printf("%.4g ", m.input_referred_rms) + m.unit + " rms, " +
                     Printf("%.4g ", m.input_referred_density_at_reference) +
                     m.unit + "/\xE2\x88\x9AHz at " + ref + " (" +
-                    FormatEng(m.sensitivity, b.input_unit) + " per " + m.unit +
-                    ")");
+                    FormatEng(m.sensitivity, m.sensitivity_unit) + " per " +
+                    m.unit + ")");
   }
   if (b.photodiode && b.photodiode->noise_gain_plateau_estimate > 0)
     out +=
@@ -105,6 +109,8 @@ std::string NoiseSection(const Budget& b) {
                  FormatGain(b.photodiode->noise_gain_plateau_estimate) +
                  " with C = C_d + C_in = " +
                  FormatEng(b.photodiode->input_capacitance_f, "F") + ")");
+  if (b.charge && !ChargeNoiseGainText(b).empty())
+    out += Item("e_n x C", ChargeNoiseGainText(b));
   if (b.photodiode && b.photodiode->tee_noise_equivalent_ohm > 0)
     out +=
         Item("T network noise",

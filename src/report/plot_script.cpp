@@ -161,10 +161,15 @@ class ScriptWriter {
         "C, band " +
         FormatEng(b_.band_low_hz, "Hz") + " to " +
         FormatEng(b_.band_high_hz, "Hz") +
-        (b_.input_unit == "A"
-             ? ", transimpedance " + FormatEng(b_.signal_gain_dc, "\xCE\xA9")
-             : ", signal gain " + Printf("%.4g", b_.signal_gain_dc) + " V/V") +
-        " at DC;  output " + FormatEng(b_.output_rms_v, "V") + " rms (" +
+        (b_.charge ? ", charge gain " +
+                         Printf("%.4g", b_.charge->charge_gain_v_per_c * 1e-9) +
+                         " mV/pC in the passband"
+         : b_.input_unit == "A"
+             ? ", transimpedance " + FormatEng(b_.signal_gain_dc, "\xCE\xA9") +
+                   " at DC"
+             : ", signal gain " + Printf("%.4g", b_.signal_gain_dc) +
+                   " V/V at DC") +
+        ";  output " + FormatEng(b_.output_rms_v, "V") + " rms (" +
         FormatEng(b_.output_peak_to_peak_v, "V") + " p-p), input-referred " +
         FormatEng(b_.input_rms, b_.input_unit) + " rms";
     out_ += "set label 1 " + GnuplotString(b_.stage_name) +

@@ -34,7 +34,10 @@ std::vector<std::string> HeaderLines(const SpreadRun& run, std::uint64_t seed) {
   return {
       "Monte Carlo: " + std::to_string(run.samples.size()) + " samples, seed " +
           std::to_string(seed),
-      "nominal: DC gain " + Printf("%.6g", run.nominal_gain) + " " + gain_unit +
+      "nominal: " +
+          (run.gain_hz > 0 ? "|gain| at " + FormatEng(run.gain_hz, "Hz") + " "
+                           : std::string("DC gain ")) +
+          Printf("%.6g", run.nominal_gain) + " " + gain_unit +
           ", output noise " + FormatEng(b.output_rms_v, "V") +
           " rms, offset worst case " + FormatEng(b.offset.worst_case_v, "V") +
           " at " + Printf("%.2f", b.temperature_k - kZeroCelsiusK) +
@@ -196,6 +199,7 @@ std::string Json(const SpreadRun& run, const SpreadSummary& s,
       {"percentiles", {kLowPercentile, kHighPercentile}},
       {"nominal",
        {{"gain", run.nominal_gain},
+        {"gain_Hz", run.gain_hz},
         {"output_rms_V", run.nominal.output_rms_v},
         {"offset_worst_case_V", run.nominal.offset.worst_case_v}}},
       {"gain_error", DistributionJson(s.gain_error)},

@@ -36,7 +36,10 @@ std::string Header(const Budget& b) {
   out += "  op-amp " + b.opamp_class + ", GBW " +
          FormatEng(b.opamp_gbw_hz, "Hz") + ", A0 " +
          Printf("%.3g", b.opamp_open_loop_gain) + "\n";
-  if (b.input_unit == "A") {
+  if (b.charge) {
+    out += "  charge gain " + ChargeGainText(b) + "\n";
+    out += "  sensor " + ChargeSensorText(b) + "\n";
+  } else if (b.input_unit == "A") {
     out += "  transimpedance " + FormatEng(b.signal_gain_dc, "\xCE\xA9") +
            " at DC, |" + FormatEng(b.signal_gain_ref, "\xCE\xA9") +
            "| at the reference\n";
@@ -77,6 +80,7 @@ std::string NoiseSection(const Budget& b) {
   out += "  input-referred         " + FormatEng(b.input_rms, b.input_unit) +
          " rms, " + Density(b.input_density_ref_per_rthz, b.input_unit) +
          " at " + ref + "\n";
+  if (b.charge) out += "  input-referred charge  " + ChargeNoiseText(b) + "\n";
   if (const std::string note = InputRmsNote(b); !note.empty())
     out += "  note: " + note + "\n";
   if (b.photodiode && b.photodiode->responsivity_a_per_w > 0) {
@@ -93,7 +97,8 @@ std::string NoiseSection(const Budget& b) {
            m.unit + " rms, " +
            Printf("%.4g ", m.input_referred_density_at_reference) + m.unit +
            kPerRtHz + " at " + ref + " (" +
-           FormatEng(m.sensitivity, b.input_unit) + " per " + m.unit + ")\n";
+           FormatEng(m.sensitivity, m.sensitivity_unit) + " per " + m.unit +
+           ")\n";
   }
   if (b.photodiode && b.photodiode->noise_gain_plateau_estimate > 0) {
     out += "  e_n x C                " +
@@ -105,6 +110,8 @@ std::string NoiseSection(const Budget& b) {
            " with C = C_d + C_in = " +
            FormatEng(b.photodiode->input_capacitance_f, "F") + ")\n";
   }
+  if (b.charge && !ChargeNoiseGainText(b).empty())
+    out += "  e_n x C                " + ChargeNoiseGainText(b) + "\n";
   if (b.photodiode && b.photodiode->tee_noise_equivalent_ohm > 0)
     out += "  T network noise        as noisy as one " +
            FormatEng(b.photodiode->tee_noise_equivalent_ohm, "\xCE\xA9") +

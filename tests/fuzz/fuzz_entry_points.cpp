@@ -107,7 +107,13 @@ std::string CheckStage(const Stage& s) {
         Positive(f.tee.r3_ohm)))
     return "tee resistor not positive";
   if (!NonNegative(f.capacitor_f)) return "feedback capacitor negative";
-  if (s.topology == Topology::kInverting) {
+  if (s.topology == Topology::kInverting && s.capacitive) {
+    if (!Positive(s.capacitive->capacitance_f))
+      return "sensor capacitance not positive";
+    if (!NonNegative(s.capacitive->leakage_resistance_ohm) ||
+        !NonNegative(s.input_resistor_ohm))
+      return "sensor leakage or input resistor negative";
+  } else if (s.topology == Topology::kInverting) {
     if (!Positive(s.input_resistor_ohm)) return "input resistor not positive";
     if (!NonNegative(s.source.resistance_ohm))
       return "source resistance negative";

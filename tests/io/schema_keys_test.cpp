@@ -206,6 +206,14 @@ TEST_CASE("the stage schema and the stage parser know the same keys") {
   converter.merge_patch(R"({"chain": {"adc": {"bits": 16, "full_scale": 5,
       "sample_rate": "10k", "snr_dB": 90}}})"_json);
   ParseStageJson(converter, "converter variant", library);
+  json charge = Example("load-cell-bridge");
+  charge.merge_patch(
+      R"({"source": {"voltage": null,
+                     "capacitive": {"capacitance": "1n",
+                                    "leakage_resistance": "10G"}},
+          "resistors": {"technology": "thin-film",
+                        "R_leak": {"tolerance": "20 %"}}})"_json);
+  ParseStageJson(charge, "capacitive sensor variant", library);
 
   const Keys schema = SchemaKeys(kSource / "schema/stage.schema.json").keys();
   INFO("in the parser, not in schema/stage.schema.json:\n"

@@ -230,7 +230,7 @@ TEST_CASE(
        R"(stage.json: /resistors/tolerance: expected a tolerance from 0 to below 100 %, got "-1%")"},
       {Good(R"("temperature_C": 25,)",
             R"("resistors": {"technology": "thin-film", "R_fb": {}},)"),
-       R"(stage.json: /resistors/R_fb: unknown resistor name (did you mean "R_f"?) (expected "technology", "tolerance" or a resistor: R_in, R_f, R1, R2, R3, R_plus, R_load, R_source, R_sh, R_s))"},
+       R"(stage.json: /resistors/R_fb: unknown resistor name (did you mean "R_f"?) (expected "technology", "tolerance" or a resistor: R_in, R_f, R1, R2, R3, R_plus, R_load, R_source, R_sh, R_s, R_leak))"},
       {Good(R"("temperature_C": 25,)",
             R"("resistors": {"technology": "thin-film", "R_f": {}},)"),
        R"(stage.json: /resistors/R_f: this stage has no R_f)"},
@@ -377,6 +377,108 @@ TEST_CASE("bad sensor noise and sensitivity name the JSON path") {
     CAPTURE(text);
     CHECK_THROWS_WITH_AS(Parse(text), message.c_str(), Error);
   }
+}
+
+}  // namespace
+}  // namespace hushgain
+
+namespace hushgain {
+namespace {
+
+// kGood with a capacitive sensor in place of the voltage source and
+// `input` as the stage's input resistor line ("" for none).
+std::string Capacitive(const std::string& sensor,
+                       const std::string& input = "") {
+  return Replace(Good(R"("source": {"voltage": {"resistance": "350"}})",
+                      R"("source": )" + sensor),
+                 R"("input_resistor": "2.2k",)", input);
+}
+
+TEST_CASE("a capacitive sensor with and without an input resistor") {
+  const Stage s = Parse(Capacitive(
+      R"({"capacitive": {"capacitance": "1.2n", "leakage_resistance": "20G"},
+          "sensitivity": {"value": "10 pC", "per": "g"}})"));
+  REQUIRE(s.capacitive);
+  CHECK(RelErr(s.capacitive->capacitance_f, 1.2e-9) < test::kRelTight);
+  CHECK(RelErr(s.capacitive->leakage_resistance_ohm, 20e9) < test::kRelTight);
+  CHECK(s.input_resistor_ohm == 0);
+  REQUIRE(s.sensitivity);
+  CHECK(s.sensitivity->in_charge);
+  CHECK(RelErr(s.sensitivity->value, 10e-12) < test::kRelTight);
+
+  const Stage r = Parse(Capacitive(
+      R"({"capacitive": {"capacitance": "1n"},
+          "sensitivity": {"value": "2 mV", "per": "Pa"}})",
+      R"("input_resistor": "10k",)"));
+  REQUIRE(r.capacitive);
+  CHECK(r.capacitive->leakage_resistance_ohm == 0);
+  CHECK(RelErr(r.input_resistor_ohm, 10e3) < test::kRelTight);
+  REQUIRE(r.sensitivity);
+  CHECK_FALSE(r.sensitivity->in_charge);
+  CHECK(RelErr(r.sensitivity->value, 2e-3) < test::kRelTight);
+  CHECK_FALSE(Parse(kGood).capacitive);
+}
+
+TEST_CASE("bad capacitive sensors name the JSON path") {
+  const std::vector<std::pair<std::string, std::string>> cases = {
+      {Capacitive(R"({"capacitive": {"leakage_resistance": "1G"}})"),
+       R"(stage.json: /source/capacitive/capacitance: missing (required))"},
+      {Capacitive(R"({"capacitive": {"capacitance": "0"}})"),
+       R"(stage.json: /source/capacitive/capacitance: expected a positive capacitance, got "0")"},
+      {Capacitive(
+           R"({"capacitive": {"capacitance": "1n", "leakage_resistance": "-1G"}})"),
+       R"(stage.json: /source/capacitive/leakage_resistance: expected a positive resistance, got "-1G")"},
+      {Capacitive(
+           R"({"capacitive": {"capacitance": "1n", "leakage_resistence": "1G"}})"),
+       R"(stage.json: /source/capacitive/leakage_resistence: unknown key (did you mean "leakage_resistance"?))"},
+      {Capacitive(
+           R"({"capacitive": {"capacitance": "1n"}, "voltage": {"resistance": "1k"}})"),
+       R"(stage.json: /source: expected exactly one of "voltage" or "capacitive" for an inverting stage)"},
+      {Capacitive(R"({"noise": {"density": "1n"}})"),
+       R"(stage.json: /source: expected exactly one of "voltage" or "capacitive" for an inverting stage)"},
+      {Capacitive(R"({"capacitive": {"capacitance": "1n"},
+                      "sensitivity": {"value": "10p", "per": "g"}})"),
+       R"(stage.json: /source/sensitivity/value: expected a charge ("10 pC") or a voltage ("2 mV") with its unit, got "10p")"},
+      {Capacitive(R"({"capacitive": {"capacitance": "1n"},
+                      "sensitivity": {"value": 1e-11, "per": "g"}})"),
+       R"(stage.json: /source/sensitivity/value: expected a charge ("10 pC") or a voltage ("2 mV") with its unit, got 1e-11)"},
+      {Capacitive(R"({"capacitive": {"capacitance": "1n"},
+                      "sensitivity": {"value": "10 pA", "per": "g"}})"),
+       R"(stage.json: /source/sensitivity/value: expected a charge ("10 pC") or a voltage ("2 mV") with its unit, got "10 pA")"},
+      {Capacitive(R"({"capacitive": {"capacitance": "1n"},
+                      "sensitivity": {"value": "-10 pC", "per": "g"}})"),
+       R"(stage.json: /source/sensitivity/value: expected a positive charge per unit of the measurand, got "-10 pC")"},
+      {Replace(Capacitive(R"({"capacitive": {"capacitance": "1n"}})"),
+               R"("capacitor": "10p")", R"("capacitor": "auto")"),
+       R"(stage.json: /stage/feedback/capacitor: "auto" is not for a capacitive sensor: C_f sets its charge gain (-1/C_f); give a capacitance)"},
+      {Replace(Capacitive(R"({"capacitive": {"capacitance": "1n"}})"),
+               R"("full_scale_output_V": 4)",
+               R"("full_scale_output_V": 4, "dc_input": "1")"),
+       R"(stage.json: /dc_input: not with a capacitive sensor (its capacitance passes no DC))"},
+      {Good(R"("input_resistor": "2.2k",)", ""),
+       R"(stage.json: /stage/input_resistor: missing (required))"},
+  };
+  for (const auto& [text, message] : cases) {
+    CAPTURE(text);
+    CHECK_THROWS_WITH_AS(Parse(text), message.c_str(), Error);
+  }
+}
+
+TEST_CASE("a capacitive sensor's leakage takes a resistor override") {
+  const Stage s = Parse(Replace(
+      Capacitive(
+          R"({"capacitive": {"capacitance": "1n", "leakage_resistance": "5G"}})"),
+      R"("full_scale_output_V": 4)",
+      R"("full_scale_output_V": 4,
+         "resistors": {"technology": "thin-film",
+                       "R_leak": {"technology": "thick-film"}})"));
+  REQUIRE(s.resistor_overrides.count("R_leak") == 1);
+  CHECK(s.resistor_overrides.at("R_leak").technology_name == "thick-film");
+  // The leakage is the sensor's: the stage's technology does not reach it.
+  Stage no_override = s;
+  no_override.resistor_overrides.clear();
+  CHECK(ResistorSpecFor(no_override, "R_leak") == nullptr);
+  CHECK(ResistorSpecFor(no_override, "R_f") != nullptr);
 }
 
 }  // namespace

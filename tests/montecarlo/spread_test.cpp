@@ -93,6 +93,29 @@ TEST_CASE(
 }
 
 TEST_CASE(
+    "a capacitive sensor has no DC gain: its spread reads |gain| at the "
+    "reference") {
+  // C_s in series blocks DC, so the DC gain is 0 and an error relative to
+  // it is 0/0. With zero spread every sample's |gain| at the reference is
+  // the budget's, to rounding; with R_in spread the charge gain C_s / C_f
+  // hardly moves (R_in and R_f only shape the corners).
+  Stage stage = TeeWithFiniteGbw();
+  stage.capacitive = CapacitiveSensor{1e-9, 10e9};
+  stage.dc_input = 0;
+  stage.feedback.capacitor_f = 100e-12;
+  const SpreadRun run = Run(stage, 200);
+  CHECK(run.gain_hz == 1e3);
+  CHECK(RelErr(run.nominal_gain, run.nominal.signal_gain_ref) < kRelRounding);
+  for (const SpreadSample& x : run.samples) {
+    CHECK(x.gain_error == 0.0);
+    CHECK(RelErr(x.gain, run.nominal.signal_gain_ref) < kRelRounding);
+    CHECK(RelErr(x.noise_rms_v, run.nominal.output_rms_v) < kRelRounding);
+  }
+  // A voltage source keeps its DC gain.
+  CHECK(Run(TeeWithFiniteGbw(), 2).gain_hz == 0);
+}
+
+TEST_CASE(
     "gain error of two 1 % uniform resistors: sigma from the ratio of two "
     "uniforms") {
   // G = Rf/Rin; with Rf = Rf0 (1 + a), Rin = Rin0 (1 + b), a and b uniform on

@@ -57,6 +57,8 @@ noband = copy.deepcopy(base); del noband["band_Hz"]; bad.append(("no band", stag
 both = copy.deepcopy(base); both["stage"]["feedback"]["resistor"] = "1M"; bad.append(("resistor and tee", stage, both))
 pd = copy.deepcopy(base); pd["stage"]["topology"] = "transimpedance"; bad.append(("transimpedance with a voltage source", stage, pd))
 twosrc = copy.deepcopy(base); twosrc["source"]["photodiode"] = {"capacitance": "10p"}; bad.append(("a voltage source and a photodiode", stage, twosrc))
+twocap = copy.deepcopy(base); twocap["source"]["voltage"] = {}; twocap["source"]["capacitive"] = {"capacitance": "1n"}; bad.append(("a voltage source and a capacitive sensor", stage, twocap))
+nocap = copy.deepcopy(base); nocap["source"].pop("voltage", None); nocap["source"]["capacitive"] = {"leakage_resistance": "1G"}; bad.append(("a capacitive sensor without capacitance", stage, nocap))
 noper = copy.deepcopy(base); noper["source"]["sensitivity"] = {"value": "2 mV"}; bad.append(("sensitivity without per", stage, noper))
 opamp = json.loads(devices[0].read_text())
 kind = copy.deepcopy(opamp); kind["kind"] = "comparator"; bad.append(("device kind", device, kind))
