@@ -9,6 +9,7 @@
 #include "analysis/frequency_response.h"
 #include "analysis/loop_gain.h"
 #include "base/physical_constants.h"
+#include "base/printf.h"
 #include "budget/feedback_capacitor.h"
 #include "budget/headroom.h"
 #include "budget/offset.h"
@@ -36,12 +37,6 @@ constexpr double kLoopGainSignFloor = 1e-6;
 // A noise gain that rises less than this above its DC value is "flat" (the
 // 0.01 dB the report also uses for peaking).
 constexpr double kFlatNoiseGainDb = 0.01;
-
-std::string Printf(const char* format, double a, double b = 0) {
-  char buf[200];
-  std::snprintf(buf, sizeof buf, format, a, b);
-  return buf;
-}
 
 // Fails when `value` is not finite; names the quantity.
 Status CheckFinite(double value, const std::string& what) {

@@ -9,20 +9,14 @@
 namespace hushgain {
 namespace {
 
-std::string Printf2(const char* format, double a, double b) {
-  char buf[200];
-  std::snprintf(buf, sizeof buf, format, a, b);
-  return buf;
-}
-
 // The checks of the header, once: `found(problem, text)` is called for each
 // failed one, `text` building the warning only when asked.
 template <typename Found>
 void Visit(const HeadroomInputs& in, Found found) {
   const double half_supply = 0.5 * in.supply_span_v;
   const auto supply = [&] {
-    return Printf2("half the %.4g V supply span (%.4g V)", in.supply_span_v,
-                   half_supply);
+    return Printf("half the %.4g V supply span (%.4g V)", in.supply_span_v,
+                  half_supply);
   };
   const auto fs = [&] {
     return Printf("the full-scale swing (\xC2\xB1%.4g V)", *in.full_scale_v);
@@ -50,14 +44,14 @@ void Visit(const HeadroomInputs& in, Found found) {
   if (!in.full_scale_v) return;
   if (*in.full_scale_v > half_supply)
     found(StageProblem::kFullScaleBeyondSupply, [&] {
-      return Printf2(
+      return Printf(
           "the full-scale swing of \xC2\xB1%.4g V exceeds half the %.4g V "
           "supply span",
           *in.full_scale_v, in.supply_span_v);
     });
   else if (in.dc_total_v + *in.full_scale_v > half_supply)
     found(StageProblem::kSwingBeyondSupply, [&] {
-      return Printf2(
+      return Printf(
                  "the worst-case DC output (%.4g V) plus the full-scale "
                  "swing (%.4g V) exceeds ",
                  in.dc_total_v, *in.full_scale_v) +

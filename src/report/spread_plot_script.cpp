@@ -9,6 +9,7 @@
 #include <vector>
 
 #include "base/physical_constants.h"
+#include "base/printf.h"
 #include "io/units.h"
 #include "report/histogram.h"
 #include "report/plot_axes.h"
@@ -34,12 +35,6 @@ constexpr const char* kPercentileColour = "#555555";
 constexpr const char* kLimitColour = "#e07b00";
 
 std::string Num(double v) { return PlotNumber(v); }
-
-std::string Printf(const char* format, double value) {
-  char buf[80];
-  std::snprintf(buf, sizeof buf, format, value);
-  return buf;
-}
 
 std::string Percent(double fraction) {
   return Printf("%.3f %%", 100 * fraction);
