@@ -17,7 +17,8 @@ namespace hushgain {
 
 // One block's own noise at the converter's input.
 struct ChainNoiseShare {
-  std::string name;  // "front end", "filter", "converter", "quantization"
+  // "front end", "second stage", "filter", "converter", "quantization"
+  std::string name;
   double rms_v = 0;
   double share = 0;  // of the total noise power at the converter's input
 };
@@ -47,9 +48,11 @@ struct ChainBlock {
   // The filter's noise-equivalent bandwidth, integral of |H(f)/H(0)|^2 df
   // from 0 to infinity; 0 without a filter.
   double filter_enbw_hz = 0;
-  double chain_gain_dc = 0;  // stage output to converter input, V/V
-  // In chain order: front end, filter (with its own noise), converter,
-  // quantization.
+  // Stage output to converter input, V/V: |second stage gain| x filter
+  // gain.
+  double chain_gain_dc = 0;
+  // In chain order: front end, second stage and filter (their own noise;
+  // each present when the chain has it), converter, quantization.
   std::vector<ChainNoiseShare> blocks;
   // The stage's contributors at the converter's input, largest first.
   std::vector<ChainNoiseShare> front_end_contributors;

@@ -18,6 +18,12 @@ void ChainWarnings(const Stage& stage, const ChainBlock& c,
     warnings->push_back("the band's upper edge (" + HzText(stage.band_high_hz) +
                         ") is above the converter's Nyquist frequency (" +
                         HzText(c.nyquist_hz) + "): the signal aliases");
+  if (c.chain.second_stage && c.chain.second_stage->bandwidth_hz > 0 &&
+      c.chain.second_stage->bandwidth_hz < stage.band_high_hz)
+    warnings->push_back("the second stage's bandwidth (" +
+                        HzText(c.chain.second_stage->bandwidth_hz) +
+                        ") is below the band's upper edge (" +
+                        HzText(stage.band_high_hz) + "): it cuts the signal");
   if (c.chain.filter && c.chain.filter->kind != ChainFilter::Kind::kNone) {
     const FilterResponse h(*c.chain.filter);
     const double g = c.chain.filter->gain;
@@ -62,6 +68,7 @@ ChainOutcome ComputeChain(const Stage& stage, const BudgetOptions& options) {
   };
   ChainNoiseOptions chain_options;
   chain_options.band_low_hz = stage.band_low_hz;
+  chain_options.temperature_k = stage.temperature_k;
   chain_options.integration = options.integration;
   // A tabulated op-amp density has a kink at each of its points, and the
   // filter's response bends at its cutoff.

@@ -3,7 +3,8 @@
 // (budget/stage_evaluator.h), through the chain to the converter
 // (chain/chain_noise.h), and the warnings a chain that cannot work draws:
 //   - the band reaches above the converter's Nyquist frequency;
-//   - the filter is more than 3 dB down inside the band;
+//   - the second stage's pole or the filter is more than 3 dB down
+//     inside the band;
 //   - the stage's full-scale swing overdrives the converter;
 //   - the fold reached its search limit with the tail still there.
 #ifndef HUSHGAIN_CHAIN_CHAIN_BUDGET_H_

@@ -4,10 +4,12 @@
 #include <cassert>
 #include <cmath>
 #include <limits>
+#include <optional>
 
 #include "base/printf.h"
 #include "chain/converter_figures.h"
 #include "chain/filter_response.h"
+#include "chain/second_stage.h"
 
 namespace hushgain {
 namespace {
@@ -20,23 +22,30 @@ constexpr double kSlopeRatio = 1.1;
 constexpr int kQuietSteps = 2;
 
 // Integrates the chain's analog densities (one component per stage
-// contributor, then the filter's own) over the chain.
+// contributor, then the second stage's own, then the filter's own) over
+// the chain.
 class ChainIntegrand {
  public:
-  ChainIntegrand(const FrontEndSpectra& front_end, const SignalChain& chain)
+  ChainIntegrand(const FrontEndSpectra& front_end, const SignalChain& chain,
+                 double temperature_k)
       : front_end_(front_end),
+        second_(chain.second_stage),
         filter_(chain.filter ? *chain.filter : ChainFilter{}),
+        temperature_k_(temperature_k),
         n_(static_cast<int>(front_end.names.size())) {}
 
-  int components() const { return n_ + 1; }
+  int components() const { return n_ + 2; }
 
   Status operator()(double f_hz, double* out) const {
     Status s = front_end_.densities(f_hz, out);
     if (!s.ok) return s;
     const double h2 = filter_.PowerGain(f_hz);
-    for (int k = 0; k < n_; ++k) out[k] *= h2;
+    const double g2 = second_ ? SecondStagePowerGain(*second_, f_hz) : 1.0;
+    for (int k = 0; k < n_; ++k) out[k] *= g2 * h2;
+    out[n_] =
+        second_ ? SecondStageNoisePsd(*second_, f_hz, temperature_k_) * h2 : 0;
     const double e = filter_.filter().noise_v_per_rthz;
-    out[n_] = e * e * h2;
+    out[n_ + 1] = e * e * h2;
     return s;
   }
 
@@ -53,7 +62,9 @@ class ChainIntegrand {
 
  private:
   const FrontEndSpectra& front_end_;
+  std::optional<SecondStage> second_;
   FilterResponse filter_;
+  double temperature_k_;
   int n_;
 };
 
@@ -111,6 +122,9 @@ std::string ChainNoiseOptions::Validate() const {
   if (!(band_low_hz > 0 && std::isfinite(band_low_hz)))
     return Printf("band_low_hz: expected a positive frequency, got %g",
                   band_low_hz);
+  if (!(temperature_k > 0 && std::isfinite(temperature_k)))
+    return Printf("temperature_k: expected a positive temperature, got %g",
+                  temperature_k);
   if (!(tail_fraction > 0 && tail_fraction < 1))
     return Printf("tail_fraction: expected a fraction in (0, 1), got %g",
                   tail_fraction);
@@ -128,10 +142,12 @@ ChainNoiseOutcome ComputeChainNoise(const FrontEndSpectra& front_end,
   ChainBlock& c = outcome.block;
   c.chain = chain;
   c.tail_fraction = options.tail_fraction;
-  const ChainIntegrand integrand(front_end, chain);
+  const ChainIntegrand integrand(front_end, chain, options.temperature_k);
   const int n = static_cast<int>(front_end.names.size());
   c.filter_enbw_hz = NoiseBandwidthHz(integrand.filter());
-  c.chain_gain_dc = chain.filter ? chain.filter->gain : 1.0;
+  c.chain_gain_dc =
+      (chain.filter ? chain.filter->gain : 1.0) *
+      (chain.second_stage ? std::fabs(chain.second_stage->gain) : 1.0);
   c.nyquist_hz = chain.adc.sample_rate_hz / 2;
   if (!(options.band_low_hz < c.nyquist_hz)) {
     outcome.status =
@@ -190,7 +206,8 @@ ChainNoiseOutcome ComputeChainNoise(const FrontEndSpectra& front_end,
     folded_power += folded[k];
   }
   for (int k = 0; k < n; ++k) front_power += in_zone[k] + folded[k];
-  const double filter_power = in_zone[n] + folded[n];
+  const double second_power = in_zone[n] + folded[n];
+  const double filter_power = in_zone[n + 1] + folded[n + 1];
   const double analog_power = in_zone_power + folded_power;
   const double total_power = analog_power + converter_power;
   c.analog_rms_v = std::sqrt(analog_power);
@@ -202,6 +219,8 @@ ChainNoiseOutcome ComputeChainNoise(const FrontEndSpectra& front_end,
                            total_power > 0 ? power / total_power : 0};
   };
   c.blocks.push_back(share("front end", front_power));
+  if (chain.second_stage)
+    c.blocks.push_back(share("second stage", second_power));
   if (chain.filter) c.blocks.push_back(share("filter", filter_power));
   c.blocks.push_back(share("converter", own_rms * own_rms));
   c.blocks.push_back(share("quantization", q_rms * q_rms));

@@ -3,8 +3,11 @@
 // Nyquist zone from above it. With H(f) the filter's response
 // (chain/filter_response.h) and S_k(f) contributor k's density at the
 // stage's output,
-//   S_adc,k(f)  = S_k(f) |H(f)|^2            (the stage's contributors)
+//   S_adc,k(f)  = S_k(f) |G2(f)|^2 |H(f)|^2  (the stage's contributors)
+//   S_2nd(f)    = S_2(f) |H(f)|^2            (the second stage's own)
 //   S_filter(f) = e_filter^2 |H(f)|^2        (its own noise at its input)
+// with G2 and S_2 the second stage's gain and own output noise
+// (chain/second_stage.h; G2 = 1 without one)
 // and the analog power at the converter is their integral from the band's
 // low edge f_L (where the stage's count starts; 1/f noise needs it) to
 // f_N = sample_rate / 2, plus, folded back into the first zone, from f_N
@@ -41,7 +44,8 @@ struct FrontEndSpectra {
 };
 
 struct ChainNoiseOptions {
-  double band_low_hz = 0;  // f_L, > 0 and below the Nyquist frequency
+  double band_low_hz = 0;         // f_L, > 0 and below the Nyquist frequency
+  double temperature_k = 298.15;  // of the second stage's source resistance
   // The band integrals' options (relative tolerance 1e-4 by default).
   IntegrationOptions integration;
   // The fold stops where what lies beyond is below this fraction of the

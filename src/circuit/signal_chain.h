@@ -1,9 +1,10 @@
 // The signal chain after the stage, as the stage file's "chain" block
-// describes it: the stage's output drives an optional anti-aliasing filter
-// and then an analog-to-digital converter. A plain value held by Stage (no
-// chain: the budget ends at the stage's output, band-limited by a brick
-// wall at the band's edges, as before). The chain's noise is computed in
-// chain/; here are the blocks and the converter's own textbook figures.
+// describes it: the stage's output drives an optional second gain stage,
+// an optional anti-aliasing filter and then an analog-to-digital converter. A
+// plain value held by Stage (no chain: the budget ends at the stage's output,
+// band-limited by a brick wall at the band's edges, as before). The chain's
+// noise is computed in chain/; here are the blocks and the converter's own
+// textbook figures.
 //
 // Converter conventions (full_scale_v is the peak-to-peak input range):
 //   q            = full_scale_v / 2^bits                 (one LSB)
@@ -44,7 +45,36 @@ struct ChainAdc {
   std::optional<double> snr_db;
 };
 
+// A white density with a 1/f corner: density^2 (1 + corner / f).
+struct CornerNoise {
+  double density = 0;
+  double corner_hz = 0;  // 0 = white
+};
+
+// A second gain block between the stage and the filter: a signal gain
+// `gain` with one pole at bandwidth_hz (0 = flat), and its own noise at its
+// input: e_n (input_noise), reaching its output times noise_gain (default
+// |gain|, as for a non-inverting stage; 1 + |gain| for an inverting one),
+// and i_n (input_current_noise) through the source resistance it sees,
+// with that resistance's thermal noise 4kTR, both reaching its output times
+// |gain|. Its output for a signal and for each noise:
+//   |G2(f)|^2 = gain^2 / (1 + (f / bandwidth)^2)
+//   S_2(f)    = (e_n^2 noise_gain^2 + (i_n^2 R_s^2 + 4kT R_s) gain^2)
+//               / (1 + (f / bandwidth)^2)
+struct SecondStage {
+  double gain = 1;        // V/V, signed (negative: inverting)
+  double noise_gain = 1;  // >= 1
+  // The pole: given directly, or the op-amp's GBW over the noise gain
+  // (gbw_hz > 0 then, and bandwidth_hz = gbw_hz / noise_gain).
+  double bandwidth_hz = 0;  // 0 = flat (no pole)
+  double gbw_hz = 0;
+  CornerNoise input_noise;          // V/rtHz
+  CornerNoise input_current_noise;  // A/rtHz
+  double source_resistance_ohm = 0;
+};
+
 struct SignalChain {
+  std::optional<SecondStage> second_stage;  // none: straight to the filter
   std::optional<ChainFilter> filter;  // none: the stage drives the converter
   ChainAdc adc;
 };

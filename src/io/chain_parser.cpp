@@ -82,6 +82,73 @@ ChainFilter ParseFilter(ObjectReader& r) {
   return f;
 }
 
+// {"density": ..., "corner": ...} of `kind` (a voltage or current density).
+CornerNoise ParseCornerNoise(ObjectReader& parent, const std::string& key,
+                             Quantity kind, const std::string& what) {
+  ObjectReader r = parent.Object(key);
+  CornerNoise noise;
+  noise.density = r.Quantity("density", kind);
+  if (!(noise.density >= 0))
+    throw r.ErrorAt("density", "expected a non-negative " + what +
+                                   " density, got " + Dump(r.Get("density")));
+  if (auto corner = r.OptionalQuantity("corner", Quantity::kFrequency)) {
+    if (!(*corner >= 0))
+      throw r.ErrorAt("corner",
+                      "expected a non-negative frequency (0 = white), got " +
+                          Dump(r.Get("corner")));
+    noise.corner_hz = *corner;
+  }
+  r.Finish();
+  return noise;
+}
+
+SecondStage ParseSecondStage(ObjectReader& r) {
+  SecondStage s;
+  s.gain = r.Quantity("gain", Quantity::kGain);
+  if (!(s.gain != 0))
+    throw r.ErrorAt("gain",
+                    "expected a non-zero gain, got " + Dump(r.Get("gain")));
+  s.noise_gain = std::fabs(s.gain);
+  if (r.Has("noise_gain")) {
+    s.noise_gain = r.Quantity("noise_gain", Quantity::kGain);
+    if (!(s.noise_gain >= 1))
+      throw r.ErrorAt("noise_gain", "expected a gain of at least 1, got " +
+                                        Dump(r.Get("noise_gain")));
+  }
+  if (r.Has("bandwidth")) {
+    if (r.Get("bandwidth").is_object()) {
+      ObjectReader bw = r.Object("bandwidth");
+      s.gbw_hz = Positive(bw, "gbw", Quantity::kFrequency, "frequency");
+      bw.Finish();
+      s.bandwidth_hz = s.gbw_hz / s.noise_gain;
+    } else {
+      s.bandwidth_hz =
+          Positive(r, "bandwidth", Quantity::kFrequency, "frequency");
+    }
+  }
+  if (r.Has("input_noise"))
+    s.input_noise = ParseCornerNoise(r, "input_noise",
+                                     Quantity::kVoltageDensity, "voltage");
+  if (r.Has("source_resistance")) {
+    s.source_resistance_ohm =
+        r.Quantity("source_resistance", Quantity::kResistance);
+    if (!(s.source_resistance_ohm >= 0))
+      throw r.ErrorAt("source_resistance",
+                      "expected a non-negative resistance, got " +
+                          Dump(r.Get("source_resistance")));
+  }
+  if (r.Has("input_current_noise")) {
+    if (!r.Has("source_resistance"))
+      throw r.ErrorAt("input_current_noise",
+                      "needs a \"source_resistance\" beside it (the "
+                      "resistance the input sees)");
+    s.input_current_noise = ParseCornerNoise(
+        r, "input_current_noise", Quantity::kCurrentDensity, "current");
+  }
+  r.Finish();
+  return s;
+}
+
 ChainAdc ParseAdc(ObjectReader& r, double band_low_hz) {
   ChainAdc adc;
   adc.bits = WholeNumber(r, "bits", 1, kMaxAdcBits);
@@ -128,6 +195,10 @@ ChainAdc ParseAdc(ObjectReader& r, double band_low_hz) {
 
 SignalChain ParseChain(ObjectReader& chain, double band_low_hz) {
   SignalChain c;
+  if (chain.Has("second_stage")) {
+    ObjectReader second = chain.Object("second_stage");
+    c.second_stage = ParseSecondStage(second);
+  }
   if (chain.Has("filter")) {
     ObjectReader f = chain.Object("filter");
     c.filter = ParseFilter(f);

@@ -1,13 +1,17 @@
 // The stage file's "chain" block -> SignalChain (circuit/signal_chain.h):
 //   "chain": {
+//     "second_stage": {"gain": G, "noise_gain": NG, "bandwidth": f or
+//                      {"gbw": f}, "input_noise": {"density", "corner"},
+//                      "input_current_noise": {"density", "corner"},
+//                      "source_resistance": R},
 //     "filter": {"kind": "butterworth" | "bessel" | "single_pole" | "none",
 //                "order": n, "cutoff": f, "gain": g, "noise": e},
 //     "adc": {"bits": N, "full_scale": V peak to peak, "sample_rate": f,
 //             "input_noise_rms": V or "snr_dB": dB}
 //   }
-// "filter" is optional; "adc" is required (the chain ends at a converter).
-// Errors name the file and the JSON path; unknown keys and kinds get a
-// "did you mean".
+// "second_stage" and "filter" are optional; "adc" is required (the chain ends
+// at a converter). Errors name the file and the JSON path; unknown keys and
+// kinds get a "did you mean".
 #ifndef HUSHGAIN_IO_CHAIN_PARSER_H_
 #define HUSHGAIN_IO_CHAIN_PARSER_H_
 

@@ -28,6 +28,30 @@ std::string FilterText(const ChainBlock& c) {
   return out;
 }
 
+std::string CornerText(const CornerNoise& n, const std::string& unit) {
+  std::string out = FormatDensity(n.density, unit);
+  if (n.corner_hz > 0)
+    out += " (1/f corner " + FormatEng(n.corner_hz, "Hz") + ")";
+  return out;
+}
+
+std::string SecondStageText(const SecondStage& s) {
+  std::string out = "gain " + FormatGain(s.gain) + ", noise gain " +
+                    FormatGain(s.noise_gain) + ", ";
+  if (s.gbw_hz > 0)
+    out += "pole at " + FormatEng(s.bandwidth_hz, "Hz") + " (GBW " +
+           FormatEng(s.gbw_hz, "Hz") + " / noise gain)";
+  else if (s.bandwidth_hz > 0)
+    out += "pole at " + FormatEng(s.bandwidth_hz, "Hz");
+  else
+    out += "flat (no pole)";
+  out += "; e_n " + CornerText(s.input_noise, "V");
+  if (s.source_resistance_ohm > 0 || s.input_current_noise.density > 0)
+    out += ", i_n " + CornerText(s.input_current_noise, "A") + " through R_s " +
+           FormatEng(s.source_resistance_ohm, "\xCE\xA9") + " (and its 4kTR)";
+  return out;
+}
+
 }  // namespace
 
 std::string ChainTitle(const Budget& b) {
@@ -67,6 +91,8 @@ Table ChainTable(const Budget& b, ChainCells cells) {
 std::vector<std::pair<std::string, std::string>> ChainNotes(const Budget& b) {
   const ChainBlock& c = *b.chain;
   std::vector<std::pair<std::string, std::string>> notes;
+  if (c.chain.second_stage)
+    notes.push_back({"second stage", SecondStageText(*c.chain.second_stage)});
   notes.push_back({"filter", FilterText(c)});
   std::string counted = FormatEng(b.band_low_hz, "Hz") +
                         " to Nyquist: " + FormatEng(c.in_zone_rms_v, "V") +

@@ -1,11 +1,12 @@
 // The signal chain's report pieces (Budget::chain, budget/chain_block.h),
 // built once and shared by the text and Markdown reports; the table also
 // renders as CSV:
-//   ChainTable  one row per block in chain order (front end, filter,
-//               converter, quantization), a rule, then "total". Columns
+//   ChainTable  one row per block in chain order (front end, second stage,
+//               filter, converter, quantization), a rule, then "total". Columns
 //               (display / CSV): block / block, rms at the ADC input /
 //               rms_V, LSB rms / lsb_rms, share / share.
-//   ChainNotes  the lines under the table as (label, text): the filter,
+//   ChainNotes  the lines under the table as (label, text): the second
+//               stage, the filter,
 //               where the noise was counted and how much folded, where the
 //               chain's density falls below the converter's own, the
 //               converter's figures and the dominant block.

@@ -38,6 +38,23 @@ void AddChainJson(const ChainBlock& c, nlohmann::json& out) {
               {"noise_V_per_rtHz", f.noise_v_per_rthz},
               {"enbw_Hz", c.filter_enbw_hz}};
   }
+  json second = nullptr;
+  if (c.chain.second_stage) {
+    const SecondStage& s = *c.chain.second_stage;
+    second = {
+        {"gain", s.gain},
+        {"noise_gain", s.noise_gain},
+        {"bandwidth_Hz", s.bandwidth_hz},
+        {"gbw_Hz", s.gbw_hz},
+        {"input_noise",
+         {{"density_V_per_rtHz", s.input_noise.density},
+          {"corner_Hz", s.input_noise.corner_hz}}},
+        {"input_current_noise",
+         {{"density_A_per_rtHz", s.input_current_noise.density},
+          {"corner_Hz", s.input_current_noise.corner_hz}}},
+        {"source_resistance_ohm", s.source_resistance_ohm},
+    };
+  }
   auto shares = [](const std::vector<ChainNoiseShare>& list) {
     json a = json::array();
     for (const ChainNoiseShare& s : list)
@@ -45,6 +62,7 @@ void AddChainJson(const ChainBlock& c, nlohmann::json& out) {
     return a;
   };
   out["chain"] = {
+      {"second_stage", second},
       {"filter", filter},
       {"gain_dc", c.chain_gain_dc},
       {"blocks", shares(c.blocks)},

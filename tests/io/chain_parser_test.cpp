@@ -85,6 +85,32 @@ TEST_CASE("a chain without a filter and a single pole without an order") {
   CHECK_FALSE(Parse("").chain);
 }
 
+TEST_CASE("a second stage resolves its gain and its pole") {
+  const Stage s = Parse(R"({
+      "second_stage": {"gain": -10, "noise_gain": 11,
+                       "bandwidth": {"gbw": "11M"},
+                       "input_noise": {"density": "5n", "corner": "10"},
+                       "input_current_noise": {"density": "1p"},
+                       "source_resistance": "2k"},
+      "adc": {"bits": 16, "full_scale": 4, "sample_rate": "100k"}})");
+  REQUIRE(s.chain->second_stage);
+  const SecondStage& st = *s.chain->second_stage;
+  CHECK(st.gain == -10);
+  CHECK(st.noise_gain == 11);
+  CHECK(RelErr(st.gbw_hz, 11e6) < test::kRelTight);
+  CHECK(RelErr(st.bandwidth_hz, 1e6) < test::kRelTight);  // GBW / NG
+  CHECK(RelErr(st.input_noise.density, 5e-9) < test::kRelTight);
+  CHECK(st.input_noise.corner_hz == 10);
+  CHECK(RelErr(st.input_current_noise.density, 1e-12) < test::kRelTight);
+  CHECK(st.input_current_noise.corner_hz == 0);
+  CHECK(st.source_resistance_ohm == 2000);
+  // Defaults: noise gain |gain|, flat.
+  const Stage plain = Parse(R"({"second_stage": {"gain": "20 dB"},
+      "adc": {"bits": 16, "full_scale": 4, "sample_rate": "100k"}})");
+  CHECK(RelErr(plain.chain->second_stage->noise_gain, 10) < test::kRelTight);
+  CHECK(plain.chain->second_stage->bandwidth_hz == 0);
+}
+
 TEST_CASE("bad chain blocks name the JSON path") {
   const std::string adc =
       R"("adc": {"bits": 16, "full_scale": 4, "sample_rate": "100k"})";
@@ -138,6 +164,29 @@ TEST_CASE("bad chain blocks name the JSON path") {
        R"(stage.json: /chain/adc/snr_dB: expected a number of dB above 0 and at most the ideal 98.09 dB of a 16-bit converter, got a string)"},
       {converter(R"("sample_rate": "100k", "input_noise_rms": "-1u")"),
        R"(stage.json: /chain/adc/input_noise_rms: expected a non-negative voltage, got "-1u")"},
+      {R"({"second_stage": {"gain": 0}, )" + adc + "}",
+       R"(stage.json: /chain/second_stage/gain: expected a non-zero gain, got 0)"},
+      {R"({"second_stage": {"gain": 10, "noise_gain": 0.5}, )" + adc + "}",
+       R"(stage.json: /chain/second_stage/noise_gain: expected a gain of at least 1, got 0.5)"},
+      {R"({"second_stage": {"gain": 10, "bandwidth": {"gwb": "1M"}}, )" + adc +
+           "}",
+       R"(stage.json: /chain/second_stage/bandwidth/gbw: missing (required; is "gwb" a typo?))"},
+      {R"({"second_stage": {"gain": 10, "bandwidth": "-1k"}, )" + adc + "}",
+       R"(stage.json: /chain/second_stage/bandwidth: expected a positive frequency, got "-1k")"},
+      {R"({"second_stage": {"gain": 10, "input_current_noise": {"density": "1p"}}, )" +
+           adc + "}",
+       R"(stage.json: /chain/second_stage/input_current_noise: needs a "source_resistance" beside it (the resistance the input sees))"},
+      {R"({"second_stage": {"gain": 10, "input_noise": {"density": "1 pA/rtHz"}}, )" +
+           adc + "}",
+       R"(stage.json: /chain/second_stage/input_noise/density: expected a voltage noise density, got "1 pA/rtHz" (unknown unit "pA/rtHz"))"},
+      {R"({"second_stage": {"gain": 10, "input_noise": {"density": "1n", "corner": "-1"}}, )" +
+           adc + "}",
+       R"(stage.json: /chain/second_stage/input_noise/corner: expected a non-negative frequency (0 = white), got "-1")"},
+      {R"({"second_stage": {"gain": 10, "source_resistance": "-1"}, )" + adc +
+           "}",
+       R"(stage.json: /chain/second_stage/source_resistance: expected a non-negative resistance, got "-1")"},
+      {R"({"second_stge": {"gain": 10}, )" + adc + "}",
+       R"(stage.json: /chain/second_stge: unknown key (did you mean "second_stage"?))"},
       {converter(R"("sample_rate": "100k", "sample_rat": 1)"),
        R"(stage.json: /chain/adc/sample_rat: unknown key (did you mean "sample_rate"?))"},
   };

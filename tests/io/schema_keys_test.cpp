@@ -202,6 +202,16 @@ TEST_CASE("the stage schema and the stage parser know the same keys") {
       "adc": {"bits": 24, "full_scale": 5, "sample_rate": "10k",
               "input_noise_rms": "1u"}}})"_json);
   ParseStageJson(chain, "chain variant", library);
+  json second = Example("load-cell-bridge");
+  second.merge_patch(R"({"chain": {
+      "second_stage": {"gain": -10, "noise_gain": 11,
+                       "bandwidth": {"gbw": "10M"},
+                       "input_noise": {"density": "5n", "corner": "10"},
+                       "input_current_noise": {"density": "1p",
+                                               "corner": "100"},
+                       "source_resistance": "1k"},
+      "adc": {"bits": 24, "full_scale": 5, "sample_rate": "10k"}}})"_json);
+  ParseStageJson(second, "second stage variant", library);
   json converter = Example("load-cell-bridge");
   converter.merge_patch(R"({"chain": {"adc": {"bits": 16, "full_scale": 5,
       "sample_rate": "10k", "snr_dB": 90}}})"_json);
