@@ -12,6 +12,7 @@
 #include "budget/chain_block.h"
 #include "budget/dc_output.h"
 #include "budget/stage_problem.h"
+#include "circuit/tee_equivalents.h"
 #include "noise/noise_source.h"
 
 namespace hushgain {
@@ -142,6 +143,25 @@ struct MeasurandBlock {
   std::string sensitivity_unit = "V";
   double input_referred_rms = 0;
   double input_referred_density_at_reference = 0;  // per rtHz
+};
+
+// The T network as its pi (star-mesh) equivalent and the currents in its
+// arms (budget/tee_pi.h), for every T-network stage.
+struct TeePiBlock {
+  PiEquivalent arms;                // bridge (= Req), input arm, output arm
+  double noise_equivalent_ohm = 0;  // circuit/tee_equivalents.h
+  // R2/R3 = Req / (S/R2): what the input arm adds to the DC noise gain.
+  double input_arm_noise_gain = 0;
+  // |I(input arm)| / |I(bridge)| for the signal at a frequency.
+  struct ArmFraction {
+    double f_hz = 0;
+    double fraction = 0;
+  };
+  ArmFraction fraction_at_dc, fraction_at_reference, fraction_at_band_high;
+  // With a full-scale swing: the output arm's current there, V_fs / (S/R1),
+  // and its share of the op-amp's output current.
+  std::optional<double> output_arm_current_a;
+  std::optional<double> output_arm_share;
 };
 
 // A feedback capacitor chosen for a target ("auto").
@@ -290,6 +310,7 @@ struct Budget {
   std::optional<double> dynamic_range_db;  // 2 x full scale / noise p-p
 
   std::optional<TeeComparison> tee;
+  std::optional<TeePiBlock> tee_pi;  // a T network's pi equivalent
 
   std::vector<ResistorDrop> resistor_drops;
   std::optional<ExcessAdvice> excess_advice;

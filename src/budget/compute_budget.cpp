@@ -15,6 +15,7 @@
 #include "budget/offset.h"
 #include "budget/resistor_excess.h"
 #include "budget/stage_evaluator.h"
+#include "budget/tee_pi.h"
 #include "circuit/expand_stage.h"
 #include "circuit/feedback_network.h"
 #include "circuit/stage_at_temperature.h"
@@ -487,6 +488,8 @@ BudgetOutcome ComputeBudgetAsGiven(const Stage& requested,
   if (s.ok && full) s = ResponseFigures(stage, ports, evaluator, b);
   if (s.ok && full) s = OutputDrive(stage, evaluator.system(), ports, b);
   if (s.ok && full) s = GainCollapse(stage, ports, evaluator, b);
+  if (s.ok && full)
+    s = TeePiFigures(stage, netlist, evaluator.system(), ports.signal, &b);
   if (!s.ok) return {s, b, {}, {}};
   Headroom(stage, b);
 

@@ -134,6 +134,58 @@ Table TeeSummaryTable(const Budget& b) {
   return t;
 }
 
+Table TeePiTable(const Budget& b) {
+  const TeePiBlock& pi = *b.tee_pi;
+  const std::string ohm = "\xCE\xA9";
+  Table t;
+  t.header = {"pi arm", "value", "between", "current"};
+  t.align = {Table::Align::kLeft, Table::Align::kRight, Table::Align::kLeft,
+             Table::Align::kLeft};
+  t.AddRow({"bridge S/R3", FormatEng(pi.arms.bridge_ohm, ohm),
+            "summing node and output", "the feedback current"});
+  auto fraction = [](const TeePiBlock::ArmFraction& a) {
+    return Printf("%.3g", a.fraction) + " at " +
+           (a.f_hz > 0 ? FormatEng(a.f_hz, "Hz", 3) : std::string("DC"));
+  };
+  t.AddRow({"input arm S/R2", FormatEng(pi.arms.input_arm_ohm, ohm),
+            "summing node and ground",
+            fraction(pi.fraction_at_dc) + ", " +
+                fraction(pi.fraction_at_reference) + ", " +
+                fraction(pi.fraction_at_band_high) + " of the bridge's"});
+  std::string load = "-";
+  if (pi.output_arm_current_a) {
+    load = FormatEng(*pi.output_arm_current_a, "A") + " at full scale";
+    if (pi.output_arm_share)
+      load += " (" + FormatShare(*pi.output_arm_share) +
+              " of the op-amp's output current)";
+  }
+  t.AddRow({"output arm S/R1", FormatEng(pi.arms.output_arm_ohm, ohm),
+            "output and ground", load});
+  return t;
+}
+
+std::vector<std::pair<std::string, std::string>> TeePiSentences(
+    const Budget& b) {
+  const TeePiBlock& pi = *b.tee_pi;
+  std::vector<std::pair<std::string, std::string>> out;
+  out.push_back(
+      {"why the T costs noise gain",
+       "the input arm sits at the virtual ground, so it carries almost no "
+       "signal current (the fraction above is about (R2/R3) / |1 + A(f)|), "
+       "but to e_n and Vos it is a second resistor from the summing node to "
+       "ground: the DC noise gain 1 + Req/R_a + R2/R3 carries R2/R3 = " +
+           FormatGain(pi.input_arm_noise_gain) +
+           " beyond the plain resistor's 1 + Req/R_a (this stage: " +
+           FormatGain(b.noise_gain_dc) +
+           "); the output arm is only a load and adds no noise gain"});
+  if (!b.photodiode)
+    out.push_back({"noise-equivalent resistance",
+                   "the T network is as noisy as one " +
+                       FormatEng(pi.noise_equivalent_ohm, "\xCE\xA9") +
+                       " resistor at the summing node"});
+  return out;
+}
+
 Table TeeChangesTable(const Budget& b) {
   Table t;
   t.header = {"contributor", "T network", "plain R_f", "change"};

@@ -7,6 +7,8 @@
 #define HUSHGAIN_REPORT_BUDGET_TABLES_H_
 
 #include <string>
+#include <utility>
+#include <vector>
 
 #include "budget/budget.h"
 #include "report/table.h"
@@ -28,6 +30,18 @@ Table TeeSummaryTable(const Budget& budget);
 
 // Requires budget.tee. One row per contributor of either stage.
 Table TeeChangesTable(const Budget& budget);
+
+// Requires budget.tee_pi. The pi equivalent's three arms: value, where it
+// sits, and its current (the input arm's as a fraction of the bridge's at
+// DC, the reference and the band's upper edge; the output arm's at full
+// scale with its share of the op-amp's output current).
+Table TeePiTable(const Budget& budget);
+
+// Requires budget.tee_pi. The lines under TeePiTable as (label, text):
+// why the T costs noise gain, and (outside a photodiode stage, whose header
+// says it) the noise-equivalent resistance.
+std::vector<std::pair<std::string, std::string>> TeePiSentences(
+    const Budget& budget);
 
 // The response line's text, shared by text and Markdown: "19.17 kHz (against
 // the DC gain)", or for a stage that blocks DC "12.0 Hz to 19.17 kHz

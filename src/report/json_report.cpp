@@ -261,6 +261,25 @@ std::string BudgetToJson(const Budget& b) {
         {"contributors", changes},
     };
   }
+  if (b.tee_pi) {
+    const TeePiBlock& pi = *b.tee_pi;
+    json fractions = {{"dc", pi.fraction_at_dc.fraction},
+                      {"reference", pi.fraction_at_reference.fraction},
+                      {"band_high", pi.fraction_at_band_high.fraction}};
+    out["tee"]["pi"] = {
+        {"bridge_ohm", pi.arms.bridge_ohm},
+        {"input_arm_ohm", pi.arms.input_arm_ohm},
+        {"output_arm_ohm", pi.arms.output_arm_ohm},
+        {"noise_equivalent_resistance_ohm", pi.noise_equivalent_ohm},
+        {"input_arm_noise_gain", pi.input_arm_noise_gain},
+        {"input_arm_current_fraction", fractions},
+        {"output_arm_current_A", pi.output_arm_current_a
+                                     ? json(*pi.output_arm_current_a)
+                                     : json(nullptr)},
+        {"output_arm_current_share",
+         pi.output_arm_share ? json(*pi.output_arm_share) : json(nullptr)},
+    };
+  }
   if (b.chain) AddChainJson(*b.chain, out);
   AddRealPartsJson(b, out);
   json flags = json::array();

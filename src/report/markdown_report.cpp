@@ -163,6 +163,15 @@ std::string TeeSection(const Budget& b) {
   return out;
 }
 
+std::string TeePiSection(const Budget& b) {
+  std::string out =
+      "\n### T network as its pi equivalent (star-mesh, S = R1 R2 + R2 R3 "
+      "+ R3 R1)\n\n";
+  out += RenderMarkdown(TeePiTable(b)) + "\n";
+  for (const auto& [label, text] : TeePiSentences(b)) out += Item(label, text);
+  return out;
+}
+
 std::string ChainSection(const Budget& b) {
   std::string out =
       "\n### Signal chain to the converter: " + EscapeMarkdown(ChainTitle(b)) +
@@ -177,6 +186,7 @@ std::string ChainSection(const Budget& b) {
 std::string BudgetToMarkdown(const Budget& b) {
   std::string out = Header(b) + NoiseSection(b) + OffsetSection(b);
   if (b.tee) out += TeeSection(b);
+  if (b.tee_pi) out += TeePiSection(b);
   if (b.chain) out += ChainSection(b);
   for (const std::string& w : b.warnings)
     out += "\n> warning: " + EscapeMarkdown(w) + "\n";

@@ -76,10 +76,27 @@ void AddBudgetColumns(std::vector<Column<Row>>& columns,
                      }});
 }
 
-// The last column of every row: why its stage cannot work
+// The last columns of every row: the current the T's output arm (pi
+// equivalent, S/R1) draws at full scale ("-" for a plain resistor or
+// without a full scale), and why the stage cannot work
 // (budget/stage_problem.h), "-" when nothing is wrong.
 template <typename Row, typename BudgetOf>
-void AddFlagsColumn(std::vector<Column<Row>>& columns, BudgetOf budget_of) {
+void AddLoadAndFlagsColumns(std::vector<Column<Row>>& columns,
+                            BudgetOf budget_of) {
+  columns.push_back({"out-arm I", "output_arm_current_A",
+                     [=](const Row& r) {
+                       const Budget& b = budget_of(r);
+                       return b.tee_pi && b.tee_pi->output_arm_current_a
+                                  ? FormatEng(*b.tee_pi->output_arm_current_a,
+                                              "A")
+                                  : std::string("-");
+                     },
+                     [=](const Row& r) {
+                       const Budget& b = budget_of(r);
+                       return b.tee_pi && b.tee_pi->output_arm_current_a
+                                  ? CsvNumber(*b.tee_pi->output_arm_current_a)
+                                  : std::string("");
+                     }});
   columns.push_back(
       {"flags", "flags",
        [=](const Row& r) { return StageProblemFlags(budget_of(r).problems); },
@@ -126,7 +143,8 @@ Table SweepTable(const TeeSweepResult& s, TeeCells cells) {
   columns.push_back({"noise cost", "noise_cost_ratio",
                      [](Row r) { return Ratio(r->noise_cost_ratio); },
                      [](Row r) { return CsvNumber(r->noise_cost_ratio); }});
-  AddFlagsColumn(columns, [](Row r) -> const Budget& { return r->budget; });
+  AddLoadAndFlagsColumns(columns,
+                         [](Row r) -> const Budget& { return r->budget; });
   std::vector<Row> rows;
   for (const TeeSweepRow& r : s.rows) rows.push_back(&r);
   return Build(columns, rows, cells);
@@ -177,7 +195,7 @@ Table SearchTable(const TeeSearchResult& s, const TeeSearchQuery& q,
       {q.ranking == TeeRanking::kWeighted ? "score" : "", "score",
        [](const Row& r) { return Printf("%.4f", r.candidate->score); },
        [](const Row& r) { return CsvNumber(r.candidate->score); }});
-  AddFlagsColumn(columns, [](const Row& r) -> const Budget& {
+  AddLoadAndFlagsColumns(columns, [](const Row& r) -> const Budget& {
     return r.candidate->budget;
   });
   std::vector<Row> rows;

@@ -161,6 +161,16 @@ std::string TeeSection(const Budget& b) {
   return out;
 }
 
+std::string TeePiSection(const Budget& b) {
+  std::string out =
+      "\nT network as its pi equivalent (star-mesh, S = R1 R2 + R2 R3 + "
+      "R3 R1)\n";
+  out += RenderText(TeePiTable(b));
+  for (const auto& [label, text] : TeePiSentences(b))
+    out += "  " + label + ": " + text + "\n";
+  return out;
+}
+
 std::string ChainSection(const Budget& b) {
   std::string out = "\nSignal chain to the converter: " + ChainTitle(b) + "\n";
   out += RenderText(ChainTable(b, ChainCells::kDisplay));
@@ -178,6 +188,7 @@ std::string BudgetToText(const Budget& b) {
   std::string out = Header(b) + NoiseSection(b) + OffsetSection(b);
   out += RealPartsText(b);
   if (b.tee) out += TeeSection(b);
+  if (b.tee_pi) out += TeePiSection(b);
   if (b.chain) out += ChainSection(b);
   for (const std::string& w : b.warnings) out += "\nwarning: " + w + "\n";
   return out;

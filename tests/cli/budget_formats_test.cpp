@@ -222,6 +222,32 @@ TEST_CASE("the spectrum csv integrates to the budget's output rms") {
   }
 }
 
+TEST_CASE("a T network's budget carries its pi equivalent in JSON") {
+  // The hydrophone example's T: R1 = R2 = 100k, R3 = 1.02k, a 10 V full
+  // scale. Star-mesh (Kennelly 1899): S = R1 R2 + R2 R3 + R3 R1, arms S/R3,
+  // S/R2, S/R1; the output arm draws 10 V / (S/R1) at full scale.
+  const json doc = BudgetJson(test::ExamplePath("hydrophone-preamp"));
+  const double r1 = 100e3, r2 = 100e3, r3 = 1.02e3;
+  const double s = r1 * r2 + r2 * r3 + r3 * r1;
+  REQUIRE(doc.contains("tee"));
+  const json& pi = doc["tee"]["pi"];
+  CHECK(RelErr(pi["bridge_ohm"].get<double>(), s / r3) < test::kRelTight);
+  CHECK(RelErr(pi["input_arm_ohm"].get<double>(), s / r2) < test::kRelTight);
+  CHECK(RelErr(pi["output_arm_ohm"].get<double>(), s / r1) < test::kRelTight);
+  CHECK(RelErr(pi["output_arm_current_A"].get<double>(), 10 * r1 / s) <
+        test::kRelTight);
+  const json& fraction = pi["input_arm_current_fraction"];
+  for (const char* at : {"dc", "reference", "band_high"}) {
+    CAPTURE(at);
+    REQUIRE(fraction.contains(at));
+    CHECK(fraction[at].get<double>() > 0);
+  }
+  // The fraction grows with frequency as |A(f)| falls.
+  CHECK(fraction["dc"].get<double>() < fraction["reference"].get<double>());
+  CHECK(fraction["reference"].get<double>() <
+        fraction["band_high"].get<double>());
+}
+
 TEST_CASE("--json is the same as --format json") {
   const std::string stage = test::ExamplePath("load-cell-bridge");
   const auto a = RunHushgain({"budget", "--json", stage});

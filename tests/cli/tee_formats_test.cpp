@@ -96,7 +96,7 @@ TEST_CASE("tee sweep markdown holds the JSON's figures, one row per network") {
   REQUIRE(rows.size() == jr.size());
   for (std::size_t i = 0; i < rows.size(); ++i) {
     INFO("row " << i);
-    REQUIRE(rows[i].size() == 10);  // ..., noise cost, flags
+    REQUIRE(rows[i].size() == 11);  // ..., noise cost, out-arm I, flags
     CHECK(RelErr(Cell(rows[i][0], Quantity::kResistance),
                  jr[i]["largest_ohm"]) < kRelFourDigits);
     CHECK(RelErr(Cell(rows[i][1], Quantity::kResistance), jr[i]["r1_ohm"]) <
@@ -134,7 +134,7 @@ TEST_CASE("tee search markdown holds the JSON's figures in rank order") {
   REQUIRE(rows.size() == 6);
   for (std::size_t i = 0; i < rows.size(); ++i) {
     INFO("rank " << i + 1);
-    REQUIRE(rows[i].size() == 12);  // ..., flags
+    REQUIRE(rows[i].size() == 13);  // ..., out-arm I, flags
     CHECK(rows[i][0] == std::to_string(i + 1));
     const char* ohm_keys[] = {"r_in_ohm", "r1_ohm", "r2_ohm", "r3_ohm"};
     for (int k = 0; k < 4; ++k)

@@ -84,14 +84,15 @@ TEST_CASE("sweep tables in display and CSV cells hold the same figures") {
   const TeeSweepResult s = SmallSweep();
   const Table display = SweepTable(s, TeeCells::kDisplay);
   const Table csv = SweepTable(s, TeeCells::kCsv);
-  CHECK(display.header == std::vector<std::string>{"largest", "R1", "R2", "R3",
-                                                   "e_n NG", "output rms",
-                                                   "input rms", "offset worst",
-                                                   "noise cost", "flags"});
+  CHECK(display.header ==
+        std::vector<std::string>{"largest", "R1", "R2", "R3", "e_n NG",
+                                 "output rms", "input rms", "offset worst",
+                                 "noise cost", "out-arm I", "flags"});
   CHECK(csv.header == std::vector<std::string>{
                           "largest_ohm", "r1_ohm", "r2_ohm", "r3_ohm", "plain",
                           "noise_gain_dc", "output_rms_V", "input_rms_V",
-                          "offset_worst_case_V", "noise_cost_ratio", "flags"});
+                          "offset_worst_case_V", "noise_cost_ratio",
+                          "output_arm_current_A", "flags"});
   REQUIRE(display.rows.size() == 2);
   REQUIRE(csv.rows.size() == 2);
   // The plain row names itself; its CSV record says plain = 1.
@@ -124,7 +125,7 @@ TEST_CASE("sweep CSV is RFC 4180 with SI numbers") {
   const TeeSweepResult s = SmallSweep();
   const auto records = test::ReadCsv(SweepToCsv(s));
   REQUIRE(records.size() == 3);
-  for (const auto& r : records) CHECK(r.size() == 11);
+  for (const auto& r : records) CHECK(r.size() == 12);
   CHECK(records[0][6] == "output_rms_V");
   CHECK(RelErr(std::stod(records[2][6]), 985.6e-6) < kRelCsv);
   // noise cost = output rms / the plain row's (design/tee_sweep.h).
@@ -173,15 +174,16 @@ TEST_CASE("search tables show the score only for the weighted ranking") {
   q.gain_tolerance = 0.005;
   q.ranking = TeeRanking::kNoise;
   const Table noise = SearchTable(s, q, TeeCells::kDisplay);
-  // The flags column closes every table; before it, the ranking's column.
+  // The flags column closes every table; before it the output-arm
+  // current, and before that the ranking's column.
   REQUIRE(noise.header.size() >= 2);
   CHECK(noise.header.back() == "flags");
-  CHECK(noise.header[noise.header.size() - 2] == "noise cost");
+  CHECK(noise.header[noise.header.size() - 3] == "noise cost");
   q.ranking = TeeRanking::kWeighted;
   const Table weighted = SearchTable(s, q, TeeCells::kDisplay);
-  CHECK(weighted.header[weighted.header.size() - 2] == "score");
+  CHECK(weighted.header[weighted.header.size() - 3] == "score");
   const Table csv = SearchTable(s, q, TeeCells::kCsv);
-  CHECK(csv.header[csv.header.size() - 2] == "score");
+  CHECK(csv.header[csv.header.size() - 3] == "score");
   // gain error = |gain| / target - 1, in percent on display.
   const double error = 909.0 / 909.447 - 1;
   CHECK(RelErr(std::stod(csv.rows[0][6]), error) < kRelCsv);
