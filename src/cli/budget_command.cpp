@@ -2,6 +2,7 @@
 
 #include <cstdio>
 #include <iostream>
+#include <optional>
 #include <vector>
 
 #include "budget/compute_budget.h"
@@ -10,6 +11,7 @@
 #include "cli/diagnostics.h"
 #include "cli/exit_codes.h"
 #include "cli/option_values.h"
+#include "cli/output_files.h"
 #include "cli/output_format.h"
 #include "cli/stage_input.h"
 #include "cli/text_output.h"
@@ -51,28 +53,38 @@ int RunBudgetCommand(const BudgetCommandOptions& options) {
   if (!options.chain_csv_path.empty() && !stage.chain)
     throw Error("command line", "",
                 "--chain-csv: the stage has no \"chain\" block");
+  OutputFiles outputs;
+  std::optional<OutputFiles::Id> spectrum_file, chain_file;
+  if (!options.spectrum_path.empty())
+    spectrum_file = outputs.AddText("--spectrum", options.spectrum_path,
+                                    /*stdout_ok=*/true);
+  if (!options.chain_csv_path.empty())
+    chain_file = outputs.AddText("--chain-csv", options.chain_csv_path,
+                                 /*stdout_ok=*/true);
+  outputs.Check(CommandInputs(options.stage_path, library, options.device));
   const ReviewOptions review_options =
       FullReviewOptions(library, options.tolerance);
   const BudgetOutcome outcome = ReviewStage(stage, review_options);
   if (!outcome.status.ok)
     return ReportRefusal(options.stage_path, outcome.status.message);
-  if (!options.spectrum_path.empty()) {
+  if (spectrum_file) {
     const SpectrumOutcome spectrum =
         SampleSpectra(StageAsBudgeted(stage, outcome.budget),
                       LogFrequencyGrid(stage.band_low_hz, stage.band_high_hz,
                                        kSpectrumPointsPerDecade));
     if (!spectrum.status.ok)
       return ReportRefusal(options.stage_path, spectrum.status.message);
-    WriteFileAtomically(options.spectrum_path,
-                        SpectrumToCsv(outcome.budget, spectrum.samples));
+    outputs.SetText(*spectrum_file,
+                    SpectrumToCsv(outcome.budget, spectrum.samples));
   }
-  if (!options.chain_csv_path.empty())
-    WriteFileAtomically(
-        options.chain_csv_path,
-        RenderCsv(ChainTable(outcome.budget, ChainCells::kCsv)));
+  if (chain_file)
+    outputs.SetText(*chain_file,
+                    RenderCsv(ChainTable(outcome.budget, ChainCells::kCsv)));
   const std::string text = Render(outcome.budget, format);
   ReportWarnings(outcome.budget.warnings);
-  WriteReport(text, format);
+  if (const int written = outputs.Commit(); written != kExitOk) return written;
+  // An output on standard output takes it: the report is not mixed in.
+  if (!outputs.TakesStdout()) WriteReport(text, format);
   return kExitOk;
 }
 

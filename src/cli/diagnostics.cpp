@@ -33,6 +33,11 @@ int ReportToolFailure(std::string_view target, std::string_view message) {
   return kExitToolFailed;
 }
 
+int ReportWriteFailure(std::string_view path, std::string_view reason) {
+  Line("error: ", path, "cannot write: " + std::string(reason));
+  return kExitSystem;
+}
+
 void ReportWarning(std::string_view message, std::string_view about) {
   Line("warning: ", about, message);
 }

@@ -24,6 +24,10 @@ int ReportNoResult(std::string_view source, std::string_view message);
 // or failed; returns kExitToolFailed.
 int ReportToolFailure(std::string_view target, std::string_view message);
 
+// "error: PATH: cannot write: REASON" when an output could not be written
+// whole (disk full, an incomplete picture, ...); returns kExitSystem.
+int ReportWriteFailure(std::string_view path, std::string_view reason);
+
 // "warning: MESSAGE", or "warning: ABOUT: MESSAGE" when `about` names which
 // row or network the warning belongs to.
 void ReportWarning(std::string_view message, std::string_view about = {});

@@ -1,14 +1,6 @@
 #include "cli/draw_picture.h"
 
-#include <fcntl.h>
-#include <sys/stat.h>
-#include <unistd.h>
-
 #include <cctype>
-#include <cerrno>
-#include <cstdio>
-#include <cstring>
-#include <iostream>
 
 #include "cli/diagnostics.h"
 #include "cli/exit_codes.h"
@@ -52,28 +44,19 @@ std::string GnuplotOrExplain(const std::string& who) {
 }
 
 int DrawPicture(
-    const std::string& gnuplot, const std::string& target,
-    const std::function<std::string(const std::string&)>& script_for) {
-  // gnuplot writes a temporary file beside the target, created here first
-  // so an unwritable place is reported as such; it is renamed when whole.
-  const std::string temporary = target + ".tmp-" + std::to_string(::getpid());
-  const int fd = ::open(temporary.c_str(), O_WRONLY | O_CREAT | O_EXCL, 0644);
-  if (fd < 0)
-    throw Error(target, "",
-                std::string("cannot write: ") + std::strerror(errno));
-  ::close(fd);
-
+    const std::string& gnuplot, OutputFiles& outputs, OutputFiles::Id id,
+    const std::function<std::string(const std::string&)>& script_for,
+    const std::atomic<bool>* stop) {
+  const std::string temporary = outputs.PictureTemporary(id);
+  if (temporary.empty()) return kExitSystem;
   const GnuplotRun run = RunGnuplot(gnuplot, script_for(temporary));
-  struct stat st;
-  if (!run.ok || ::stat(temporary.c_str(), &st) != 0 || st.st_size == 0) {
-    std::remove(temporary.c_str());
-    return ReportToolFailure(target,
-                             run.ok ? "gnuplot wrote no picture" : run.message);
+  if (stop != nullptr && stop->load()) {
+    outputs.Discard();
+    return kExitInterrupted;
   }
-  if (std::rename(temporary.c_str(), target.c_str()) != 0) {
-    const std::string why = std::strerror(errno);
-    std::remove(temporary.c_str());
-    throw Error(target, "", "cannot write: " + why);
+  if (!run.ok) {
+    outputs.Discard();
+    return ReportToolFailure(outputs.Path(id), run.message);
   }
   return kExitOk;
 }

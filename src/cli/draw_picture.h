@@ -1,14 +1,18 @@
 // Drawing a picture with gnuplot for the commands that plot (plot, tee
-// sweep --plot, tee search --plot): the format from the file name, gnuplot
-// found on PATH, the script run on a temporary name beside the target and
-// the picture renamed into place when whole, so a failed or interrupted run
-// leaves no partial file and never harms an older one.
+// sweep --plot, tee search --plot, tia snr --plot, spread --plot, note):
+// the format from the file name, gnuplot found on PATH, the script run on
+// the output's temporary (cli/output_files.h), which the command's
+// OutputFiles::Commit() checks for its end and renames into place, so a
+// failed or interrupted run leaves no partial file and never harms an
+// older one.
 #ifndef HUSHGAIN_CLI_DRAW_PICTURE_H_
 #define HUSHGAIN_CLI_DRAW_PICTURE_H_
 
+#include <atomic>
 #include <functional>
 #include <string>
 
+#include "cli/output_files.h"
 #include "report/plot_script.h"
 
 namespace hushgain {
@@ -24,14 +28,17 @@ PlotFormat PictureFormat(const std::string& option, const std::string& path);
 // returns kExitToolFailed.
 std::string GnuplotOrExplain(const std::string& who);
 
-// Writes `target` from the script that `script_for(temporary_path)` returns
-// (the script must draw to the path it is given). Returns kExitOk, or
-// kExitToolFailed after printing "error: <target>: <why>" when gnuplot
-// fails or draws nothing. Throws Error when the target's folder cannot be
-// written.
+// Draws picture `id` of `outputs` from the script that
+// `script_for(temporary_path)` returns (the script must draw to the path it
+// is given). Returns kExitOk (the picture waits for outputs.Commit()), or,
+// with every temporary removed, kExitToolFailed after "error: <target>:
+// <why>" when gnuplot fails, kExitSystem when the temporary cannot be made,
+// or kExitInterrupted, with nothing said, when `stop` was set meanwhile
+// (Ctrl-C reaches gnuplot too).
 int DrawPicture(
-    const std::string& gnuplot, const std::string& target,
-    const std::function<std::string(const std::string&)>& script_for);
+    const std::string& gnuplot, OutputFiles& outputs, OutputFiles::Id id,
+    const std::function<std::string(const std::string&)>& script_for,
+    const std::atomic<bool>* stop = nullptr);
 
 }  // namespace hushgain
 

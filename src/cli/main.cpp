@@ -75,10 +75,13 @@ std::function<int()> DefineBudget(CLI::App* app, const GlobalOptions& global) {
                   "text, json, markdown or csv (default text)");
   app->add_option("--spectrum", options->spectrum_path,
                   "also write the output densities across the band to this "
-                  "CSV file");
+                  "CSV file (\"-\": standard output, instead of the report)")
+      ->check(OutputPath());
   app->add_option("--chain-csv", options->chain_csv_path,
                   "also write the signal chain's table (a stage with a "
-                  "\"chain\" block) to this CSV file");
+                  "\"chain\" block) to this CSV file (\"-\": standard "
+                  "output, instead of the report)")
+      ->check(OutputPath());
   app->add_option("--tolerance", options->tolerance,
                   "relative error target of the noise integral (default 1e-4)")
       ->check(NumberValidator());
@@ -137,7 +140,8 @@ std::function<int()> DefineTee(CLI::App* app, const GlobalOptions& global) {
   s->add_flag("--json", sweep->json, "the same as --format json");
   s->add_option("--plot", sweep->plot_path,
                 "also draw noise and offset against the largest resistor "
-                "(.png, .svg or .pdf)");
+                "(.png, .svg or .pdf)")
+      ->check(OutputPath());
   s->add_option("--tolerance", sweep->tolerance,
                 "relative error target of the noise integral (default 1e-4)");
   s->callback([sweep, chosen, &global] {
@@ -187,7 +191,8 @@ std::function<int()> DefineTee(CLI::App* app, const GlobalOptions& global) {
   q->add_flag("--json", search->json, "the same as --format json");
   q->add_option("--plot", search->plot_path,
                 "also draw the networks' noise, offset and resistors by rank "
-                "(.png, .svg or .pdf)");
+                "(.png, .svg or .pdf)")
+      ->check(OutputPath());
   q->add_option("--tolerance", search->tolerance,
                 "relative error target of the noise integral (default 1e-4)");
   q->callback([search, chosen, &global] {
@@ -263,7 +268,8 @@ std::function<int()> DefineTia(CLI::App* app, const GlobalOptions& global) {
   n->add_flag("--csv", snr->csv, "the same as --format csv");
   n->add_flag("--json", snr->json, "the same as --format json");
   n->add_option("--plot", snr->plot_path,
-                "also draw SNR against power, log-log (.png, .svg or .pdf)");
+                "also draw SNR against power, log-log (.png, .svg or .pdf)")
+      ->check(OutputPath());
   n->callback([snr, chosen, &global] {
     *chosen = [snr, &global] {
       snr->devices_dir = global.devices_dir;
@@ -283,11 +289,14 @@ std::function<int()> DefinePlot(CLI::App* app, const GlobalOptions& global) {
       ->type_name("NAME");
   app->add_option("-o,--output", options->output_path,
                   "picture to write, .png, .svg or .pdf")
-      ->required();
+      ->required()
+      ->check(OutputPath());
   app->add_option("--only", options->only,
                   "draw one panel: spectrum, cumulative or gain");
   app->add_option("--script", options->script_path,
-                  "also save the gnuplot script (data inline) to this file");
+                  "also save the gnuplot script (data inline) to this file "
+                  "(\"-\": standard output)")
+      ->check(OutputPath());
   return [options, &global] {
     options->devices_dir = global.devices_dir;
     return RunPlotCommand(*options);
@@ -309,14 +318,17 @@ std::function<int()> DefineSpread(CLI::App* app, const GlobalOptions& global) {
   app->add_option("--threads", o->threads, "worker threads (default 0: all)")
       ->check(WholeNumber<int>());
   app->add_option("--csv", o->csv_path,
-                  "write every sample to this CSV file (the summary as CSV "
-                  "is --format csv)");
+                  "write every sample to this CSV file (\"-\": standard "
+                  "output, instead of the summary; the summary as CSV is "
+                  "--format csv)")
+      ->check(OutputPath());
   app->add_option("--format", o->format,
                   "summary as text, json, markdown or csv (default text)");
   app->add_flag("--json", o->json, "the same as --format json");
   app->add_option("--plot", o->plot_path,
                   "also draw histograms of gain error, offset and noise "
-                  "(.png, .svg or .pdf)");
+                  "(.png, .svg or .pdf)")
+      ->check(OutputPath());
   app->add_option("--gain-error-limit", o->gain_error_limit,
                   "yield limit on |gain error|, e.g. 0.5%");
   app->add_option("--offset-limit", o->offset_limit,
@@ -348,7 +360,8 @@ std::function<int()> DefineNote(CLI::App* app, const GlobalOptions& global) {
   app->add_option("-o,--output", o->output_path,
                   "the note: one self-contained .html file, or .md with the "
                   "plot sheet as an SVG beside it")
-      ->required();
+      ->required()
+      ->check(OutputPath());
   app->add_option("--format", o->format, "html or markdown (default html)");
   app->add_option("--device", o->device,
                   "op-amp device (a name in the device folder or a part "

@@ -5,11 +5,14 @@
 
 #include <filesystem>
 #include <nlohmann/json.hpp>
+#include <optional>
+#include <vector>
 
 #include "cli/diagnostics.h"
 #include "cli/draw_picture.h"
 #include "cli/exit_codes.h"
 #include "cli/option_values.h"
+#include "cli/output_files.h"
 #include "cli/plot_command.h"
 #include "cli/stage_input.h"
 #include "cli/version.h"
@@ -79,6 +82,18 @@ int RunNoteCommand(const NoteCommandOptions& options) {
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
   const Stage stage =
       LoadStageForCommand(options.stage_path, library, options.device);
+  OutputFiles outputs;
+  const OutputFiles::Id note_file =
+      outputs.AddText("-o", options.output_path, /*stdout_ok=*/false);
+  // A Markdown note has its sheet beside it: "<note>-sheet.svg".
+  const fs::path note(options.output_path);
+  const std::string svg_name = note.stem().string() + "-sheet.svg";
+  std::optional<OutputFiles::Id> sheet_file;
+  if (options.format == "markdown")
+    sheet_file = outputs.AddPicture("the sheet",
+                                    (note.parent_path() / svg_name).string(),
+                                    PlotFormat::kSvg);
+  outputs.Check(CommandInputs(options.stage_path, library, options.device));
   const std::string gnuplot = GnuplotOrExplain("note");
   if (gnuplot.empty()) return kExitToolFailed;
 
@@ -100,33 +115,43 @@ int RunNoteCommand(const NoteCommandOptions& options) {
 
   PlotScriptOptions script;
   script.format = PlotFormat::kSvg;
-  const auto draw = [&](const std::string& target) {
-    return DrawPicture(gnuplot, target, [&](const std::string& temporary) {
+  const auto draw = [&](OutputFiles& files, OutputFiles::Id id) {
+    return DrawPicture(gnuplot, files, id, [&](const std::string& temporary) {
       PlotScriptOptions drawing = script;
       drawing.output_path = temporary;
       return BuildPlotScript(budget, sheet.data, drawing);
     });
   };
-  if (options.format == "markdown") {
-    const fs::path note(options.output_path);
-    const std::string svg_name = note.stem().string() + "-sheet.svg";
-    const int drawn = draw((note.parent_path() / svg_name).string());
+  if (sheet_file) {
+    // The note and its sheet, written together.
+    const int drawn = draw(outputs, *sheet_file);
     if (drawn != kExitOk) return drawn;
     input.sheet = svg_name;
-    WriteFileAtomically(options.output_path, DesignNoteMarkdown(input));
+    outputs.SetText(note_file, DesignNoteMarkdown(input));
   } else {
+    // The sheet is drawn into a scratch folder, checked whole like any
+    // picture, and read into the note.
     std::string folder =
         (fs::temp_directory_path() / "hushgain-note-XXXXXX").string();
     if (::mkdtemp(folder.data()) == nullptr)
       throw Error(folder, "", "cannot make a scratch folder");
     const std::string svg = (fs::path(folder) / "sheet.svg").string();
-    const int drawn = draw(svg);
+    int drawn = kExitOk;
+    {
+      OutputFiles scratch;
+      const OutputFiles::Id id =
+          scratch.AddPicture("the sheet", svg, PlotFormat::kSvg);
+      scratch.Check({});
+      drawn = draw(scratch, id);
+      if (drawn == kExitOk) drawn = scratch.Commit();
+    }
     if (drawn == kExitOk) input.sheet = ReadTextFile(svg);
     std::error_code ignored;
     fs::remove_all(folder, ignored);
     if (drawn != kExitOk) return drawn;
-    WriteFileAtomically(options.output_path, DesignNoteHtml(input));
+    outputs.SetText(note_file, DesignNoteHtml(input));
   }
+  if (const int written = outputs.Commit(); written != kExitOk) return written;
   ReportWarnings(budget.warnings);
   return kExitOk;
 }

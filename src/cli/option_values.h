@@ -66,6 +66,16 @@ CLI::Validator WholeNumber() {
       "", "whole number");
 }
 
+// An option naming an output file (cli/output_files.h): an empty name is
+// refused ("expected a file name, got """), never taken as "not given".
+inline CLI::Validator OutputPath() {
+  return CLI::Validator(
+      [](std::string& text) -> std::string {
+        return text.empty() ? "expected a file name, got \"\"" : "";
+      },
+      "", "file name");
+}
+
 }  // namespace hushgain
 
 #endif  // HUSHGAIN_CLI_OPTION_VALUES_H_

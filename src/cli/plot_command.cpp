@@ -3,6 +3,7 @@
 #include <cmath>
 #include <cstdio>
 #include <iostream>
+#include <optional>
 #include <vector>
 
 #include "budget/compute_budget.h"
@@ -11,6 +12,7 @@
 #include "cli/diagnostics.h"
 #include "cli/draw_picture.h"
 #include "cli/exit_codes.h"
+#include "cli/output_files.h"
 #include "cli/stage_input.h"
 #include "integrate/cumulative_power.h"
 #include "io/device_library.h"
@@ -84,6 +86,14 @@ int RunPlotCommand(const PlotCommandOptions& options) {
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
   const Stage stage =
       LoadStageForCommand(options.stage_path, library, options.device);
+  OutputFiles outputs;
+  const OutputFiles::Id picture =
+      outputs.AddPicture("-o", options.output_path, script_options.format);
+  std::optional<OutputFiles::Id> script_file;
+  if (!options.script_path.empty())
+    script_file =
+        outputs.AddText("--script", options.script_path, /*stdout_ok=*/true);
+  outputs.Check(CommandInputs(options.stage_path, library, options.device));
 
   const std::string gnuplot = GnuplotOrExplain("plot");
   if (gnuplot.empty()) return kExitToolFailed;
@@ -95,22 +105,21 @@ int RunPlotCommand(const PlotCommandOptions& options) {
   if (!sheet.status.ok) return Refused(options, sheet.status.message);
   const PlotData& data = sheet.data;
 
-  const std::string& target = options.output_path;
   const int drawn =
-      DrawPicture(gnuplot, target, [&](const std::string& temporary) {
+      DrawPicture(gnuplot, outputs, picture, [&](const std::string& temporary) {
         PlotScriptOptions drawing = script_options;
         drawing.output_path = temporary;
         return BuildPlotScript(budget, data, drawing);
       });
   if (drawn != kExitOk) return drawn;
-  if (!options.script_path.empty()) {
+  if (script_file) {
+    // The saved script draws to the picture's own name.
     PlotScriptOptions saved = script_options;
-    saved.output_path = target;
-    WriteFileAtomically(options.script_path,
-                        BuildPlotScript(budget, data, saved));
+    saved.output_path = options.output_path;
+    outputs.SetText(*script_file, BuildPlotScript(budget, data, saved));
   }
   ReportWarnings(budget.warnings);
-  return kExitOk;
+  return outputs.Commit();
 }
 
 }  // namespace hushgain

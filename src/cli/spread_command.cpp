@@ -14,6 +14,7 @@
 #include "cli/exit_codes.h"
 #include "cli/interrupt.h"
 #include "cli/option_values.h"
+#include "cli/output_files.h"
 #include "cli/output_format.h"
 #include "cli/progress_bar.h"
 #include "cli/stage_input.h"
@@ -68,13 +69,6 @@ int RunSpreadCommand(const SpreadCommandOptions& options) {
   limits.noise_v =
       Limit(options.noise_limit, "--noise-limit", Quantity::kVoltage);
 
-  if (!options.csv_path.empty()) {
-    // Refuse an unwritable place before the run, not after it.
-    const std::filesystem::path folder =
-        std::filesystem::path(options.csv_path).parent_path();
-    if (!folder.empty() && !std::filesystem::is_directory(folder))
-      throw Error(options.csv_path, "", "cannot write: no such folder");
-  }
   SpreadPlotOptions plot;
   plot.seed = options.seed;
   std::string gnuplot;
@@ -86,6 +80,14 @@ int RunSpreadCommand(const SpreadCommandOptions& options) {
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
   const Stage stage =
       LoadStageForCommand(options.stage_path, library, options.device);
+  // Refuse an unwritable place before the run, not after it.
+  OutputFiles outputs;
+  std::optional<OutputFiles::Id> csv_file, plot_file;
+  if (!options.csv_path.empty())
+    csv_file = outputs.AddText("--csv", options.csv_path, /*stdout_ok=*/true);
+  if (!options.plot_path.empty())
+    plot_file = outputs.AddPicture("--plot", options.plot_path, plot.format);
+  outputs.Check(CommandInputs(options.stage_path, library, options.device));
 
   SpreadControl control;
   ProgressBar bar("sampling");
@@ -98,26 +100,34 @@ int RunSpreadCommand(const SpreadCommandOptions& options) {
   control.stop = interrupt.flag();
   const SpreadRun run = RunSpread(stage, spread, control);
   bar.Clear();
-  if (run.interrupted) {
+  const auto interrupted = [] {
     std::cerr << "\n";
     ReportInterrupted("no report, no CSV and no picture written");
     return kExitInterrupted;
-  }
+  };
+  if (run.interrupted) return interrupted();
   if (!run.status.ok)
     return ReportRefusal(options.stage_path, run.status.message);
   const SpreadSummary summary = Summarize(run.samples, limits);
-  if (!options.csv_path.empty())
-    WriteFileAtomically(options.csv_path, SpreadToCsv(run));
-  if (!options.plot_path.empty()) {
+  if (csv_file) outputs.SetText(*csv_file, SpreadToCsv(run));
+  if (plot_file) {
     const int drawn = DrawPicture(
-        gnuplot, options.plot_path, [&](const std::string& temporary) {
+        gnuplot, outputs, *plot_file,
+        [&](const std::string& temporary) {
           SpreadPlotOptions drawing = plot;
           drawing.output_path = temporary;
           return BuildSpreadPlotScript(run, summary, limits, drawing);
-        });
+        },
+        control.stop);
+    if (drawn == kExitInterrupted) return interrupted();
     if (drawn != kExitOk) return drawn;
   }
-  WriteReport(SpreadReport(format, run, summary, limits, options.seed), format);
+  const int written = outputs.Commit(control.stop);
+  if (written == kExitInterrupted) return interrupted();
+  if (written != kExitOk) return written;
+  if (!outputs.TakesStdout())
+    WriteReport(SpreadReport(format, run, summary, limits, options.seed),
+                format);
   return kExitOk;
 }
 

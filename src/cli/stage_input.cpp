@@ -18,6 +18,18 @@ Stage LoadStageForCommand(const std::string& stage_path,
   return stage;
 }
 
+std::vector<InputFile> CommandInputs(const std::string& stage_path,
+                                     const DeviceLibrary& library,
+                                     const std::string& device_override) {
+  std::vector<InputFile> inputs = {{"the stage file", stage_path}};
+  if (!device_override.empty())
+    inputs.push_back({"the --device file", device_override});
+  for (const auto* files : {&library.opamp_files, &library.resistor_files})
+    for (const auto& [name, info] : *files)
+      inputs.push_back({"the device file", info.path});
+  return inputs;
+}
+
 ReviewOptions FullReviewOptions(const DeviceLibrary& library,
                                 double relative_tolerance) {
   ReviewOptions options;

@@ -8,8 +8,10 @@
 #define HUSHGAIN_CLI_STAGE_INPUT_H_
 
 #include <string>
+#include <vector>
 
 #include "circuit/stage.h"
+#include "cli/output_files.h"
 #include "io/device_library.h"
 #include "review/review.h"
 
@@ -20,6 +22,13 @@ namespace hushgain {
 Stage LoadStageForCommand(const std::string& stage_path,
                           const DeviceLibrary& library,
                           const std::string& device_override);
+
+// The files a command reads, which no output may overwrite
+// (OutputFiles::Check): the stage file ("-": standard input), the --device
+// part when it names a file, and every file of the device folder.
+std::vector<InputFile> CommandInputs(const std::string& stage_path,
+                                     const DeviceLibrary& library,
+                                     const std::string& device_override);
 
 // The review `budget` prints: every block on, the integral to
 // `relative_tolerance`, and the library's resistor technologies as the

@@ -17,6 +17,7 @@
 #include "cli/exit_codes.h"
 #include "cli/interrupt.h"
 #include "cli/option_values.h"
+#include "cli/output_files.h"
 #include "cli/output_format.h"
 #include "cli/progress_bar.h"
 #include "cli/stage_input.h"
@@ -155,6 +156,11 @@ int RunTeeSweepCommand(const TeeSweepCommandOptions& options) {
   std::string gnuplot;
   if (!PreparePlot(options.plot_path, "tee sweep --plot", &plot, &gnuplot))
     return kExitToolFailed;
+  OutputFiles outputs;
+  std::optional<OutputFiles::Id> plot_file;
+  if (!options.plot_path.empty())
+    plot_file = outputs.AddPicture("--plot", options.plot_path, plot.format);
+  outputs.Check(CommandInputs(options.stage_path, library, options.device));
   plot.stage_largest_ohm = std::max({given.r1_ohm, given.r2_ohm, given.r3_ohm});
 
   const TeeSweepResult result = SweepTee(stage, sweep);
@@ -162,15 +168,16 @@ int RunTeeSweepCommand(const TeeSweepCommandOptions& options) {
   for (const TeeSweepRow& row : result.rows)
     ReportWarnings(row.budget.warnings,
                    "largest " + FormatEng(row.largest_ohm, kOhm));
-  if (!options.plot_path.empty()) {
+  if (plot_file) {
     const int drawn = DrawPicture(
-        gnuplot, options.plot_path, [&](const std::string& temporary) {
+        gnuplot, outputs, *plot_file, [&](const std::string& temporary) {
           TeePlotOptions drawing = plot;
           drawing.output_path = temporary;
           return BuildSweepPlotScript(result, drawing);
         });
     if (drawn != kExitOk) return drawn;
   }
+  if (const int written = outputs.Commit(); written != kExitOk) return written;
   WriteReport(SweepOutput(format, result), format);
   return kExitOk;
 }
@@ -260,6 +267,11 @@ int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
   std::string gnuplot;
   if (!PreparePlot(options.plot_path, "tee search --plot", &plot, &gnuplot))
     return kExitToolFailed;
+  OutputFiles outputs;
+  std::optional<OutputFiles::Id> plot_file;
+  if (!options.plot_path.empty())
+    plot_file = outputs.AddPicture("--plot", options.plot_path, plot.format);
+  outputs.Check(CommandInputs(options.stage_path, library, options.device));
 
   ProgressBar bar("searching");
   if (bar.enabled()) search.progress = [&bar](double f) { bar.Show(f); };
@@ -313,15 +325,16 @@ int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
       seen.push_back(w);
       ReportWarning(w, "#" + std::to_string(i + 1));
     }
-  if (!options.plot_path.empty()) {
+  if (plot_file) {
     const int drawn = DrawPicture(
-        gnuplot, options.plot_path, [&](const std::string& temporary) {
+        gnuplot, outputs, *plot_file, [&](const std::string& temporary) {
           TeePlotOptions drawing = plot;
           drawing.output_path = temporary;
           return BuildSearchPlotScript(result, query, drawing);
         });
     if (drawn != kExitOk) return drawn;
   }
+  if (const int written = outputs.Commit(); written != kExitOk) return written;
   WriteReport(SearchOutput(format, result, query), format);
   return result.cancelled ? kExitInterrupted : kExitOk;
 }

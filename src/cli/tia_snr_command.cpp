@@ -1,5 +1,7 @@
 #include "cli/tia_snr_command.h"
 
+#include <optional>
+
 #include "cli/diagnostics.h"
 #include "cli/draw_picture.h"
 #include "cli/exit_codes.h"
@@ -62,14 +64,19 @@ int RunTiaSnrCommand(const TiaSnrCommandOptions& options) {
     gnuplot = GnuplotOrExplain("tia snr --plot");
     if (gnuplot.empty()) return kExitToolFailed;
   }
+  OutputFiles outputs;
+  std::optional<OutputFiles::Id> plot_file;
+  if (!options.plot_path.empty())
+    plot_file = outputs.AddPicture("--plot", options.plot_path, plot_format);
+  outputs.Check(CommandInputs(options.stage_path, library, options.device));
 
   const TiaSnrResult result = ComputeTiaSnr(stage, snr);
   if (!result.status.ok)
     return ReportRefusal(options.stage_path, result.status.message);
   ReportWarnings(result.warnings);
-  if (!options.plot_path.empty()) {
+  if (plot_file) {
     const int drawn = DrawPicture(
-        gnuplot, options.plot_path, [&](const std::string& temporary) {
+        gnuplot, outputs, *plot_file, [&](const std::string& temporary) {
           TiaSnrPlotOptions drawing;
           drawing.format = plot_format;
           drawing.output_path = temporary;
@@ -77,6 +84,7 @@ int RunTiaSnrCommand(const TiaSnrCommandOptions& options) {
         });
     if (drawn != kExitOk) return drawn;
   }
+  if (const int written = outputs.Commit(); written != kExitOk) return written;
   WriteReport(TiaSnrReport(format, stage, result), format);
   return kExitOk;
 }

@@ -14,14 +14,6 @@
 namespace hushgain {
 namespace {
 
-// strerror's text with a lowercase first letter, as every hushgain message:
-// "no such file or directory".
-std::string LowercaseReason(int error_number) {
-  std::string why = std::strerror(error_number);
-  if (!why.empty() && why[0] >= 'A' && why[0] <= 'Z') why[0] += 'a' - 'A';
-  return why;
-}
-
 // Reads `fd` to its end, refusing more than kMaxInputBytes.
 std::string ReadBounded(int fd, const std::string& source) {
   std::string text;
@@ -41,6 +33,12 @@ std::string ReadBounded(int fd, const std::string& source) {
 }
 
 }  // namespace
+
+std::string LowercaseReason(int error_number) {
+  std::string why = std::strerror(error_number);
+  if (!why.empty() && why[0] >= 'A' && why[0] <= 'Z') why[0] += 'a' - 'A';
+  return why;
+}
 
 std::string ReadTextFile(const std::string& path) {
   // A folder opens without complaint on some systems; say what it is.

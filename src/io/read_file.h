@@ -24,8 +24,14 @@ std::string ReadTextFile(const std::string& path);
 // The same for standard input, named `source` in errors.
 std::string ReadStandardInput(const std::string& source);
 
+// The system's text for an errno value, starting lower-case as every
+// message does: "no space left on device".
+std::string LowercaseReason(int error_number);
+
 // Writes `contents` to `path` through "<path>.tmp-<pid>" and a rename.
 // Throws Error naming the path on failure; the target is untouched then.
+// A command's outputs go through cli/output_files.h instead (checked
+// before the work, same-file refusals, streams, written all or nothing).
 void WriteFileAtomically(const std::string& path, const std::string& contents);
 
 }  // namespace hushgain
