@@ -332,6 +332,11 @@ struct Budget {
 // fraction, the report says which one it prints and why.
 inline constexpr double kInputRmsDefinitionsDiffer = 0.01;
 
+// Phase margins below these draw a warning, and a severe one (common
+// practice, no source); compare's verdict uses the first.
+inline constexpr double kLowPhaseMarginDeg = 45.0;
+inline constexpr double kSeverePhaseMarginDeg = 20.0;
+
 // The crest factor used for peak-to-peak noise: 6.6 x rms holds about
 // 99.9 % of the time for Gaussian noise (common practice; erf(3.3/sqrt 2)
 // = 0.99903).

@@ -29,9 +29,6 @@ namespace {
 // The closed-loop bandwidth search stops at this multiple of the GBW: no
 // single-op-amp stage has gain there.
 constexpr double kBandwidthSearchPerGbw = 100.0;
-// Phase margins below these draw a warning, and a severe one.
-constexpr double kLowPhaseMarginDeg = 45.0;
-constexpr double kSeverePhaseMarginDeg = 20.0;
 // Below this magnitude a non-positive DC loop gain is taken as rounding
 // noise around zero rather than as positive feedback.
 constexpr double kLoopGainSignFloor = 1e-6;

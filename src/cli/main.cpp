@@ -12,6 +12,7 @@
 #include <vector>
 
 #include "cli/budget_command.h"
+#include "cli/compare_command.h"
 #include "cli/device_folder.h"
 #include "cli/devices_command.h"
 #include "cli/exit_codes.h"
@@ -354,6 +355,31 @@ std::function<int()> DefineDevices(CLI::App* app, const GlobalOptions& global) {
   };
 }
 
+std::function<int()> DefineCompare(CLI::App* app, const GlobalOptions& global) {
+  auto o = std::make_shared<CompareCommandOptions>();
+  app->add_option("stage", o->stage_path, "stage file (JSON)")->required();
+  app->add_option("--devices-list", o->devices_list,
+                  "compare only these op-amps: device names or part files, "
+                  "separated by commas (default: every op-amp of the device "
+                  "folder)")
+      ->type_name("A,B,...");
+  app->add_option("--rank", o->rank,
+                  "input-noise (input-referred noise rms) or offset "
+                  "(worst-case output offset), smallest first (input-noise)");
+  app->add_option("--format", o->format,
+                  "text, json, markdown or csv (default text)");
+  app->add_flag("--csv", o->csv, "the same as --format csv");
+  app->add_flag("--json", o->json, "the same as --format json");
+  app->add_option("--tolerance", o->tolerance,
+                  "relative error target of each noise integral (default "
+                  "1e-4)")
+      ->check(NumberValidator());
+  return [o, &global] {
+    o->devices_dir = global.devices_dir;
+    return RunCompareCommand(*o);
+  };
+}
+
 std::function<int()> DefineNote(CLI::App* app, const GlobalOptions& global) {
   auto o = std::make_shared<NoteCommandOptions>();
   app->add_option("stage", o->stage_path, "stage file (JSON)")->required();
@@ -386,6 +412,9 @@ const std::vector<Command>& Commands() {
        DefinePlot},
       {"spread", "Monte Carlo over tolerances, offsets and temperature",
        DefineSpread},
+      {"compare",
+       "the stage with every op-amp class: noise, offset, stability, verdict",
+       DefineCompare},
       {"devices", "the device folder: op-amp classes, user parts, resistors",
        DefineDevices},
       {"note", "a design note: the budget, tables and plots in one HTML file",

@@ -62,6 +62,34 @@ const char* TeeRankingWord(TeeRanking ranking) {
   return "?";
 }
 
+const char* OpAmpRankingWord(OpAmpRanking ranking) {
+  switch (ranking) {
+    case OpAmpRanking::kInputNoise:
+      return "input-noise";
+    case OpAmpRanking::kOffset:
+      return "offset";
+  }
+  return "?";
+}
+
+std::vector<std::string> OpAmpVerdictWords(const OpAmpComparisonRow& row) {
+  if (!row.status.ok) return {"refused"};
+  std::vector<std::string> words;
+  for (StageProblem p : row.budget.problems)
+    words.push_back(StageProblemWord(p));
+  if (row.low_phase_margin) words.push_back("phase-margin");
+  if (row.narrow_bandwidth) words.push_back("bandwidth");
+  if (row.high_low_corner) words.push_back("low-corner");
+  return words;
+}
+
+std::string OpAmpVerdict(const OpAmpComparisonRow& row) {
+  std::string out;
+  for (const std::string& w : OpAmpVerdictWords(row))
+    out += (out.empty() ? "" : " ") + w;
+  return out.empty() ? "fits" : out;
+}
+
 const char* StageProblemWord(StageProblem problem) {
   switch (problem) {
     case StageProblem::kOffsetBeyondFullScale:

@@ -10,6 +10,7 @@
 
 #include "budget/stage_problem.h"
 #include "circuit/signal_chain.h"
+#include "design/opamp_comparison.h"
 #include "design/tee_search.h"
 #include "design/tia_suggest.h"
 #include "noise/noise_source.h"
@@ -30,6 +31,15 @@ const char* FilterKindWord(ChainFilter::Kind kind);
 
 // "noise", "offset" or "weighted" (also the values of `tee search --rank`).
 const char* TeeRankingWord(TeeRanking ranking);
+
+// "input-noise" or "offset" (also the values of `compare --rank`).
+const char* OpAmpRankingWord(OpAmpRanking ranking);
+
+// The verdict of a compare row: "fits", "refused", or the checks that
+// fail, joined with spaces: the StageProblemWord()s, then "phase-margin",
+// "bandwidth" and "low-corner".
+std::vector<std::string> OpAmpVerdictWords(const OpAmpComparisonRow& row);
+std::string OpAmpVerdict(const OpAmpComparisonRow& row);
 
 // "bandwidth" or "headroom": which limit sets tia suggest's largest R_f.
 const char* TiaLimitWord(TiaLimit limit);
