@@ -1,8 +1,10 @@
 // Ctrl-C for long work (tee search, spread): while an InterruptScope lives,
-// SIGINT sets a flag the core polls (through the pointer it is given) and a
-// second Ctrl-C ends the program the ordinary way. The flag is the one
-// global of the program, and only here: a signal handler can reach nothing
-// else.
+// SIGINT sets a flag the core polls (through the pointer it is given), and
+// so does every further Ctrl-C: however many arrive, the command ends the
+// documented way (exit 130, one message; spread writes no file). After an
+// interrupted scope SIGINT stays ignored until the program ends. (Ctrl-\,
+// SIGQUIT, still ends it at once.) The flag is the one global of the
+// program, and only here: a signal handler can reach nothing else.
 #ifndef HUSHGAIN_CLI_INTERRUPT_H_
 #define HUSHGAIN_CLI_INTERRUPT_H_
 
@@ -14,7 +16,8 @@ namespace hushgain {
 class InterruptScope {
  public:
   InterruptScope();   // clears the flag, installs the handler
-  ~InterruptScope();  // restores the previous handler
+  ~InterruptScope();  // restores the previous handler, or ignores SIGINT
+                      // from then on when interrupted
   InterruptScope(const InterruptScope&) = delete;
   InterruptScope& operator=(const InterruptScope&) = delete;
 

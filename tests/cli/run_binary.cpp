@@ -5,6 +5,7 @@
 #include <unistd.h>
 
 #include <cerrno>
+#include <csignal>
 #include <cstdlib>
 #include <filesystem>
 #include <fstream>
@@ -32,13 +33,15 @@ std::string ReadAll(const std::filesystem::path& path) {
   return out.str();
 }
 
-RunResult RunBinary(const std::string& program,
-                    const std::vector<std::string>& args,
-                    const std::string& working_dir,
-                    const std::string& stdin_path) {
-  RunResult result;
-  const std::string out_path = TemporaryFile("out");
-  const std::string err_path = TemporaryFile("err");
+RunningBinary StartBinary(const std::string& program,
+                          const std::vector<std::string>& args,
+                          const std::string& working_dir,
+                          const std::string& stdin_path) {
+  RunningBinary child;
+  child.out_path = TemporaryFile("out");
+  child.err_path = TemporaryFile("err");
+  const std::string& out_path = child.out_path;
+  const std::string& err_path = child.err_path;
 
   std::vector<std::string> argv_storage;
   argv_storage.push_back(program);
@@ -49,7 +52,9 @@ RunResult RunBinary(const std::string& program,
 
   const pid_t pid = ::fork();
   if (pid == 0) {
-    // Child: only async-signal-safe calls until exec.
+    // Child: only async-signal-safe calls until exec. Ctrl-C as a shell
+    // gives it, whatever the test runner's own handling.
+    ::signal(SIGINT, SIG_DFL);
     int out_fd = ::open(out_path.c_str(), O_WRONLY | O_TRUNC);
     int err_fd = ::open(err_path.c_str(), O_WRONLY | O_TRUNC);
     if (out_fd < 0 || err_fd < 0) ::_exit(126);
@@ -67,24 +72,39 @@ RunResult RunBinary(const std::string& program,
     ::execv(program.c_str(), argv.data());
     ::_exit(127);
   }
-  if (pid > 0) {
+  child.pid = pid > 0 ? pid : -1;
+  return child;
+}
+
+RunResult WaitBinary(const RunningBinary& child) {
+  RunResult result;
+  if (child.pid > 0) {
     int status = 0;
     pid_t waited = -1;
     do {
-      waited = ::waitpid(pid, &status, 0);
+      waited = ::waitpid(child.pid, &status, 0);
     } while (waited < 0 && errno == EINTR);
-    if (waited < 0)
+    if (waited < 0) {
       result.exit_code = -1;
-    else if (WIFEXITED(status))
+    } else if (WIFEXITED(status)) {
       result.exit_code = WEXITSTATUS(status);
-    else if (WIFSIGNALED(status))
-      result.exit_code = 128 + WTERMSIG(status);
+    } else if (WIFSIGNALED(status)) {
+      result.signal = WTERMSIG(status);
+      result.exit_code = 128 + result.signal;
+    }
   }
-  result.out = ReadAll(out_path);
-  result.err = ReadAll(err_path);
-  std::filesystem::remove(out_path);
-  std::filesystem::remove(err_path);
+  result.out = ReadAll(child.out_path);
+  result.err = ReadAll(child.err_path);
+  std::filesystem::remove(child.out_path);
+  std::filesystem::remove(child.err_path);
   return result;
+}
+
+RunResult RunBinary(const std::string& program,
+                    const std::vector<std::string>& args,
+                    const std::string& working_dir,
+                    const std::string& stdin_path) {
+  return WaitBinary(StartBinary(program, args, working_dir, stdin_path));
 }
 
 std::vector<std::string> Lines(const std::string& text) {

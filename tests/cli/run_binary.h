@@ -14,9 +14,25 @@ struct RunResult {
   // The exit status; 128 + signal number when the child died of a signal,
   // -1 when it could not be started.
   int exit_code = -1;
+  int signal = 0;   // the signal that ended the child, 0 when it exited
   std::string out;  // everything written to stdout
   std::string err;  // everything written to stderr
 };
+
+// A child started by StartBinary and not yet waited for.
+struct RunningBinary {
+  int pid = -1;  // -1: it could not be started
+  std::string out_path, err_path;
+};
+
+// Starts `program` as RunBinary does and returns at once.
+RunningBinary StartBinary(const std::string& program,
+                          const std::vector<std::string>& args,
+                          const std::string& working_dir = "",
+                          const std::string& stdin_path = "");
+
+// Waits for a started child and collects what RunBinary returns.
+RunResult WaitBinary(const RunningBinary& child);
 
 // Runs `program` with `args` (argv[1..]); the child's stdout and stderr go
 // to temporary files that are read back and removed. Blocks until the child
