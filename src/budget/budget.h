@@ -130,6 +130,20 @@ struct ChargeBlock {
   double noise_gain_plateau_estimate = 0;
 };
 
+// AC coupling in the stage (stage.feedback.tee.c3, stage.input_capacitor):
+// the closed-form corners beside the budget's own figures (the DC noise gain,
+// the offsets and the -3 dB corners are computed on the network).
+struct AcCouplingBlock {
+  double c3_f = 0;               // in series with R3; 0 = none
+  double shunt_corner_hz = 0;    // 1 / (2 pi R3 C3): the T acts above it
+  double feedback_dc_ohm = 0;    // R1 + R2: the DC transresistance with C3
+  double input_capacitor_f = 0;  // in series with R_in; 0 = none
+  // 1 / (2 pi (R_source + R_in) C_input), the input's high-pass corner with
+  // an ideal op-amp (a voltage source; 0 for a capacitive sensor, whose C_s
+  // sits in series too).
+  double input_corner_hz = 0;
+};
+
 // The input-referred noise in the measured quantity's units, from
 // source.sensitivity: the input-referred figures divided by the sensitivity
 // (the smallest change of the measurand the stage resolves; the NEP in the
@@ -282,7 +296,8 @@ struct Budget {
   double feedback_capacitor_f = 0;  // as used (chosen when "auto")
   std::optional<CapacitorChoice> capacitor_choice;
   std::optional<PhotodiodeBlock> photodiode;
-  std::optional<ChargeBlock> charge;  // a capacitive sensor
+  std::optional<ChargeBlock> charge;           // a capacitive sensor
+  std::optional<AcCouplingBlock> ac_coupling;  // C3 or an input capacitor
 
   std::vector<Contributor> contributors;  // largest share first
   double output_rms_v = 0;

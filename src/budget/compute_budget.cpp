@@ -441,6 +441,27 @@ void ChargeFigures(const Stage& stage, Budget& b) {
   b.charge = c;
 }
 
+// The closed-form corners of the stage's coupling capacitors.
+void AcCouplingFigures(const Stage& stage, Budget& b) {
+  AcCouplingBlock a;
+  if (stage.feedback.kind == Feedback::Kind::kTee &&
+      stage.feedback.tee.c3_f > 0) {
+    const TeeNetwork& t = stage.feedback.tee;
+    a.c3_f = t.c3_f;
+    a.shunt_corner_hz = 1 / (2 * kPi * t.r3_ohm * t.c3_f);
+    a.feedback_dc_ohm = FeedbackDcTransresistanceOhm(stage.feedback);
+  }
+  if (stage.input_capacitor_f > 0) {
+    a.input_capacitor_f = stage.input_capacitor_f;
+    if (!stage.capacitive)
+      a.input_corner_hz =
+          1 /
+          (2 * kPi * (stage.source.resistance_ohm + stage.input_resistor_ohm) *
+           stage.input_capacitor_f);
+  }
+  if (a.c3_f > 0 || a.input_capacitor_f > 0) b.ac_coupling = a;
+}
+
 }  // namespace
 
 BudgetOutcome ComputeBudgetAsGiven(const Stage& requested,
@@ -497,6 +518,7 @@ BudgetOutcome ComputeBudgetAsGiven(const Stage& requested,
   }
   if (stage.topology == Topology::kTransimpedance) PhotodiodeFigures(stage, b);
   if (stage.capacitive) ChargeFigures(stage, b);
+  AcCouplingFigures(stage, b);
   if (stage.sensitivity) {
     MeasurandBlock m;
     m.unit = stage.sensitivity->per;

@@ -8,9 +8,16 @@ double FeedbackEquivalentOhm(const Feedback& feedback) {
   return t.r1_ohm + t.r2_ohm + t.r1_ohm * t.r2_ohm / t.r3_ohm;
 }
 
+double FeedbackDcTransresistanceOhm(const Feedback& feedback) {
+  if (feedback.kind == Feedback::Kind::kTee && feedback.tee.c3_f > 0)
+    return feedback.tee.r1_ohm + feedback.tee.r2_ohm;
+  return FeedbackEquivalentOhm(feedback);
+}
+
 double FeedbackDcOhm(const Feedback& feedback) {
   if (feedback.kind == Feedback::Kind::kResistor) return feedback.resistor_ohm;
   const TeeNetwork& t = feedback.tee;
+  if (t.c3_f > 0) return t.r1_ohm + t.r2_ohm;
   return t.r1_ohm + t.r2_ohm * t.r3_ohm / (t.r2_ohm + t.r3_ohm);
 }
 
@@ -22,7 +29,12 @@ void AddFeedback(const Feedback& fb, NodeId summing, NodeId output,
     NodeId tee = net->AddNode("tee");
     net->resistors.push_back({"R1", summing, tee, fb.tee.r1_ohm, true});
     net->resistors.push_back({"R2", tee, output, fb.tee.r2_ohm, true});
-    net->resistors.push_back({"R3", tee, kGround, fb.tee.r3_ohm, true});
+    NodeId shunt = kGround;
+    if (fb.tee.c3_f > 0) {
+      shunt = net->AddNode("shunt");
+      net->capacitors.push_back({"C3", shunt, kGround, fb.tee.c3_f});
+    }
+    net->resistors.push_back({"R3", tee, shunt, fb.tee.r3_ohm, true});
   }
   if (fb.capacitor_f > 0)
     net->capacitors.push_back({"C_f", summing, output, fb.capacitor_f});

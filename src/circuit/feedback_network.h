@@ -9,16 +9,21 @@
 
 namespace hushgain {
 
-// The feedback path's DC transresistance: R_f, or R1 + R2 + R1 R2 / R3 for a
-// T network (star-mesh transform; Kennelly 1899).
+// The feedback path's transresistance: R_f, or R1 + R2 + R1 R2 / R3 for a
+// T network (star-mesh transform; Kennelly 1899); with C3 in series with R3
+// that is its value well above 1/(2 pi R3 C3).
 double FeedbackEquivalentOhm(const Feedback& feedback);
 
+// The feedback path's DC transresistance: FeedbackEquivalentOhm, or R1 + R2
+// when C3 opens the shunt arm at DC.
+double FeedbackDcTransresistanceOhm(const Feedback& feedback);
+
 // The DC resistance of the feedback path seen from the - input with the
-// output at AC ground: R_f, or R1 + R2 || R3.
+// output at AC ground: R_f, or R1 + R2 || R3 (R1 + R2 with C3).
 double FeedbackDcOhm(const Feedback& feedback);
 
-// Adds R_f (or R1, R2, R3 and the tee node) and C_f between `summing` and
-// `output`.
+// Adds R_f (or R1, R2, R3 and the tee node, and C3 below R3) and C_f
+// between `summing` and `output`.
 void AddFeedback(const Feedback& feedback, NodeId summing, NodeId output,
                  Netlist* net);
 

@@ -4,6 +4,8 @@ namespace hushgain {
 
 double InvertingBalanceOhm(const Stage& stage) {
   const double feedback = FeedbackDcOhm(stage.feedback);
+  // A capacitor in series with the input passes no DC.
+  if (stage.input_capacitor_f > 0) return feedback;
   if (stage.capacitive) {
     const double leak = stage.capacitive->leakage_resistance_ohm;
     if (!(leak > 0)) return feedback;
@@ -48,6 +50,12 @@ Netlist ExpandInverting(const Stage& stage) {
   net.output = output;
   if (stage.capacitive)
     input = AddCapacitiveSensor(stage, source, summing, &net);
+  if (input != summing && stage.input_capacitor_f > 0) {
+    const NodeId coupled = net.AddNode("coupled");
+    net.capacitors.push_back(
+        {"C_input", input, coupled, stage.input_capacitor_f});
+    input = coupled;
+  }
   if (input != summing)
     net.resistors.push_back(
         {"R_in", input, summing, stage.input_resistor_ohm, true});

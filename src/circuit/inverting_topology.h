@@ -1,9 +1,9 @@
-// The inverting stage template: source (with its resistance) -> R_in ->
-// summing node (- input); feedback from the summing node to the output as
-// one resistor R_f or a T network R1 (summing node to tee), R2 (tee to
-// output), R3 (tee to ground), an optional capacitor C_f across the whole
-// feedback path; an optional R_plus from the + input to ground; an optional
-// load R_load at the output.
+// The inverting stage template: source (with its resistance) -> [C_input]
+// -> R_in -> summing node (- input); feedback from the summing node to the
+// output as one resistor R_f or a T network R1 (summing node to tee), R2
+// (tee to output), R3 (tee to ground, through C3 when given), an optional
+// capacitor C_f across the whole feedback path; an optional R_plus from the +
+// input to ground; an optional load R_load at the output.
 //
 //   Vs --R_source--+--R_in--+-- (-) op-amp out --+-- output
 //                           |                    |
@@ -30,9 +30,10 @@
 namespace hushgain {
 
 // The DC resistance seen from the - input with the op-amp output and the
-// source at AC ground: (R_source + R_in) || (R_f, or R1 + R2 || R3). For a
-// capacitive sensor the input's DC path is R_in + R_leak (none without a
-// leakage resistance: C_s blocks DC). Bias currents cancel when R_plus
+// source at AC ground: (R_source + R_in) || (R_f, or R1 + R2 || R3, or R1 +
+// R2 with C3). For a capacitive sensor the input's DC path is R_in + R_leak
+// (none without a leakage resistance: C_s blocks DC); none with an input
+// capacitor. Bias currents cancel when R_plus
 // equals it.
 double InvertingBalanceOhm(const Stage& stage);
 

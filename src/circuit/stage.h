@@ -20,11 +20,15 @@ enum class Topology {
 };
 
 // A T network in the feedback path: R1 from the - input to the tee node,
-// R2 from the tee node to the output, R3 from the tee node to ground.
+// R2 from the tee node to the output, R3 from the tee node to ground, with
+// an optional C3 in series with R3 (AC coupling of the shunt arm: at DC the
+// arm is open and the feedback is R1 + R2 alone; well above
+// 1/(2 pi R3 C3) it is the whole T network).
 struct TeeNetwork {
   double r1_ohm = 0;
   double r2_ohm = 0;
   double r3_ohm = 0;
+  double c3_f = 0;  // 0 = none (R3 straight to ground)
 };
 
 struct Feedback {
@@ -156,6 +160,9 @@ struct Stage {
   std::optional<Sensitivity> sensitivity;   // source.sensitivity
   Topology topology = Topology::kInverting;
   double input_resistor_ohm = 0;  // kInverting; 0 = none (capacitive only)
+  // kInverting: a capacitor in series with R_in (AC coupling: the input
+  // passes no DC); 0 = none.
+  double input_capacitor_f = 0;
   Feedback feedback;
   // When set, feedback.capacitor_f is chosen by the budget for this target.
   std::optional<CapacitorTarget> capacitor_target;

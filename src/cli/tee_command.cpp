@@ -247,6 +247,15 @@ int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
                 "tee search needs a voltage source (its gain target is "
                 "R_eq / (R_source + R_in)); tee sweep takes a capacitive "
                 "sensor");
+  if (stage.feedback.kind == Feedback::Kind::kTee &&
+      stage.feedback.tee.c3_f > 0)
+    throw Error(options.stage_path, "/stage/feedback/tee/c3",
+                "tee search's closed forms take no C3 in series with R3; tee "
+                "sweep takes one");
+  if (stage.input_capacitor_f > 0)
+    throw Error(options.stage_path, "/stage/input_capacitor",
+                "tee search's closed forms take no input capacitor; tee sweep "
+                "takes one");
   const double stage_gain =
       FeedbackEquivalentOhm(stage.feedback) /
       (stage.source.resistance_ohm + stage.input_resistor_ohm);

@@ -96,6 +96,8 @@ TeeSweepResult SweepTee(const Stage& stage, const TeeSweepOptions& options) {
     TeeSweepRow row;
     row.largest_ohm = l;
     row.tee = TeeForLargest(req, l, options.r1_over_r2);
+    // The stage's C3 (if any) stays in series with each new R3.
+    row.tee.c3_f = stage.feedback.tee.c3_f;
     Stage s = stage;
     s.feedback.tee = row.tee;
     BudgetOutcome outcome = ComputeBudget(s, budget_options);

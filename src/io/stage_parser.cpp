@@ -25,6 +25,14 @@ double PositiveResistance(ObjectReader& reader, const std::string& key) {
   return ohms;
 }
 
+double PositiveCapacitance(ObjectReader& reader, const std::string& key) {
+  double farads = reader.Quantity(key, Quantity::kCapacitance);
+  if (!(farads > 0))
+    throw reader.ErrorAt(
+        key, "expected a positive capacitance, got " + Dump(reader.Get(key)));
+  return farads;
+}
+
 double NonNegativeCapacitance(ObjectReader& reader, const std::string& key) {
   double farads = reader.Quantity(key, Quantity::kCapacitance);
   if (!(farads >= 0))
@@ -71,6 +79,7 @@ Feedback ParseFeedback(ObjectReader& reader,
     fb.tee.r1_ohm = PositiveResistance(tee, "r1");
     fb.tee.r2_ohm = PositiveResistance(tee, "r2");
     fb.tee.r3_ohm = PositiveResistance(tee, "r3");
+    if (tee.Has("c3")) fb.tee.c3_f = PositiveCapacitance(tee, "c3");
     tee.Finish();
   }
   if (reader.Has("parasitic_capacitance"))
@@ -156,10 +165,7 @@ SignalSource ParseVoltageSource(ObjectReader& reader) {
 CapacitiveSensor ParseCapacitiveSensor(ObjectReader& reader) {
   CapacitiveSensor sensor;
   ObjectReader r = reader.Object("capacitive");
-  sensor.capacitance_f = r.Quantity("capacitance", Quantity::kCapacitance);
-  if (!(sensor.capacitance_f > 0))
-    throw r.ErrorAt("capacitance", "expected a positive capacitance, got " +
-                                       Dump(r.Get("capacitance")));
+  sensor.capacitance_f = PositiveCapacitance(r, "capacitance");
   if (r.Has("leakage_resistance"))
     sensor.leakage_resistance_ohm = PositiveResistance(r, "leakage_resistance");
   r.Finish();
@@ -524,6 +530,16 @@ Stage ParseStage(std::string_view json_text, std::string_view source_name,
       stage.input_resistor_ohm = PositiveResistance(st, "input_resistor");
   } else {
     stage.input_resistor_ohm = PositiveResistance(st, "input_resistor");
+  }
+  if (st.Has("input_capacitor")) {
+    if (photodiode)
+      throw st.ErrorAt("input_capacitor",
+                       "not used by a transimpedance stage (it has no input "
+                       "resistor)");
+    if (!(stage.input_resistor_ohm > 0))
+      throw st.ErrorAt("input_capacitor",
+                       "needs an \"input_resistor\" to sit in series with");
+    stage.input_capacitor_f = PositiveCapacitance(st, "input_capacitor");
   }
   ObjectReader fb = st.Object("feedback");
   stage.feedback = ParseFeedback(fb, &stage.capacitor_target);

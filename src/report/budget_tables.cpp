@@ -223,6 +223,28 @@ std::string BandwidthText(const Budget& b) {
   return out;
 }
 
+std::vector<std::string> AcCouplingTexts(const Budget& b) {
+  const AcCouplingBlock& a = *b.ac_coupling;
+  std::vector<std::string> out;
+  if (a.c3_f > 0)
+    out.push_back("C3 " + FormatEng(a.c3_f, "F") +
+                  " in series with R3: the T network's whole gain above "
+                  "1/(2 pi R3 C3) = " +
+                  FormatEng(a.shunt_corner_hz, "Hz") +
+                  "; at DC the feedback is R1 + R2 = " +
+                  FormatEng(a.feedback_dc_ohm, kOhm) + " (DC noise gain " +
+                  FormatGain(b.noise_gain_dc) + ")");
+  if (a.input_capacitor_f > 0) {
+    std::string line = "C_input " + FormatEng(a.input_capacitor_f, "F") +
+                       " in series with R_in: no DC passes";
+    if (a.input_corner_hz > 0)
+      line += "; 1/(2 pi (R_source + R_in) C_input) = " +
+              FormatEng(a.input_corner_hz, "Hz");
+    out.push_back(line);
+  }
+  return out;
+}
+
 std::string FormatCharge(double coulombs) {
   if (coulombs != 0 && std::fabs(coulombs) < 1e-15)
     return Printf("%.4g aC", coulombs * 1e18);

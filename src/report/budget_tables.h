@@ -69,6 +69,13 @@ std::string ChargeSensorText(const Budget& budget);
 std::string ChargeNoiseText(const Budget& budget);
 std::string ChargeNoiseGainText(const Budget& budget);
 
+// The AC-coupling lines (budget.ac_coupling required), shared by text and
+// Markdown: "C3 1 µF in series with R3: the T network's whole gain above
+// 1/(2 pi R3 C3) = 15.92 Hz; at DC the feedback is R1 + R2 = 200 kΩ (DC
+// noise gain 21)", "C_input 10 µF in series with R_in: no DC passes;
+// 1/(2 pi (R_source + R_in) C_input) = 1.59 Hz"; one or two entries.
+std::vector<std::string> AcCouplingTexts(const Budget& budget);
+
 // A charge in engineering notation, below 1 fC in aC: "352.1 aC".
 std::string FormatCharge(double coulombs);
 // A charge gain in the trade's unit: "10.00 mV/pC".

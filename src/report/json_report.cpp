@@ -220,6 +220,14 @@ std::string BudgetToJson(const Budget& b) {
     out["noise"]["input_referred_charge_density_C_per_rtHz"] =
         c.input_density_ref_c_per_rthz;
   }
+  if (b.ac_coupling) {
+    const AcCouplingBlock& a = *b.ac_coupling;
+    out["ac_coupling"] = {{"c3_F", a.c3_f},
+                          {"shunt_corner_Hz", a.shunt_corner_hz},
+                          {"feedback_dc_resistance_ohm", a.feedback_dc_ohm},
+                          {"input_capacitor_F", a.input_capacitor_f},
+                          {"input_corner_Hz", a.input_corner_hz}};
+  }
   if (b.measurand) {
     const MeasurandBlock& m = *b.measurand;
     out["noise"]["measurand"] = {

@@ -65,6 +65,9 @@ std::string Header(const Budget& b) {
                             b.capacitor_choice->estimate_rule + " gives " +
                             FormatEng(b.capacitor_choice->estimate_f, "F") + ")"
                       : std::string()));
+  if (b.ac_coupling)
+    for (const std::string& line : AcCouplingTexts(b))
+      out += Item("AC coupling", line);
   return out;
 }
 

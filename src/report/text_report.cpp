@@ -67,6 +67,9 @@ std::string Header(const Budget& b) {
                       FormatEng(b.capacitor_choice->estimate_f, "F") + ")"
                 : std::string()) +
            "\n";
+  if (b.ac_coupling)
+    for (const std::string& line : AcCouplingTexts(b))
+      out += "  AC coupling " + line + "\n";
   return out;
 }
 

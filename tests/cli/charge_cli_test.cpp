@@ -105,5 +105,46 @@ TEST_CASE("tee search refuses a capacitive sensor with one line") {
   CHECK(sweep.exit_code == 0);
 }
 
+TEST_CASE("tee search refuses AC coupling and tee sweep keeps C3") {
+  TempFolder dir("coupled-tee");
+  const std::string base = R"({
+    "name": "AC-coupled tee",
+    "band_Hz": {"low": "10", "high": "5k"},
+    "opamp": {"device": "jfet-input"},
+    "source": {"voltage": {"resistance": "1k"}},
+    "stage": {"topology": "inverting", "input_resistor": "10k", INPUT
+              "feedback": {"tee": {"r1": "100k", "r2": "100k", "r3": "1k" C3}}}
+  })";
+  auto stage = [&](const std::string& input, const std::string& c3) {
+    std::string text = base;
+    text.replace(text.find("INPUT"), 5, input);
+    text.replace(text.find(" C3"), 3, c3);
+    return WriteStage(dir, text);
+  };
+  std::string path = stage("", R"(, "c3": "100u")");
+  auto r = RunHushgain({"tee", "search", path, "--max", "100k"});
+  CHECK(r.exit_code == 2);
+  CHECK(r.err == "error: " + path +
+                     ": /stage/feedback/tee/c3: tee search's closed forms "
+                     "take no C3 in series with R3; tee sweep takes one\n");
+  // Every row of the sweep keeps C3: its DC noise gain is 1 + (R1 + R2) /
+  // R_a (ideal-op-amp closed form; the device's A0 moves it below 1e-3).
+  r = RunHushgain({"tee", "sweep", path, "--points", "3", "--format", "json"});
+  REQUIRE(r.exit_code == 0);
+  const json sweep = json::parse(r.out);
+  for (const json& row : sweep["rows"]) {
+    if (row["plain"].get<bool>()) continue;
+    const double r1 = row["r1_ohm"], r2 = row["r2_ohm"];
+    CHECK(RelErr(row["noise_gain_dc"].get<double>(), 1 + (r1 + r2) / 11e3) <
+          1e-3);
+  }
+  path = stage(R"("input_capacitor": "10u",)", "");
+  r = RunHushgain({"tee", "search", path, "--max", "100k"});
+  CHECK(r.exit_code == 2);
+  CHECK(r.err == "error: " + path +
+                     ": /stage/input_capacitor: tee search's closed forms "
+                     "take no input capacitor; tee sweep takes one\n");
+}
+
 }  // namespace
 }  // namespace hushgain

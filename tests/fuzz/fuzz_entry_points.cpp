@@ -107,6 +107,10 @@ std::string CheckStage(const Stage& s) {
         Positive(f.tee.r3_ohm)))
     return "tee resistor not positive";
   if (!NonNegative(f.capacitor_f)) return "feedback capacitor negative";
+  if (!NonNegative(f.tee.c3_f) || !NonNegative(s.input_capacitor_f))
+    return "coupling capacitor negative";
+  if (s.input_capacitor_f > 0 && !Positive(s.input_resistor_ohm))
+    return "input capacitor without an input resistor";
   if (s.topology == Topology::kInverting && s.capacitive) {
     if (!Positive(s.capacitive->capacitance_f))
       return "sensor capacitance not positive";

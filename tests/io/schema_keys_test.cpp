@@ -224,6 +224,11 @@ TEST_CASE("the stage schema and the stage parser know the same keys") {
           "resistors": {"technology": "thin-film",
                         "R_leak": {"tolerance": "20 %"}}})"_json);
   ParseStageJson(charge, "capacitive sensor variant", library);
+  json coupled = Example("hydrophone-preamp");
+  coupled.merge_patch(
+      R"({"stage": {"input_capacitor": "10u",
+                    "feedback": {"tee": {"c3": "100u"}}}})"_json);
+  ParseStageJson(coupled, "AC coupling variant", library);
 
   const Keys schema = SchemaKeys(kSource / "schema/stage.schema.json").keys();
   INFO("in the parser, not in schema/stage.schema.json:\n"

@@ -483,3 +483,46 @@ TEST_CASE("a capacitive sensor's leakage takes a resistor override") {
 
 }  // namespace
 }  // namespace hushgain
+
+namespace hushgain {
+namespace {
+
+TEST_CASE("AC coupling: C3 in series with R3 and a capacitor with R_in") {
+  const Stage s =
+      Parse(Replace(Good(R"("r3": "1.1k"})", R"("r3": "1.1k", "c3": "47u"})"),
+                    R"("input_resistor": "2.2k",)",
+                    R"("input_resistor": "2.2k", "input_capacitor": "1u",)"));
+  CHECK(RelErr(s.feedback.tee.c3_f, 47e-6) < test::kRelTight);
+  CHECK(RelErr(s.input_capacitor_f, 1e-6) < test::kRelTight);
+  const Stage plain = Parse(kGood);
+  CHECK(plain.feedback.tee.c3_f == 0);
+  CHECK(plain.input_capacitor_f == 0);
+  // The DC path of the feedback is R1 + R2 with C3.
+  CHECK(RelErr(FeedbackDcOhm(s.feedback), 94e3) < test::kRelTight);
+  CHECK(RelErr(FeedbackDcTransresistanceOhm(s.feedback), 94e3) <
+        test::kRelTight);
+  CHECK(RelErr(FeedbackEquivalentOhm(s.feedback),
+               47e3 + 47e3 + 47e3 * 47e3 / 1.1e3) < test::kRelTight);
+}
+
+TEST_CASE("bad coupling capacitors name the JSON path") {
+  const std::vector<std::pair<std::string, std::string>> cases = {
+      {Good(R"("r3": "1.1k"})", R"("r3": "1.1k", "c3": "0"})"),
+       R"(stage.json: /stage/feedback/tee/c3: expected a positive capacitance, got "0")"},
+      {Good(R"("r3": "1.1k"})", R"("r3": "1.1k", "c3": "1 kOhm"})"),
+       R"(stage.json: /stage/feedback/tee/c3: expected a capacitance, got "1 kOhm" (unknown unit "kOhm"))"},
+      {Good(R"("input_resistor": "2.2k",)",
+            R"("input_resistor": "2.2k", "input_capacitor": "-1u",)"),
+       R"(stage.json: /stage/input_capacitor: expected a positive capacitance, got "-1u")"},
+      {Capacitive(R"({"capacitive": {"capacitance": "1n"}})",
+                  R"("input_capacitor": "1u",)"),
+       R"(stage.json: /stage/input_capacitor: needs an "input_resistor" to sit in series with)"},
+  };
+  for (const auto& [text, message] : cases) {
+    CAPTURE(text);
+    CHECK_THROWS_WITH_AS(Parse(text), message.c_str(), Error);
+  }
+}
+
+}  // namespace
+}  // namespace hushgain
