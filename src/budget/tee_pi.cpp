@@ -3,6 +3,7 @@
 #include <cmath>
 #include <complex>
 
+#include "base/physical_constants.h"
 #include "circuit/tee_equivalents.h"
 
 namespace hushgain {
@@ -34,7 +35,14 @@ Status TeePiFigures(const Stage& stage, const Netlist& net,
     const std::complex<double> v_n = summing >= 0 ? x[summing] : 0.0;
     const std::complex<double> v_o = output >= 0 ? x[output] : 0.0;
     const double bridge = std::abs(v_n - v_o);
-    *out = bridge > 0 ? pi.input_arm_noise_gain * std::abs(v_n) / bridge : 0;
+    // R2 / Z3 with Z3 = R3 + 1/(j w C3) (R2/R3 without C3).
+    double r2_over_z3 = pi.input_arm_noise_gain;
+    if (t.c3_f > 0)
+      r2_over_z3 =
+          f_hz > 0 ? t.r2_ohm / std::abs(std::complex<double>(
+                                    t.r3_ohm, -1 / (2 * kPi * f_hz * t.c3_f)))
+                   : 0;
+    *out = bridge > 0 ? r2_over_z3 * std::abs(v_n) / bridge : 0;
     return Status::Ok();
   };
   pi.fraction_at_dc.f_hz = 0;

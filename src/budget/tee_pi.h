@@ -15,6 +15,10 @@
 // and Vos the input arm is a second resistor from the summing node to
 // ground, so the DC noise gain 1 + Req/R_a + R2/R3 carries the term
 // Req / (S/R2) = R2/R3 beyond the plain resistor's 1 + Req/R_a.
+// With C3 in series with R3 the same holds with Z3 = R3 + 1/(j w C3) in
+// place of R3: the arms are the T's well above 1/(2 pi R3 C3), and the
+// input arm's share is |R2/Z3| |v_n| / |v_n - v_o|, 0 at DC (no input arm:
+// the DC noise gain is 1 + (R1 + R2)/R_a).
 #ifndef HUSHGAIN_BUDGET_TEE_PI_H_
 #define HUSHGAIN_BUDGET_TEE_PI_H_
 

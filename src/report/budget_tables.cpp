@@ -168,16 +168,29 @@ std::vector<std::pair<std::string, std::string>> TeePiSentences(
     const Budget& b) {
   const TeePiBlock& pi = *b.tee_pi;
   std::vector<std::pair<std::string, std::string>> out;
-  out.push_back(
-      {"why the T costs noise gain",
-       "the input arm sits at the virtual ground, so it carries almost no "
-       "signal current (the fraction above is about (R2/R3) / |1 + A(f)|), "
-       "but to e_n and Vos it is a second resistor from the summing node to "
-       "ground: the DC noise gain 1 + Req/R_a + R2/R3 carries R2/R3 = " +
-           FormatGain(pi.input_arm_noise_gain) +
-           " beyond the plain resistor's 1 + Req/R_a (this stage: " +
-           FormatGain(b.noise_gain_dc) +
-           "); the output arm is only a load and adds no noise gain"});
+  if (b.ac_coupling && b.ac_coupling->c3_f > 0)
+    out.push_back(
+        {"why the T costs noise gain",
+         "the input arm sits at the virtual ground, so it carries almost no "
+         "signal current, but to e_n it is a second resistor from the summing "
+         "node to ground: in the band (above 1/(2 pi R3 C3)) the noise gain "
+         "1 + Req/R_a + R2/R3 carries R2/R3 = " +
+             FormatGain(pi.input_arm_noise_gain) +
+             " beyond the plain resistor's 1 + Req/R_a; at DC C3 opens the "
+             "arm, so Vos sees 1 + (R1 + R2)/R_a (this stage: " +
+             FormatGain(b.noise_gain_dc) +
+             "); the output arm is only a load and adds no noise gain"});
+  else
+    out.push_back(
+        {"why the T costs noise gain",
+         "the input arm sits at the virtual ground, so it carries almost no "
+         "signal current (the fraction above is about (R2/R3) / |1 + A(f)|), "
+         "but to e_n and Vos it is a second resistor from the summing node to "
+         "ground: the DC noise gain 1 + Req/R_a + R2/R3 carries R2/R3 = " +
+             FormatGain(pi.input_arm_noise_gain) +
+             " beyond the plain resistor's 1 + Req/R_a (this stage: " +
+             FormatGain(b.noise_gain_dc) +
+             "); the output arm is only a load and adds no noise gain"});
   if (!b.photodiode)
     out.push_back({"noise-equivalent resistance",
                    "the T network is as noisy as one " +

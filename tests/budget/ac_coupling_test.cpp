@@ -181,3 +181,29 @@ TEST_CASE("a plain stage with an input capacitor has a DC noise gain of 1") {
 
 }  // namespace
 }  // namespace hushgain
+
+namespace hushgain {
+namespace {
+
+TEST_CASE("with C3 the pi equivalent's input arm carries nothing at DC") {
+  // tee_pi.h: the input arm's share of the bridge current is
+  // |R2/Z3| |v_n| / |v_n - v_o| with Z3 = R3 + 1/(j w C3): 0 at DC, and the
+  // T network's own at 1 kHz, 640 times above 1/(2 pi R3 C3), where |Z3|
+  // is R3 to 1.2e-6.
+  Stage s = AcTee();
+  s.opamp.open_loop_gain = 1e5;  // a finite A(f), so the share is not ~0
+  s.opamp.gbw_hz = 1e6;
+  const Budget b = test::ComputeOrFail(s, 1e-6);
+  REQUIRE(b.tee_pi);
+  CHECK(b.tee_pi->fraction_at_dc.fraction == 0);
+  Stage plain = s;
+  plain.feedback.tee.c3_f = 0;
+  const Budget p = test::ComputeOrFail(plain, 1e-6);
+  REQUIRE(p.tee_pi);
+  CHECK(p.tee_pi->fraction_at_dc.fraction > 0);
+  CHECK(RelErr(b.tee_pi->fraction_at_reference.fraction,
+               p.tee_pi->fraction_at_reference.fraction) < 1e-5);
+}
+
+}  // namespace
+}  // namespace hushgain
