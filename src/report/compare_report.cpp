@@ -250,7 +250,8 @@ std::vector<std::string> HeadLines(const OpAmpComparison& c) {
   std::vector<std::string> lines;
   lines.push_back(
       "the stage with each op-amp, each a full budget (the stage's op-amp "
-      "replaced whole, as budget --device does)");
+      "replaced whole, its \"set\" overrides included, as budget --device "
+      "does)");
   lines.push_back("band " + FormatEng(c.band_low_hz, "Hz") + " to " +
                   FormatEng(c.band_high_hz, "Hz") + ", reference " +
                   FormatEng(c.reference_hz, "Hz") + "; ranked by " +

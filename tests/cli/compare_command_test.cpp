@@ -194,6 +194,84 @@ TEST_CASE("compare refuses an unknown device and a bad rank in one line") {
         "\"ofset\" (did you mean \"offset\"?)\n");
 }
 
+TEST_CASE("compare as CSV holds the JSON's figures one record per device") {
+  const std::string stage = test::ExamplePath("thermopile-stage");
+  const json doc = ParseOrFail(Compare({stage, "--json"}));
+  const test::RunResult csv = Compare({stage, "--csv"});
+  REQUIRE(csv.exit_code == 0);
+  const auto records = test::ReadCsv(csv.out);
+  REQUIRE(records.size() == 7);  // the header and six op-amps
+  const std::vector<std::string>& header = records.front();
+  const std::vector<std::string> expected = {
+      "rank",
+      "device",
+      "class",
+      "input_referred_rms_V",
+      "input_referred_density_V_per_rtHz",
+      "output_rms_V",
+      "dominant",
+      "dominant_share",
+      "offset_worst_case_V",
+      "phase_margin_deg",
+      "bandwidth_3db_Hz",
+      "share_voltage_noise",
+      "share_current_noise",
+      "share_resistor",
+      "share_other",
+      "e_n_at_reference_V_per_rtHz",
+      "i_n_at_reference_A_per_rtHz",
+      "optimum_source_resistance_ohm",
+      "source_to_optimum_ratio",
+      "verdict"};
+  CHECK(header == expected);
+  auto column = [&](const std::string& name) {
+    for (std::size_t k = 0; k < header.size(); ++k)
+      if (header[k] == name) return k;
+    FAIL("no column " << name);
+    return std::size_t{0};
+  };
+  for (std::size_t i = 1; i < records.size(); ++i) {
+    const json& row = doc.at("devices")[i - 1];
+    CAPTURE(row.at("device"));
+    CHECK(records[i][column("device")] == row.at("device"));
+    CHECK(records[i][column("rank")] == std::to_string(i));
+    CHECK(records[i][column("verdict")] == row.at("verdict"));
+    // CSV numbers carry nine significant digits.
+    for (const auto& [csv_name, json_name] :
+         std::vector<std::pair<std::string, std::string>>{
+             {"input_referred_rms_V", "input_referred_rms"},
+             {"offset_worst_case_V", "offset_worst_case_V"},
+             {"optimum_source_resistance_ohm",
+              "optimum_source_resistance_ohm"}}) {
+      CAPTURE(csv_name);
+      CHECK(test::RelErr(std::stod(records[i][column(csv_name)]),
+                         row.at(json_name).get<double>()) < 1e-8);
+    }
+    CHECK(test::RelErr(std::stod(records[i][column("share_current_noise")]),
+                       row.at("shares").at("current_noise").get<double>()) <
+          1e-8);
+  }
+}
+
+TEST_CASE("compare as Markdown has a heading and two pipe tables") {
+  const test::RunResult md =
+      Compare({test::ExamplePath("thermopile-stage"), "--format", "markdown"});
+  REQUIRE(md.exit_code == 0);
+  CHECK(md.out.rfind("## thermopile stage, 50 k element, slow DC readout: "
+                     "op-amp classes compared\n",
+                     0) == 0);
+  CHECK(md.out.find("\n| rank | device | class | input noise rms |") !=
+        std::string::npos);
+  CHECK(md.out.find("\n| device | e\\_n x NG | i\\_n | resistors | other |") !=
+        std::string::npos);
+  // Each table: its header, the delimiter row and six op-amps.
+  std::size_t rows = 0;
+  for (std::size_t at = md.out.find("\n| "); at != std::string::npos;
+       at = md.out.find("\n| ", at + 1))
+    ++rows;
+  CHECK(rows == 2 * (2 + 6));
+}
+
 TEST_CASE("compare as text names the ranking and the optimum source") {
   const test::RunResult r = Compare({test::ExamplePath("hydrophone-preamp")});
   REQUIRE(r.exit_code == 0);
