@@ -1,11 +1,14 @@
 #include "cli/compare_command.h"
 
+#include <optional>
 #include <set>
 #include <vector>
 
 #include "cli/diagnostics.h"
+#include "cli/draw_picture.h"
 #include "cli/exit_codes.h"
 #include "cli/option_values.h"
+#include "cli/output_files.h"
 #include "cli/output_format.h"
 #include "cli/stage_input.h"
 #include "cli/text_output.h"
@@ -14,6 +17,7 @@
 #include "io/error.h"
 #include "io/read_file.h"
 #include "io/suggest.h"
+#include "report/compare_plot_script.h"
 #include "report/compare_report.h"
 #include "report/enum_words.h"
 
@@ -81,6 +85,24 @@ int RunCompareCommand(const CompareCommandOptions& options) {
   const DeviceLibrary library = LoadDeviceLibrary(options.devices_dir);
   const Stage stage = LoadStageForCommand(options.stage_path, library, "");
   const std::vector<NamedOpAmp> devices = DevicesToCompare(library, options);
+
+  PlotFormat plot_format = PlotFormat::kPng;
+  std::string gnuplot;
+  if (!options.plot_path.empty()) {
+    plot_format = PictureFormat("--plot", options.plot_path);
+    gnuplot = GnuplotOrExplain("compare --plot");
+    if (gnuplot.empty()) return kExitToolFailed;
+  }
+  OutputFiles outputs;
+  std::optional<OutputFiles::Id> plot_file;
+  if (!options.plot_path.empty())
+    plot_file = outputs.AddPicture("--plot", options.plot_path, plot_format);
+  std::vector<InputFile> inputs =
+      CommandInputs(options.stage_path, library, "");
+  if (!options.devices_list.empty())
+    for (const NamedOpAmp& d : devices)
+      inputs.push_back({"the --devices-list file", d.name});
+  outputs.Check(inputs);
   // The same review as `budget`, so each row is that command's budget.
   compare.review = FullReviewOptions(library, options.tolerance);
 
@@ -94,6 +116,17 @@ int RunCompareCommand(const CompareCommandOptions& options) {
       ReportWarning("analysis refused: " + row.status.message, row.device);
     }
   }
+  if (plot_file) {
+    const int drawn = DrawPicture(
+        gnuplot, outputs, *plot_file, [&](const std::string& temporary) {
+          ComparePlotOptions drawing;
+          drawing.format = plot_format;
+          drawing.output_path = temporary;
+          return BuildComparePlotScript(stage, result, drawing);
+        });
+    if (drawn != kExitOk) return drawn;
+  }
+  if (const int written = outputs.Commit(); written != kExitOk) return written;
   WriteReport(CompareReport(format, stage, result), format);
   if (!any)
     return ReportNoResult(options.stage_path,

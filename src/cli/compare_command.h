@@ -20,6 +20,9 @@ struct CompareCommandOptions {
   bool json = false;                 // the same as --format json
   bool csv = false;                  // the same as --format csv
   double tolerance = 1e-4;  // relative, on each budget's output noise power
+  // .png, .svg or .pdf: input-referred noise per op-amp as bars split by
+  // kind of contributor (report/compare_plot_script.h); empty = none.
+  std::string plot_path;
 };
 
 // Prints the report on stdout and each device's warnings and refusal on

@@ -374,6 +374,10 @@ std::function<int()> DefineCompare(CLI::App* app, const GlobalOptions& global) {
                   "relative error target of each noise integral (default "
                   "1e-4)")
       ->check(NumberValidator());
+  app->add_option("--plot", o->plot_path,
+                  "also draw each op-amp's input-referred noise as a bar "
+                  "split by kind of contributor (.png, .svg or .pdf)")
+      ->check(OutputPath());
   return [o, &global] {
     o->devices_dir = global.devices_dir;
     return RunCompareCommand(*o);

@@ -272,6 +272,31 @@ TEST_CASE("compare as Markdown has a heading and two pipe tables") {
   CHECK(rows == 2 * (2 + 6));
 }
 
+TEST_CASE("compare draws each op-amp's noise as bars split by kind") {
+  test::TempFolder folder("compare-plot");
+  const std::string svg = folder / "bars.svg";
+  const test::RunResult r =
+      Compare({test::ExamplePath("thermopile-stage"), "--plot", svg});
+  INFO("stderr: " << r.err);
+  REQUIRE(r.exit_code == 0);
+  const std::string picture = test::ReadAll(svg);
+  std::string why;
+  CHECK_MESSAGE(test::WellFormedXml(picture, &why), why);
+  // Every op-amp is named on its line, and every kind in the legend.
+  for (const char* name : {"zero-drift", "jfet-input", "low-noise-bipolar",
+                           "e_n x noise gain", "i_n (both inputs)"})
+    CHECK(test::DecodeXmlEntities(picture).find(name) != std::string::npos);
+  CHECK(folder.Files() == std::vector<std::string>{"bars.svg"});
+
+  const test::RunResult bad = Compare(
+      {test::ExamplePath("thermopile-stage"), "--plot", folder / "bars.gif"});
+  CHECK(bad.exit_code == 2);
+  CHECK(bad.err ==
+        "error: command line: --plot: expected a file name ending "
+        "in .png, .svg or .pdf, got \"" +
+            folder / "bars.gif" + "\"\n");
+}
+
 TEST_CASE("compare as text names the ranking and the optimum source") {
   const test::RunResult r = Compare({test::ExamplePath("hydrophone-preamp")});
   REQUIRE(r.exit_code == 0);

@@ -172,6 +172,7 @@ TEST_CASE("an empty output name is refused by every option") {
       {{"tee", "sweep", ExamplePath("hydrophone-preamp"), "--plot", ""},
        "--plot"},
       {{"note", stage, "-o", ""}, "-o"},
+      {{"compare", stage, "--plot", ""}, "--plot"},
   };
   for (const Case& c : cases) {
     CAPTURE(c.option);
