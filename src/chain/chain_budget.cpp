@@ -51,7 +51,43 @@ void ChainWarnings(const Stage& stage, const ChainBlock& c,
         "steepen the filter");
 }
 
+// The stage's contributors at its output, from the budget's evaluator.
+FrontEndSpectra StageSpectra(SpectrumEvaluator& evaluator) {
+  FrontEndSpectra front_end;
+  for (const NoiseSource& source : evaluator.sources())
+    front_end.names.push_back(source.name);
+  front_end.densities = [&evaluator](double f_hz, double* psd) {
+    return evaluator.Densities(f_hz, psd);
+  };
+  return front_end;
+}
+
 }  // namespace
+
+ChainSamplesOutcome SampleChain(const Stage& stage,
+                                const std::vector<double>& f_hz) {
+  assert(stage.chain);
+  ChainSamplesOutcome outcome;
+  Netlist netlist;
+  SpectrumEvaluator evaluator;
+  outcome.status = PrepareStageEvaluator(stage, &netlist, &evaluator, nullptr);
+  if (!outcome.status.ok) return outcome;
+  const FrontEndSpectra front_end = StageSpectra(evaluator);
+  const ChainDensities densities(front_end, *stage.chain, stage.temperature_k);
+  ChainSamples& out = outcome.samples;
+  for (double f : f_hz) {
+    double psd = 0;
+    outcome.status = densities.Total(f, &psd);
+    if (outcome.status.ok && !std::isfinite(psd))
+      outcome.status = Status::Fail("the chain's noise density at " +
+                                    HzText(f) + " is not finite");
+    if (!outcome.status.ok) return outcome;
+    out.f_hz.push_back(f);
+    out.analog_psd.push_back(psd);
+    out.filter_abs.push_back(std::sqrt(densities.filter().PowerGain(f)));
+  }
+  return outcome;
+}
 
 ChainOutcome ComputeChain(const Stage& stage, const BudgetOptions& options) {
   assert(stage.chain);
@@ -60,12 +96,7 @@ ChainOutcome ComputeChain(const Stage& stage, const BudgetOptions& options) {
   SpectrumEvaluator evaluator;
   Status s = PrepareStageEvaluator(stage, &netlist, &evaluator, nullptr);
   if (!s.ok) return {s, {}, {}};
-  FrontEndSpectra front_end;
-  for (const NoiseSource& source : evaluator.sources())
-    front_end.names.push_back(source.name);
-  front_end.densities = [&evaluator](double f_hz, double* psd) {
-    return evaluator.Densities(f_hz, psd);
-  };
+  const FrontEndSpectra front_end = StageSpectra(evaluator);
   ChainNoiseOptions chain_options;
   chain_options.band_low_hz = stage.band_low_hz;
   chain_options.temperature_k = stage.temperature_k;

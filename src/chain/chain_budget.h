@@ -31,6 +31,24 @@ struct ChainOutcome {
 // prints.
 ChainOutcome ComputeChain(const Stage& stage, const BudgetOptions& options);
 
+// The chain on a frequency grid, for the plots: the analog noise density
+// at the converter's input (the sum of chain/chain_noise.h's densities)
+// and the filter's |H(f)| (its gain included; 1 without a filter).
+struct ChainSamples {
+  std::vector<double> f_hz;
+  std::vector<double> analog_psd;  // V^2/Hz
+  std::vector<double> filter_abs;  // V/V
+};
+
+struct ChainSamplesOutcome {
+  Status status;  // a frequency that could not be solved, named
+  ChainSamples samples;
+};
+
+// `stage` as the budget computed it, with a chain; every f > 0.
+ChainSamplesOutcome SampleChain(const Stage& stage,
+                                const std::vector<double>& f_hz);
+
 }  // namespace hushgain
 
 #endif  // HUSHGAIN_CHAIN_CHAIN_BUDGET_H_

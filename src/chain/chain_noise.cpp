@@ -21,54 +21,7 @@ constexpr double kSlopeRatio = 1.1;
 // Steps in a row whose tail must be negligible before the count stops.
 constexpr int kQuietSteps = 2;
 
-// Integrates the chain's analog densities (one component per stage
-// contributor, then the second stage's own, then the filter's own) over
-// the chain.
-class ChainIntegrand {
- public:
-  ChainIntegrand(const FrontEndSpectra& front_end, const SignalChain& chain,
-                 double temperature_k)
-      : front_end_(front_end),
-        second_(chain.second_stage),
-        filter_(chain.filter ? *chain.filter : ChainFilter{}),
-        temperature_k_(temperature_k),
-        n_(static_cast<int>(front_end.names.size())) {}
-
-  int components() const { return n_ + 2; }
-
-  Status operator()(double f_hz, double* out) const {
-    Status s = front_end_.densities(f_hz, out);
-    if (!s.ok) return s;
-    const double h2 = filter_.PowerGain(f_hz);
-    const double g2 = second_ ? SecondStagePowerGain(*second_, f_hz) : 1.0;
-    for (int k = 0; k < n_; ++k) out[k] *= g2 * h2;
-    out[n_] =
-        second_ ? SecondStageNoisePsd(*second_, f_hz, temperature_k_) * h2 : 0;
-    const double e = filter_.filter().noise_v_per_rthz;
-    out[n_ + 1] = e * e * h2;
-    return s;
-  }
-
-  // The sum of every component at f.
-  Status Total(double f_hz, double* total) const {
-    std::vector<double> psd(components());
-    Status s = (*this)(f_hz, psd.data());
-    *total = 0;
-    for (double v : psd) *total += v;
-    return s;
-  }
-
-  const FilterResponse& filter() const { return filter_; }
-
- private:
-  const FrontEndSpectra& front_end_;
-  std::optional<SecondStage> second_;
-  FilterResponse filter_;
-  double temperature_k_;
-  int n_;
-};
-
-Status Integrate(const ChainIntegrand& integrand, double a, double b,
+Status Integrate(const ChainDensities& integrand, double a, double b,
                  const IntegrationOptions& options, std::vector<double>* sum) {
   IntegrationResult r = IntegrateBand(
       a, b, integrand.components(),
@@ -85,7 +38,7 @@ Status Integrate(const ChainIntegrand& integrand, double a, double b,
 
 // The frequency in [a, b] where the total density falls through `level`
 // (total(a) >= level > total(b)), by bisection in log f.
-Status Crossing(const ChainIntegrand& integrand, double a, double b,
+Status Crossing(const ChainDensities& integrand, double a, double b,
                 double level, double* f_hz) {
   for (int i = 0; i < 60 && b / a > 1 + 1e-9; ++i) {
     const double mid = std::sqrt(a * b);
@@ -99,7 +52,7 @@ Status Crossing(const ChainIntegrand& integrand, double a, double b,
 }
 
 // The tail beyond f of a density S(f) falling as f^-m: S f / (m - 1).
-Status TailEstimate(const ChainIntegrand& integrand, double f_hz, double s_at_f,
+Status TailEstimate(const ChainDensities& integrand, double f_hz, double s_at_f,
                     double* tail) {
   if (s_at_f <= 0) {
     *tail = 0;
@@ -117,6 +70,35 @@ Status TailEstimate(const ChainIntegrand& integrand, double f_hz, double s_at_f,
 }
 
 }  // namespace
+
+ChainDensities::ChainDensities(const FrontEndSpectra& front_end,
+                               const SignalChain& chain, double temperature_k)
+    : front_end_(front_end),
+      second_(chain.second_stage),
+      filter_(chain.filter ? *chain.filter : ChainFilter{}),
+      temperature_k_(temperature_k),
+      n_(static_cast<int>(front_end.names.size())) {}
+
+Status ChainDensities::operator()(double f_hz, double* out) const {
+  Status s = front_end_.densities(f_hz, out);
+  if (!s.ok) return s;
+  const double h2 = filter_.PowerGain(f_hz);
+  const double g2 = second_ ? SecondStagePowerGain(*second_, f_hz) : 1.0;
+  for (int k = 0; k < n_; ++k) out[k] *= g2 * h2;
+  out[n_] =
+      second_ ? SecondStageNoisePsd(*second_, f_hz, temperature_k_) * h2 : 0;
+  const double e = filter_.filter().noise_v_per_rthz;
+  out[n_ + 1] = e * e * h2;
+  return s;
+}
+
+Status ChainDensities::Total(double f_hz, double* total) const {
+  std::vector<double> psd(components());
+  Status s = (*this)(f_hz, psd.data());
+  *total = 0;
+  for (double v : psd) *total += v;
+  return s;
+}
 
 std::string ChainNoiseOptions::Validate() const {
   if (!(band_low_hz > 0 && std::isfinite(band_low_hz)))
@@ -142,7 +124,7 @@ ChainNoiseOutcome ComputeChainNoise(const FrontEndSpectra& front_end,
   ChainBlock& c = outcome.block;
   c.chain = chain;
   c.tail_fraction = options.tail_fraction;
-  const ChainIntegrand integrand(front_end, chain, options.temperature_k);
+  const ChainDensities integrand(front_end, chain, options.temperature_k);
   const int n = static_cast<int>(front_end.names.size());
   c.filter_enbw_hz = NoiseBandwidthHz(integrand.filter());
   c.chain_gain_dc =

@@ -25,11 +25,13 @@
 #define HUSHGAIN_CHAIN_CHAIN_NOISE_H_
 
 #include <functional>
+#include <optional>
 #include <string>
 #include <vector>
 
 #include "base/status.h"
 #include "budget/chain_block.h"
+#include "chain/filter_response.h"
 #include "circuit/signal_chain.h"
 #include "integrate/band_integral.h"
 
@@ -41,6 +43,33 @@ struct FrontEndSpectra {
   // Fills psd[0 .. names.size() - 1] with S_k(f_hz), V^2/Hz at the stage's
   // output; f_hz > 0.
   std::function<Status(double f_hz, double* psd)> densities;
+};
+
+// The chain's analog densities at the converter's input, S_adc,k for each
+// stage contributor, then S_2nd, then S_filter (the formulas above), at
+// one frequency.
+class ChainDensities {
+ public:
+  // `front_end` must outlive this object; `chain` is copied.
+  ChainDensities(const FrontEndSpectra& front_end, const SignalChain& chain,
+                 double temperature_k);
+
+  int components() const { return n_ + 2; }
+
+  // Fills out[0 .. components() - 1], V^2/Hz; f_hz > 0.
+  Status operator()(double f_hz, double* out) const;
+
+  // Their sum at f.
+  Status Total(double f_hz, double* total) const;
+
+  const FilterResponse& filter() const { return filter_; }
+
+ private:
+  const FrontEndSpectra& front_end_;
+  std::optional<SecondStage> second_;
+  FilterResponse filter_;
+  double temperature_k_;
+  int n_;
 };
 
 struct ChainNoiseOptions {

@@ -293,7 +293,8 @@ std::function<int()> DefinePlot(CLI::App* app, const GlobalOptions& global) {
       ->required()
       ->check(OutputPath());
   app->add_option("--only", options->only,
-                  "draw one panel: spectrum, cumulative or gain");
+                  "draw one panel: spectrum, cumulative, gain or chain (a "
+                  "stage with a \"chain\" block)");
   app->add_option("--script", options->script_path,
                   "also save the gnuplot script (data inline) to this file "
                   "(\"-\": standard output)")

@@ -115,6 +115,7 @@ int RunNoteCommand(const NoteCommandOptions& options) {
 
   PlotScriptOptions script;
   script.format = PlotFormat::kSvg;
+  script.panels = DefaultPlotPanels(budget);
   const auto draw = [&](OutputFiles& files, OutputFiles::Id id) {
     return DrawPicture(gnuplot, files, id, [&](const std::string& temporary) {
       PlotScriptOptions drawing = script;

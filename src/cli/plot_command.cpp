@@ -9,6 +9,8 @@
 #include "budget/compute_budget.h"
 #include "budget/frequency_grid.h"
 #include "budget/sample_spectra.h"
+#include "chain/chain_budget.h"
+#include "circuit/stage_at_temperature.h"
 #include "cli/diagnostics.h"
 #include "cli/draw_picture.h"
 #include "cli/exit_codes.h"
@@ -21,6 +23,7 @@
 #include "io/stage_parser.h"
 #include "io/suggest.h"
 #include "report/plot_script.h"
+#include "review/review.h"
 
 namespace hushgain {
 namespace {
@@ -28,16 +31,19 @@ namespace {
 PlotScriptOptions ScriptOptions(const PlotCommandOptions& options) {
   PlotScriptOptions script;
   script.format = PictureFormat("-o", options.output_path);
-  const std::vector<std::string> panels = {"spectrum", "cumulative", "gain"};
+  const std::vector<std::string> panels = {"spectrum", "cumulative", "gain",
+                                           "chain"};
   if (options.only == "spectrum")
     script.panels = {PlotPanel::kSpectrum};
   else if (options.only == "cumulative")
     script.panels = {PlotPanel::kCumulative};
   else if (options.only == "gain")
     script.panels = {PlotPanel::kGain};
+  else if (options.only == "chain")
+    script.panels = {PlotPanel::kChain};
   else if (!options.only.empty())
     throw Error("command line", "",
-                "--only: expected spectrum, cumulative or gain, got \"" +
+                "--only: expected spectrum, cumulative, gain or chain, got \"" +
                     options.only + "\"" + DidYouMean(options.only, panels));
   return script;
 }
@@ -63,6 +69,27 @@ PlotData CumulativeOnBand(const Budget& budget, SpectrumSamples samples) {
   return data;
 }
 
+// The chain panel's data: from the band's low edge to where the chain's
+// count stopped, the cumulative analog rms at the converter's input and the
+// filter's response in dB, on the stage as the budget computed it.
+Status SampleChainPanel(const Stage& stage, const Budget& budget,
+                        PlotData* data) {
+  const ChainBlock& c = *budget.chain;
+  const std::vector<double> grid = LogFrequencyGrid(
+      budget.band_low_hz, c.counted_to_hz, kPlotPointsPerDecade);
+  const ChainSamplesOutcome chain = SampleChain(
+      StageAtTemperature(StageAsBudgeted(stage, budget), stage.temperature_k),
+      grid);
+  if (!chain.status.ok) return chain.status;
+  data->chain_f_hz = chain.samples.f_hz;
+  for (double p :
+       CumulativeLogTrapezoid(chain.samples.f_hz, chain.samples.analog_psd))
+    data->chain_cumulative_rms_v.push_back(std::sqrt(p));
+  for (double h : chain.samples.filter_abs)
+    data->chain_filter_db.push_back(20 * std::log10(h));
+  return Status::Ok();
+}
+
 }  // namespace
 
 SheetData SampleSheet(const Stage& stage, const Budget& budget) {
@@ -78,6 +105,8 @@ SheetData SampleSheet(const Stage& stage, const Budget& budget) {
   sheet.status = spectrum.status;
   if (spectrum.status.ok)
     sheet.data = CumulativeOnBand(budget, std::move(spectrum.samples));
+  if (sheet.status.ok && budget.chain)
+    sheet.status = SampleChainPanel(stage, budget, &sheet.data);
   return sheet;
 }
 
@@ -98,8 +127,19 @@ int RunPlotCommand(const PlotCommandOptions& options) {
   const std::string gnuplot = GnuplotOrExplain("plot");
   if (gnuplot.empty()) return kExitToolFailed;
 
-  const BudgetOutcome outcome = ComputeBudget(stage, BudgetOptions{});
+  // The budget with its chain block, if any (the other review blocks draw
+  // nothing).
+  ReviewOptions review;
+  review.compare_tee = false;
+  review.temperature_corners = false;
+  review.compensation = false;
+  const BudgetOutcome outcome = ReviewStage(stage, review);
   if (!outcome.status.ok) return Refused(options, outcome.status.message);
+  if (options.only.empty())
+    script_options.panels = DefaultPlotPanels(outcome.budget);
+  else if (options.only == "chain" && !outcome.budget.chain)
+    throw Error("command line", "",
+                "--only chain: the stage has no \"chain\" block");
   const Budget& budget = outcome.budget;
   const SheetData sheet = SampleSheet(stage, budget);
   if (!sheet.status.ok) return Refused(options, sheet.status.message);

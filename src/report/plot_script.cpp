@@ -39,6 +39,8 @@ int PlotHeightPx(PlotPanel panel) {
       return 300;
     case PlotPanel::kGain:
       return 360;
+    case PlotPanel::kChain:
+      return 360;
   }
   return 300;
 }
@@ -117,6 +119,9 @@ class ScriptWriter {
         case PlotPanel::kGain:
           Gain(f);
           break;
+        case PlotPanel::kChain:
+          Chain(f);
+          break;
       }
       if (first) out_ += "unset label 1\nunset label 2\n";
       first = false;
@@ -152,6 +157,14 @@ class ScriptWriter {
     const double total = b_.output_rms_v;
     out_ += "$band_total << EOD\n" + Num(b_.band_low_hz) + " " + Num(total) +
             "\n" + Num(b_.band_high_hz) + " " + Num(total) + "\nEOD\n";
+    if (!d_.chain_f_hz.empty()) {
+      out_ += "$chain << EOD\n";
+      for (std::size_t i = 0; i < d_.chain_f_hz.size(); ++i)
+        out_ += Num(d_.chain_f_hz[i]) + " " +
+                Num(d_.chain_cumulative_rms_v[i]) + " " +
+                Num(d_.chain_filter_db[i]) + "\n";
+      out_ += "EOD\n";
+    }
   }
 
   void Heading() {
@@ -408,6 +421,65 @@ class ScriptWriter {
     out_ += "set border 3\nunset logscale y2\n";
   }
 
+  // The chain's own frequency span, from the band's low edge to where its
+  // count stopped; the cumulative analog rms at the converter's input (left,
+  // linear) with the converter's own noise and quantization as a level, and
+  // the filter's response in dB (right).
+  void Chain(const Frame&) {
+    const ChainBlock& c = *b_.chain;
+    // The band's low edge is the panel's left end: no label there.
+    out_ += "unset label 10\n";
+    const double f_lo = d_.chain_f_hz.front();
+    const double f_hi = d_.chain_f_hz.back();
+    out_ += "set xrange [" + Num(f_lo) + ":" + Num(f_hi) + "]\n";
+    out_ += LogTicsCommand("x", f_lo, f_hi,
+                           [](double v) { return Short(v, "Hz"); });
+    const double converter_rms =
+        std::hypot(c.adc.own_noise_rms_v, c.adc.quantization_rms_v);
+    const double top = std::max(c.analog_rms_v, converter_rms);
+    const auto [scale, unit] = UnitScale(top, "V");
+    PanelTitle("Signal chain: noise at the converter's input and the filter");
+    out_ += "set yrange [0:" + Num(1.15 * top / scale) + "]\n";
+    out_ += "set ytics auto\nset format y '%g'\n";
+    out_ += "set ylabel " +
+            GnuplotString("cumulative rms at the ADC input (" + unit + ")") +
+            "\n";
+    double db_min = 0, db_max = -HUGE_VAL;
+    for (double v : d_.chain_filter_db) {
+      db_min = std::min(db_min, v);
+      db_max = std::max(db_max, v);
+    }
+    const double y2_top = 20 * std::ceil((db_max + 10) / 20);
+    const double y2_bottom =
+        std::max(20 * std::floor(db_min / 20), y2_top - 160);
+    out_ += "set y2range [" + Num(y2_bottom) + ":" + Num(y2_top) + "]\n";
+    out_ += "set y2tics 20 out\nset y2label 'filter |H| (dB)'\n";
+    out_ += "set border 11 lw 1\n";
+    std::string markers = Marker(
+        c.nyquist_hz, "Nyquist " + FormatEng(c.nyquist_hz, "Hz"), kColours[1]);
+    if (c.chain.filter && c.chain.filter->kind != ChainFilter::Kind::kNone)
+      markers += Marker(
+          c.chain.filter->cutoff_hz,
+          "filter -3 dB at " + FormatEng(c.chain.filter->cutoff_hz, "Hz"),
+          kColours[2]);
+    out_ += "$converter << EOD\n" + Num(f_lo) + " " + Num(converter_rms) +
+            "\n" + Num(f_hi) + " " + Num(converter_rms) + "\nEOD\n";
+    out_ += "plot $chain using 1:($2/" + Num(scale) +
+            ") axes x1y1 with lines lw 3 lc rgb '" + kColours[0] + "' title " +
+            GnuplotString("analog, " + Short(b_.band_low_hz, "Hz") + " to f (" +
+                          FormatEng(c.analog_rms_v, "V") + ")") +
+            ", \\\n  $converter using 1:($2/" + Num(scale) +
+            ") axes x1y1 with lines dt 3 lw 1.5 lc rgb '#000000' title " +
+            GnuplotString(
+                "converter + q/\xE2\x88\x9A"
+                "12 (" +
+                FormatEng(converter_rms, "V") + ")") +
+            ", \\\n  $chain using 1:3 axes x1y2 with lines lw 2 dt 2 lc rgb '" +
+            kColours[3] + "' title " + GnuplotString("filter |H| (dB)") +
+            markers + "\n";
+    out_ += "set format y '% h'\nset border 3\n";
+  }
+
   const Budget& b_;
   const PlotData& d_;
   const PlotScriptOptions& o_;
@@ -419,6 +491,13 @@ class ScriptWriter {
 
 }  // namespace
 
+std::vector<PlotPanel> DefaultPlotPanels(const Budget& budget) {
+  std::vector<PlotPanel> panels = {PlotPanel::kSpectrum, PlotPanel::kCumulative,
+                                   PlotPanel::kGain};
+  if (budget.chain) panels.push_back(PlotPanel::kChain);
+  return panels;
+}
+
 std::pair<double, double> PlotFrequencyRangeHz(const Budget& b) {
   const double top = std::max(b.band_high_hz, b.bandwidth_3db_hz);
   return {b.band_low_hz / 10.0, top * 10.0};
@@ -428,6 +507,11 @@ std::string BuildPlotScript(const Budget& budget, const PlotData& data,
                             const PlotScriptOptions& options) {
   assert(data.samples.f_hz.size() >= 2 && !options.panels.empty());
   assert(data.cumulative_f_hz.size() == data.cumulative_rms_v.size());
+  assert(std::all_of(options.panels.begin(), options.panels.end(),
+                     [&](PlotPanel p) {
+                       return p != PlotPanel::kChain ||
+                              (budget.chain && data.chain_f_hz.size() >= 2);
+                     }));
   return ScriptWriter(budget, data, options).Write();
 }
 

@@ -10,7 +10,14 @@
 //               the right; for a photodiode the transimpedance in ohm on
 //               the left and the V/V gains on the right), the -3 dB
 //               bandwidth and the loop's unity crossover with its phase
-//               margin marked.
+//               margin marked;
+//   chain       with a signal chain (Budget::chain), on its own frequency
+//               span from the band's low edge to where the chain's count
+//               stopped: the cumulative analog noise at the converter's
+//               input, sqrt(integral of S_adc from f_low to f), beside the
+//               converter's own noise with quantization (a level), and the
+//               filter's response in dB on the right; Nyquist and the
+//               cutoff marked.
 // Every string from the stage (stage and contributor names) and the output
 // path go through GnuplotString (report/text_escape.h) on a `noenhanced`
 // terminal, so they are drawn as text and never run; numbers are printed
@@ -28,7 +35,7 @@
 
 namespace hushgain {
 
-enum class PlotPanel { kSpectrum, kCumulative, kGain };
+enum class PlotPanel { kSpectrum, kCumulative, kGain, kChain };
 
 struct PlotData {
   // On the plot grid (PlotFrequencyRangeHz, band edges on the grid).
@@ -37,6 +44,12 @@ struct PlotData {
   // the first value is 0.
   std::vector<double> cumulative_f_hz;
   std::vector<double> cumulative_rms_v;
+  // With a chain: a log grid from the band's low edge to the chain's
+  // counted_to_hz, the cumulative analog rms at the converter's input
+  // (first value 0) and 20 log10 |H(f)| of the filter.
+  std::vector<double> chain_f_hz;
+  std::vector<double> chain_cumulative_rms_v;
+  std::vector<double> chain_filter_db;
 };
 
 struct PlotScriptOptions {
@@ -47,12 +60,17 @@ struct PlotScriptOptions {
                                    PlotPanel::kGain};
 };
 
+// The sheet's panels: spectrum, cumulative and gain, and chain when the
+// budget has a chain.
+std::vector<PlotPanel> DefaultPlotPanels(const Budget& budget);
+
 // The frequency span of the plots: a decade below the band up to a decade
 // above the band or the -3 dB bandwidth, whichever is higher.
 std::pair<double, double> PlotFrequencyRangeHz(const Budget& budget);
 
 // Requires data.samples with at least two points and positive frequencies,
-// cumulative vectors of equal size, and at least one panel (asserted).
+// cumulative vectors of equal size, and at least one panel; the chain panel
+// requires budget.chain and at least two chain points (asserted).
 std::string BuildPlotScript(const Budget& budget, const PlotData& data,
                             const PlotScriptOptions& options);
 

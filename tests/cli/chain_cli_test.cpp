@@ -6,6 +6,7 @@
 #include <doctest/doctest.h>
 
 #include <cmath>
+#include <cstdio>
 #include <nlohmann/json.hpp>
 #include <string>
 
@@ -110,6 +111,35 @@ TEST_CASE("budget --chain-csv of a stage without a chain is refused") {
         "error: command line: --chain-csv: the stage has no \"chain\" "
         "block\n");
   CHECK(dir.Files().empty());
+}
+
+TEST_CASE(
+    "plot draws the chain's panel and its cumulative noise reaches the "
+    "budget's") {
+  TempFolder dir("chain-plot");
+  const std::string path = dir.Write("stage.json", StageWithChain()).string();
+  const std::string svg = dir / "sheet.svg";
+  const std::string script = dir / "sheet.gp";
+  const auto r = RunHushgain({"plot", path, "-o", svg, "--script", script});
+  REQUIRE(r.exit_code == 0);
+  CHECK(test::ReadAll(svg).find("Signal chain: noise at the converter") !=
+        std::string::npos);
+  // The last line of the $chain datablock: the cumulative analog rms at
+  // the converter's input up to where the count stopped, by the trapezoid
+  // in log f on 50 points a decade (integrate/cumulative_power.h: about
+  // 2e-4 on a white density), against the budget's adaptive integral.
+  const std::string gp = test::ReadAll(script);
+  const std::size_t start = gp.find("$chain << EOD\n");
+  REQUIRE(start != std::string::npos);
+  const std::size_t end = gp.find("\nEOD\n", start);
+  const std::string last =
+      gp.substr(gp.rfind('\n', end - 1) + 1, end - gp.rfind('\n', end - 1) - 1);
+  double f = 0, rms = 0, db = 0;
+  REQUIRE(std::sscanf(last.c_str(), "%lf %lf %lf", &f, &rms, &db) == 3);
+  const json j =
+      json::parse(RunHushgain({"budget", "--format", "json", path}).out);
+  CHECK(RelErr(f, j["chain"]["fold"]["counted_to_Hz"].get<double>()) < 1e-6);
+  CHECK(RelErr(rms, j["chain"]["analog_rms_V"].get<double>()) < 0.01);
 }
 
 TEST_CASE("examples without a chain print no chain") {

@@ -223,8 +223,13 @@ TEST_CASE("plot refuses an unknown picture type or panel with exit code 2") {
   r = RunHushgain({"plot", stage, "--only", "gian", "-o", dir / "out.png"});
   CHECK(r.exit_code == 2);
   CHECK(r.err ==
-        "error: command line: --only: expected spectrum, cumulative "
-        "or gain, got \"gian\" (did you mean \"gain\"?)\n");
+        "error: command line: --only: expected spectrum, cumulative, "
+        "gain or chain, got \"gian\" (did you mean \"gain\"?)\n");
+  r = RunHushgain({"plot", stage, "--only", "chain", "-o", dir / "out.png"});
+  CHECK(r.exit_code == 2);
+  CHECK(r.err ==
+        "error: command line: --only chain: the stage has no \"chain\" "
+        "block\n");
   CHECK(dir.Files().empty());
 }
 

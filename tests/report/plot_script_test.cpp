@@ -5,6 +5,7 @@
 #include <cstdio>
 #include <sstream>
 #include <string>
+#include <vector>
 
 #include "report/csv_report.h"
 #include "report/text_escape.h"
@@ -115,6 +116,69 @@ TEST_CASE("--only panels give one plot each") {
     CHECK(gp.rfind("set terminal pngcairo ", 0) == 0);
     CHECK(CountLines(gp, "plot ") == 1);
   }
+}
+
+// SmallBudget with a chain: a 2nd-order Butterworth at 2 kHz into a
+// 16-bit converter sampling at 10 kHz, the count stopped at 1 MHz.
+Budget ChainBudget() {
+  Budget b = SmallBudget();
+  ChainBlock c;
+  ChainFilter f;
+  f.kind = ChainFilter::Kind::kButterworth;
+  f.order = 2;
+  f.cutoff_hz = 2e3;
+  c.chain.filter = f;
+  c.chain.adc.bits = 16;
+  c.chain.adc.full_scale_v = 4;
+  c.chain.adc.sample_rate_hz = 1e4;
+  c.nyquist_hz = 5e3;
+  c.counted_to_hz = 1e6;
+  c.analog_rms_v = 6e-6;
+  c.adc.own_noise_rms_v = 3e-6;
+  c.adc.quantization_rms_v = 4e-6;
+  b.chain = c;
+  return b;
+}
+
+PlotData ChainData() {
+  PlotData d = SmallData();
+  d.chain_f_hz = {10, 1e3, 1e4, 1e5, 1e6};
+  d.chain_cumulative_rms_v = {0, 4e-6, 5.9e-6, 6e-6, 6e-6};
+  d.chain_filter_db = {0, -0.1, -24, -64, -104};
+  return d;
+}
+
+TEST_CASE("a budget with a chain gets a fourth panel of its own") {
+  CHECK(DefaultPlotPanels(SmallBudget()).size() == 3);
+  const std::vector<PlotPanel> panels = DefaultPlotPanels(ChainBudget());
+  REQUIRE(panels.size() == 4);
+  CHECK(panels.back() == PlotPanel::kChain);
+  PlotScriptOptions options;
+  options.output_path = "x.svg";
+  options.format = PlotFormat::kSvg;
+  options.panels = panels;
+  const std::string gp = BuildPlotScript(ChainBudget(), ChainData(), options);
+  CHECK(CountLines(gp, "plot ") == 4);
+  // One datablock line per chain point: f, cumulative rms, |H| in dB.
+  const std::size_t start = gp.find("$chain << EOD\n");
+  REQUIRE(start != std::string::npos);
+  const std::size_t end = gp.find("EOD\n", start + 14);
+  const std::string block = gp.substr(start + 14, end - start - 14);
+  CHECK(CountLines(block, "") == 5);
+  CHECK(block.rfind("10 0 0\n", 0) == 0);
+  // Its own frequency span, the band's low edge to where the count stopped.
+  CHECK(gp.find("set xrange [10:1000000]") != std::string::npos);
+  // The converter's own noise with quantization, sqrt(3^2 + 4^2) = 5 uV,
+  // as a level; Nyquist and the cutoff named in the legend; the filter's
+  // response on the right axis.
+  CHECK(gp.find("title " + GnuplotString("converter + q/\xE2\x88\x9A"
+                                         "12 (5.000 \xC2\xB5V)")) !=
+        std::string::npos);
+  CHECK(gp.find(GnuplotString("Nyquist 5.000 kHz")) != std::string::npos);
+  CHECK(gp.find(GnuplotString("filter -3 dB at 2.000 kHz")) !=
+        std::string::npos);
+  CHECK(gp.find("$chain using 1:3 axes x1y2") != std::string::npos);
+  CHECK(gp.find("set y2range [-120:20]") != std::string::npos);
 }
 
 TEST_CASE("a pdf sheet has the png's proportions on a page of points") {
