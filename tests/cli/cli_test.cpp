@@ -182,7 +182,9 @@ TEST_CASE("budget --json of every example matches the derived expectations") {
   // gains and section 4 white + 1/f integrals, and an own nodal analysis of
   // the DESIGN.md macro model with a direct solve per source), with the
   // temperature laws of budget/stage_at_temperature.h (values given at 25 °C)
-  // and section 8 excess noise from the DC drops, both written there anew;
+  // and section 8 excess noise from the DC drops, both written there anew,
+  // and for a stage with a chain its filter from scipy.signal's prototypes
+  // and the converter's definitions;
   // each entry names its method and, where a closed form exists, its
   // distance from it.
   const std::map<std::string, std::string> pointer_of = {
@@ -195,6 +197,12 @@ TEST_CASE("budget --json of every example matches the derived expectations") {
       {"output_rms_V_at_max", "/temperature/max/output_rms_V"},
       {"worst_case_V_at_min", "/temperature/min/worst_case_V"},
       {"worst_case_V_at_max", "/temperature/max/worst_case_V"},
+      {"chain_analog_rms_V", "/chain/analog_rms_V"},
+      {"chain_total_rms_V", "/chain/total_rms_V"},
+      {"adc_snr_dB", "/adc/snr_dB"},
+      {"adc_enob_bits", "/adc/enob_bits"},
+      {"adc_noise_free_bits", "/adc/noise_free_bits"},
+      {"adc_effective_resolution_bits", "/adc/effective_resolution_bits"},
   };
   for (const fs::path& example : Examples()) {
     CAPTURE(example);

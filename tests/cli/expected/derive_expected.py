@@ -48,6 +48,21 @@ closed-loop response: Q = |H(f_90)| / |H(f_ref)| at the -90 degree point
 here anew) equal to 1/sqrt 2, by brentq in ln C_f; it is compared with
 section 7's exact C_f = sqrt(2 w_t R_f C - 1)/(w_t R_f), and the search
 is checked to reproduce that closed form on section 7's own model.
+
+A stage with a "chain" (a second gain stage, a filter, a converter): the
+nodal analysis's output density times the second stage's gain^2 / (1 +
+(f/f_p)^2) and the filter's |H|^2 (scipy.signal's analog Butterworth or
+Bessel prototype, its own library; none of the engine's code), plus the
+second stage's e_n^2 (1 + f_c/f) NG^2 and i_n^2 R_s^2 + 4kTR_s through the
+same pole and filter, integrated in ln f from the band's low edge to 1e4
+times the sample rate (everything above Nyquist folds into the samples);
+then the converter's definitions: q = FS/2^N, q^2/12, its own noise from
+the data sheet's SNR, SNR = 20 log10(FS / (2 sqrt 2) / n), ENOB = (SNR -
+10 log10 1.5) / (20 log10 2) (IEEE 1241's (SINAD - 1.76)/6.02 with the
+exact constants), noise-free bits log2(FS / (6.6 n)), effective resolution
+log2(FS / n). Beside the analog rms, the white closed form: the output
+density at the reference frequency times the gain through the ENBW of an
+n-th order Butterworth, (pi/2n)/sin(pi/2n) f_c (REFERENCES.md section 3).
 """
 
 import json
@@ -56,7 +71,7 @@ import os
 import re
 
 import numpy as np
-from scipy import integrate, optimize
+from scipy import integrate, optimize, signal
 
 K_B = 1.380649e-23  # J/K, exact in the 2019 SI (REFERENCES.md section 1)
 Q_E = 1.602176634e-19  # C, exact in the 2019 SI (REFERENCES.md section 1)
@@ -156,6 +171,7 @@ def load_stage(path):
         stage["Rf"] = quantity(fb["resistor"])
     plus = st.get("plus_resistor")
     stage["Rp_mode"] = plus
+    stage["chain"] = doc.get("chain")
     return stage
 
 
@@ -842,6 +858,102 @@ def tee_cost(stage, given):
     return Network(stage).output_rms() / Network(plain).output_rms(), plain
 
 
+def filter_power(block):
+    """|H(f)|^2 of a chain filter, from scipy.signal's analog prototypes
+    (the cutoff is the -3 dB frequency: Bessel normalised by 'mag')."""
+    if block is None or block["kind"] == "none":
+        g = quantity(block.get("gain", 1)) if block else 1.0
+        return lambda f: g * g
+    g = quantity(block.get("gain", 1))
+    wc = 2 * math.pi * quantity(block["cutoff"])
+    n = int(block.get("order", 1))
+    if block["kind"] == "butterworth":
+        b, a = signal.butter(n, wc, analog=True)
+    elif block["kind"] == "bessel":
+        b, a = signal.bessel(n, wc, analog=True, norm="mag")
+    else:  # single_pole
+        b, a = [wc], [1, wc]
+
+    def h2(f):
+        _, h = signal.freqs(b, a, worN=[2 * math.pi * f])
+        return g * g * abs(h[0]) ** 2
+    return h2
+
+
+def second_stage(block, T):
+    """(|G2(f)|^2, its own output PSD S_2(f)) of a chain's second stage."""
+    if block is None:
+        return (lambda f: 1.0), (lambda f: 0.0)
+    g = quantity(block["gain"])
+    ng = quantity(block.get("noise_gain", abs(g)))
+    bw = block.get("bandwidth")
+    fp = (quantity(bw["gbw"]) / ng if isinstance(bw, dict)
+          else quantity(bw) if bw is not None else None)
+    pole = (lambda f: 1.0) if fp is None else (lambda f: 1 / (1 + (f / fp) ** 2))
+    en = block.get("input_noise", {})
+    ew, fce = quantity(en.get("density", 0)), quantity(en.get("corner", 0))
+    cn = block.get("input_current_noise", {})
+    iw, fci = quantity(cn.get("density", 0)), quantity(cn.get("corner", 0))
+    rs = quantity(block.get("source_resistance", 0))
+    return ((lambda f: g * g * pole(f)),
+            (lambda f: (ew * ew * (1 + fce / f) * ng * ng
+                        + (iw * iw * (1 + fci / f) * rs * rs
+                           + 4 * K_B * T * rs) * g * g) * pole(f)))
+
+
+def chain_figures(stage, net):
+    """The chain's figures (module docstring), and the white closed form of
+    its analog rms."""
+    chain = stage["chain"]
+    adc = chain["adc"]
+    g2, s2 = second_stage(chain.get("second_stage"), stage["T"])
+    h2 = filter_power(chain.get("filter"))
+    e_f = quantity((chain.get("filter") or {}).get("noise", 0))
+
+    def psd(f):
+        h = h2(f)
+        return net.psd_total(f) * g2(f) * h + s2(f) * h + e_f * e_f * h
+    f_lo = stage["fL"]
+    f_hi = 1e4 * quantity(adc["sample_rate"])
+    edges = np.log(np.concatenate((
+        [f_lo], 10.0 ** np.arange(math.floor(math.log10(f_lo)) + 1,
+                                  math.floor(math.log10(f_hi)) + 1))))
+    edges = np.unique(np.append(edges, math.log(f_hi)))
+    power = 0.0
+    for lo, hi in zip(edges[:-1], edges[1:]):
+        v, _ = integrate.quad(lambda u: psd(math.exp(u)) * math.exp(u), lo, hi,
+                              epsabs=0, epsrel=1e-11, limit=400)
+        power += v
+    analog = math.sqrt(power)
+    bits, fs_v = int(adc["bits"]), quantity(adc["full_scale"])
+    q = fs_v / 2 ** bits
+    sine = fs_v / (2 * math.sqrt(2))
+    if "snr_dB" in adc:
+        n_adc = sine * 10 ** (-adc["snr_dB"] / 20)
+        own = math.sqrt(max(0.0, n_adc ** 2 - q * q / 12))
+    else:
+        own = quantity(adc.get("input_noise_rms", 0))
+    total = math.sqrt(power + own * own + q * q / 12)
+    snr = 20 * math.log10(sine / total)
+    figures = {
+        "chain_analog_rms_V": analog,
+        "chain_total_rms_V": total,
+        "adc_snr_dB": snr,
+        "adc_enob_bits": (snr - 10 * math.log10(1.5)) / (20 * math.log10(2)),
+        "adc_noise_free_bits": math.log2(fs_v / (6.6 * total)),
+        "adc_effective_resolution_bits": math.log2(fs_v / total),
+    }
+    closed = {}
+    block = chain.get("filter")
+    if block is not None and block["kind"] == "butterworth":
+        n = int(block.get("order"))
+        enbw = (math.pi / (2 * n)) / math.sin(math.pi / (2 * n)) * quantity(block["cutoff"])
+        fref = stage["fref"]
+        white = (net.psd_total(fref) * g2(fref) + s2(fref)) * quantity(block.get("gain", 1)) ** 2
+        closed["chain_analog_rms_V"] = math.sqrt(white * enbw)
+    return figures, closed
+
+
 # Why each example does or does not sit in closed-form territory.
 NOTES = {
     "large-area-receiver.json":
@@ -905,6 +1017,17 @@ NOTES = {
         "1e-6 from the finite-A0 solve; V_os = 300 uV + 3 uV/C x 15 C, I_b "
         "and I_os x 2^1.5 (doubling every 10 C); the photocurrent is the "
         "signal's DC level, no offset",
+    "turbidity-receiver.json":
+        "a photodiode stage (50 pF, zero bias, 200 nA of scattered light "
+        "whose shot noise is most of its noise) into a x4 second stage "
+        "(10 MHz GBW, 10 nV/rtHz with a 100 Hz corner), a 4th-order "
+        "Butterworth at 5 kHz and a 16-bit converter (5 V, 25 kS/s, 92 dB "
+        "SNR). The chain's white closed form (the output density at 100 Hz "
+        "times 4 through the Butterworth's ENBW) is 0.4 % above the nodal "
+        "value: the front end's own pole at 37 kHz takes about 2 % of the "
+        "power near the 5 kHz cutoff, the 1/f of both e_n and the stage's "
+        "e_n x C rise give some of it back; what folds from above the "
+        "12.5 kHz Nyquist is about 2e-4 of the power",
     "thermopile-stage.json":
         "a capacitor across a T network at 35 C (V_os + 0.2 uV/C x 10 C, "
         "I_b and I_os x 0.97; no resistors block). With an ideal op-amp "
@@ -974,6 +1097,10 @@ def main():
             figures["noise_cost_ratio"] = ratio
             cp = closed_form(plain)
             closed["noise_cost_ratio"] = cf[0] / cp[0]
+        if stage["chain"] is not None:
+            chain, chain_closed = chain_figures(stage, net)
+            figures.update(chain)
+            closed.update(chain_closed)
         if stage["T_range"]:
             # The ends of the range: the 25 C stage moved to each end, the
             # feedback capacitor as at the nominal temperature.
@@ -993,6 +1120,11 @@ def main():
             method = NODAL
             if key.startswith("worst_case_V"):
                 method = NODAL_DC
+            if key.startswith(("chain_", "adc_")):
+                method = ("the chain on this file's nodal output density, "
+                          "scipy.signal's analog filter, quad in ln f to "
+                          "1e4 x the sample rate; the converter's "
+                          "definitions (module docstring)")
             if key == "feedback_capacitor_F":
                 method = ("Q = 1/sqrt 2 at the -90 degree point of "
                           "this file's nodal closed-loop response, "
