@@ -149,33 +149,23 @@ RestampSolver::RestampSolver(const MnaSystem& system, const Netlist& netlist)
   for (int i = 0; i < n * n; ++i)
     if (std::fabs(g_base_t_[i]) <= 1e-12 * std::fabs(magnitude[i]))
       g_base_t_[i] = 0;
-  // Split C^T = P Q^T by elimination with complete pivoting.
-  std::vector<double> rest = c_t_;
-  double largest = 0;
-  for (double v : rest) largest = std::fmax(largest, std::fabs(v));
-  while (largest > 0 && rank_ <= std::min(n / 2, 8)) {
-    int bi = 0, bj = 0;
-    double best = 0;
-    for (int i = 0; i < n; ++i)
-      for (int j = 0; j < n; ++j)
-        if (std::fabs(rest[i * n + j]) > best)
-          best = std::fabs(rest[i * n + j]), bi = i, bj = j;
-    if (best <= 1e-13 * largest) break;
-    const double pivot = rest[bi * n + bj];
-    std::vector<double> col(n), row(n);
-    for (int i = 0; i < n; ++i) col[i] = rest[i * n + bj] / pivot;
-    for (int j = 0; j < n; ++j) row[j] = rest[bi * n + j];
-    for (int i = 0; i < n; ++i)
-      for (int j = 0; j < n; ++j) rest[i * n + j] -= col[i] * row[j];
-    p_.insert(p_.end(), col.begin(), col.end());
-    q_.insert(q_.end(), row.begin(), row.end());
-    ++rank_;
+  c_base_t_ = c_t_;
+  std::vector<double> c_magnitude(n * n, 0.0);
+  for (const Capacitor& c : netlist.capacitors) {
+    const int a = system.NodeIndex(c.a), b = system.NodeIndex(c.b);
+    cap_nodes_.push_back({a, b});
+    Stamp(c_base_t_, n, a, b, -c.farads);
+    Stamp(c_magnitude, n, a, b, c.farads);
   }
-  if (rank_ > std::min(n / 2, 8)) {  // not worth it: the dense path
-    rank_ = -1;
-    p_.clear();
-    q_.clear();
-  }
+  for (int i = 0; i < n * n; ++i)
+    if (std::fabs(c_base_t_[i]) <= 1e-12 * std::fabs(c_magnitude[i]))
+      c_base_t_[i] = 0;
+  rest_.assign(n * n, 0.0);
+  col_.assign(n, 0.0);
+  row_.assign(n, 0.0);
+  p_.reserve(n * 9);
+  q_.reserve(n * 9);
+  SplitCapacitance();
   g_t_ = g_base_t_;
   ar_.assign(n * n, 0.0);
   ai_.assign(n * n, 0.0);
@@ -183,6 +173,47 @@ RestampSolver::RestampSolver(const MnaSystem& system, const Netlist& netlist)
   row_scale_.assign(n, 1.0);
   zr_.assign(n, 0.0);
   zi_.assign(n, 0.0);
+}
+
+void RestampSolver::SplitCapacitance() {
+  // Split C^T = P Q^T by elimination with complete pivoting.
+  const int n = n_;
+  rank_ = 0;
+  p_.clear();
+  q_.clear();
+  rest_ = c_t_;
+  double largest = 0;
+  for (double v : rest_) largest = std::fmax(largest, std::fabs(v));
+  while (largest > 0 && rank_ <= std::min(n / 2, 8)) {
+    int bi = 0, bj = 0;
+    double best = 0;
+    for (int i = 0; i < n; ++i)
+      for (int j = 0; j < n; ++j)
+        if (std::fabs(rest_[i * n + j]) > best)
+          best = std::fabs(rest_[i * n + j]), bi = i, bj = j;
+    if (best <= 1e-13 * largest) break;
+    const double pivot = rest_[bi * n + bj];
+    for (int i = 0; i < n; ++i) col_[i] = rest_[i * n + bj] / pivot;
+    for (int j = 0; j < n; ++j) row_[j] = rest_[bi * n + j];
+    for (int i = 0; i < n; ++i)
+      for (int j = 0; j < n; ++j) rest_[i * n + j] -= col_[i] * row_[j];
+    p_.insert(p_.end(), col_.begin(), col_.end());
+    q_.insert(q_.end(), row_.begin(), row_.end());
+    ++rank_;
+  }
+  if (rank_ > std::min(n / 2, 8)) {  // not worth it: the dense path
+    rank_ = -1;
+    p_.clear();
+    q_.clear();
+  }
+}
+
+void RestampSolver::SetCapacitors(const double* farads) {
+  prepared_ = false;
+  c_t_ = c_base_t_;
+  for (std::size_t k = 0; k < cap_nodes_.size(); ++k)
+    Stamp(c_t_, n_, cap_nodes_[k].first, cap_nodes_[k].second, farads[k]);
+  SplitCapacitance();
 }
 
 void RestampSolver::SetResistors(const double* ohms) {

@@ -1,10 +1,12 @@
-// Many solves of one network whose resistor values change between solves
-// (a Monte Carlo): the MNA matrices of MnaSystem with the resistors'
-// conductance stamps taken out, so new values are stamped into preallocated
-// storage, and a small dense LU with partial pivoting (row-equilibrated)
-// written for this size (n of about 5 to 15): nothing allocates per solve.
+// Many solves of one network whose resistor (and capacitor) values change
+// between solves (a Monte Carlo): the MNA matrices of MnaSystem with the
+// resistors' conductance stamps taken out, so new values are stamped into
+// preallocated storage, and a small dense LU with partial pivoting
+// (row-equilibrated) written for this size (n of about 5 to 15): nothing
+// allocates per solve.
 //
 //   SetResistors  G = G_without_resistors + sum of (1/R_k) stamps
+//   SetCapacitors C = C_without_capacitors + sum of C_k stamps, split anew
 //   SolveAdjoint  (G + j w C)^T z = e_out, then Transfer(port) = z^T b
 //   SolveDirect   G x = b at DC, with the LU of the last DC adjoint solve
 //
@@ -40,6 +42,10 @@ class RestampSolver {
 
   // New values for every resistor (ohms, netlist order).
   void SetResistors(const double* ohms);
+  int capacitor_count() const { return static_cast<int>(cap_nodes_.size()); }
+  // New values for every capacitor (farads, netlist order); the low-rank
+  // split of C is redone into preallocated storage.
+  void SetCapacitors(const double* farads);
 
   // Factors Y(j 2 pi f)^T and solves for z. Fails on a zero or non-finite
   // pivot (names the frequency).
@@ -66,8 +72,11 @@ class RestampSolver {
  private:
   int n_ = 0;
   int output_ = -1;
-  std::vector<double> g_base_t_;            // G^T without resistors, row-major
-  std::vector<double> c_t_;                 // C^T, row-major
+  std::vector<double> g_base_t_;  // G^T without resistors, row-major
+  std::vector<double> c_t_;       // C^T, row-major
+  std::vector<double> c_base_t_;  // C^T without the capacitors' stamps
+  std::vector<std::pair<int, int>> cap_nodes_;  // unknown indices
+  std::vector<double> rest_, col_, row_;        // the split's storage
   std::vector<double> g_t_;                 // G^T with the current resistors
   std::vector<std::pair<int, int>> nodes_;  // unknown indices (-1 = ground)
   // Working storage of the factorization: real and imaginary parts.
@@ -84,6 +93,7 @@ class RestampSolver {
   std::vector<double> dc_lu_, dc_scale_, dc_z0_, w_, k_, y0_;
   std::vector<int> dc_pivot_;
   Status Prepare();
+  void SplitCapacitance();        // C^T = P Q^T into p_, q_, rank_
   void KeepDcFactorization();     // after a dense DC solve: z0, W, K, y0
   void SolveDc(double* b) const;  // G^T x = b with the DC factorization
 };

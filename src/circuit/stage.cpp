@@ -21,4 +21,12 @@ const ResistorSpec* ResistorSpecFor(const Stage& stage,
   return stage.resistors ? &*stage.resistors : nullptr;
 }
 
+double CapacitorToleranceFor(const Stage& stage, const std::string& name) {
+  auto it = stage.capacitors.overrides.find(name);
+  if (it != stage.capacitors.overrides.end()) return it->second;
+  // The sensor's capacitance is its own, not one of the stage's parts.
+  if (name == "C_s" || name == "C_d") return 0;
+  return stage.capacitors.tolerance;
+}
+
 }  // namespace hushgain

@@ -140,6 +140,15 @@ struct ResistorSpec {
   double tolerance = 0;  // relative, >= 0
 };
 
+// The tolerances of the stage's capacitors (the stage file's `capacitors`
+// block), drawn by spread like the resistors': `tolerance` for the stage's
+// own capacitors (C_f, C3, C_input, C_plus) and per-capacitor overrides keyed
+// by netlist name (these may also give the sensor's C_s or C_d one).
+struct CapacitorTolerances {
+  double tolerance = 0;  // relative, >= 0
+  std::map<std::string, double> overrides;
+};
+
 struct Stage {
   std::string name;
   // The nominal temperature. Device and resistor values are at 25 °C; the
@@ -176,6 +185,7 @@ struct Stage {
   // excess noise, no tempco, no tolerance.
   std::optional<ResistorSpec> resistors;
   std::map<std::string, ResistorSpec> resistor_overrides;
+  CapacitorTolerances capacitors;
   // The DC level at the input for the DC solution (excess noise): volts of
   // the voltage source, or amperes of photocurrent; default 0.
   double dc_input = 0;
@@ -188,6 +198,10 @@ struct Stage {
 // override, else the stage's technology for its own parts, else nullptr.
 const ResistorSpec* ResistorSpecFor(const Stage& stage,
                                     const std::string& name);
+
+// The tolerance of the netlist capacitor `name` ("C_f", "C3", ...): the
+// override, else the stage's tolerance for its own parts, else 0.
+double CapacitorToleranceFor(const Stage& stage, const std::string& name);
 
 // sqrt(low * high) unless the stage sets it.
 double ReferenceFrequencyHz(const Stage& stage);

@@ -425,6 +425,47 @@ void ParseResistors(ObjectReader& top, const DeviceLibrary& library,
   r.Finish();
 }
 
+// The netlist names of the capacitors the stage has.
+std::vector<std::string> PresentCapacitors(const Stage& stage) {
+  std::vector<std::string> out;
+  if (stage.feedback.capacitor_f > 0 || stage.capacitor_target)
+    out.push_back("C_f");
+  if (stage.feedback.kind == Feedback::Kind::kTee &&
+      stage.feedback.tee.c3_f > 0)
+    out.push_back("C3");
+  if (stage.input_capacitor_f > 0) out.push_back("C_input");
+  if (stage.plus_resistor_bypass_f > 0) out.push_back("C_plus");
+  if (stage.capacitive) out.push_back("C_s");
+  if (stage.topology == Topology::kTransimpedance &&
+      stage.photodiode.capacitance_f > 0)
+    out.push_back("C_d");
+  return out;
+}
+
+// "capacitors": {"tolerance": ratio, "<C name>": {"tolerance": ratio}, ...}.
+void ParseCapacitors(ObjectReader& top, Stage* stage) {
+  if (!top.Has("capacitors")) return;
+  ObjectReader r = top.Object("capacitors");
+  if (r.Has("tolerance")) stage->capacitors.tolerance = Tolerance(r);
+  static const std::vector<std::string> names = {"C_f",    "C3",  "C_input",
+                                                 "C_plus", "C_s", "C_d"};
+  const std::vector<std::string> present = PresentCapacitors(*stage);
+  for (auto it = r.json().begin(); it != r.json().end(); ++it) {
+    const std::string& key = it.key();
+    if (key == "tolerance") continue;
+    if (std::find(names.begin(), names.end(), key) == names.end())
+      throw r.ErrorAt(key, "unknown capacitor name" + DidYouMean(key, names) +
+                               " (expected \"tolerance\" or a capacitor: "
+                               "C_f, C3, C_input, C_plus, C_s, C_d)");
+    if (std::find(present.begin(), present.end(), key) == present.end())
+      throw r.ErrorAt(key, "this stage has no " + key);
+    ObjectReader o = r.Object(key);
+    stage->capacitors.overrides[key] = Tolerance(o);
+    o.Finish();
+  }
+  r.Finish();
+}
+
 }  // namespace
 
 Stage ParseStage(std::string_view json_text, std::string_view source_name,
@@ -571,6 +612,7 @@ Stage ParseStage(std::string_view json_text, std::string_view source_name,
                         "input's DC level); give one of them");
   }
   ParseResistors(top, *context.library, &stage);
+  ParseCapacitors(top, &stage);
 
   if (auto fs =
           top.OptionalQuantity("full_scale_output_V", Quantity::kVoltage)) {

@@ -85,6 +85,10 @@ struct Model {
   // Where a sample's gain is read: 0 for DC; a stage that blocks DC (a
   // capacitive sensor) has no DC gain, so its |gain| at the reference.
   double gain_hz = 0;
+  // Every capacitor of the netlist (its 25 °C value and tolerance); drawn
+  // and restamped only when one has a tolerance.
+  std::vector<std::pair<double, double>> capacitors;  // farads, tolerance
+  bool vary_capacitors = false;
 };
 
 // The parts of a sample that its random stream decides.
@@ -99,10 +103,12 @@ struct Workspace {
   explicit Workspace(const Model& m)
       : solver(*m.prototype),
         ohms(m.resistors.size()),
+        farads(m.capacitors.size()),
         slots(m.sources),
         rhs(m.system.size()) {}
   RestampSolver solver;
   std::vector<double> ohms;
+  std::vector<double> farads;
   std::vector<SourceSlot> slots;
   std::vector<double> rhs;
   HeadroomInputs headroom;  // reused per sample
@@ -131,10 +137,12 @@ double DcOffset(const Model& m, const RestampSolver& s, const Draw& d,
   return offset;
 }
 
-// Evaluates one sample whose resistor values are already in w.ohms.
+// Evaluates one sample whose resistor (and capacitor) values are already
+// in w.ohms (and w.farads).
 Status EvaluateAt(const Model& m, const Draw& d, Workspace& w,
                   SpreadSample* out) {
   RestampSolver& s = w.solver;
+  if (m.vary_capacitors) s.SetCapacitors(w.farads.data());
   s.SetResistors(w.ohms.data());
   Status st = s.SolveAdjoint(0.0);
   if (!st.ok) return st;
@@ -226,7 +234,8 @@ Status EvaluateAt(const Model& m, const Draw& d, Workspace& w,
   return Status::Ok();
 }
 
-Draw DrawSample(const Model& m, RandomStream& rng, std::vector<double>* ohms) {
+Draw DrawSample(const Model& m, RandomStream& rng, std::vector<double>* ohms,
+                std::vector<double>* farads) {
   Draw d;
   d.temperature_k = m.nominal_k;
   if (m.range)
@@ -236,6 +245,14 @@ Draw DrawSample(const Model& m, RandomStream& rng, std::vector<double>* ohms) {
     const ResistorInfo& r = m.resistors[k];
     const double e = rng.UniformSymmetric(r.tolerance);
     (*ohms)[k] = OhmsAt(m, r, e, d.temperature_k);
+  }
+  // Capacitors without a tolerance draw nothing, so a stage without
+  // capacitor tolerances keeps its samples for a given seed.
+  for (std::size_t k = 0; k < m.capacitors.size(); ++k) {
+    const auto [farads_25, tolerance] = m.capacitors[k];
+    (*farads)[k] = tolerance > 0
+                       ? farads_25 * (1.0 + rng.UniformSymmetric(tolerance))
+                       : farads_25;
   }
   const bool gaussian =
       m.opamp.offset_distribution == OffsetDistribution::kGaussian;
@@ -283,6 +300,11 @@ Status BuildModel(const Stage& stage, const BudgetOutcome& nominal, Model* m) {
       m->any_excess = m->any_excess || r.noisy;
     }
     m->resistors.push_back(info);
+  }
+  for (const Capacitor& c : net.capacitors) {
+    const double tolerance = CapacitorToleranceFor(stage, c.name);
+    m->capacitors.push_back({c.farads, tolerance});
+    m->vary_capacitors = m->vary_capacitors || tolerance > 0;
   }
   m->signal = m->system.Compile(net.signal);
   m->e_n = m->system.Compile(Excitation{OpAmpInputVoltage{0}});
@@ -442,6 +464,12 @@ SpreadRun RunSpread(const Stage& stage, const SpreadOptions& options,
   const long total = options.samples;
   run.samples.resize(total);
   run.resistor_ohms.resize(static_cast<std::size_t>(total) * m);
+  if (model.vary_capacitors) {
+    for (const Capacitor& c : model.netlist.capacitors)
+      run.capacitor_names.push_back(c.name);
+    run.capacitor_farads.resize(static_cast<std::size_t>(total) *
+                                model.capacitors.size());
+  }
   const int threads =
       WorkerCount(options.threads, (total + kBlock - 1) / kBlock);
   std::atomic<long> next{0}, done{0};
@@ -458,9 +486,13 @@ SpreadRun RunSpread(const Stage& stage, const SpreadOptions& options,
       const long end = std::min(total, begin + kBlock);
       for (long i = begin; i < end; ++i) {
         RandomStream rng(options.seed, static_cast<std::uint64_t>(i));
-        const Draw d = DrawSample(model, rng, &w.ohms);
+        const Draw d = DrawSample(model, rng, &w.ohms, &w.farads);
         std::copy(w.ohms.begin(), w.ohms.end(),
                   run.resistor_ohms.begin() + i * static_cast<long>(m));
+        if (model.vary_capacitors)
+          std::copy(w.farads.begin(), w.farads.end(),
+                    run.capacitor_farads.begin() +
+                        i * static_cast<long>(model.capacitors.size()));
         SpreadSample& out = run.samples[i];
         Status s = EvaluateAt(model, d, w, &out);
         if (!s.ok) {
@@ -485,6 +517,7 @@ SpreadRun RunSpread(const Stage& stage, const SpreadOptions& options,
     run.interrupted = true;
     run.samples.clear();
     run.resistor_ohms.clear();
+    run.capacitor_farads.clear();
   }
   return run;
 }

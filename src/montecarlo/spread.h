@@ -6,6 +6,9 @@
 //                without a range)
 //   resistors    R = R_25 (1 + e) (1 + tc (T - 25 °C)), e uniform within
 //                +-tolerance of the resistor's spec (no spec: exact)
+//   capacitors   C = C_25 (1 + e), e uniform within +-tolerance of the
+//                stage's capacitors block (CapacitorToleranceFor; none: exact,
+//                and no draw)
 //   Vos          uniform within +-offset_voltage, or Gaussian with it as
 //                sigma (OpAmpModel::offset_distribution), plus the drift
 //                d (T - 25 °C) with d uniform within +-offset_voltage_drift
@@ -78,6 +81,10 @@ struct SpreadRun {
   std::vector<SpreadSample> samples;  // index order
   std::vector<std::string> resistor_names;  // netlist order
   std::vector<double> resistor_ohms;        // samples x names, row-major
+  // With a capacitor tolerance: every capacitor (netlist order) and its
+  // drawn value per sample; empty otherwise.
+  std::vector<std::string> capacitor_names;
+  std::vector<double> capacitor_farads;  // samples x names, row-major
   // Max over the range ends (and 25 °C) of the sum of each offset term's
   // largest magnitude over the corners of the tolerance box, with |Vos| +
   // |drift| |T - 25 °C| and |Ios| k(T): a bound on every sample when the

@@ -43,8 +43,9 @@ std::vector<std::string> HeaderLines(const SpreadRun& run, std::uint64_t seed) {
           " at " + Printf("%.2f", b.temperature_k - kZeroCelsiusK) +
           " \xC2\xB0"
           "C",
-      std::string("draws: resistors uniform within their tolerance; Vos and "
-                  "Ios ") +
+      std::string("draws: resistors ") +
+          (run.capacitor_names.empty() ? "" : "and capacitors ") +
+          "uniform within their tolerance; Vos and Ios " +
           (run.gaussian_offsets ? "Gaussian (the device values as sigma)"
                                 : "uniform within the device values") +
           "; Vos drift uniform within its value; temperature uniform over the "
@@ -247,8 +248,10 @@ std::string SpreadToCsv(const SpreadRun& run) {
       "index,temperature_C,vos_V,ios_A,gain,gain_error,offset_V,noise_rms_V,"
       "flags";
   for (const std::string& name : run.resistor_names) out += "," + name + "_ohm";
+  for (const std::string& name : run.capacitor_names) out += "," + name + "_F";
   out += "\n";
   const std::size_t m = run.resistor_names.size();
+  const std::size_t mc = run.capacitor_names.size();
   char buf[64];
   for (std::size_t i = 0; i < run.samples.size(); ++i) {
     const SpreadSample& s = run.samples[i];
@@ -261,6 +264,11 @@ std::string SpreadToCsv(const SpreadRun& run) {
     out += "," + StageProblemFlags(s.problems);
     for (std::size_t k = 0; k < m; ++k) {
       std::snprintf(buf, sizeof buf, ",%.17g", run.resistor_ohms[i * m + k]);
+      out += buf;
+    }
+    for (std::size_t k = 0; k < mc; ++k) {
+      std::snprintf(buf, sizeof buf, ",%.17g",
+                    run.capacitor_farads[i * mc + k]);
       out += buf;
     }
     out += "\n";

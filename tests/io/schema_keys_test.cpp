@@ -224,11 +224,30 @@ TEST_CASE("the stage schema and the stage parser know the same keys") {
           "resistors": {"technology": "thin-film",
                         "R_leak": {"tolerance": "20 %"}}})"_json);
   ParseStageJson(charge, "capacitive sensor variant", library);
-  json coupled = Example("hydrophone-preamp");
+  json coupled = Example("load-cell-bridge");
   coupled.merge_patch(
       R"({"stage": {"input_capacitor": "10u",
-                    "feedback": {"tee": {"c3": "100u"}}}})"_json);
+                    "feedback": {"resistor": null,
+                                 "tee": {"r1": "100k", "r2": "100k",
+                                         "r3": "1k", "c3": "100u"}}}})"_json);
   ParseStageJson(coupled, "AC coupling variant", library);
+  json caps = coupled;
+  caps.merge_patch(
+      R"({"stage": {"plus_resistor": "auto", "plus_resistor_bypass": "1u"},
+          "capacitors": {"tolerance": "5 %", "C_f": {"tolerance": "1 %"},
+                         "C3": {"tolerance": "20 %"},
+                         "C_input": {"tolerance": "10 %"},
+                         "C_plus": {"tolerance": "20 %"}}})"_json);
+  ParseStageJson(caps, "capacitors variant", library);
+  json sensor_caps = Example("smoke-chamber-receiver");
+  sensor_caps.merge_patch(
+      R"({"capacitors": {"C_d": {"tolerance": "20 %"}}})"_json);
+  ParseStageJson(sensor_caps, "photodiode capacitor variant", library);
+  json charge_caps = charge;
+  charge_caps["stage"].erase("input_resistor");
+  charge_caps.merge_patch(
+      R"({"capacitors": {"C_s": {"tolerance": "10 %"}}})"_json);
+  ParseStageJson(charge_caps, "sensor capacitor variant", library);
 
   const Keys schema = SchemaKeys(kSource / "schema/stage.schema.json").keys();
   INFO("in the parser, not in schema/stage.schema.json:\n"

@@ -526,3 +526,46 @@ TEST_CASE("bad coupling capacitors name the JSON path") {
 
 }  // namespace
 }  // namespace hushgain
+
+namespace hushgain {
+namespace {
+
+// kGood with a capacitors block beside the resistors.
+std::string WithCapacitors(const std::string& block) {
+  return Good(R"("full_scale_output_V": 4)",
+              R"("full_scale_output_V": 4, "capacitors": )" + block);
+}
+
+TEST_CASE("capacitor tolerances for spread, with overrides by name") {
+  const Stage s = Parse(
+      WithCapacitors(R"({"tolerance": "10 %", "C_f": {"tolerance": "1 %"}})"));
+  CHECK(RelErr(s.capacitors.tolerance, 0.1) < test::kRelTight);
+  CHECK(RelErr(CapacitorToleranceFor(s, "C_f"), 0.01) < test::kRelTight);
+  CHECK(RelErr(CapacitorToleranceFor(s, "C3"), 0.1) < test::kRelTight);
+  // The sensor's capacitance takes a tolerance only by name.
+  CHECK(CapacitorToleranceFor(s, "C_s") == 0);
+  CHECK(Parse(kGood).capacitors.tolerance == 0);
+  CHECK(Parse(kGood).capacitors.overrides.empty());
+}
+
+TEST_CASE("bad capacitor blocks name the JSON path") {
+  const std::vector<std::pair<std::string, std::string>> cases = {
+      {WithCapacitors(R"({"tolerance": "120 %"})"),
+       R"(stage.json: /capacitors/tolerance: expected a tolerance from 0 to below 100 %, got "120 %")"},
+      {WithCapacitors(R"({"C_ff": {"tolerance": "1 %"}})"),
+       R"(stage.json: /capacitors/C_ff: unknown capacitor name (did you mean "C_f"?) (expected "tolerance" or a capacitor: C_f, C3, C_input, C_plus, C_s, C_d))"},
+      {WithCapacitors(R"({"C3": {"tolerance": "1 %"}})"),
+       R"(stage.json: /capacitors/C3: this stage has no C3)"},
+      {WithCapacitors(R"({"C_f": {}})"),
+       R"(stage.json: /capacitors/C_f/tolerance: missing (required))"},
+      {WithCapacitors(R"({"tolerance": "1 %", "technology": "film"})"),
+       R"(stage.json: /capacitors/technology: unknown capacitor name (expected "tolerance" or a capacitor: C_f, C3, C_input, C_plus, C_s, C_d))"},
+  };
+  for (const auto& [text, message] : cases) {
+    CAPTURE(text);
+    CHECK_THROWS_WITH_AS(Parse(text), message.c_str(), Error);
+  }
+}
+
+}  // namespace
+}  // namespace hushgain

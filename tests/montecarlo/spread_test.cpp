@@ -257,3 +257,62 @@ TEST_CASE("yield counts the samples inside every given limit") {
 
 }  // namespace
 }  // namespace hushgain
+
+namespace hushgain {
+namespace {
+
+TEST_CASE(
+    "a charge amplifier's gain error follows C_f: 1/(1 + e) - 1 for e uniform "
+    "within its tolerance") {
+  // In the passband the gain from the sensor's voltage is C_s / C_f (ideal
+  // op-amp; REFERENCES.md section 13), so with C_f = C_f0 (1 + e), e uniform
+  // on [-t, t], the relative error is 1/(1 + e) - 1, whose moments are
+  //   E[1/(1 + e)] = ln((1 + t)/(1 - t)) / (2t),  E[1/(1 + e)^2] = 1/(1 - t^2)
+  // (the same integrals as the resistor ratio above).
+  const double t = 0.05;
+  Stage s = test::InvertingStage(0, 1e9, test::IdealOpAmp(5e-9, 1e-15), 300);
+  s.input_resistor_ohm = 0;
+  s.capacitive = CapacitiveSensor{1e-9, 0};
+  s.feedback.capacitor_f = 100e-12;
+  s.band_low_hz = 100;
+  s.band_high_hz = 10e3;
+  s.reference_hz = 1e3;  // 630 times the corner: C_s/C_f to 2.5e-6
+  s.capacitors.tolerance = t;
+  const SpreadRun run = Run(s, 40000);
+  REQUIRE(run.capacitor_names.size() == 2);  // C_s (no tolerance), C_f
+  const double mean_inverse = std::log((1 + t) / (1 - t)) / (2 * t);
+  const double sigma = std::sqrt(1 / (1 - t * t) - mean_inverse * mean_inverse);
+  const SpreadSummary summary = Summarize(run.samples, {});
+  CHECK(RelErr(summary.gain_error.sigma, sigma) < 0.02);
+  CHECK(std::fabs(summary.gain_error.mean - (mean_inverse - 1)) <
+        4 * sigma / std::sqrt(40000.0));
+  CHECK(summary.gain_error.max <= 1 / (1 - t) - 1 + 1e-5);
+  CHECK(summary.gain_error.min >= 1 / (1 + t) - 1 - 1e-5);
+  // Each sample is the budget of the stage with its drawn capacitors.
+  for (int i = 0; i < 3; ++i) {
+    CAPTURE(i);
+    Stage drawn = s;
+    for (std::size_t k = 0; k < run.capacitor_names.size(); ++k) {
+      const double farads =
+          run.capacitor_farads[i * run.capacitor_names.size() + k];
+      if (run.capacitor_names[k] == "C_f")
+        drawn.feedback.capacitor_f = farads;
+      else
+        CHECK(farads == 1e-9);  // C_s keeps its value
+    }
+    const Budget b = test::ComputeOrFail(drawn, 1e-8);
+    CHECK(RelErr(run.samples[i].gain, b.signal_gain_ref) < 1e-9);
+    CHECK(RelErr(run.samples[i].noise_rms_v, b.output_rms_v) < 1e-4);
+  }
+}
+
+TEST_CASE("without capacitor tolerances no capacitor is drawn") {
+  Stage s = TeeWithFiniteGbw();
+  s.feedback.capacitor_f = 10e-12;
+  const SpreadRun run = Run(s, 20);
+  CHECK(run.capacitor_names.empty());
+  CHECK(run.capacitor_farads.empty());
+}
+
+}  // namespace
+}  // namespace hushgain
