@@ -178,6 +178,33 @@ struct TeePiBlock {
   std::optional<double> output_arm_share;
 };
 
+// Which part to change (review/sensitivity.h): d ln F / d ln x of the
+// output noise rms, the worst-case offset and the -3 dB bandwidth for each
+// parameter x of the stage.
+struct SensitivityRow {
+  std::string parameter;            // "R1", "C_f", "e_n", "GBW", ...
+  std::string unit;                 // of value: "ohm", "F", "V/rtHz", "Hz", ...
+  double value = 0;                 // SI, at the stage's temperature
+  double noise = 0;                 // d ln(output rms) / d ln(x)
+  std::optional<double> offset;     // absent when the offset is zero
+  std::optional<double> bandwidth;  // absent without a -3 dB point
+  std::optional<double> gain;       // of the passband gain
+};
+
+struct SensitivityBlock {
+  std::vector<SensitivityRow> rows;  // largest |s| first
+  double step = 0;                   // h in ln x
+  double largest_error = 0;          // the largest error estimate of any s
+  // The change that pays most on the noise among the parameters that do not
+  // set the gain (|d ln gain / d ln x| < kGainSettingSensitivity):
+  // `parameter` halved (factor 0.5) or doubled (2), and the output rms then
+  // over the output rms now, from a whole budget of the changed stage.
+  // Empty when no such parameter moves the noise.
+  std::string advice_parameter;
+  double advice_factor = 0;
+  double advice_noise_ratio = 0;
+};
+
 // A feedback capacitor chosen for a target ("auto").
 struct CapacitorChoice {
   std::string target;         // "butterworth" or "phase margin 60 deg"
@@ -325,7 +352,8 @@ struct Budget {
   std::optional<double> dynamic_range_db;  // 2 x full scale / noise p-p
 
   std::optional<TeeComparison> tee;
-  std::optional<TeePiBlock> tee_pi;  // a T network's pi equivalent
+  std::optional<TeePiBlock> tee_pi;             // a T network's pi equivalent
+  std::optional<SensitivityBlock> sensitivity;  // review/sensitivity.h
 
   std::vector<ResistorDrop> resistor_drops;
   std::optional<ExcessAdvice> excess_advice;

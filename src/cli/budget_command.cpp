@@ -62,8 +62,8 @@ int RunBudgetCommand(const BudgetCommandOptions& options) {
     chain_file = outputs.AddText("--chain-csv", options.chain_csv_path,
                                  /*stdout_ok=*/true);
   outputs.Check(CommandInputs(options.stage_path, library, options.device));
-  const ReviewOptions review_options =
-      FullReviewOptions(library, options.tolerance);
+  ReviewOptions review_options = FullReviewOptions(library, options.tolerance);
+  review_options.sensitivity = options.sensitivity || format == "json";
   const BudgetOutcome outcome = ReviewStage(stage, review_options);
   if (!outcome.status.ok)
     return ReportRefusal(options.stage_path, outcome.status.message);

@@ -22,6 +22,9 @@ struct BudgetCommandOptions {
   // numbers) goes to this CSV file, written atomically; the stage must
   // have a chain.
   std::string chain_csv_path;
+  // --sensitivity: print which part to change (review/sensitivity.h); the
+  // JSON report always carries it.
+  bool sensitivity = false;
 };
 
 inline constexpr double kSpectrumPointsPerDecade = 50;

@@ -86,6 +86,10 @@ std::function<int()> DefineBudget(CLI::App* app, const GlobalOptions& global) {
   app->add_option("--tolerance", options->tolerance,
                   "relative error target of the noise integral (default 1e-4)")
       ->check(NumberValidator());
+  app->add_flag("--sensitivity", options->sensitivity,
+                "also print d ln(noise, offset, bandwidth) / d ln(part) for "
+                "every part and op-amp parameter, and the change that pays "
+                "most (always in JSON)");
   return [options, &global] {
     options->devices_dir = global.devices_dir;
     return RunBudgetCommand(*options);

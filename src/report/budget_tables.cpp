@@ -199,6 +199,54 @@ std::vector<std::pair<std::string, std::string>> TeePiSentences(
   return out;
 }
 
+Table SensitivityTable(const Budget& b) {
+  Table t;
+  t.header = {"parameter", "value", "noise", "offset", "bandwidth", "gain"};
+  t.align = {Table::Align::kLeft,  Table::Align::kRight, Table::Align::kRight,
+             Table::Align::kRight, Table::Align::kRight, Table::Align::kRight};
+  auto s = [](const std::optional<double>& v) {
+    return v ? Printf("%+.4f", *v) : std::string("-");
+  };
+  for (const SensitivityRow& r : b.sensitivity->rows) {
+    const std::string unit = r.unit == "ohm"      ? std::string(kOhm)
+                             : r.unit == "V/rtHz" ? "V" + std::string(kPerRtHz)
+                             : r.unit == "A/rtHz" ? "A" + std::string(kPerRtHz)
+                             : r.unit == "V/V"    ? std::string("")
+                                                  : r.unit;
+    t.AddRow(
+        {r.parameter,
+         r.unit == "V/V" ? Printf("%.4g", r.value) : FormatEng(r.value, unit),
+         Printf("%+.4f", r.noise), s(r.offset), s(r.bandwidth), s(r.gain)});
+  }
+  return t;
+}
+
+std::vector<std::pair<std::string, std::string>> SensitivityNotes(
+    const Budget& b) {
+  const SensitivityBlock& s = *b.sensitivity;
+  std::vector<std::pair<std::string, std::string>> out;
+  if (!s.advice_parameter.empty()) {
+    const double change = s.advice_noise_ratio - 1;
+    out.push_back({"the change that pays most",
+                   std::string(s.advice_factor < 1 ? "halving " : "doubling ") +
+                       s.advice_parameter +
+                       (change < 0 ? " lowers" : " raises") +
+                       " the output noise by " +
+                       Printf("%.1f %%", 100 * std::fabs(change)) +
+                       " (a whole budget of the changed stage; among the "
+                       "parts that do not set the gain)"});
+  }
+  out.push_back(
+      {"how",
+       "d ln F / d ln x by central differences in ln x (steps " +
+           Printf("%g", s.step) + " and " + Printf("%g", 2 * s.step) +
+           ", Richardson), the noise on the budget's own integration nodes; "
+           "largest estimated error " +
+           Printf("%.1g", s.largest_error) +
+           "; a 1 % rise of x moves F by about s %"});
+  return out;
+}
+
 Table TeeChangesTable(const Budget& b) {
   Table t;
   t.header = {"contributor", "T network", "plain R_f", "change"};

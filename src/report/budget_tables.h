@@ -43,6 +43,16 @@ Table TeePiTable(const Budget& budget);
 std::vector<std::pair<std::string, std::string>> TeePiSentences(
     const Budget& budget);
 
+// Requires budget.sensitivity. One row per parameter, largest first:
+// parameter, value, and d ln F / d ln x for the output noise, the
+// worst-case offset and the bandwidth ("-" where the figure is zero).
+Table SensitivityTable(const Budget& budget);
+
+// Requires budget.sensitivity. The lines under SensitivityTable as (label,
+// text): the change that pays most, and how the numbers were found.
+std::vector<std::pair<std::string, std::string>> SensitivityNotes(
+    const Budget& budget);
+
 // The response line's text, shared by text and Markdown: "19.17 kHz (against
 // the DC gain)", or for a stage that blocks DC "12.0 Hz to 19.17 kHz
 // (against the in-band gain 1000 at 1 kHz)", then ", peaking ..." when the

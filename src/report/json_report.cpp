@@ -289,6 +289,30 @@ std::string BudgetToJson(const Budget& b) {
     };
   }
   if (b.chain) AddChainJson(*b.chain, out);
+  if (b.sensitivity) {
+    const SensitivityBlock& s = *b.sensitivity;
+    json rows = json::array();
+    auto opt = [](const std::optional<double>& v) {
+      return v ? json(*v) : json(nullptr);
+    };
+    for (const SensitivityRow& r : s.rows)
+      rows.push_back({{"parameter", r.parameter},
+                      {"unit", r.unit},
+                      {"value", r.value},
+                      {"noise", r.noise},
+                      {"offset", opt(r.offset)},
+                      {"bandwidth", opt(r.bandwidth)},
+                      {"gain", opt(r.gain)}});
+    out["sensitivity"] = rows;
+    out["sensitivity_method"] = {
+        {"kind", "central differences in ln x with Richardson extrapolation"},
+        {"step", s.step},
+        {"largest_error_estimate", s.largest_error}};
+    if (!s.advice_parameter.empty())
+      out["sensitivity_advice"] = {{"parameter", s.advice_parameter},
+                                   {"factor", s.advice_factor},
+                                   {"output_rms_ratio", s.advice_noise_ratio}};
+  }
   AddRealPartsJson(b, out);
   json flags = json::array();
   for (StageProblem p : b.problems) flags.push_back(StageProblemWord(p));

@@ -184,12 +184,22 @@ std::string ChainSection(const Budget& b) {
   return out;
 }
 
+std::string SensitivitySection(const Budget& b) {
+  std::string out =
+      "\n### Which part to change: d ln F / d ln x, largest first\n\n";
+  out += RenderMarkdown(SensitivityTable(b)) + "\n";
+  for (const auto& [label, text] : SensitivityNotes(b))
+    out += Item(label, text);
+  return out;
+}
+
 }  // namespace
 
 std::string BudgetToMarkdown(const Budget& b) {
   std::string out = Header(b) + NoiseSection(b) + OffsetSection(b);
   if (b.tee) out += TeeSection(b);
   if (b.tee_pi) out += TeePiSection(b);
+  if (b.sensitivity) out += SensitivitySection(b);
   if (b.chain) out += ChainSection(b);
   for (const std::string& w : b.warnings)
     out += "\n> warning: " + EscapeMarkdown(w) + "\n";

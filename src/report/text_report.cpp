@@ -185,6 +185,14 @@ std::string ChainSection(const Budget& b) {
   return out;
 }
 
+std::string SensitivitySection(const Budget& b) {
+  std::string out = "\nWhich part to change: d ln F / d ln x, largest first\n";
+  out += RenderText(SensitivityTable(b));
+  for (const auto& [label, text] : SensitivityNotes(b))
+    out += "  " + label + ": " + text + "\n";
+  return out;
+}
+
 }  // namespace
 
 std::string BudgetToText(const Budget& b) {
@@ -192,6 +200,7 @@ std::string BudgetToText(const Budget& b) {
   out += RealPartsText(b);
   if (b.tee) out += TeeSection(b);
   if (b.tee_pi) out += TeePiSection(b);
+  if (b.sensitivity) out += SensitivitySection(b);
   if (b.chain) out += ChainSection(b);
   for (const std::string& w : b.warnings) out += "\nwarning: " + w + "\n";
   return out;

@@ -4,6 +4,7 @@
 #include "circuit/feedback_network.h"
 #include "circuit/stage_at_temperature.h"
 #include "review/compensation_resistor.h"
+#include "review/sensitivity.h"
 #include "review/tee_comparison.h"
 #include "review/temperature_corners.h"
 
@@ -57,6 +58,12 @@ BudgetOutcome ReviewStage(const Stage& stage, const ReviewOptions& options) {
       return outcome;
     }
     outcome.budget.temperature = block;
+  }
+  if (options.sensitivity) {
+    SensitivityBlock block;
+    Status s = ComputeSensitivity(outcome, options.budget, &block);
+    if (!s.ok) return fail(s);
+    outcome.budget.sensitivity = std::move(block);
   }
   if (options.chain && outcome.stage_used.chain) {
     ChainOutcome chain = ComputeChain(outcome.stage_used, options.budget);

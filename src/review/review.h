@@ -8,6 +8,8 @@
 //     tee_comparison.h);
 //   - temperature corners: with a temperature range, the budget at each end
 //     (review/temperature_corners.h);
+//   - sensitivity: on request, d ln(figure) / d ln(parameter) for every
+//     parameter (review/sensitivity.h), on the stage as computed;
 //   - the signal chain: with a chain, the stage's noise through its filter
 //     to its converter (chain/chain_budget.h), on the stage as computed.
 // Each block calls budget/compute_budget.h downward; nothing calls back up,
@@ -33,6 +35,9 @@ struct ReviewOptions {
   bool compensation = true;
   // With a chain, the chain block (default on).
   bool chain = true;
+  // The sensitivities of noise, offset and bandwidth to every parameter
+  // (review/sensitivity.h; default off: about 4 budgets a parameter).
+  bool sensitivity = false;
 
   // Empty when valid; otherwise "field: expected ..., got ...".
   std::string Validate() const { return budget.Validate(); }

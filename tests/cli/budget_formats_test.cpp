@@ -3,6 +3,7 @@
 // integrates to the budget's totals.
 #include <doctest/doctest.h>
 
+#include <algorithm>
 #include <cmath>
 #include <nlohmann/json.hpp>
 #include <optional>
@@ -246,6 +247,36 @@ TEST_CASE("a T network's budget carries its pi equivalent in JSON") {
   CHECK(fraction["dc"].get<double>() < fraction["reference"].get<double>());
   CHECK(fraction["reference"].get<double>() <
         fraction["band_high"].get<double>());
+}
+
+TEST_CASE("the JSON budget always carries the sensitivities") {
+  // Every parameter of the hydrophone example that is not zero has a row;
+  // the offset of its op-amp is Vos NG + ..., so d ln offset / d ln Vos is
+  // Vos NG over the worst case: near 1 where Vos dominates (its Ib and Ios
+  // are picoamperes into 10 M).
+  const json doc = BudgetJson(test::ExamplePath("hydrophone-preamp"));
+  REQUIRE(doc.contains("sensitivity"));
+  const json& rows = doc["sensitivity"];
+  REQUIRE(rows.is_array());
+  std::vector<std::string> names;
+  for (const json& r : rows) names.push_back(r["parameter"].get<std::string>());
+  for (const char* p : {"R_in", "R1", "R2", "R3", "e_n", "GBW", "Vos"})
+    CHECK(std::find(names.begin(), names.end(), p) != names.end());
+  for (const json& r : rows)
+    if (r["parameter"] == "Vos")
+      CHECK(std::fabs(r["offset"].get<double>() - 1) < 0.01);
+  CHECK(doc["sensitivity_method"]["largest_error_estimate"].get<double>() <
+        1e-4);
+  // Text shows it only on request.
+  const auto plain =
+      RunHushgain({"budget", test::ExamplePath("hydrophone-preamp")});
+  CHECK(plain.out.find("Which part to change") == std::string::npos);
+  const auto asked = RunHushgain(
+      {"budget", "--sensitivity", test::ExamplePath("hydrophone-preamp")});
+  REQUIRE(asked.exit_code == 0);
+  CHECK(asked.out.find("Which part to change") != std::string::npos);
+  CHECK(asked.out.find("the change that pays most: halving ") !=
+        std::string::npos);
 }
 
 TEST_CASE("--json is the same as --format json") {
