@@ -227,6 +227,19 @@ bool OutputFiles::TakesStdout() const {
 
 void OutputFiles::SetText(Id id, std::string text) {
   outputs_[id].text = std::move(text);
+  outputs_[id].producer = nullptr;
+}
+
+void OutputFiles::SetTextProducer(Id id, TextProducer producer) {
+  outputs_[id].text.clear();
+  outputs_[id].producer = std::move(producer);
+}
+
+std::string OutputFiles::WriteText(const Output& o, int fd) {
+  if (!o.producer) return WriteAll(fd, o.text.data(), o.text.size());
+  return o.producer([fd](std::string_view piece) {
+    return WriteAll(fd, piece.data(), piece.size());
+  });
 }
 
 namespace {
@@ -276,7 +289,7 @@ std::string OutputFiles::WriteTemporary(Output& o) {
   const int fd = CreateTemporary(o.final_path, o.mode, &path);
   if (fd < 0) return LowercaseReason(errno);
   o.temporary = path;
-  std::string why = WriteAll(fd, o.text.data(), o.text.size());
+  std::string why = WriteText(o, fd);
   // fsync: a full disk or an I/O error that write() did not see shows here.
   if (why.empty() && ::fsync(fd) != 0) why = LowercaseReason(errno);
   if (::close(fd) != 0 && why.empty()) why = LowercaseReason(errno);
@@ -294,7 +307,7 @@ std::string OutputFiles::WriteDirect(const Output& o) {
   }
   std::string why;
   if (!o.picture) {
-    why = WriteAll(fd, o.text.data(), o.text.size());
+    why = WriteText(o, fd);
   } else {
     const int in = ::open(o.temporary.c_str(), O_RDONLY | O_CLOEXEC);
     if (in < 0) why = LowercaseReason(errno);

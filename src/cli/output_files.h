@@ -28,8 +28,10 @@
 
 #include <atomic>
 #include <cstddef>
+#include <functional>
 #include <optional>
 #include <string>
+#include <string_view>
 #include <vector>
 
 #include "report/plot_axes.h"
@@ -73,6 +75,14 @@ class OutputFiles {
   // The text of output `id`, written by Commit().
   void SetText(Id id, std::string text);
 
+  // Text written piece by piece, never held whole: Commit() calls the
+  // producer once with a `write` that takes the next piece and returns ""
+  // or why it could not be written; the producer stops at the first
+  // failure and returns it, or returns "" when all is written.
+  using Write = std::function<std::string(std::string_view piece)>;
+  using TextProducer = std::function<std::string(const Write& write)>;
+  void SetTextProducer(Id id, TextProducer producer);
+
   // Creates the temporary that picture `id` is drawn into (beside a regular
   // target, else in the system temporary folder) and returns its path; on
   // failure prints "error: PATH: cannot write: REASON" and returns "" (the
@@ -103,8 +113,11 @@ class OutputFiles {
     std::optional<mode_t> mode;  // kRegular: the mode of the file replaced
     std::string temporary;       // created, not yet renamed or removed
     std::string text;
+    TextProducer producer;  // when set, writes the text instead
   };
 
+  // Writes the text of `o` to `fd`; "" or why not.
+  static std::string WriteText(const Output& o, int fd);
   // Writes text output `o` to its temporary; "" or why not.
   std::string WriteTemporary(Output& o);
   // Writes `o` to standard output, its FIFO or device; "" or why not.

@@ -108,8 +108,17 @@ int RunSpreadCommand(const SpreadCommandOptions& options) {
   if (run.interrupted) return interrupted();
   if (!run.status.ok)
     return ReportRefusal(options.stage_path, run.status.message);
-  const SpreadSummary summary = Summarize(run.samples, limits);
-  if (csv_file) outputs.SetText(*csv_file, SpreadToCsv(run));
+  const SpreadSummary summary = Summarize(run, limits);
+  // The samples' CSV is written as it is formatted, a few thousand rows at
+  // a time: a million samples never sit in memory as text.
+  if (csv_file)
+    outputs.SetTextProducer(*csv_file, [&run](const OutputFiles::Write& write) {
+      std::string why = write(SpreadCsvHeader(run));
+      constexpr std::size_t kRows = 4096;
+      for (std::size_t i = 0; why.empty() && i < run.size(); i += kRows)
+        why = write(SpreadCsvRows(run, i, i + kRows));
+      return why;
+    });
   if (plot_file) {
     const int drawn = DrawPicture(
         gnuplot, outputs, *plot_file,

@@ -4,6 +4,7 @@
 #include <atomic>
 #include <cmath>
 #include <functional>
+#include <limits>
 #include <memory>
 #include <optional>
 #include <string>
@@ -27,6 +28,7 @@ constexpr long kBlock = 512;
 // The worst-case bound visits 2^m tolerance corners; beyond this m it is
 // not computed.
 constexpr int kMaxCornerResistors = 16;
+constexpr double kInfinity = std::numeric_limits<double>::infinity();
 
 struct ResistorInfo {
   double ohms_25 = 0;
@@ -99,6 +101,21 @@ struct Draw {
   double ib_a = 0;
 };
 
+}  // namespace
+
+// Everything DrawSample reads: the run keeps it to replay any sample.
+struct SpreadDraws {
+  std::uint64_t seed = 1;
+  double nominal_k = 298.15;
+  std::optional<TemperatureRange> range;
+  std::vector<ResistorInfo> resistors;
+  std::vector<std::pair<double, double>> capacitors;  // farads, tolerance
+  OpAmpModel opamp;
+  Photodiode photodiode;
+};
+
+namespace {
+
 struct Workspace {
   explicit Workspace(const Model& m)
       : solver(*m.prototype),
@@ -116,11 +133,16 @@ struct Workspace {
 
 // A resistor's value at T with relative error e: tempco, and the
 // photodiode's law for R_sh.
-double OhmsAt(const Model& m, const ResistorInfo& r, double e, double t) {
+double OhmsAt(const Photodiode& photodiode, const ResistorInfo& r, double e,
+              double t) {
   double ohms =
       r.ohms_25 * (1.0 + e) * ResistorTemperatureFactor(r.tempco_per_k, t);
-  if (r.photodiode_shunt) ohms /= PhotodiodeTemperatureFactor(m.photodiode, t);
+  if (r.photodiode_shunt) ohms /= PhotodiodeTemperatureFactor(photodiode, t);
   return ohms;
+}
+
+double OhmsAt(const Model& m, const ResistorInfo& r, double e, double t) {
+  return OhmsAt(m.photodiode, r, e, t);
 }
 
 double DcOffset(const Model& m, const RestampSolver& s, const Draw& d,
@@ -234,8 +256,11 @@ Status EvaluateAt(const Model& m, const Draw& d, Workspace& w,
   return Status::Ok();
 }
 
-Draw DrawSample(const Model& m, RandomStream& rng, std::vector<double>* ohms,
-                std::vector<double>* farads) {
+// Sample `index`'s draws, its resistor values in *ohms and its capacitor
+// values in *farads (each sized to the model's).
+Draw DrawSample(const SpreadDraws& m, std::uint64_t index,
+                std::vector<double>* ohms, std::vector<double>* farads) {
+  RandomStream rng(m.seed, index);
   Draw d;
   d.temperature_k = m.nominal_k;
   if (m.range)
@@ -244,7 +269,7 @@ Draw DrawSample(const Model& m, RandomStream& rng, std::vector<double>* ohms,
   for (std::size_t k = 0; k < m.resistors.size(); ++k) {
     const ResistorInfo& r = m.resistors[k];
     const double e = rng.UniformSymmetric(r.tolerance);
-    (*ohms)[k] = OhmsAt(m, r, e, d.temperature_k);
+    (*ohms)[k] = OhmsAt(m.photodiode, r, e, d.temperature_k);
   }
   // Capacitors without a tolerance draw nothing, so a stage without
   // capacitor tolerances keeps its samples for a given seed.
@@ -461,49 +486,61 @@ SpreadRun RunSpread(const Stage& stage, const SpreadOptions& options,
     run.worst_case_offset_v = WorstCaseOffset(model, w);
   }
 
-  const long total = options.samples;
-  run.samples.resize(total);
-  run.resistor_ohms.resize(static_cast<std::size_t>(total) * m);
-  if (model.vary_capacitors) {
+  auto draws = std::make_shared<SpreadDraws>();
+  draws->seed = options.seed;
+  draws->nominal_k = model.nominal_k;
+  draws->range = model.range;
+  draws->resistors = model.resistors;
+  draws->capacitors = model.capacitors;
+  draws->opamp = model.opamp;
+  draws->photodiode = model.photodiode;
+  run.draws = draws;
+  if (model.vary_capacitors)
     for (const Capacitor& c : model.netlist.capacitors)
       run.capacitor_names.push_back(c.name);
-    run.capacitor_farads.resize(static_cast<std::size_t>(total) *
-                                model.capacitors.size());
-  }
+
+  const long total = options.samples;
+  run.figures.Resize(static_cast<std::size_t>(total));
   const int threads =
       WorkerCount(options.threads, (total + kBlock - 1) / kBlock);
   std::atomic<long> next{0}, done{0};
   std::atomic<bool> failed{false};
   std::vector<Status> failures(threads);
+  // The lowest and highest temperature each worker drew.
+  std::vector<std::pair<double, double>> temperatures(
+      threads, {model.nominal_k, model.nominal_k});
   auto stopped = [&] {
     return control.stop && control.stop->load(std::memory_order_relaxed);
   };
   auto worker = [&](int id) {
     Workspace w(model);
+    SpreadFigures& f = run.figures;
+    double t_lo = kInfinity, t_hi = -kInfinity;
     while (!failed.load(std::memory_order_relaxed) && !stopped()) {
       const long begin = next.fetch_add(kBlock);
       if (begin >= total) break;
       const long end = std::min(total, begin + kBlock);
       for (long i = begin; i < end; ++i) {
-        RandomStream rng(options.seed, static_cast<std::uint64_t>(i));
-        const Draw d = DrawSample(model, rng, &w.ohms, &w.farads);
-        std::copy(w.ohms.begin(), w.ohms.end(),
-                  run.resistor_ohms.begin() + i * static_cast<long>(m));
-        if (model.vary_capacitors)
-          std::copy(w.farads.begin(), w.farads.end(),
-                    run.capacitor_farads.begin() +
-                        i * static_cast<long>(model.capacitors.size()));
-        SpreadSample& out = run.samples[i];
+        const Draw d = DrawSample(*draws, static_cast<std::uint64_t>(i),
+                                  &w.ohms, &w.farads);
+        t_lo = std::min(t_lo, d.temperature_k);
+        t_hi = std::max(t_hi, d.temperature_k);
+        SpreadSample out;
         Status s = EvaluateAt(model, d, w, &out);
         if (!s.ok) {
           failures[id] = s;
           failed = true;
           break;
         }
-        out.gain_error = out.gain / run.nominal_gain - 1.0;
+        f.gain[i] = out.gain;
+        f.offset_v[i] = out.offset_v;
+        f.noise_rms_v[i] = out.noise_rms_v;
+        static_assert(kStageProblemCount <= 8, "problems are held in 8 bits");
+        f.problems[i] = static_cast<std::uint8_t>(out.problems);
       }
       done.fetch_add(end - begin);
     }
+    if (t_lo <= t_hi) temperatures[id] = {t_lo, t_hi};
   };
   std::function<void()> tick;
   if (control.progress) tick = [&] { control.progress(done.load(), total); };
@@ -515,11 +552,47 @@ SpreadRun RunSpread(const Stage& stage, const SpreadOptions& options,
     }
   if (stopped() && done.load() < total) {
     run.interrupted = true;
-    run.samples.clear();
-    run.resistor_ohms.clear();
-    run.capacitor_farads.clear();
+    run.figures = SpreadFigures();
+    return run;
+  }
+  // Min and max do not depend on which worker drew what.
+  run.temperature_low_k = kInfinity;
+  run.temperature_high_k = -kInfinity;
+  for (const auto& [lo, hi] : temperatures) {
+    run.temperature_low_k = std::min(run.temperature_low_k, lo);
+    run.temperature_high_k = std::max(run.temperature_high_k, hi);
   }
   return run;
+}
+
+void SpreadFigures::Resize(std::size_t n) {
+  gain.resize(n);
+  offset_v.resize(n);
+  noise_rms_v.resize(n);
+  problems.resize(n);
+}
+
+SpreadSample SpreadRun::Sample(std::size_t i, std::vector<double>* ohms,
+                               std::vector<double>* farads) const {
+  std::vector<double> own_ohms, own_farads;
+  if (ohms == nullptr) ohms = &own_ohms;
+  if (farads == nullptr) farads = &own_farads;
+  ohms->resize(draws->resistors.size());
+  farads->resize(draws->capacitors.size());
+  const Draw d =
+      DrawSample(*draws, static_cast<std::uint64_t>(i), ohms, farads);
+  // Only the varied capacitors' values are the run's (capacitor_names).
+  if (capacitor_names.empty()) farads->clear();
+  SpreadSample s;
+  s.temperature_k = d.temperature_k;
+  s.vos_v = d.vos_v;
+  s.ios_a = d.ios_a;
+  s.gain = figures.gain[i];
+  s.gain_error = GainError(i);
+  s.offset_v = figures.offset_v[i];
+  s.noise_rms_v = figures.noise_rms_v[i];
+  s.problems = figures.problems[i];
+  return s;
 }
 
 }  // namespace hushgain

@@ -33,6 +33,7 @@
 #include <atomic>
 #include <cstdint>
 #include <functional>
+#include <memory>
 #include <string>
 #include <vector>
 
@@ -44,9 +45,12 @@
 
 namespace hushgain {
 
-// The documented range of --samples: 1 to a hundred million (the samples
-// are held in memory, about 117 bytes each beside the per-resistor values).
+// The documented range of --samples: 1 to a hundred million. A run holds
+// kSpreadBytesPerSample a sample (SpreadFigures) and, while the statistics
+// are found, one more double a sample (spread_statistics.h): 33 bytes, so
+// 3.3 GB at the most; what a sample drew is replayed, not held.
 inline constexpr long kMaxSpreadSamples = 100'000'000;
+inline constexpr long kSpreadBytesPerSample = 25;
 
 struct SpreadOptions {
   long samples = 10000;    // at least 1
@@ -58,6 +62,7 @@ struct SpreadOptions {
   std::string Validate() const;
 };
 
+// One sample whole: what it drew and what the engine made of it.
 struct SpreadSample {
   double temperature_k = 0;
   double vos_v = 0;  // at the sample's temperature, signed
@@ -71,25 +76,54 @@ struct SpreadSample {
   std::uint32_t problems = 0;
 };
 
+// What the engine computed for every sample, index order, one array a
+// figure (kSpreadBytesPerSample a sample).
+struct SpreadFigures {
+  std::vector<double> gain;  // V/V or V/A, at SpreadRun::gain_hz
+  std::vector<double> offset_v;
+  std::vector<double> noise_rms_v;
+  std::vector<std::uint8_t> problems;  // StageProblemBit()s (8 of them)
+
+  std::size_t size() const { return gain.size(); }
+  void Resize(std::size_t n);
+};
+
+// What a run needs to replay the draws of any sample (spread.cpp).
+struct SpreadDraws;
+
 struct SpreadRun {
   Status status;
   bool interrupted = false;
-  Budget nominal;                     // the budget at the nominal temperature
-  double nominal_gain = 0;            // the gain the errors are relative to
-  double gain_hz = 0;                 // where the gains are read: 0 = DC
-  bool gaussian_offsets = false;      // the op-amp's offset_distribution
-  std::vector<SpreadSample> samples;  // index order
+  Budget nominal;                 // the budget at the nominal temperature
+  double nominal_gain = 0;        // the gain the errors are relative to
+  double gain_hz = 0;             // where the gains are read: 0 = DC
+  bool gaussian_offsets = false;  // the op-amp's offset_distribution
+  SpreadFigures figures;          // index order
+  // The lowest and highest temperature drawn.
+  double temperature_low_k = 0;
+  double temperature_high_k = 0;
   std::vector<std::string> resistor_names;  // netlist order
-  std::vector<double> resistor_ohms;        // samples x names, row-major
-  // With a capacitor tolerance: every capacitor (netlist order) and its
-  // drawn value per sample; empty otherwise.
+  // With a capacitor tolerance: every capacitor (netlist order); empty
+  // otherwise (Sample() then draws no capacitor).
   std::vector<std::string> capacitor_names;
-  std::vector<double> capacitor_farads;  // samples x names, row-major
   // Max over the range ends (and 25 °C) of the sum of each offset term's
   // largest magnitude over the corners of the tolerance box, with |Vos| +
   // |drift| |T - 25 °C| and |Ios| k(T): a bound on every sample when the
   // offsets are uniform; 0 when the box has more than 16 varied resistors.
   double worst_case_offset_v = 0;
+  std::shared_ptr<const SpreadDraws> draws;
+
+  std::size_t size() const { return figures.size(); }
+  // gain / nominal_gain - 1 of sample i.
+  double GainError(std::size_t i) const {
+    return figures.gain[i] / nominal_gain - 1.0;
+  }
+  // Sample i (< size()) whole: its draws replayed from the seed (the same
+  // arithmetic as the run's, so the same bits), with the resistor values
+  // (resistor_names order) in *ohms and the capacitor values
+  // (capacitor_names order) in *farads when given.
+  SpreadSample Sample(std::size_t i, std::vector<double>* ohms = nullptr,
+                      std::vector<double>* farads = nullptr) const;
 };
 
 struct SpreadControl {

@@ -5,14 +5,36 @@
 #include <cmath>
 
 namespace hushgain {
+namespace {
+
+// x[(n - 1) p] interpolated, given the order statistics lo and lo + 1.
+double Interpolate(std::size_t n, double p, double at_lo, double at_next) {
+  const double h = (static_cast<double>(n) - 1.0) * p;
+  const std::size_t lo = static_cast<std::size_t>(std::floor(h));
+  return at_lo + (h - static_cast<double>(lo)) * (at_next - at_lo);
+}
+
+}  // namespace
 
 double Percentile(const std::vector<double>& sorted, double p) {
   assert(!sorted.empty());
   const double h = (static_cast<double>(sorted.size()) - 1.0) * p;
   const std::size_t lo = static_cast<std::size_t>(std::floor(h));
   if (lo + 1 >= sorted.size()) return sorted.back();
-  return sorted[lo] +
-         (h - static_cast<double>(lo)) * (sorted[lo + 1] - sorted[lo]);
+  return Interpolate(sorted.size(), p, sorted[lo], sorted[lo + 1]);
+}
+
+double SelectPercentile(std::vector<double>& values, double p) {
+  assert(!values.empty());
+  const std::size_t n = values.size();
+  const double h = (static_cast<double>(n) - 1.0) * p;
+  const std::size_t lo = static_cast<std::size_t>(std::floor(h));
+  if (lo + 1 >= n) return *std::max_element(values.begin(), values.end());
+  std::nth_element(values.begin(), values.begin() + lo, values.end());
+  // Everything after position lo is at least values[lo]: the next order
+  // statistic is their smallest.
+  const double next = *std::min_element(values.begin() + lo + 1, values.end());
+  return Interpolate(n, p, values[lo], next);
 }
 
 Distribution Describe(std::vector<double> values) {
@@ -25,31 +47,32 @@ Distribution Describe(std::vector<double> values) {
   double squares = 0;  // two passes: no cancellation
   for (double v : values) squares += (v - d.mean) * (v - d.mean);
   d.sigma = values.size() > 1 ? std::sqrt(squares / (n - 1.0)) : 0.0;
-  std::sort(values.begin(), values.end());
-  d.p_low = Percentile(values, kLowPercentile);
-  d.p_high = Percentile(values, kHighPercentile);
-  d.min = values.front();
-  d.max = values.back();
+  const auto [lo, hi] = std::minmax_element(values.begin(), values.end());
+  d.min = *lo;
+  d.max = *hi;
+  d.p_low = SelectPercentile(values, kLowPercentile);
+  d.p_high = SelectPercentile(values, kHighPercentile);
   return d;
 }
 
-SpreadYield Yield(const std::vector<SpreadSample>& samples,
-                  const SpreadLimits& limits) {
+SpreadYield Yield(const SpreadRun& run, const SpreadLimits& limits) {
   SpreadYield y;
-  if (samples.empty()) return y;
+  const std::size_t size = run.size();
+  if (size == 0) return y;
+  const SpreadFigures& f = run.figures;
   long gain = 0, offset = 0, noise = 0, all = 0;
-  for (const SpreadSample& s : samples) {
+  for (std::size_t i = 0; i < size; ++i) {
     const bool g =
-        !limits.gain_error || std::fabs(s.gain_error) <= *limits.gain_error;
+        !limits.gain_error || std::fabs(run.GainError(i)) <= *limits.gain_error;
     const bool o =
-        !limits.offset_v || std::fabs(s.offset_v) <= *limits.offset_v;
-    const bool n = !limits.noise_v || s.noise_rms_v <= *limits.noise_v;
+        !limits.offset_v || std::fabs(f.offset_v[i]) <= *limits.offset_v;
+    const bool n = !limits.noise_v || f.noise_rms_v[i] <= *limits.noise_v;
     gain += g;
     offset += o;
     noise += n;
     all += g && o && n;
   }
-  const double count = static_cast<double>(samples.size());
+  const double count = static_cast<double>(size);
   if (limits.gain_error) y.gain_error = gain / count;
   if (limits.offset_v) y.offset = offset / count;
   if (limits.noise_v) y.noise = noise / count;
@@ -58,22 +81,14 @@ SpreadYield Yield(const std::vector<SpreadSample>& samples,
   return y;
 }
 
-SpreadSummary Summarize(const std::vector<SpreadSample>& samples,
-                        const SpreadLimits& limits) {
+SpreadSummary Summarize(const SpreadRun& run, const SpreadLimits& limits) {
   SpreadSummary out;
-  std::vector<double> g, o, n;
-  g.reserve(samples.size());
-  o.reserve(samples.size());
-  n.reserve(samples.size());
-  for (const SpreadSample& s : samples) {
-    g.push_back(s.gain_error);
-    o.push_back(s.offset_v);
-    n.push_back(s.noise_rms_v);
-  }
+  std::vector<double> g(run.size());
+  for (std::size_t i = 0; i < g.size(); ++i) g[i] = run.GainError(i);
   out.gain_error = Describe(std::move(g));
-  out.offset = Describe(std::move(o));
-  out.noise = Describe(std::move(n));
-  out.yield = Yield(samples, limits);
+  out.offset = Describe(run.figures.offset_v);
+  out.noise = Describe(run.figures.noise_rms_v);
+  out.yield = Yield(run, limits);
   return out;
 }
 

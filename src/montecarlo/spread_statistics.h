@@ -29,11 +29,16 @@ struct Distribution {
   double max = 0;
 };
 
-// Requires at least one value.
+// Requires at least one value; reorders `values` (the percentiles are
+// found by selection, in linear time, not by sorting: the same values).
 Distribution Describe(std::vector<double> values);
 
 // `sorted` ascending, non-empty; p in [0, 1].
 double Percentile(const std::vector<double>& sorted, double p);
+
+// The same for `values` in any order, non-empty (reordered): selects the
+// two order statistics the interpolation needs.
+double SelectPercentile(std::vector<double>& values, double p);
 
 struct SpreadLimits {
   std::optional<double> gain_error;  // relative, on |gain error|
@@ -48,8 +53,7 @@ struct SpreadYield {
   std::optional<double> all;  // inside every given limit; none without limits
 };
 
-SpreadYield Yield(const std::vector<SpreadSample>& samples,
-                  const SpreadLimits& limits);
+SpreadYield Yield(const SpreadRun& run, const SpreadLimits& limits);
 
 struct SpreadSummary {
   Distribution gain_error;
@@ -58,8 +62,9 @@ struct SpreadSummary {
   SpreadYield yield;
 };
 
-SpreadSummary Summarize(const std::vector<SpreadSample>& samples,
-                        const SpreadLimits& limits);
+// The statistics of run.figures, in index order (so the same for any
+// thread count); at most one figure's values are copied at a time.
+SpreadSummary Summarize(const SpreadRun& run, const SpreadLimits& limits);
 
 }  // namespace hushgain
 

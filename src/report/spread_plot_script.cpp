@@ -44,9 +44,9 @@ std::string Percent(double fraction) {
 // print a value given in SI units.
 struct Figure {
   std::string title;
-  std::string axis_label;  // with the display unit
-  double factor = 1;       // SI value * factor = display value
-  std::vector<double> si_values;
+  std::string axis_label;                   // with the display unit
+  double factor = 1;                        // SI value * factor = display value
+  std::vector<double> values;               // display units
   Distribution dist;                        // SI units
   std::function<std::string(double)> text;  // an SI value for the legend
   std::optional<double> limit;              // SI units
@@ -58,9 +58,7 @@ struct Figure {
 void Panel(std::string& out, int index, int height_px, const Figure& f) {
   out += PanelFrame(kLayout, index, height_px, f.title, 3);
 
-  std::vector<double> values;
-  values.reserve(f.si_values.size());
-  for (double v : f.si_values) values.push_back(v * f.factor);
+  const std::vector<double>& values = f.values;
   // No spread (every sample equal to 1e-9 relative, e.g. zero tolerances):
   // one narrow bar at the value on an axis of +-1 % of it (+-1 at zero),
   // instead of bins a rounding error wide.
@@ -164,23 +162,18 @@ std::string BuildSpreadPlotScript(const SpreadRun& run,
                                   const SpreadSummary& summary,
                                   const SpreadLimits& limits,
                                   const SpreadPlotOptions& o) {
-  assert(!run.samples.empty());
+  assert(run.size() > 0);
   const int height_px = kLayout.HeightPx(kPanels);
   std::string out =
       TerminalCommands(o.format, kWidthPx, height_px, o.output_path);
   out += "set style fill solid 0.45 border\n";
 
   const Budget& nominal = run.nominal;
-  std::string summary_line =
-      "Monte Carlo: " + std::to_string(run.samples.size()) + " samples, seed " +
-      std::to_string(o.seed) + ";  band " +
-      FormatEng(nominal.band_low_hz, "Hz") + " to " +
-      FormatEng(nominal.band_high_hz, "Hz");
-  double t_lo = run.samples.front().temperature_k, t_hi = t_lo;
-  for (const SpreadSample& s : run.samples) {
-    t_lo = std::min(t_lo, s.temperature_k);
-    t_hi = std::max(t_hi, s.temperature_k);
-  }
+  std::string summary_line = "Monte Carlo: " + std::to_string(run.size()) +
+                             " samples, seed " + std::to_string(o.seed) +
+                             ";  band " + FormatEng(nominal.band_low_hz, "Hz") +
+                             " to " + FormatEng(nominal.band_high_hz, "Hz");
+  const double t_lo = run.temperature_low_k, t_hi = run.temperature_high_k;
   summary_line += ";  temperature " + Printf("%.1f", t_lo - kZeroCelsiusK) +
                   (t_hi > t_lo ? " to " + Printf("%.1f", t_hi - kZeroCelsiusK)
                                : std::string()) +
@@ -196,18 +189,20 @@ std::string BuildSpreadPlotScript(const SpreadRun& run,
   out += "set label 2 " + GnuplotString(summary_line) +
          " at screen 0.5, screen " + Num(1.0 - 64.0 / height_px) + " center\n";
 
-  std::vector<double> gain, offset, noise;
-  for (const SpreadSample& s : run.samples) {
-    gain.push_back(s.gain_error);
-    offset.push_back(s.offset_v);
-    noise.push_back(s.noise_rms_v);
-  }
+  // One panel's values at a time, in display units.
+  const auto scaled = [](const std::vector<double>& si, double factor) {
+    std::vector<double> display(si.size());
+    for (std::size_t i = 0; i < si.size(); ++i) display[i] = si[i] * factor;
+    return display;
+  };
 
   Figure g;
   g.title = "Closed-loop gain error";
   g.axis_label = "gain error (%)";
   g.factor = 100;
-  g.si_values = std::move(gain);
+  g.values.resize(run.size());
+  for (std::size_t i = 0; i < run.size(); ++i)
+    g.values[i] = run.GainError(i) * g.factor;
   g.dist = summary.gain_error;
   // Gain errors in % with the decimals that show sigma to three digits, so
   // the mean near zero reads "0.000 %" beside a sigma of "0.581 %".
@@ -230,6 +225,7 @@ std::string BuildSpreadPlotScript(const SpreadRun& run,
   g.yield = summary.yield.gain_error;
   g.colour = kBarColours[0];
   Panel(out, 0, height_px, g);
+  g.values = {};
 
   const auto [offset_scale, offset_unit] = UnitScale(
       std::max(std::fabs(summary.offset.min), std::fabs(summary.offset.max)),
@@ -238,20 +234,21 @@ std::string BuildSpreadPlotScript(const SpreadRun& run,
   v.title = "Output offset at DC";
   v.axis_label = "output offset (" + offset_unit + ")";
   v.factor = 1 / offset_scale;
-  v.si_values = std::move(offset);
+  v.values = scaled(run.figures.offset_v, v.factor);
   v.dist = summary.offset;
   v.text = [](double x) { return FormatEng(x, "V"); };
   v.limit = limits.offset_v;
   v.yield = summary.yield.offset;
   v.colour = kBarColours[1];
   Panel(out, 1, height_px, v);
+  v.values = {};
 
   const auto [noise_scale, noise_unit] = UnitScale(summary.noise.max, "V");
   Figure n;
   n.title = "Total output noise rms over the band";
   n.axis_label = "output noise rms (" + noise_unit + ")";
   n.factor = 1 / noise_scale;
-  n.si_values = std::move(noise);
+  n.values = scaled(run.figures.noise_rms_v, n.factor);
   n.dist = summary.noise;
   n.text = [](double x) { return FormatEng(x, "V"); };
   n.limit = limits.noise_v;

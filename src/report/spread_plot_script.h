@@ -37,7 +37,7 @@ struct SpreadPlotOptions {
   std::uint64_t seed = 1;   // named in the heading
 };
 
-// `summary` from Summarize(run.samples, limits); requires at least one
+// `summary` from Summarize(run, limits); requires at least one
 // sample (asserted).
 std::string BuildSpreadPlotScript(const SpreadRun& run,
                                   const SpreadSummary& summary,

@@ -32,7 +32,7 @@ std::vector<std::string> HeaderLines(const SpreadRun& run, std::uint64_t seed) {
   const Budget& b = run.nominal;
   const std::string gain_unit = b.input_unit == "A" ? "V/A" : "V/V";
   return {
-      "Monte Carlo: " + std::to_string(run.samples.size()) + " samples, seed " +
+      "Monte Carlo: " + std::to_string(run.size()) + " samples, seed " +
           std::to_string(seed),
       "nominal: " +
           (run.gain_hz > 0 ? "|gain| at " + FormatEng(run.gain_hz, "Hz") + " "
@@ -81,10 +81,10 @@ const char* kPercentileNote =
 std::string FlaggedLine(const SpreadRun& run) {
   long flagged = 0;
   long by_kind[kStageProblemCount] = {};
-  for (const SpreadSample& s : run.samples) {
-    if (s.problems != 0) ++flagged;
+  for (const std::uint8_t problems : run.figures.problems) {
+    if (problems != 0) ++flagged;
     for (int i = 0; i < kStageProblemCount; ++i)
-      if (s.problems & StageProblemBit(static_cast<StageProblem>(i)))
+      if (problems & StageProblemBit(static_cast<StageProblem>(i)))
         ++by_kind[i];
   }
   if (flagged == 0) return "";
@@ -95,9 +95,8 @@ std::string FlaggedLine(const SpreadRun& run) {
                std::string(StageProblemWord(static_cast<StageProblem>(i))) +
                " " + std::to_string(by_kind[i]);
   return "flagged: " + std::to_string(flagged) + " of " +
-         std::to_string(run.samples.size()) +
-         " samples cannot work as asked (" + kinds +
-         "; the flags column of --csv names each)";
+         std::to_string(run.size()) + " samples cannot work as asked (" +
+         kinds + "; the flags column of --csv names each)";
 }
 
 std::string WorstCaseLine(const SpreadRun& run) {
@@ -194,7 +193,7 @@ std::string Json(const SpreadRun& run, const SpreadSummary& s,
   };
   nlohmann::json out = {
       {"stage", run.nominal.stage_name},
-      {"samples", run.samples.size()},
+      {"samples", run.size()},
       {"seed", seed},
       {"gaussian_offsets", run.gaussian_offsets},
       {"percentiles", {kLowPercentile, kHighPercentile}},
@@ -219,12 +218,11 @@ std::string Json(const SpreadRun& run, const SpreadSummary& s,
   // How many samples each flag of the headroom check marks.
   nlohmann::json flagged = nlohmann::json::object();
   long any = 0;
-  for (const SpreadSample& sample : run.samples) any += sample.problems != 0;
+  for (const std::uint8_t problems : run.figures.problems) any += problems != 0;
   for (int i = 0; i < kStageProblemCount; ++i) {
     long n = 0;
-    for (const SpreadSample& sample : run.samples)
-      n += (sample.problems & StageProblemBit(static_cast<StageProblem>(i))) !=
-           0;
+    for (const std::uint8_t problems : run.figures.problems)
+      n += (problems & StageProblemBit(static_cast<StageProblem>(i))) != 0;
     if (n > 0) flagged[StageProblemWord(static_cast<StageProblem>(i))] = n;
   }
   out["flagged_samples"] = any;
@@ -243,18 +241,22 @@ std::string SpreadReport(const std::string& format, const SpreadRun& run,
   return Text(run, summary, limits, seed);
 }
 
-std::string SpreadToCsv(const SpreadRun& run) {
+std::string SpreadCsvHeader(const SpreadRun& run) {
   std::string out =
       "index,temperature_C,vos_V,ios_A,gain,gain_error,offset_V,noise_rms_V,"
       "flags";
   for (const std::string& name : run.resistor_names) out += "," + name + "_ohm";
   for (const std::string& name : run.capacitor_names) out += "," + name + "_F";
-  out += "\n";
-  const std::size_t m = run.resistor_names.size();
-  const std::size_t mc = run.capacitor_names.size();
+  return out + "\n";
+}
+
+std::string SpreadCsvRows(const SpreadRun& run, std::size_t begin,
+                          std::size_t end) {
+  std::string out;
+  std::vector<double> ohms, farads;
   char buf[64];
-  for (std::size_t i = 0; i < run.samples.size(); ++i) {
-    const SpreadSample& s = run.samples[i];
+  for (std::size_t i = begin; i < end && i < run.size(); ++i) {
+    const SpreadSample s = run.Sample(i, &ohms, &farads);
     out += std::to_string(i);
     for (double v : {s.temperature_k - kZeroCelsiusK, s.vos_v, s.ios_a, s.gain,
                      s.gain_error, s.offset_v, s.noise_rms_v}) {
@@ -262,18 +264,21 @@ std::string SpreadToCsv(const SpreadRun& run) {
       out += buf;
     }
     out += "," + StageProblemFlags(s.problems);
-    for (std::size_t k = 0; k < m; ++k) {
-      std::snprintf(buf, sizeof buf, ",%.17g", run.resistor_ohms[i * m + k]);
+    for (double v : ohms) {
+      std::snprintf(buf, sizeof buf, ",%.17g", v);
       out += buf;
     }
-    for (std::size_t k = 0; k < mc; ++k) {
-      std::snprintf(buf, sizeof buf, ",%.17g",
-                    run.capacitor_farads[i * mc + k]);
+    for (double v : farads) {
+      std::snprintf(buf, sizeof buf, ",%.17g", v);
       out += buf;
     }
     out += "\n";
   }
   return out;
+}
+
+std::string SpreadToCsv(const SpreadRun& run) {
+  return SpreadCsvHeader(run) + SpreadCsvRows(run, 0, run.size());
 }
 
 }  // namespace hushgain

@@ -4,6 +4,7 @@
 #ifndef HUSHGAIN_REPORT_SPREAD_REPORT_H_
 #define HUSHGAIN_REPORT_SPREAD_REPORT_H_
 
+#include <cstddef>
 #include <cstdint>
 #include <string>
 
@@ -22,7 +23,14 @@ std::string SpreadReport(const std::string& format, const SpreadRun& run,
                          const SpreadLimits& limits, std::uint64_t seed);
 
 // Columns: index, temperature_C, vos_V, ios_A, gain, gain_error, offset_V,
-// noise_rms_V, then one <resistor>_ohm column per resistor.
+// noise_rms_V, flags, then one <resistor>_ohm column per resistor and one
+// <capacitor>_F column per capacitor when capacitors are drawn. The header
+// line, the rows of samples [begin, end) (the draws replayed by
+// SpreadRun::Sample, so a long run is written piece by piece), and all of
+// it in one string.
+std::string SpreadCsvHeader(const SpreadRun& run);
+std::string SpreadCsvRows(const SpreadRun& run, std::size_t begin,
+                          std::size_t end);
 std::string SpreadToCsv(const SpreadRun& run);
 
 }  // namespace hushgain

@@ -169,8 +169,9 @@ TEST_CASE(
   options.threads = 1;
   const SpreadRun run = RunSpread(stage, options);
   REQUIRE_MESSAGE(run.status.ok, run.status.message);
-  for (const SpreadSample& s : run.samples)
-    CHECK(RelErr(s.noise_rms_v, run.nominal.output_rms_v) < 1e-11);
+  REQUIRE(run.size() == 50);
+  for (const double noise_rms_v : run.figures.noise_rms_v)
+    CHECK(RelErr(noise_rms_v, run.nominal.output_rms_v) < 1e-11);
   // And the nominal holds the scaled i_n: not the budget at 25 °C values.
   Stage cold = stage;
   cold.opamp.current_noise_temperature = CurrentNoiseTemperature::kConstant;

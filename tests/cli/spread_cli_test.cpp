@@ -92,23 +92,30 @@ TEST_CASE("spread refuses a CSV in a missing folder before running") {
 }
 
 TEST_CASE(
-    "spread writes every sample to the CSV, the same for any thread count") {
+    "spread writes every sample to the CSV, the same for any thread count "
+    "and on stdout") {
   test::TempFolder s("spread-cli");
   const fs::path stage =
       s.Write("stage.json", StageText(R"({"min": -20, "max": 70})", "1%"));
   const fs::path one = s.path() / "one.csv", two = s.path() / "two.csv";
   const RunResult a =
-      Run({"spread", stage.string(), "--samples", "2000", "--seed", "3",
+      Run({"spread", stage.string(), "--samples", "5000", "--seed", "3",
            "--threads", "1", "--csv", one.string(), "--offset-limit", "5m",
            "--gain-error-limit", "1%"});
   const RunResult b =
-      Run({"spread", stage.string(), "--samples", "2000", "--seed", "3",
+      Run({"spread", stage.string(), "--samples", "5000", "--seed", "3",
            "--threads", "2", "--csv", two.string(), "--offset-limit", "5m",
            "--gain-error-limit", "1%"});
+  // More samples than one piece of the CSV (4096 rows), written as they
+  // are formatted; on stdout ("-") the same bytes.
+  const RunResult piped = Run({"spread", stage.string(), "--samples", "5000",
+                               "--seed", "3", "--csv", "-"});
   REQUIRE(a.exit_code == 0);
   REQUIRE(b.exit_code == 0);
+  REQUIRE(piped.exit_code == 0);
   const std::string csv = test::ReadAll(one);
   CHECK(csv == test::ReadAll(two));
+  CHECK(csv == piped.out);
   CHECK(a.out == b.out);
   CHECK(csv.rfind("index,temperature_C,vos_V,ios_A,gain,gain_error,offset_V,"
                   "noise_rms_V,flags,R_source_ohm,"
@@ -116,8 +123,8 @@ TEST_CASE(
                   0) == 0);
   long lines = 0;
   for (char c : csv) lines += c == '\n';
-  CHECK(lines == 2001);
-  CHECK(a.out.find("2000 samples, seed 3") != std::string::npos);
+  CHECK(lines == 5001);
+  CHECK(a.out.find("5000 samples, seed 3") != std::string::npos);
   CHECK(a.out.find("all limits") != std::string::npos);
   // No temporary file is left beside the CSV.
   int files = 0;

@@ -6,6 +6,7 @@
 
 #include <doctest/doctest.h>
 
+#include <algorithm>
 #include <cmath>
 
 #include "circuit/stage_at_temperature.h"
@@ -45,8 +46,15 @@ SpreadRun Run(const Stage& stage, long samples, int threads = 2,
   options.threads = threads;
   SpreadRun run = RunSpread(stage, options);
   REQUIRE_MESSAGE(run.status.ok, run.status.message);
-  REQUIRE(static_cast<long>(run.samples.size()) == samples);
+  REQUIRE(static_cast<long>(run.size()) == samples);
   return run;
+}
+
+// Every sample of a run whole (its draws replayed).
+std::vector<SpreadSample> Samples(const SpreadRun& run) {
+  std::vector<SpreadSample> out;
+  for (std::size_t i = 0; i < run.size(); ++i) out.push_back(run.Sample(i));
+  return out;
 }
 
 TEST_CASE("with every tolerance zero each sample equals the nominal budget") {
@@ -56,7 +64,7 @@ TEST_CASE("with every tolerance zero each sample equals the nominal budget") {
   const SpreadRun run = Run(stage, 300);
   const Budget& b = run.nominal;
   CHECK(RelErr(run.nominal_gain, b.signal_gain_dc) < kRelRounding);
-  for (const SpreadSample& s : run.samples) {
+  for (const SpreadSample& s : Samples(run)) {
     CHECK(s.gain_error == 0.0);
     CHECK(RelErr(s.noise_rms_v, b.output_rms_v) < kRelRounding);
     CHECK(RelErr(s.offset_v, b.offset.ib_v) < kRelRounding);
@@ -86,7 +94,7 @@ TEST_CASE(
   const SpreadRun run = Run(s, 50);
   const Budget& b = run.nominal;
   REQUIRE(b.offset.dark_v != 0);
-  for (const SpreadSample& x : run.samples) {
+  for (const SpreadSample& x : Samples(run)) {
     CHECK(RelErr(x.noise_rms_v, b.output_rms_v) < kRelRounding);
     CHECK(RelErr(x.offset_v, b.offset.ib_v + b.offset.dark_v) < kRelRounding);
   }
@@ -106,7 +114,7 @@ TEST_CASE(
   const SpreadRun run = Run(stage, 200);
   CHECK(run.gain_hz == 1e3);
   CHECK(RelErr(run.nominal_gain, run.nominal.signal_gain_ref) < kRelRounding);
-  for (const SpreadSample& x : run.samples) {
+  for (const SpreadSample& x : Samples(run)) {
     CHECK(x.gain_error == 0.0);
     CHECK(RelErr(x.gain, run.nominal.signal_gain_ref) < kRelRounding);
     CHECK(RelErr(x.noise_rms_v, run.nominal.output_rms_v) < kRelRounding);
@@ -134,11 +142,32 @@ TEST_CASE(
       test::InvertingStage(10e3, 100e3, test::IdealOpAmp(1e-9, 0), 300.0);
   stage.resistors = ResistorSpec{"x", {"test film", -40, 0, t}, t};
   const SpreadRun run = Run(stage, 100000);
-  const SpreadSummary summary = Summarize(run.samples, {});
+  const SpreadSummary summary = Summarize(run, {});
   CHECK(RelErr(summary.gain_error.sigma, exact_sigma) < 0.02);
   // The ratio's support: |error| <= (1 + t)/(1 - t) - 1.
   CHECK(summary.gain_error.max <= (1 + t) / (1 - t) - 1);
   CHECK(summary.gain_error.min >= (1 - t) / (1 + t) - 1);
+  // The run keeps only the figures; a sample's resistors are replayed from
+  // its seed and index. They are the ones its gain was computed with: the
+  // inverting gain -R_f / (R_source + R_in) (REFERENCES.md section 4; A0
+  // 1e12 leaves 1e-11 of loop error).
+  const auto index_of = [&run](const std::string& name) {
+    const auto at =
+        std::find(run.resistor_names.begin(), run.resistor_names.end(), name);
+    REQUIRE(at != run.resistor_names.end());
+    return static_cast<std::size_t>(at - run.resistor_names.begin());
+  };
+  const std::size_t r_in = index_of("R_in"), r_f = index_of("R_f");
+  std::vector<double> ohms;
+  for (std::size_t i : {0ul, 1ul, 4095ul, 99999ul}) {
+    CAPTURE(i);
+    const SpreadSample sample = run.Sample(i, &ohms);
+    REQUIRE(ohms.size() == run.resistor_names.size());
+    CHECK(ohms[r_in] != 10e3);  // drawn
+    const double source = stage.source.resistance_ohm;
+    CHECK(RelErr(sample.gain, -ohms[r_f] / (source + ohms[r_in])) < 1e-9);
+    CHECK(sample.gain_error == run.GainError(i));
+  }
 }
 
 TEST_CASE(
@@ -151,14 +180,14 @@ TEST_CASE(
   stage.opamp.vos_v = 300e-6;
   const SpreadRun with_vos = Run(stage, 500);
   const OffsetBlock& o = with_vos.nominal.offset;
-  for (const SpreadSample& s : with_vos.samples)
+  for (const SpreadSample& s : Samples(with_vos))
     CHECK(std::fabs(s.offset_v - (s.vos_v * o.noise_gain_dc + o.ib_v)) <=
           kRelRounding * o.worst_case_v);
   stage.opamp.vos_v = 0;
   stage.opamp.ios_a = 2e-12;
   const SpreadRun with_ios = Run(stage, 500);
   const OffsetBlock& p = with_ios.nominal.offset;
-  for (const SpreadSample& s : with_ios.samples)
+  for (const SpreadSample& s : Samples(with_ios))
     CHECK(RelErr(std::fabs(s.offset_v - p.ib_v),
                  std::fabs(s.ios_a) / 2e-12 * p.ios_v) < 1e-9);
 }
@@ -180,7 +209,7 @@ TEST_CASE("the worst-case offset bounds every sample with the same limits") {
   const SpreadRun run = Run(stage, 20000);
   REQUIRE(run.worst_case_offset_v > 0);
   double largest = 0;
-  for (const SpreadSample& s : run.samples)
+  for (const SpreadSample& s : Samples(run))
     largest = std::max(largest, std::fabs(s.offset_v));
   CHECK(largest <= run.worst_case_offset_v);
   // Not vacuous: the samples reach well into the bound (Vos dominates; a
@@ -197,17 +226,21 @@ TEST_CASE(
   const SpreadRun one = Run(stage, 3000, 1);
   const SpreadRun two = Run(stage, 3000, 2);
   const SpreadRun other_seed = Run(stage, 3000, 2, 8);
-  bool same = true, differs = false;
-  for (std::size_t i = 0; i < one.samples.size(); ++i) {
-    same = same && one.samples[i].offset_v == two.samples[i].offset_v &&
-           one.samples[i].noise_rms_v == two.samples[i].noise_rms_v &&
-           one.samples[i].gain == two.samples[i].gain;
-    differs =
-        differs || one.samples[i].offset_v != other_seed.samples[i].offset_v;
+  CHECK(one.figures.offset_v == two.figures.offset_v);
+  CHECK(one.figures.noise_rms_v == two.figures.noise_rms_v);
+  CHECK(one.figures.gain == two.figures.gain);
+  CHECK(one.figures.problems == two.figures.problems);
+  CHECK(one.temperature_low_k == two.temperature_low_k);
+  CHECK(one.temperature_high_k == two.temperature_high_k);
+  CHECK(one.figures.offset_v != other_seed.figures.offset_v);
+  bool same_draws = true;
+  std::vector<double> ohms_one, ohms_two;
+  for (std::size_t i = 0; i < one.size(); ++i) {
+    one.Sample(i, &ohms_one);
+    two.Sample(i, &ohms_two);
+    same_draws = same_draws && ohms_one == ohms_two;
   }
-  CHECK(same);
-  CHECK(differs);
-  CHECK(one.resistor_ohms == two.resistor_ohms);
+  CHECK(same_draws);
 }
 
 TEST_CASE("Gaussian offsets take the device's value as sigma") {
@@ -219,7 +252,7 @@ TEST_CASE("Gaussian offsets take the device's value as sigma") {
   stage.opamp.vos_v = 100e-6;
   stage.opamp.offset_distribution = OffsetDistribution::kGaussian;
   const SpreadRun run = Run(stage, 20000);
-  const SpreadSummary summary = Summarize(run.samples, {});
+  const SpreadSummary summary = Summarize(run, {});
   CHECK(RelErr(summary.offset.sigma,
                100e-6 * run.nominal.offset.noise_gain_dc) < 0.02);
   // Unbounded: some samples pass the 1-sigma "worst case" of the budget.
@@ -239,16 +272,16 @@ TEST_CASE("percentiles interpolate between order statistics") {
 }
 
 TEST_CASE("yield counts the samples inside every given limit") {
-  std::vector<SpreadSample> samples(4);
-  samples[0].offset_v = 1e-3;
-  samples[1].offset_v = -3e-3;
-  samples[2].offset_v = 2e-3;
-  samples[3].offset_v = 0.5e-3;
-  samples[2].noise_rms_v = 2e-6;
+  SpreadRun run;
+  run.nominal_gain = 10;
+  run.figures.Resize(4);
+  run.figures.gain = {10, 10, 10, 10};
+  run.figures.offset_v = {1e-3, -3e-3, 2e-3, 0.5e-3};
+  run.figures.noise_rms_v = {0, 0, 2e-6, 0};
   SpreadLimits limits;
   limits.offset_v = 2e-3;
   limits.noise_v = 1e-6;
-  const SpreadYield y = Yield(samples, limits);
+  const SpreadYield y = Yield(run, limits);
   CHECK(*y.offset == 0.75);
   CHECK(*y.noise == 0.75);
   CHECK(*y.all == 0.5);
@@ -282,7 +315,7 @@ TEST_CASE(
   REQUIRE(run.capacitor_names.size() == 2);  // C_s (no tolerance), C_f
   const double mean_inverse = std::log((1 + t) / (1 - t)) / (2 * t);
   const double sigma = std::sqrt(1 / (1 - t * t) - mean_inverse * mean_inverse);
-  const SpreadSummary summary = Summarize(run.samples, {});
+  const SpreadSummary summary = Summarize(run, {});
   CHECK(RelErr(summary.gain_error.sigma, sigma) < 0.02);
   CHECK(std::fabs(summary.gain_error.mean - (mean_inverse - 1)) <
         4 * sigma / std::sqrt(40000.0));
@@ -292,17 +325,19 @@ TEST_CASE(
   for (int i = 0; i < 3; ++i) {
     CAPTURE(i);
     Stage drawn = s;
+    std::vector<double> ohms, capacitors;
+    const SpreadSample sample = run.Sample(i, &ohms, &capacitors);
+    REQUIRE(capacitors.size() == run.capacitor_names.size());
     for (std::size_t k = 0; k < run.capacitor_names.size(); ++k) {
-      const double farads =
-          run.capacitor_farads[i * run.capacitor_names.size() + k];
+      const double farads = capacitors[k];
       if (run.capacitor_names[k] == "C_f")
         drawn.feedback.capacitor_f = farads;
       else
         CHECK(farads == 1e-9);  // C_s keeps its value
     }
     const Budget b = test::ComputeOrFail(drawn, 1e-8);
-    CHECK(RelErr(run.samples[i].gain, b.signal_gain_ref) < 1e-9);
-    CHECK(RelErr(run.samples[i].noise_rms_v, b.output_rms_v) < 1e-4);
+    CHECK(RelErr(sample.gain, b.signal_gain_ref) < 1e-9);
+    CHECK(RelErr(sample.noise_rms_v, b.output_rms_v) < 1e-4);
   }
 }
 
@@ -311,7 +346,9 @@ TEST_CASE("without capacitor tolerances no capacitor is drawn") {
   s.feedback.capacitor_f = 10e-12;
   const SpreadRun run = Run(s, 20);
   CHECK(run.capacitor_names.empty());
-  CHECK(run.capacitor_farads.empty());
+  std::vector<double> ohms, farads = {1.0};
+  run.Sample(0, &ohms, &farads);
+  CHECK(farads.empty());
 }
 
 }  // namespace

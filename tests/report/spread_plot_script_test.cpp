@@ -25,14 +25,14 @@ SpreadRun Run() {
   run.nominal.stage_name = kHostile;
   run.nominal.band_low_hz = 10;
   run.nominal.band_high_hz = 1e3;
+  run.nominal_gain = 1;
+  run.temperature_low_k = run.temperature_high_k = 298.15;
+  run.figures.Resize(1000);
   for (int k = 0; k < 1000; ++k) {
     const double u = k / 999.0;
-    SpreadSample s;
-    s.temperature_k = 298.15;
-    s.gain_error = -0.01 + 0.02 * u;
-    s.offset_v = -5e-3 + 10e-3 * u;
-    s.noise_rms_v = 100e-6 + 10e-6 * u;
-    run.samples.push_back(s);
+    run.figures.gain[k] = 1 + (-0.01 + 0.02 * u);  // gain error -1 .. +1 %
+    run.figures.offset_v[k] = -5e-3 + 10e-3 * u;
+    run.figures.noise_rms_v[k] = 100e-6 + 10e-6 * u;
   }
   return run;
 }
@@ -62,7 +62,7 @@ TEST_CASE("the histogram script bins every sample and marks the summary") {
   SpreadLimits limits;
   limits.gain_error = 0.008;  // inside the samples' range: drawn
   limits.offset_v = 1.0;      // 1 V against +-5 mV: off the axis
-  const SpreadSummary summary = Summarize(run.samples, limits);
+  const SpreadSummary summary = Summarize(run, limits);
   SpreadPlotOptions o;
   o.format = PlotFormat::kSvg;
   o.output_path = "/tmp/x.svg";
