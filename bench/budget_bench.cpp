@@ -28,6 +28,10 @@ const std::string kSourceDir = HUSHGAIN_SOURCE_DIR;
 // The T-network example with finite GBW: 10 M equivalent from 100 k parts.
 const std::string kTeeExample = "examples/hydrophone-preamp.json";
 const std::string kPlainExample = "examples/load-cell-bridge.json";
+// A photodiode stage whose feedback capacitor is chosen by the budget
+// ("capacitor": "auto", Butterworth target).
+const std::string kAutoCapacitorExample =
+    "examples/smoke-chamber-receiver.json";
 
 Stage LoadExample(const std::string& relative) {
   const DeviceLibrary library = LoadDeviceLibrary(kSourceDir + "/devices");
@@ -122,6 +126,7 @@ void RunBudgetBenchmarks() {
     BenchAcSolves();
     BenchProcess();
     BenchBudget("budget_plain_full", kPlainExample);
+    BenchBudget("budget_smoke_auto_cf", kAutoCapacitorExample);
   } catch (const Error& e) {
     PrintFailure("budget", e.what());
   }
