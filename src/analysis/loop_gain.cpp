@@ -32,10 +32,10 @@ Status LoopGainSolver::LoopGainAt(double f_hz, Complex* loop_gain) {
   const double w = 2.0 * kPi * f_hz;
   y_.real() = g_;
   y_.imag() = w * c_;
-  lu_.compute(y_);
-  x_.noalias() = lu_.solve(b_);
-  const double smallest_pivot = lu_.matrixLU().diagonal().cwiseAbs().minCoeff();
-  if (!x_.allFinite() || !(smallest_pivot > 0))
+  if (!lu_.Factor(y_))
+    return Status::Fail("the loop cannot be solved at " + HzText(f_hz));
+  lu_.Solve(b_, &x_);
+  if (!x_.allFinite())
     return Status::Fail("the loop cannot be solved at " + HzText(f_hz));
   Complex vd = 0;
   if (plus_ >= 0) vd += x_[plus_];

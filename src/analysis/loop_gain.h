@@ -12,6 +12,7 @@
 
 #include "analysis/linear_algebra.h"
 #include "analysis/mna_system.h"
+#include "analysis/small_complex_lu.h"
 #include "base/status.h"
 #include "circuit/opamp_model.h"
 
@@ -28,7 +29,7 @@ class LoopGainSolver {
   RealMatrix g_;
   RealMatrix c_;
   ComplexMatrix y_;
-  ComplexLu lu_;
+  SmallComplexLu lu_;
   ComplexVector b_;
   ComplexVector x_;
   int plus_;

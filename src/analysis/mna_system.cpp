@@ -1,5 +1,6 @@
 #include "analysis/mna_system.h"
 
+#include <algorithm>
 #include <cmath>
 #include <numeric>
 
@@ -24,6 +25,26 @@ void StampConductance(RealMatrix& m, int a, int b, double value) {
     m(a, b) -= value;
     m(b, a) -= value;
   }
+}
+
+// |re| + |im|: the size of an entry for scaling and residuals.
+double Size(Complex z) { return std::fabs(z.real()) + std::fabs(z.imag()); }
+
+// |r| / (|A| |x| + 1) in the norms built on Size: the largest row sum of A,
+// the largest entry of x and r. Within a factor 2 of the same ratio in
+// moduli.
+double RelativeResidual(const ComplexMatrix& a, const ComplexVector& x,
+                        const ComplexVector& r) {
+  const int n = static_cast<int>(a.rows());
+  double row_sum = 0, x_max = 0, r_max = 0;
+  for (int i = 0; i < n; ++i) {
+    double sum = 0;
+    for (int j = 0; j < n; ++j) sum += Size(a(i, j));
+    row_sum = std::max(row_sum, sum);
+    x_max = std::max(x_max, Size(x[i]));
+    r_max = std::max(r_max, Size(r[i]));
+  }
+  return r_max / (row_sum * x_max + 1.0);
 }
 
 int Find(std::vector<int>& parent, int i) {
@@ -139,6 +160,7 @@ AdjointSolver::AdjointSolver(const MnaSystem& system)
     : system_(&system),
       yt_(system.size(), system.size()),
       lu_(system.size()),
+      condition_lu_(system.size()),
       rhs_(ComplexVector::Zero(system.size())),
       z_(system.size()),
       residual_(system.size()),
@@ -153,42 +175,49 @@ Status AdjointSolver::SolveAt(double f_hz) {
   const double w = 2.0 * kPi * f_hz;
   yt_.real() = system_->g().transpose();
   yt_.imag() = w * system_->c().transpose();
-  // Equilibrate: scale each row, then each column, to a largest entry of 1.
+  // Equilibrate: scale each row, then each column, to a largest entry of 1,
+  // sizes measured as |re| + |im| (within sqrt 2 of the modulus, and no
+  // hypot: see analysis/small_complex_lu.h).
   const int n = system_->size();
   for (int i = 0; i < n; ++i) {
-    const double m = yt_.row(i).cwiseAbs().maxCoeff();
+    double m = 0;
+    for (int j = 0; j < n; ++j) m = std::max(m, Size(yt_(i, j)));
     row_scale_[i] = m > 0 ? 1.0 / m : 1.0;
   }
   for (int j = 0; j < n; ++j) {
-    const double m =
-        (yt_.col(j).cwiseAbs().array() * row_scale_.array()).maxCoeff();
+    double m = 0;
+    for (int i = 0; i < n; ++i)
+      m = std::max(m, Size(yt_(i, j)) * row_scale_[i]);
     column_scale_[j] = m > 0 ? 1.0 / m : 1.0;
   }
-  scaled_ = row_scale_.asDiagonal() * yt_ * column_scale_.asDiagonal();
-  lu_.compute(scaled_);
-  // PartialPivLU skips an exactly zero pivot instead of failing, and its
-  // condition estimate misses that case: check the pivots first. The
-  // condition estimate (a third of the cost of a solve) runs only when the
-  // pivots spread over more than 1e6, the sign of a badly conditioned system.
-  const auto pivots = lu_.matrixLU().diagonal().cwiseAbs();
-  const double smallest_pivot = pivots.minCoeff();
-  const bool suspicious =
-      smallest_pivot < kPivotSpreadForConditionCheck * pivots.maxCoeff();
-  if (!(smallest_pivot >= kMinReciprocalCondition) ||
-      (suspicious && !(lu_.rcond() >= kMinReciprocalCondition)))
+  for (int j = 0; j < n; ++j)
+    for (int i = 0; i < n; ++i)
+      scaled_(i, j) = yt_(i, j) * (row_scale_[i] * column_scale_[j]);
+  // A column without a nonzero pivot is singular. The condition estimate
+  // (a third of the cost of a solve) runs only when the pivots spread over
+  // more than 1e6, the sign of a badly conditioned system.
+  bool singular = !lu_.Factor(scaled_);
+  if (!singular) {
+    const double smallest_pivot = lu_.SmallestPivot();
+    const bool suspicious =
+        smallest_pivot < kPivotSpreadForConditionCheck * lu_.LargestPivot();
+    singular = !(smallest_pivot >= kMinReciprocalCondition);
+    if (!singular && suspicious) {
+      condition_lu_.compute(scaled_);
+      singular = !(condition_lu_.rcond() >= kMinReciprocalCondition);
+    }
+  }
+  if (singular)
     return Status::Fail(
         "the network is singular or too ill-conditioned to "
         "solve at " +
         HzText(f_hz));
   scaled_rhs_ = row_scale_.asDiagonal() * rhs_;
-  z_.noalias() = lu_.solve(scaled_rhs_);
+  lu_.Solve(scaled_rhs_, &z_);
   z_.array() *= column_scale_.array();
   residual_.noalias() = yt_ * z_;
   residual_ -= rhs_;
-  double scale =
-      yt_.cwiseAbs().rowwise().sum().maxCoeff() * z_.cwiseAbs().maxCoeff() +
-      1.0;
-  double relative = residual_.cwiseAbs().maxCoeff() / scale;
+  const double relative = RelativeResidual(yt_, z_, residual_);
   if (!z_.allFinite() || !(relative <= kMaxRelativeResidual))
     return Status::Fail(
         "the network is singular or too ill-conditioned to "
@@ -206,16 +235,16 @@ Status DirectSolve(const MnaSystem& system, double f_hz, Port port,
   ComplexVector b = ComplexVector::Zero(system.size());
   if (port.plus >= 0) b[port.plus] += 1.0;
   if (port.minus >= 0) b[port.minus] -= 1.0;
-  ComplexLu lu(y);
-  *x = lu.solve(b);
+  SmallComplexLu lu(system.size());
+  if (!lu.Factor(y))
+    return Status::Fail("the network is singular at " + HzText(f_hz));
+  lu.Solve(b, x);
   if (!x->allFinite())
     return Status::Fail("the network is singular at " + HzText(f_hz));
   // The same residual test as the adjoint solve: a solution that does not
   // satisfy its own equations is refused, never used.
   const ComplexVector residual = y * *x - b;
-  const double scale =
-      y.cwiseAbs().rowwise().sum().maxCoeff() * x->cwiseAbs().maxCoeff() + 1.0;
-  if (!(residual.cwiseAbs().maxCoeff() / scale <= kMaxRelativeResidual))
+  if (!(RelativeResidual(y, *x, residual) <= kMaxRelativeResidual))
     return Status::Fail(
         "the network is singular or too ill-conditioned to solve at " +
         HzText(f_hz));

@@ -17,6 +17,7 @@
 #include <vector>
 
 #include "analysis/linear_algebra.h"
+#include "analysis/small_complex_lu.h"
 #include "base/status.h"
 #include "circuit/netlist.h"
 
@@ -93,7 +94,8 @@ class AdjointSolver {
  private:
   const MnaSystem* system_;
   ComplexMatrix yt_;
-  ComplexLu lu_;
+  SmallComplexLu lu_;
+  ComplexLu condition_lu_;  // only for the condition estimate
   ComplexVector rhs_;
   ComplexVector z_;
   ComplexVector residual_;
