@@ -8,6 +8,7 @@
 #ifndef HUSHGAIN_BUDGET_CHAIN_BLOCK_H_
 #define HUSHGAIN_BUDGET_CHAIN_BLOCK_H_
 
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -17,7 +18,8 @@ namespace hushgain {
 
 // One block's own noise at the converter's input.
 struct ChainNoiseShare {
-  // "front end", "second stage", "filter", "converter", "quantization"
+  // "front end", "second stage" (a stage file: "second stage <its path>"),
+  // "filter", "converter", "quantization"
   std::string name;
   double rms_v = 0;
   double share = 0;  // of the total noise power at the converter's input
@@ -43,6 +45,17 @@ struct AdcFigures {
   double effective_resolution_bits = 0;
 };
 
+// A second stage given as a stage file, as its own budget finds it.
+struct SecondStageFigures {
+  std::string stage_name;       // its "name"
+  std::string opamp_class;      // its op-amp
+  double signal_gain_dc = 0;    // signed, V/V
+  double passband_gain = 0;     // |G2| in its passband
+  double signal_gain_ref = 0;   // |G2| at the front stage's reference
+  double noise_gain_ref = 0;    // |e_n -> output| at the reference
+  double bandwidth_3db_hz = 0;  // its high -3 dB corner; 0 = not found
+};
+
 struct ChainBlock {
   SignalChain chain;  // as given, for the report
   // The filter's noise-equivalent bandwidth, integral of |H(f)/H(0)|^2 df
@@ -56,6 +69,12 @@ struct ChainBlock {
   std::vector<ChainNoiseShare> blocks;
   // The stage's contributors at the converter's input, largest first.
   std::vector<ChainNoiseShare> front_end_contributors;
+  // A second stage given as a stage file: its own contributors at the
+  // converter's input, largest first (empty for a gain block), and what
+  // its budget found of it (over the front stage's band, at its
+  // temperature).
+  std::vector<ChainNoiseShare> second_stage_contributors;
+  std::optional<SecondStageFigures> second_stage_network;
   std::string dominant;  // the block with the largest share
 
   double analog_rms_v = 0;  // everything before the converter

@@ -7,6 +7,7 @@
 #include "budget/stage_evaluator.h"
 #include "chain/chain_noise.h"
 #include "chain/filter_response.h"
+#include "chain/second_stage_network.h"
 #include "noise/spectrum_evaluator.h"
 
 namespace hushgain {
@@ -18,12 +19,17 @@ void ChainWarnings(const Stage& stage, const ChainBlock& c,
     warnings->push_back("the band's upper edge (" + HzText(stage.band_high_hz) +
                         ") is above the converter's Nyquist frequency (" +
                         HzText(c.nyquist_hz) + "): the signal aliases");
-  if (c.chain.second_stage && c.chain.second_stage->bandwidth_hz > 0 &&
-      c.chain.second_stage->bandwidth_hz < stage.band_high_hz)
-    warnings->push_back("the second stage's bandwidth (" +
-                        HzText(c.chain.second_stage->bandwidth_hz) +
-                        ") is below the band's upper edge (" +
-                        HzText(stage.band_high_hz) + "): it cuts the signal");
+  if (c.chain.second_stage) {
+    // A stage file's -3 dB corner is its own budget's (0: none found).
+    const double f_p = c.second_stage_network
+                           ? c.second_stage_network->bandwidth_3db_hz
+                           : c.chain.second_stage->bandwidth_hz;
+    if (f_p > 0 && f_p < stage.band_high_hz)
+      warnings->push_back("the " + SecondStageBlockName(*c.chain.second_stage) +
+                          "'s bandwidth (" + HzText(f_p) +
+                          ") is below the band's upper edge (" +
+                          HzText(stage.band_high_hz) + "): it cuts the signal");
+  }
   if (c.chain.filter && c.chain.filter->kind != ChainFilter::Kind::kNone) {
     const FilterResponse h(*c.chain.filter);
     const double g = c.chain.filter->gain;
@@ -73,7 +79,14 @@ ChainSamplesOutcome SampleChain(const Stage& stage,
   outcome.status = PrepareStageEvaluator(stage, &netlist, &evaluator, nullptr);
   if (!outcome.status.ok) return outcome;
   const FrontEndSpectra front_end = StageSpectra(evaluator);
-  const ChainDensities densities(front_end, *stage.chain, stage.temperature_k);
+  SecondStageNetwork network;
+  const std::optional<SecondStage>& second = stage.chain->second_stage;
+  if (second && second->is_network()) {
+    outcome.status = network.Prepare(stage, *second, BudgetOptions{});
+    if (!outcome.status.ok) return outcome;
+  }
+  const ChainDensities densities(front_end, *stage.chain, stage.temperature_k,
+                                 &network.spectra());
   ChainSamples& out = outcome.samples;
   for (double f : f_hz) {
     double psd = 0;
@@ -112,11 +125,25 @@ ChainOutcome ComputeChain(const Stage& stage, const BudgetOptions& options) {
       stage.chain->filter->kind != ChainFilter::Kind::kNone)
     chain_options.integration.breakpoints_hz.push_back(
         stage.chain->filter->cutoff_hz);
-  ChainNoiseOutcome noise =
-      ComputeChainNoise(front_end, *stage.chain, chain_options);
+  SecondStageNetwork network;
+  const std::optional<SecondStage>& second = stage.chain->second_stage;
+  if (second && second->is_network()) {
+    s = network.Prepare(stage, *second, options);
+    if (!s.ok) return {s, {}, {}};
+    const Stage& net = *second->network;
+    for (const NoiseTable* table :
+         {&net.opamp.voltage_noise_table, &net.opamp.current_noise_table})
+      for (double f : table->Breakpoints(stage.band_low_hz, f_high))
+        chain_options.integration.breakpoints_hz.push_back(f);
+  }
+  ChainNoiseOutcome noise = ComputeChainNoise(
+      front_end, *stage.chain, chain_options, &network.spectra());
   if (!noise.status.ok) return {noise.status, {}, {}};
   outcome.block = noise.block;
+  if (second && second->is_network())
+    outcome.block.second_stage_network = network.figures();
   ChainWarnings(stage, outcome.block, &outcome.warnings);
+  for (const std::string& w : network.warnings()) outcome.warnings.push_back(w);
   outcome.status = Status::Ok();
   return outcome;
 }

@@ -71,24 +71,41 @@ Status TailEstimate(const ChainDensities& integrand, double f_hz, double s_at_f,
 
 }  // namespace
 
+std::string SecondStageBlockName(const SecondStage& second) {
+  return second.is_network() ? "second stage " + second.file : "second stage";
+}
+
 ChainDensities::ChainDensities(const FrontEndSpectra& front_end,
-                               const SignalChain& chain, double temperature_k)
+                               const SignalChain& chain, double temperature_k,
+                               const SecondStageSpectra* network)
     : front_end_(front_end),
       second_(chain.second_stage),
+      network_(second_ && second_->is_network() ? network : nullptr),
       filter_(chain.filter ? *chain.filter : ChainFilter{}),
       temperature_k_(temperature_k),
-      n_(static_cast<int>(front_end.names.size())) {}
+      n_(static_cast<int>(front_end.names.size())),
+      m_(network_ ? static_cast<int>(network_->names.size()) : 1) {
+  assert(!(second_ && second_->is_network()) || network_);
+}
 
 Status ChainDensities::operator()(double f_hz, double* out) const {
   Status s = front_end_.densities(f_hz, out);
   if (!s.ok) return s;
   const double h2 = filter_.PowerGain(f_hz);
-  const double g2 = second_ ? SecondStagePowerGain(*second_, f_hz) : 1.0;
+  double g2 = 1;
+  if (network_) {
+    s = network_->densities(f_hz, &g2, out + n_);
+    if (!s.ok) return s;
+    for (int j = 0; j < m_; ++j) out[n_ + j] *= h2;
+  } else if (second_) {
+    g2 = SecondStagePowerGain(*second_, f_hz);
+    out[n_] = SecondStageNoisePsd(*second_, f_hz, temperature_k_) * h2;
+  } else {
+    out[n_] = 0;
+  }
   for (int k = 0; k < n_; ++k) out[k] *= g2 * h2;
-  out[n_] =
-      second_ ? SecondStageNoisePsd(*second_, f_hz, temperature_k_) * h2 : 0;
   const double e = filter_.filter().noise_v_per_rthz;
-  out[n_ + 1] = e * e * h2;
+  out[n_ + m_] = e * e * h2;
   return s;
 }
 
@@ -118,18 +135,26 @@ std::string ChainNoiseOptions::Validate() const {
 
 ChainNoiseOutcome ComputeChainNoise(const FrontEndSpectra& front_end,
                                     const SignalChain& chain,
-                                    const ChainNoiseOptions& options) {
+                                    const ChainNoiseOptions& options,
+                                    const SecondStageSpectra* network) {
   assert(options.Validate().empty());
   ChainNoiseOutcome outcome;
   ChainBlock& c = outcome.block;
   c.chain = chain;
   c.tail_fraction = options.tail_fraction;
-  const ChainDensities integrand(front_end, chain, options.temperature_k);
+  const ChainDensities integrand(front_end, chain, options.temperature_k,
+                                 network);
   const int n = static_cast<int>(front_end.names.size());
+  const int m = integrand.second_stage_components();
+  const bool is_network =
+      chain.second_stage && chain.second_stage->is_network();
+  double second_gain = 1;
+  if (is_network)
+    second_gain = network->passband_gain;
+  else if (chain.second_stage)
+    second_gain = std::fabs(chain.second_stage->gain);
   c.filter_enbw_hz = NoiseBandwidthHz(integrand.filter());
-  c.chain_gain_dc =
-      (chain.filter ? chain.filter->gain : 1.0) *
-      (chain.second_stage ? std::fabs(chain.second_stage->gain) : 1.0);
+  c.chain_gain_dc = (chain.filter ? chain.filter->gain : 1.0) * second_gain;
   c.nyquist_hz = chain.adc.sample_rate_hz / 2;
   if (!(options.band_low_hz < c.nyquist_hz)) {
     outcome.status =
@@ -188,8 +213,9 @@ ChainNoiseOutcome ComputeChainNoise(const FrontEndSpectra& front_end,
     folded_power += folded[k];
   }
   for (int k = 0; k < n; ++k) front_power += in_zone[k] + folded[k];
-  const double second_power = in_zone[n] + folded[n];
-  const double filter_power = in_zone[n + 1] + folded[n + 1];
+  double second_power = 0;
+  for (int j = n; j < n + m; ++j) second_power += in_zone[j] + folded[j];
+  const double filter_power = in_zone[n + m] + folded[n + m];
   const double analog_power = in_zone_power + folded_power;
   const double total_power = analog_power + converter_power;
   c.analog_rms_v = std::sqrt(analog_power);
@@ -202,18 +228,27 @@ ChainNoiseOutcome ComputeChainNoise(const FrontEndSpectra& front_end,
   };
   c.blocks.push_back(share("front end", front_power));
   if (chain.second_stage)
-    c.blocks.push_back(share("second stage", second_power));
+    c.blocks.push_back(
+        share(SecondStageBlockName(*chain.second_stage), second_power));
   if (chain.filter) c.blocks.push_back(share("filter", filter_power));
   c.blocks.push_back(share("converter", own_rms * own_rms));
   c.blocks.push_back(share("quantization", q_rms * q_rms));
   for (int k = 0; k < n; ++k)
     c.front_end_contributors.push_back(
         share(front_end.names[k], in_zone[k] + folded[k]));
-  std::stable_sort(c.front_end_contributors.begin(),
-                   c.front_end_contributors.end(),
-                   [](const ChainNoiseShare& l, const ChainNoiseShare& r) {
-                     return l.share > r.share;
-                   });
+  auto largest_first = [](std::vector<ChainNoiseShare>* list) {
+    std::stable_sort(list->begin(), list->end(),
+                     [](const ChainNoiseShare& l, const ChainNoiseShare& r) {
+                       return l.share > r.share;
+                     });
+  };
+  largest_first(&c.front_end_contributors);
+  if (is_network) {
+    for (int j = 0; j < m; ++j)
+      c.second_stage_contributors.push_back(
+          share(network->names[j], in_zone[n + j] + folded[n + j]));
+    largest_first(&c.second_stage_contributors);
+  }
   const auto top =
       std::max_element(c.blocks.begin(), c.blocks.end(),
                        [](const ChainNoiseShare& l, const ChainNoiseShare& r) {

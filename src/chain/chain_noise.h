@@ -4,10 +4,13 @@
 // (chain/filter_response.h) and S_k(f) contributor k's density at the
 // stage's output,
 //   S_adc,k(f)  = S_k(f) |G2(f)|^2 |H(f)|^2  (the stage's contributors)
-//   S_2nd(f)    = S_2(f) |H(f)|^2            (the second stage's own)
+//   S_2nd,j(f)  = S_2,j(f) |H(f)|^2          (the second stage's own)
 //   S_filter(f) = e_filter^2 |H(f)|^2        (its own noise at its input)
-// with G2 and S_2 the second stage's gain and own output noise
-// (chain/second_stage.h; G2 = 1 without one)
+// with G2 and S_2 the second stage's gain and own output noise: a gain
+// block's closed form (chain/second_stage.h, one component j), or a
+// stage file's network, contributor by contributor
+// (SecondStageSpectra, from chain/second_stage_network.h); G2 = 1 and
+// S_2 = 0 without a second stage
 // and the analog power at the converter is their integral from the band's
 // low edge f_L (where the stage's count starts; 1/f noise needs it) to
 // f_N = sample_rate / 2, plus, folded back into the first zone, from f_N
@@ -45,16 +48,32 @@ struct FrontEndSpectra {
   std::function<Status(double f_hz, double* psd)> densities;
 };
 
+// A second stage given as a stage file: its network's signal gain and its
+// own contributors.
+struct SecondStageSpectra {
+  std::vector<std::string> names;  // its contributors
+  // Writes |G2(f)|^2 (its input to its output) into *power_gain and
+  // S_2,j(f) into psd[0 .. names.size() - 1], V^2/Hz at its output;
+  // f_hz > 0.
+  std::function<Status(double f_hz, double* power_gain, double* psd)> densities;
+  // Its passband gain |G2| (the swing it hands on to the converter).
+  double passband_gain = 1;
+};
+
 // The chain's analog densities at the converter's input, S_adc,k for each
-// stage contributor, then S_2nd, then S_filter (the formulas above), at
-// one frequency.
+// stage contributor, then S_2nd,j (one for a gain block or none), then
+// S_filter (the formulas above), at one frequency.
 class ChainDensities {
  public:
-  // `front_end` must outlive this object; `chain` is copied.
+  // `front_end` (and `network`, when given) must outlive this object;
+  // `chain` is copied. `network` is required when the chain's second stage
+  // is a stage file (SecondStage::is_network), and ignored otherwise.
   ChainDensities(const FrontEndSpectra& front_end, const SignalChain& chain,
-                 double temperature_k);
+                 double temperature_k,
+                 const SecondStageSpectra* network = nullptr);
 
-  int components() const { return n_ + 2; }
+  int components() const { return n_ + m_ + 1; }
+  int second_stage_components() const { return m_; }
 
   // Fills out[0 .. components() - 1], V^2/Hz; f_hz > 0.
   Status operator()(double f_hz, double* out) const;
@@ -67,9 +86,11 @@ class ChainDensities {
  private:
   const FrontEndSpectra& front_end_;
   std::optional<SecondStage> second_;
+  const SecondStageSpectra* network_;  // null: no network
   FilterResponse filter_;
   double temperature_k_;
-  int n_;
+  int n_;  // the stage's contributors
+  int m_;  // the second stage's own components
 };
 
 struct ChainNoiseOptions {
@@ -92,11 +113,16 @@ struct ChainNoiseOutcome {
   ChainBlock block;
 };
 
+// The second stage's row in the chain's blocks: "second stage", or for a
+// stage file "second stage " and its path as the stage file writes it.
+std::string SecondStageBlockName(const SecondStage& second);
+
 // `chain` must be valid (io checks the stage file) and `options` too
-// (asserted). Never prints.
-ChainNoiseOutcome ComputeChainNoise(const FrontEndSpectra& front_end,
-                                    const SignalChain& chain,
-                                    const ChainNoiseOptions& options);
+// (asserted); `network` as for ChainDensities. Never prints.
+ChainNoiseOutcome ComputeChainNoise(
+    const FrontEndSpectra& front_end, const SignalChain& chain,
+    const ChainNoiseOptions& options,
+    const SecondStageSpectra* network = nullptr);
 
 }  // namespace hushgain
 

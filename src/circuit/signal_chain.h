@@ -16,9 +16,13 @@
 #ifndef HUSHGAIN_CIRCUIT_SIGNAL_CHAIN_H_
 #define HUSHGAIN_CIRCUIT_SIGNAL_CHAIN_H_
 
+#include <memory>
 #include <optional>
+#include <string>
 
 namespace hushgain {
+
+struct Stage;  // circuit/stage.h
 
 // A low-pass filter in front of the converter. Its response multiplies
 // every noise that reaches it; its own noise is a white density at its
@@ -71,6 +75,16 @@ struct SecondStage {
   CornerNoise input_noise;          // V/rtHz
   CornerNoise input_current_noise;  // A/rtHz
   double source_resistance_ohm = 0;
+
+  // Or a stage file ("second_stage": {"stage": path}): that file's own
+  // network, solved by the engine (chain/second_stage_network.h), and then
+  // the fields above are unused. `file` is the path as the stage file
+  // writes it (the block's name in the chain table); `network` the stage
+  // it holds, as parsed (at 25 degC; never null when `file` is set).
+  std::string file;
+  std::shared_ptr<const Stage> network;
+
+  bool is_network() const { return network != nullptr; }
 };
 
 struct SignalChain {

@@ -102,8 +102,21 @@ CornerNoise ParseCornerNoise(ObjectReader& parent, const std::string& key,
   return noise;
 }
 
-SecondStage ParseSecondStage(ObjectReader& r) {
+SecondStage ParseSecondStage(ObjectReader& r, const SecondStageLoader& load) {
   SecondStage s;
+  if (r.Has("stage")) {
+    for (auto it = r.json().begin(); it != r.json().end(); ++it)
+      if (it.key() != "stage")
+        throw r.ErrorAt(it.key(),
+                        "not with \"stage\" (the second stage file's own "
+                        "network sets its gain, bandwidth and noise)");
+    s.file = r.String("stage");
+    if (s.file.empty())
+      throw r.ErrorAt("stage", "expected the path of a stage file, got \"\"");
+    s.network = load(r, "stage", s.file);
+    r.Finish();
+    return s;
+  }
   s.gain = r.Quantity("gain", Quantity::kGain);
   if (!(s.gain != 0))
     throw r.ErrorAt("gain",
@@ -193,11 +206,12 @@ ChainAdc ParseAdc(ObjectReader& r, double band_low_hz) {
 
 }  // namespace
 
-SignalChain ParseChain(ObjectReader& chain, double band_low_hz) {
+SignalChain ParseChain(ObjectReader& chain, double band_low_hz,
+                       const SecondStageLoader& load) {
   SignalChain c;
   if (chain.Has("second_stage")) {
     ObjectReader second = chain.Object("second_stage");
-    c.second_stage = ParseSecondStage(second);
+    c.second_stage = ParseSecondStage(second, load);
   }
   if (chain.Has("filter")) {
     ObjectReader f = chain.Object("filter");

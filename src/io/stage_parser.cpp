@@ -3,6 +3,8 @@
 #include <algorithm>
 #include <cmath>
 #include <filesystem>
+#include <memory>
+#include <string>
 
 #include "base/physical_constants.h"
 #include "circuit/stage_resistors.h"
@@ -46,8 +48,11 @@ OpAmpModel ParseOpAmp(ObjectReader& reader, const StageContext& context) {
   bool from_device = false;
   if (auto device = reader.OptionalString("device")) {
     from_device = true;
-    model = FindOpAmp(*context.library, *device, reader.source(),
-                      reader.PathOf("device"), context.read_file);
+    model =
+        FindOpAmp(*context.library, *device, reader.source(),
+                  reader.PathOf("device"), [&context](const std::string& path) {
+                    return context.read_file(ResolveStagePath(context, path));
+                  });
   }
   if (reader.Has("set")) {
     ObjectReader set = reader.Object("set");
@@ -466,7 +471,53 @@ void ParseCapacitors(ObjectReader& top, Stage* stage) {
   r.Finish();
 }
 
+// Two names of one file: the same file on disk (links followed), or, when
+// either is not there, the same absolute path once normalised.
+bool SameFile(const std::string& a, const std::string& b) {
+  namespace fs = std::filesystem;
+  std::error_code ec;
+  if (fs::exists(a, ec) && fs::exists(b, ec)) {
+    const bool same = fs::equivalent(a, b, ec);
+    if (!ec) return same;
+  }
+  const fs::path x = fs::absolute(a, ec).lexically_normal();
+  const fs::path y = fs::absolute(b, ec).lexically_normal();
+  return x == y;
+}
+
+// chain.second_stage.stage: the file relative to this one's folder, read
+// as a second stage (its devices relative to its own folder).
+std::shared_ptr<const Stage> LoadSecondStage(ObjectReader& reader,
+                                             const std::string& key,
+                                             const std::string& file,
+                                             const StageContext& context) {
+  const std::string resolved = ResolveStagePath(context, file);
+  if (!context.path.empty() && SameFile(resolved, context.path))
+    throw reader.ErrorAt(key, "names this stage file itself (" + resolved +
+                                  "): a stage cannot follow itself");
+  if (!context.read_file)
+    throw reader.ErrorAt(key, "no files can be read here (" + resolved + ")");
+  std::string text;
+  try {
+    text = context.read_file(resolved);
+  } catch (const Error& e) {
+    throw reader.ErrorAt(key, e.message() + " (" + resolved + ")");
+  }
+  StageContext nested = context;
+  nested.folder = std::filesystem::path(resolved).parent_path().string();
+  nested.path = resolved;
+  nested.as_second_stage = true;
+  return std::make_shared<const Stage>(ParseStage(text, resolved, nested));
+}
+
 }  // namespace
+
+std::string ResolveStagePath(const StageContext& context,
+                             const std::string& path) {
+  const std::filesystem::path p(path);
+  if (context.folder.empty() || !p.is_relative()) return path;
+  return (std::filesystem::path(context.folder) / p).string();
+}
 
 Stage ParseStage(std::string_view json_text, std::string_view source_name,
                  const StageContext& context) {
@@ -516,6 +567,14 @@ Stage ParseStage(std::string_view json_text, std::string_view source_name,
                          DidYouMean(topology, {"inverting", "transimpedance"}));
   }
   const bool photodiode = stage.topology == Topology::kTransimpedance;
+  if (context.as_second_stage && photodiode)
+    throw st.ErrorAt("topology",
+                     "a second stage is \"inverting\" (the front stage's "
+                     "output is a voltage)");
+  if (context.as_second_stage && top.Has("source"))
+    throw top.ErrorAt("source",
+                      "not in a second stage file (the front stage's output "
+                      "drives its input resistor, as a 0 ohm voltage source)");
 
   if (top.Has("source")) {
     ObjectReader src = top.Object("source");
@@ -623,8 +682,16 @@ Stage ParseStage(std::string_view json_text, std::string_view source_name,
     stage.full_scale_output_v = *fs;
   }
   if (top.Has("chain")) {
+    if (context.as_second_stage)
+      throw top.ErrorAt("chain",
+                        "not in a second stage file (the front stage's file "
+                        "holds the chain)");
     ObjectReader chain = top.Object("chain");
-    stage.chain = ParseChain(chain, stage.band_low_hz);
+    stage.chain = ParseChain(chain, stage.band_low_hz,
+                             [&context](ObjectReader& r, const std::string& key,
+                                        const std::string& file) {
+                               return LoadSecondStage(r, key, file, context);
+                             });
   }
   top.Finish();
   return stage;
@@ -641,11 +708,11 @@ Stage LoadStageFile(const std::string& path, const DeviceLibrary& library) {
                  : std::filesystem::path(path).parent_path();
   StageContext context;
   context.library = &library;
-  context.read_file = [folder](const std::string& device_path) {
-    std::filesystem::path p(device_path);
-    if (p.is_relative()) p = folder / p;
-    return ReadTextFile(p.string());
+  context.read_file = [](const std::string& file) {
+    return ReadTextFile(file);
   };
+  context.folder = folder.string();
+  context.path = from_stdin ? "" : path;
   return ParseStage(text, from_stdin ? kStandardInputName : path, context);
 }
 

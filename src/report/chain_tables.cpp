@@ -35,6 +35,28 @@ std::string CornerText(const CornerNoise& n, const std::string& unit) {
   return out;
 }
 
+// A stage file: what its own budget found over the front stage's band.
+std::string NetworkText(const ChainBlock& c) {
+  const SecondStageFigures& n = *c.second_stage_network;
+  std::string out = "stage file " + c.chain.second_stage->file + " (\"" +
+                    n.stage_name + "\", " + n.opamp_class +
+                    "), its network solved: gain " +
+                    FormatGain(n.signal_gain_dc) + " at DC, " +
+                    FormatGain(n.signal_gain_ref) + " at the reference, ";
+  out += n.bandwidth_3db_hz > 0
+             ? "-3 dB at " + FormatEng(n.bandwidth_3db_hz, "Hz")
+             : std::string("no -3 dB corner found");
+  out += ", noise gain " + FormatGain(n.noise_gain_ref) +
+         " at the reference; driven by the front stage's output as a 0 "
+         "\xCE\xA9 source";
+  if (!c.second_stage_contributors.empty()) {
+    const ChainNoiseShare& top = c.second_stage_contributors.front();
+    out += "; its largest contributor " + top.name + " (" +
+           FormatShare(top.share) + " of the total)";
+  }
+  return out;
+}
+
 std::string SecondStageText(const SecondStage& s) {
   std::string out = "gain " + FormatGain(s.gain) + ", noise gain " +
                     FormatGain(s.noise_gain) + ", ";
@@ -92,7 +114,10 @@ std::vector<std::pair<std::string, std::string>> ChainNotes(const Budget& b) {
   const ChainBlock& c = *b.chain;
   std::vector<std::pair<std::string, std::string>> notes;
   if (c.chain.second_stage)
-    notes.push_back({"second stage", SecondStageText(*c.chain.second_stage)});
+    notes.push_back(
+        {"second stage", c.second_stage_network
+                             ? NetworkText(c)
+                             : SecondStageText(*c.chain.second_stage)});
   notes.push_back({"filter", FilterText(c)});
   std::string counted = FormatEng(b.band_low_hz, "Hz") +
                         " to Nyquist: " + FormatEng(c.in_zone_rms_v, "V") +

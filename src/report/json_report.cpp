@@ -39,7 +39,19 @@ void AddChainJson(const ChainBlock& c, nlohmann::json& out) {
               {"enbw_Hz", c.filter_enbw_hz}};
   }
   json second = nullptr;
-  if (c.chain.second_stage) {
+  if (c.second_stage_network) {
+    const SecondStageFigures& n = *c.second_stage_network;
+    second = {
+        {"stage", c.chain.second_stage->file},
+        {"name", n.stage_name},
+        {"opamp_class", n.opamp_class},
+        {"gain_dc", n.signal_gain_dc},
+        {"passband_gain", n.passband_gain},
+        {"gain_at_reference", n.signal_gain_ref},
+        {"noise_gain_at_reference", n.noise_gain_ref},
+        {"bandwidth_Hz", n.bandwidth_3db_hz},
+    };
+  } else if (c.chain.second_stage) {
     const SecondStage& s = *c.chain.second_stage;
     second = {
         {"gain", s.gain},
@@ -67,6 +79,7 @@ void AddChainJson(const ChainBlock& c, nlohmann::json& out) {
       {"gain_dc", c.chain_gain_dc},
       {"blocks", shares(c.blocks)},
       {"front_end_contributors", shares(c.front_end_contributors)},
+      {"second_stage_contributors", shares(c.second_stage_contributors)},
       {"dominant", c.dominant},
       {"analog_rms_V", c.analog_rms_v},
       {"total_rms_V", c.total_rms_v},

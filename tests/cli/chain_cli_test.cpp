@@ -142,6 +142,80 @@ TEST_CASE(
   CHECK(RelErr(rms, j["chain"]["analog_rms_V"].get<double>()) < 0.01);
 }
 
+TEST_CASE("budget of the two-stage example names its second stage file") {
+  // examples/two-stage: a x(-20) front end whose chain names
+  // gain-stage-x10.json, an inverting R_f/R_in = 20k/2k stage on the
+  // precision-bipolar class (A0 135 dB): its DC gain is
+  // -(R_f/R_in) A0/(A0 + NG) (REFERENCES.md section 11); the class's 60 ohm
+  // output resistance into the 10 k load and R_f lowers the loop gain by
+  // under 1 %, which moves the gain by parts in 1e8: 1e-6 covers it.
+  const std::string examples = std::string(HUSHGAIN_SOURCE_DIR) + "/examples";
+  const std::string front = examples + "/two-stage/geophone-front-end.json";
+  const auto r = RunHushgain({"budget", "--format", "json", front});
+  REQUIRE(r.exit_code == 0);
+  const json j = json::parse(r.out);
+  const json& second = j["chain"]["second_stage"];
+  CHECK(second["stage"] == "gain-stage-x10.json");
+  CHECK(second["name"] == "second gain stage x10");
+  const double a0 = std::pow(10.0, 135.0 / 20);
+  CHECK(RelErr(second["gain_dc"].get<double>(), -10 * a0 / (a0 + 11)) < 1e-6);
+  const json& blocks = j["chain"]["blocks"];
+  REQUIRE(blocks.size() == 5);
+  CHECK(blocks[1]["name"] == "second stage gain-stage-x10.json");
+  double own = 0;
+  for (const json& c : j["chain"]["second_stage_contributors"])
+    own += std::pow(c["rms_V"].get<double>(), 2);
+  CHECK(RelErr(std::sqrt(own), blocks[1]["rms_V"].get<double>()) < 1e-12);
+  const auto text = RunHushgain({"budget", front});
+  REQUIRE(text.exit_code == 0);
+  CHECK(text.out.find("  second stage gain-stage-x10.json  ") !=
+        std::string::npos);
+  CHECK(text.out.find("stage file gain-stage-x10.json (\"second gain stage "
+                      "x10\", precision bipolar), its network solved") !=
+        std::string::npos);
+
+  // A relative path from another working folder, and standard input read
+  // in the pair's folder (its paths relative to the working folder), give
+  // the same chain.
+  const auto relative = test::RunBinary(
+      HUSHGAIN_BINARY,
+      {"budget", "--format", "json", "two-stage/geophone-front-end.json"},
+      examples);
+  REQUIRE(relative.exit_code == 0);
+  const auto piped =
+      test::RunBinary(HUSHGAIN_BINARY, {"budget", "--format", "json", "-"},
+                      examples + "/two-stage", front);
+  REQUIRE(piped.exit_code == 0);
+  for (const auto& other : {relative, piped})
+    CHECK(json::parse(other.out)["chain"] == j["chain"]);
+}
+
+TEST_CASE("a second stage file that is not there is one line naming its path") {
+  // Standard input elsewhere: the path is taken from the working folder,
+  // where no such file is.
+  TempFolder dir("chain-second-missing");
+  const std::string front = std::string(HUSHGAIN_SOURCE_DIR) +
+                            "/examples/two-stage/geophone-front-end.json";
+  const auto piped = test::RunBinary(HUSHGAIN_BINARY, {"budget", "-"},
+                                     dir.path().string(), front);
+  CHECK(piped.exit_code == 2);
+  CHECK(piped.out.empty());
+  CHECK(piped.err ==
+        "error: stdin: /chain/second_stage/stage: cannot read: no such file "
+        "or directory (gain-stage-x10.json)\n");
+  // A file naming itself.
+  json self = json::parse(test::ReadAll(front));
+  self["chain"]["second_stage"]["stage"] = "self.json";
+  const std::string path = dir.Write("self.json", self.dump(2)).string();
+  const auto r = RunHushgain({"budget", path});
+  CHECK(r.exit_code == 2);
+  CHECK(r.out.empty());
+  CHECK(r.err == "error: " + path +
+                     ": /chain/second_stage/stage: names this stage file "
+                     "itself (" +
+                     path + "): a stage cannot follow itself\n");
+}
+
 TEST_CASE("examples without a chain print no chain") {
   for (const std::string& example : test::ExamplePaths()) {
     const json stage = json::parse(test::ReadAll(example));

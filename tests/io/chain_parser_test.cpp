@@ -4,10 +4,12 @@
 
 #include <doctest/doctest.h>
 
+#include <map>
 #include <string>
 #include <utility>
 #include <vector>
 
+#include "cli/run_binary.h"
 #include "io/stage_parser.h"
 #include "test_support.h"
 
@@ -194,6 +196,142 @@ TEST_CASE("bad chain blocks name the JSON path") {
     CAPTURE(text);
     CHECK_THROWS_WITH_AS(Parse(text), message.c_str(), Error);
   }
+}
+
+// A front stage file "sub/front.json" whose chain names a second stage,
+// with the files a test provides by the path they are read at.
+Stage ParseWithFiles(const std::string& second_stage,
+                     std::map<std::string, std::string> files) {
+  static const DeviceLibrary library = [] {
+    DeviceLibrary lib;
+    OpAmpModel m;
+    m.class_name = "test class";
+    m.e_w_v_per_rthz = 4e-9;
+    m.gbw_hz = 8e6;
+    m.open_loop_gain = 1e6;
+    lib.opamps["precision-bipolar"] = m;
+    return lib;
+  }();
+  StageContext context;
+  context.library = &library;
+  context.read_file = [files](const std::string& path) -> std::string {
+    auto it = files.find(path);
+    if (it == files.end())
+      throw Error(path, "", "cannot read: no such file or directory");
+    return it->second;
+  };
+  context.folder = "sub";
+  context.path = "sub/front.json";
+  const std::string text = R"({
+    "name": "front",
+    "band_Hz": {"low": "10", "high": "10k"},
+    "opamp": {"device": "precision-bipolar"},
+    "stage": {"topology": "inverting", "input_resistor": "1k",
+              "feedback": {"resistor": "100k"}},
+    "chain": {"second_stage": )" +
+                           second_stage +
+                           R"(,
+              "adc": {"bits": 16, "full_scale": 4, "sample_rate": "100k"}}
+  })";
+  return ParseStage(text, "sub/front.json", context);
+}
+
+// An ordinary stage file; `extra` adds top-level keys.
+std::string SecondFile(
+    const std::string& extra = "",
+    const std::string& opamp = R"({"device": "precision-bipolar"})") {
+  return R"({
+    "name": "gain ten",
+    "band_Hz": {"low": "1", "high": "1k"},
+    "opamp": )" +
+         opamp + R"(,
+    "stage": {"topology": "inverting", "input_resistor": "2k",
+              "feedback": {"resistor": "20k"}})" +
+         extra + "\n  }";
+}
+
+TEST_CASE("a second stage file is read relative to the stage file's folder") {
+  const Stage s = ParseWithFiles(R"({"stage": "second.json"})",
+                                 {{"sub/second.json", SecondFile()}});
+  REQUIRE(s.chain->second_stage);
+  const SecondStage& st = *s.chain->second_stage;
+  CHECK(st.is_network());
+  CHECK(st.file == "second.json");
+  CHECK(st.network->name == "gain ten");
+  CHECK(st.network->input_resistor_ohm == 2e3);
+  CHECK(st.network->feedback.resistor_ohm == 20e3);
+  CHECK(st.network->opamp.gbw_hz == 8e6);
+  // Its devices are read relative to its own folder.
+  const Stage nested = ParseWithFiles(
+      R"({"stage": "stages/second.json"})",
+      {{"sub/stages/second.json",
+        SecondFile("", R"({"device": "parts/amp.json"})")},
+       {"sub/stages/parts/amp.json",
+        test::ReadAll(std::string(HUSHGAIN_SOURCE_DIR) +
+                      "/devices/opamps/precision-bipolar.json")}});
+  CHECK(nested.chain->second_stage->network->opamp.class_name ==
+        "precision bipolar");
+  // An absolute path is taken as it is.
+  const Stage absolute = ParseWithFiles(R"({"stage": "/abs/second.json"})",
+                                        {{"/abs/second.json", SecondFile()}});
+  CHECK(absolute.chain->second_stage->network->name == "gain ten");
+}
+
+TEST_CASE("a bad second stage file is named with its JSON path") {
+  const std::map<std::string, std::string> none;
+  auto check = [](const std::string& second,
+                  const std::map<std::string, std::string>& files,
+                  const std::string& message) {
+    CAPTURE(second);
+    CHECK_THROWS_WITH_AS(ParseWithFiles(second, files), message.c_str(), Error);
+  };
+  check(R"({"stage": "second.json"})", none,
+        "sub/front.json: /chain/second_stage/stage: cannot read: no such file "
+        "or directory (sub/second.json)");
+  check(R"({"stage": "front.json"})", none,
+        "sub/front.json: /chain/second_stage/stage: names this stage file "
+        "itself (sub/front.json): a stage cannot follow itself");
+  check(R"({"stage": "./x/../front.json"})", none,
+        "sub/front.json: /chain/second_stage/stage: names this stage file "
+        "itself (sub/./x/../front.json): a stage cannot follow itself");
+  check(
+      R"({"stage": ""})", none,
+      R"(sub/front.json: /chain/second_stage/stage: expected the path of a stage file, got "")");
+  check(R"({"stage": 5})", none,
+        "sub/front.json: /chain/second_stage/stage: expected a string, got a "
+        "number");
+  check(
+      R"({"stage": "second.json", "gain": 10})", none,
+      R"(sub/front.json: /chain/second_stage/gain: not with "stage" (the second stage file's own network sets its gain, bandwidth and noise))");
+  const std::string chain =
+      R"(,
+    "chain": {"adc": {"bits": 16, "full_scale": 4, "sample_rate": "100k"}})";
+  check(R"({"stage": "second.json"})", {{"sub/second.json", SecondFile(chain)}},
+        "sub/second.json: /chain: not in a second stage file (the front "
+        "stage's file holds the chain)");
+  check(R"({"stage": "second.json"})",
+        {{"sub/second.json",
+          SecondFile(R"(, "source": {"voltage": {"resistance": "50"}})")}},
+        "sub/second.json: /source: not in a second stage file (the front "
+        "stage's output drives its input resistor, as a 0 ohm voltage "
+        "source)");
+  std::string tia = SecondFile();
+  tia.replace(tia.find("\"inverting\""), 11, "\"transimpedance\"");
+  check(
+      R"({"stage": "second.json"})", {{"sub/second.json", tia}},
+      R"(sub/second.json: /stage/topology: a second stage is "inverting" (the front stage's output is a voltage))");
+  std::string bad = SecondFile();
+  bad.replace(bad.find("\"2k\""), 4, "\"-2k\"");
+  check(
+      R"({"stage": "second.json"})", {{"sub/second.json", bad}},
+      R"(sub/second.json: /stage/input_resistor: expected a positive resistance, got "-2k")");
+  check(R"({"stage": "second.json"})",
+        {{"sub/second.json", SecondFile("", R"({"device": "amp.json"})")}},
+        "sub/second.json: /opamp/device: cannot read: no such file or "
+        "directory (amp.json)");
+  check(R"({"stage": "second.json"})", {{"sub/second.json", "{\"name\": "}},
+        "sub/second.json: malformed JSON at line 1, column 10: unexpected end "
+        "of input; expected '[', '{', or a literal");
 }
 
 TEST_CASE("a data-sheet SNR within the printed rounding of the ideal is kept") {

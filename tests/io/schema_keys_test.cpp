@@ -4,11 +4,11 @@
 // take the branches the examples do not (a plain resistor with an automatic
 // capacitor and a phase-margin target, an inline op-amp, every bias-current
 // law, every resistor override, a chain with each way of giving the
-// converter's noise); the schemas' keys are collected by walking
-// "properties" through $ref, allOf/anyOf/oneOf and then/else. Both sides
-// are sets of (JSON pointer of the object, key); the test prints what one
-// side has and the other lacks. A new parser key fails here until the
-// schema has it (DEVELOPERS.md, "JSON Schemas").
+// converter's noise, a second stage given as a file); the schemas' keys are
+// collected by walking "properties" through $ref, allOf/anyOf/oneOf and
+// then/else. Both sides are sets of (JSON pointer of the object, key); the
+// test prints what one side has and the other lacks. A new parser key fails
+// here until the schema has it (DEVELOPERS.md, "JSON Schemas").
 #include <doctest/doctest.h>
 
 #include <filesystem>
@@ -212,6 +212,14 @@ TEST_CASE("the stage schema and the stage parser know the same keys") {
                        "source_resistance": "1k"},
       "adc": {"bits": 24, "full_scale": 5, "sample_rate": "10k"}}})"_json);
   ParseStageJson(second, "second stage variant", library);
+  // A second stage given as a stage file: the example pair, read from disk
+  // (both files' keys are recorded).
+  {
+    INFO("stage: examples/two-stage/geophone-front-end.json");
+    CHECK_NOTHROW(LoadStageFile(
+        (kSource / "examples/two-stage/geophone-front-end.json").string(),
+        library));
+  }
   json converter = Example("load-cell-bridge");
   converter.merge_patch(R"({"chain": {"adc": {"bits": 16, "full_scale": 5,
       "sample_rate": "10k", "snr_dB": 90}}})"_json);

@@ -40,7 +40,10 @@ def errors(v, instance):
 
 stage = validator("stage")
 device = validator("device")
-examples = sorted((root / "examples").glob("*.json"))
+# The examples, and the pairs in their own folders (a stage and the second
+# stage file it names).
+examples = sorted((root / "examples").glob("*.json")) + sorted(
+    (root / "examples").glob("*/*.json"))
 devices = sorted((root / "devices").glob("*/*.json"))
 if not examples or not devices:
     failures.append("no examples or no device files found")
@@ -60,6 +63,7 @@ twosrc = copy.deepcopy(base); twosrc["source"]["photodiode"] = {"capacitance": "
 twocap = copy.deepcopy(base); twocap["source"]["voltage"] = {}; twocap["source"]["capacitive"] = {"capacitance": "1n"}; bad.append(("a voltage source and a capacitive sensor", stage, twocap))
 nocap = copy.deepcopy(base); nocap["source"].pop("voltage", None); nocap["source"]["capacitive"] = {"leakage_resistance": "1G"}; bad.append(("a capacitive sensor without capacitance", stage, nocap))
 noper = copy.deepcopy(base); noper["source"]["sensitivity"] = {"value": "2 mV"}; bad.append(("sensitivity without per", stage, noper))
+mixed = copy.deepcopy(base); mixed["chain"] = {"second_stage": {"stage": "s.json", "gain": 10}, "adc": {"bits": 16, "full_scale": 4, "sample_rate": "100k"}}; bad.append(("a second stage file with a gain", stage, mixed))
 opamp = json.loads(devices[0].read_text())
 kind = copy.deepcopy(opamp); kind["kind"] = "comparator"; bad.append(("device kind", device, kind))
 param = copy.deepcopy(opamp); param["parameters"]["gbw_hz"] = 1e6; bad.append(("parameter typo", device, param))
