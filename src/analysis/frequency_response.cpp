@@ -4,10 +4,16 @@
 #include <cmath>
 #include <vector>
 
+#include "analysis/bracketed_root.h"
 #include "analysis/phase.h"
 
 namespace hushgain {
 namespace {
+
+// The -3 dB corners and the -90 degree point are found to this, in ln f:
+// far below the printed digits, a few solves more than 1e-8 would cost.
+constexpr double kCrossingTolerance = 1e-10;
+constexpr double kQuarterTurnTolerance = 1e-12;
 
 // Golden-section search for the maximum of |H| in log f over [a, b] (natural
 // logs of frequencies) that holds a maximum inside; updates *best and
@@ -48,18 +54,26 @@ Status RefineMaximum(const GainFunction& gain, double a, double b, double* best,
   return Status::Ok();
 }
 
-// Bisects in log f between `inside` (|H| >= threshold) and `outside`
-// (|H| < threshold), either order, to 1e-8 relative.
-Status BisectCrossing(const GainFunction& gain, double threshold, double inside,
-                      double outside, double* f_hz) {
+// The crossing of |H| through `threshold` between `inside` (|H| =
+// m_inside >= threshold) and `outside` (|H| = m_outside < threshold), either
+// order: Brent's method on ln |H| - ln threshold in ln f, to
+// kCrossingTolerance.
+Status RefineCrossing(const GainFunction& gain, double threshold, double inside,
+                      double m_inside, double outside, double m_outside,
+                      double* f_hz) {
   std::complex<double> h;
-  for (int i = 0; i < 80 && std::fabs(std::log(outside / inside)) > 1e-8; ++i) {
-    const double mid = std::sqrt(inside * outside);
-    Status st = gain(mid, &h);
-    if (!st.ok) return st;
-    (std::abs(h) >= threshold ? inside : outside) = mid;
-  }
-  *f_hz = std::sqrt(inside * outside);
+  const double log_threshold = std::log(threshold);
+  double x = 0;
+  Status status = FindBracketedRoot(
+      [&](double u, double* value) {
+        Status st = gain(std::exp(u), &h);
+        *value = std::log(std::abs(h)) - log_threshold;
+        return st;
+      },
+      std::log(inside), std::log(m_inside) - log_threshold, std::log(outside),
+      std::log(m_outside) - log_threshold, kCrossingTolerance, &x);
+  if (!status.ok) return status;
+  *f_hz = std::exp(x);
   return Status::Ok();
 }
 
@@ -122,6 +136,7 @@ PassbandResponse SummarizePassband(const GainFunction& gain, double band_low_hz,
   const double step = std::pow(10.0, 1.0 / points_per_decade);
   double peak = out.passband_gain;
   double f_prev = f_start;
+  double m_prev = std::abs(h);
   for (double f = f_start * step; f <= f_max_hz * step; f *= step) {
     out.status = gain(f, &h);
     if (!out.status.ok) return out;
@@ -131,16 +146,18 @@ PassbandResponse SummarizePassband(const GainFunction& gain, double band_low_hz,
       out.peak_hz = f;
     }
     if (!out.high_corner_found && m < threshold) {
-      out.status =
-          BisectCrossing(gain, threshold, f_prev, f, &out.high_corner_hz);
+      out.status = RefineCrossing(gain, threshold, f_prev, m_prev, f, m,
+                                  &out.high_corner_hz);
       if (!out.status.ok) return out;
       out.high_corner_found = true;
     }
     f_prev = f;
+    m_prev = m;
   }
   if (out.blocks_dc) {
     // Down from the in-band maximum to the first fall through -3 dB.
     f_prev = out.passband_hz;
+    m_prev = out.passband_gain;
     for (double f = out.passband_hz / step; f >= f_lo_hz / step; f /= step) {
       out.status = gain(f, &h);
       if (!out.status.ok) return out;
@@ -150,13 +167,14 @@ PassbandResponse SummarizePassband(const GainFunction& gain, double band_low_hz,
         out.peak_hz = f;
       }
       if (m < threshold) {
-        out.status =
-            BisectCrossing(gain, threshold, f_prev, f, &out.low_corner_hz);
+        out.status = RefineCrossing(gain, threshold, f_prev, m_prev, f, m,
+                                    &out.low_corner_hz);
         if (!out.status.ok) return out;
         out.low_corner_found = true;
         break;
       }
       f_prev = f;
+      m_prev = m;
     }
   }
   if (out.peak_hz > 0) {
@@ -193,25 +211,31 @@ QualityFactor SecondOrderQ(const GainFunction& gain, double f_ref_hz,
     const double turned_here = turned + d;
     const double quarter = -kPi / 2;
     if (turned_here <= quarter) {
-      double lo = f_prev, hi = f, turned_lo = turned, arg_lo = prev_arg;
-      for (int i = 0; i < 80 && hi / lo > 1 + 1e-12; ++i) {
-        const double mid = std::sqrt(lo * hi);
-        double a = 0;
-        out.status = relative_arg(mid, &a);
-        if (!out.status.ok) return out;
-        const double dm = WrapPi(a - arg_lo);
-        if (turned_lo + dm > quarter) {
-          lo = mid;
-          turned_lo += dm;
-          arg_lo = a;
-        } else {
-          hi = mid;
-        }
-      }
-      out.f90_hz = std::sqrt(lo * hi);
-      out.status = gain(out.f90_hz, &h);
+      // Brent's method in ln f on the phase turned, unwrapped from the
+      // bracket's low end (one scan step turns it by less than pi); the
+      // response at each point is kept for the one the search ends on.
+      const double turned_lo = turned, arg_lo = prev_arg;
+      std::complex<double> h_root = h;
+      double u_root = std::log(f);
+      double x = 0;
+      out.status = FindBracketedRoot(
+          [&](double u, double* value) {
+            double a = 0;
+            Status st = relative_arg(std::exp(u), &a);
+            *value = turned_lo + WrapPi(a - arg_lo) - quarter;
+            h_root = h;
+            u_root = u;
+            return st;
+          },
+          std::log(f_prev), turned_lo - quarter, std::log(f),
+          turned_here - quarter, kQuarterTurnTolerance, &x);
       if (!out.status.ok) return out;
-      out.q = std::abs(h) / std::abs(h_ref);
+      out.f90_hz = std::exp(x);
+      if (x != u_root) {
+        out.status = gain(out.f90_hz, &h_root);
+        if (!out.status.ok) return out;
+      }
+      out.q = std::abs(h_root) / std::abs(h_ref);
       out.found = true;
       return out;
     }

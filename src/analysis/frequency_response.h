@@ -1,6 +1,7 @@
 // Bandwidth and peaking of a computed response (not a formula): the -3 dB
 // frequency is where |H(f)| first falls to |H(f_ref)| / sqrt(2) above the
-// reference frequency, found on a log scan and refined by bisection in log f;
+// reference frequency, found on a log scan and refined by Brent's method in
+// log f (analysis/bracketed_root.h);
 // the peaking is the largest |H(f)| / |H(f_ref)| above f_ref, in dB (0 when
 // the response never rises).
 #ifndef HUSHGAIN_ANALYSIS_FREQUENCY_RESPONSE_H_
@@ -26,8 +27,8 @@ using GainFunction =
 //   - the high -3 dB corner is the first frequency above the passband
 //     (above DC, or above the in-band maximum) where |H| falls through
 //     passband / sqrt(2); the low corner (DC-blocking stages only) the
-//     first below the in-band maximum where it does; both bisected in
-//     log f to 1e-8;
+//     first below the in-band maximum where it does; both refined by
+//     Brent's method in log f to 1e-10;
 //   - the peaking is the largest |H(f)| over the scan against the passband
 //     gain, in dB (0 when |H| never rises above it).
 // The band only decides, for a DC-blocking stage, where the passband gain

@@ -3,10 +3,16 @@
 #include <cmath>
 #include <cstdio>
 
+#include "analysis/bracketed_root.h"
 #include "analysis/phase.h"
 
 namespace hushgain {
-namespace {}  // namespace
+namespace {
+
+// The crossover is found to this, in ln f: far below the printed digits.
+constexpr double kCrossoverTolerance = 1e-10;
+
+}  // namespace
 
 LoopGainSolver::LoopGainSolver(const MnaSystem& system, int opamp,
                                const OpAmpModel& model)
@@ -63,23 +69,30 @@ LoopSummary SummarizeLoop(LoopGainSolver& solver, double f_start_hz,
     phase += WrapPi(std::arg(t) - phase);
     const double mag = std::abs(t);
     if (mag_prev >= 1.0 && mag < 1.0) {
-      // Bisect in log f; carry the unwrapped phase along.
-      double lo = f_prev, hi = f, phase_lo = phase_prev;
-      for (int i = 0; i < 80 && hi / lo > 1 + 1e-8; ++i) {
-        const double mid = std::sqrt(lo * hi);
-        out.status = solver.LoopGainAt(mid, &t);
+      // Brent's method on ln |T| in ln f; the phase at the crossover is
+      // unwrapped from the scan point below it (one step turns it by less
+      // than pi).
+      Complex t_root = t;
+      double u_root = std::log(f), x = 0;
+      out.status = FindBracketedRoot(
+          [&](double u, double* value) {
+            Status st = solver.LoopGainAt(std::exp(u), &t_root);
+            u_root = u;
+            *value = std::log(std::abs(t_root));
+            return st;
+          },
+          std::log(f_prev), std::log(mag_prev), std::log(f), std::log(mag),
+          kCrossoverTolerance, &x);
+      if (!out.status.ok) return out;
+      out.crossover_hz = std::exp(x);
+      if (x != u_root) {
+        out.status = solver.LoopGainAt(out.crossover_hz, &t_root);
         if (!out.status.ok) return out;
-        const double phase_mid = phase_lo + WrapPi(std::arg(t) - phase_lo);
-        if (std::abs(t) >= 1.0) {
-          lo = mid;
-          phase_lo = phase_mid;
-        } else {
-          hi = mid;
-        }
       }
+      const double phase_root =
+          phase_prev + WrapPi(std::arg(t_root) - phase_prev);
       out.crossover_found = true;
-      out.crossover_hz = std::sqrt(lo * hi);
-      out.phase_margin_deg = 180.0 + phase_lo * 180.0 / kPi;
+      out.phase_margin_deg = 180.0 + phase_root * 180.0 / kPi;
       return out;
     }
     f_prev = f;

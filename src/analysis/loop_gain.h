@@ -47,7 +47,8 @@ struct LoopSummary {
 };
 
 // Scans f_start_hz .. f_max_hz (log, `points_per_decade`) for the first
-// unity crossing and refines it by bisection in log f.
+// unity crossing and refines it by Brent's method in log f
+// (analysis/bracketed_root.h) to 1e-10.
 LoopSummary SummarizeLoop(LoopGainSolver& solver, double f_start_hz,
                           double f_max_hz, int points_per_decade = 8);
 

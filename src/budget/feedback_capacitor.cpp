@@ -4,6 +4,7 @@
 #include <complex>
 #include <cstdio>
 
+#include "analysis/bracketed_root.h"
 #include "analysis/frequency_response.h"
 #include "analysis/loop_gain.h"
 #include "analysis/mna_system.h"
@@ -17,6 +18,10 @@ namespace {
 constexpr double kSmallestF = 1e-18;
 constexpr double kLargestF = 1e-6;
 constexpr double kButterworthQ = 0.70710678118654752;
+// The chosen C_f is found to this, in ln C_f.
+constexpr double kCapacitorTolerance = 1e-10;
+// The bracket around the estimate widens by this, in ln C_f (a factor 2).
+constexpr double kBracketStep = 0.69314718055994531;
 
 // Where the loop and response scans start and stop: well below the op-amp's
 // open-loop pole and the band, and far above the GBW.
@@ -62,22 +67,66 @@ std::string Degrees(double d) {
   return buf;
 }
 
-// Bisection in log C_f for `rises(C_f) - target` changing sign.
+// The C_f where a measure falling with C_f passes `target`, by Brent's
+// method in ln C_f to kCapacitorTolerance. The bracket starts at the estimate
+// and widens by kBracketStep either way, so a monotonic measure is bracketed in
+// two or three measures; at the ends of 1 aF .. 1 uF the end is the answer.
+// `at_smallest` is the measure at 1 aF.
 template <typename Measure>
-Status Bisect(Measure measure, double target, bool rising, double* found) {
-  double lo = std::log(kSmallestF), hi = std::log(kLargestF);
-  for (int i = 0; i < 80 && hi - lo > 1e-7; ++i) {
-    const double mid = 0.5 * (lo + hi);
-    double value = 0;
-    Status s = measure(std::exp(mid), &value);
-    if (!s.ok) return s;
-    const bool above = value >= target;
-    if (above == rising)
-      hi = mid;
-    else
-      lo = mid;
+Status FindCapacitor(Measure measure, double target, double estimate_f,
+                     double at_smallest, double* found) {
+  const double lo_end = std::log(kSmallestF), hi_end = std::log(kLargestF);
+  // g > 0 on the side of small C_f.
+  auto g = [&](double x, double* value) {
+    double m = 0;
+    Status s = measure(std::exp(x), &m);
+    *value = m - target;
+    return s;
+  };
+  double x = std::log(estimate_f);
+  if (!(x > lo_end && x < hi_end)) x = 0.5 * (lo_end + hi_end);
+  double gx = 0;
+  Status s = g(x, &gx);
+  if (!s.ok) return s;
+  double lo = lo_end, g_lo = at_smallest - target;
+  double hi = hi_end, g_hi = 0;
+  bool have_hi = false;
+  if (gx > 0) {
+    // The root lies above: step up until the sign changes.
+    lo = x, g_lo = gx;
+    for (double next = x + kBracketStep;; next += kBracketStep) {
+      next = std::fmin(next, hi_end);
+      s = g(next, &g_hi);
+      if (!s.ok) return s;
+      hi = next;
+      if (!(g_hi > 0)) {
+        have_hi = true;
+        break;
+      }
+      lo = next, g_lo = g_hi;
+      if (next >= hi_end) break;
+    }
+    if (!have_hi) {
+      *found = kLargestF;  // still short of the target at 1 uF
+      return Status::Ok();
+    }
+  } else {
+    hi = x, g_hi = gx;
+    for (double next = x - kBracketStep; next > lo_end; next -= kBracketStep) {
+      double g_next = 0;
+      s = g(next, &g_next);
+      if (!s.ok) return s;
+      if (g_next > 0) {
+        lo = next, g_lo = g_next;
+        break;
+      }
+      hi = next, g_hi = g_next;
+    }
   }
-  *found = std::exp(0.5 * (lo + hi));
+  double root = 0;
+  s = FindBracketedRoot(g, lo, g_lo, hi, g_hi, kCapacitorTolerance, &root);
+  if (!s.ok) return s;
+  *found = std::exp(root);
   return Status::Ok();
 }
 
@@ -132,8 +181,8 @@ CapacitorOutcome ChooseFeedbackCapacitor(const Stage& stage,
       out.choice.chosen_f = 0;  // flat without a capacitor
       return out;
     }
-    out.status =
-        Bisect(measure, kButterworthQ, /*rising=*/false, &out.choice.chosen_f);
+    out.status = FindCapacitor(measure, kButterworthQ, out.choice.estimate_f,
+                               q_min, &out.choice.chosen_f);
     return out;
   }
   out.choice.target = Degrees(target.phase_margin_deg);
@@ -161,6 +210,7 @@ CapacitorOutcome ChooseFeedbackCapacitor(const Stage& stage,
     return out;
   }
   double best_pm = pm_min, best_f = kSmallestF, prev_f = kSmallestF;
+  double prev_pm = pm_min;
   for (int i = 1; i <= n; ++i) {
     const double cf = kSmallestF * std::pow(kLargestF / kSmallestF,
                                             static_cast<double>(i) / n);
@@ -168,15 +218,19 @@ CapacitorOutcome ChooseFeedbackCapacitor(const Stage& stage,
     out.status = measure(cf, &pm);
     if (!out.status.ok) return out;
     if (pm >= target.phase_margin_deg) {
-      double lo = std::log(prev_f), hi = std::log(cf);
-      for (int k = 0; k < 80 && hi - lo > 1e-7; ++k) {
-        const double mid = 0.5 * (lo + hi);
-        double value = 0;
-        out.status = measure(std::exp(mid), &value);
-        if (!out.status.ok) return out;
-        (value >= target.phase_margin_deg ? hi : lo) = mid;
-      }
-      out.choice.chosen_f = std::exp(hi);
+      // The lower edge of the set that meets it, by Brent's method between
+      // the last grid point that fails and this one.
+      double root = 0;
+      out.status = FindBracketedRoot(
+          [&](double x, double* value) {
+            Status s = measure(std::exp(x), value);
+            *value -= target.phase_margin_deg;
+            return s;
+          },
+          std::log(prev_f), prev_pm - target.phase_margin_deg, std::log(cf),
+          pm - target.phase_margin_deg, kCapacitorTolerance, &root);
+      if (!out.status.ok) return out;
+      out.choice.chosen_f = std::exp(root);
       return out;
     }
     if (pm > best_pm) {
@@ -184,6 +238,7 @@ CapacitorOutcome ChooseFeedbackCapacitor(const Stage& stage,
       best_f = cf;
     }
     prev_f = cf;
+    prev_pm = pm;
   }
   char buf[200];
   std::snprintf(buf, sizeof buf,

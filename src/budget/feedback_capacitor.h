@@ -3,8 +3,11 @@
 //                 Q (analysis/frequency_response.h, SecondOrderQ) is 1/sqrt 2
 //   phase margin  the C_f at which the loop's phase margin
 //                 (analysis/loop_gain.h) equals the target
-// Both are found by bisection in log C_f between 1 aF and 1 µF (Q falls and
-// the margin rises with C_f). The textbook estimates for a photodiode stage
+// Both are found by Brent's method in log C_f between 1 aF and 1 µF (Q falls
+// and the margin rises with C_f), to 1e-10 in log C_f: the butterworth
+// bracket grows from the textbook estimate by factors of 2, the phase
+// margin's is one step of a log grid over the whole range (the margin is
+// not always monotonic). The textbook estimates for a photodiode stage
 // with C = C_d + C_in at the - input (Graeme, Photodiode Amplifiers, 1996):
 //   butterworth  C_f ~ sqrt(C / (pi R_f GBW))
 //   45 degrees   C_f ~ sqrt(C / (2 pi R_f GBW)), which gives Q ~ 1 and a true
