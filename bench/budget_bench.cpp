@@ -26,7 +26,7 @@ namespace {
 
 const std::string kSourceDir = HUSHGAIN_SOURCE_DIR;
 // The T-network example with finite GBW: 10 M equivalent from 100 k parts.
-const std::string kTeeExample = "examples/hydrophone-preamp.json";
+const std::string kTeeExample = "examples/geophone-preamp.json";
 const std::string kPlainExample = "examples/load-cell-bridge.json";
 // A photodiode stage whose feedback capacitor is chosen by the budget
 // ("capacitor": "auto", Butterworth target).

@@ -27,7 +27,7 @@ namespace hushgain::bench {
 namespace {
 
 const std::string kSourceDir = HUSHGAIN_SOURCE_DIR;
-const std::string kTeeExample = "examples/hydrophone-preamp.json";
+const std::string kTeeExample = "examples/geophone-preamp.json";
 
 // The plot grid of the command: 50 points per decade over the plot range,
 // band edges on the grid.

@@ -34,7 +34,7 @@ double MedianSeconds(int runs, Fn fn) {
   return times[times.size() / 2];
 }
 
-// The hydrophone example: a 10 MOhm equivalent feedback, R_in 10 k,
+// The geophone example: a 10 MOhm equivalent feedback, R_in 10 k,
 // searched with E96 over three decades, 100 ohm to 100 kohm, within 0.5 %.
 TeeSearchOptions E96Options(const Stage& stage) {
   TeeSearchOptions o;
@@ -53,7 +53,7 @@ void RunTeeSearchBenchmarks() {
   const std::string root = HUSHGAIN_SOURCE_DIR;
   const DeviceLibrary library = LoadDeviceLibrary(root + "/devices");
   const Stage stage =
-      LoadStageFile(root + "/examples/hydrophone-preamp.json", library);
+      LoadStageFile(root + "/examples/geophone-preamp.json", library);
 
   TeeSearchOptions fixed = E96Options(stage);
   TeeSearchResult last;

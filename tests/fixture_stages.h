@@ -70,7 +70,7 @@ inline OpAmpModel JfetLikeOpAmp() {
   return m;
 }
 
-// A hydrophone-like T-network stage of our own on JfetLikeOpAmp: R_in 10k,
+// A geophone-like T-network stage of our own on JfetLikeOpAmp: R_in 10k,
 // tee 100k / 100k / 1.02k, 1k source, 2k load, thin-film-like parts
 // (0.1 %, 25 ppm/K, -35 dB), -20 .. 70 degC, 10 Hz .. 5 kHz at 25 degC.
 // The spread benchmark and the Monte Carlo tests use it.

@@ -21,7 +21,7 @@ bool AllAscii(const std::string& s) {
 }
 
 TEST_CASE("--ascii spells the budget's text and markdown in ascii") {
-  const std::string stage = ExamplePath("hydrophone-preamp");
+  const std::string stage = ExamplePath("geophone-preamp");
   for (const char* format : {"text", "markdown"}) {
     INFO(format);
     const RunResult utf8 =
@@ -42,7 +42,7 @@ TEST_CASE("--ascii spells the budget's text and markdown in ascii") {
 }
 
 TEST_CASE("--ascii leaves json as it is") {
-  const std::string stage = ExamplePath("hydrophone-preamp");
+  const std::string stage = ExamplePath("geophone-preamp");
   const RunResult a = RunBinary(HUSHGAIN_BINARY, {"budget", stage, "--json"});
   const RunResult b =
       RunBinary(HUSHGAIN_BINARY, {"--ascii", "budget", stage, "--json"});
@@ -70,7 +70,7 @@ TEST_CASE("a locale that is not utf-8 chooses ascii by itself") {
 TEST_CASE("messages on stderr are spelled in ascii too") {
   TempFolder dir;
   nlohmann::json stage =
-      nlohmann::json::parse(ReadAll(ExamplePath("hydrophone-preamp")));
+      nlohmann::json::parse(ReadAll(ExamplePath("geophone-preamp")));
   stage["stage"]["input_resistor"] = "4.7 k\xCE\xA9x";
   dir.Write("s.json", stage.dump());
   const std::string path = (dir.path() / "s.json").string();

@@ -224,10 +224,10 @@ TEST_CASE("the spectrum csv integrates to the budget's output rms") {
 }
 
 TEST_CASE("a T network's budget carries its pi equivalent in JSON") {
-  // The hydrophone example's T: R1 = R2 = 100k, R3 = 1.02k, a 10 V full
+  // The geophone example's T: R1 = R2 = 100k, R3 = 1.02k, a 10 V full
   // scale. Star-mesh (Kennelly 1899): S = R1 R2 + R2 R3 + R3 R1, arms S/R3,
   // S/R2, S/R1; the output arm draws 10 V / (S/R1) at full scale.
-  const json doc = BudgetJson(test::ExamplePath("hydrophone-preamp"));
+  const json doc = BudgetJson(test::ExamplePath("geophone-preamp"));
   const double r1 = 100e3, r2 = 100e3, r3 = 1.02e3;
   const double s = r1 * r2 + r2 * r3 + r3 * r1;
   REQUIRE(doc.contains("tee"));
@@ -250,11 +250,11 @@ TEST_CASE("a T network's budget carries its pi equivalent in JSON") {
 }
 
 TEST_CASE("the JSON budget always carries the sensitivities") {
-  // Every parameter of the hydrophone example that is not zero has a row;
+  // Every parameter of the geophone example that is not zero has a row;
   // the offset of its op-amp is Vos NG + ..., so d ln offset / d ln Vos is
   // Vos NG over the worst case: near 1 where Vos dominates (its Ib and Ios
   // are picoamperes into 10 M).
-  const json doc = BudgetJson(test::ExamplePath("hydrophone-preamp"));
+  const json doc = BudgetJson(test::ExamplePath("geophone-preamp"));
   REQUIRE(doc.contains("sensitivity"));
   const json& rows = doc["sensitivity"];
   REQUIRE(rows.is_array());
@@ -269,10 +269,10 @@ TEST_CASE("the JSON budget always carries the sensitivities") {
         1e-4);
   // Text shows it only on request.
   const auto plain =
-      RunHushgain({"budget", test::ExamplePath("hydrophone-preamp")});
+      RunHushgain({"budget", test::ExamplePath("geophone-preamp")});
   CHECK(plain.out.find("Which part to change") == std::string::npos);
   const auto asked = RunHushgain(
-      {"budget", "--sensitivity", test::ExamplePath("hydrophone-preamp")});
+      {"budget", "--sensitivity", test::ExamplePath("geophone-preamp")});
   REQUIRE(asked.exit_code == 0);
   CHECK(asked.out.find("Which part to change") != std::string::npos);
   CHECK(asked.out.find("the change that pays most: halving ") !=

@@ -193,6 +193,8 @@ TEST_CASE("budget --json of every example matches the derived expectations") {
       {"worst_case_V", "/offset/worst_case_V"},
       {"noise_cost_ratio", "/tee/noise_cost_ratio"},
       {"feedback_capacitor_F", "/feedback_capacitor_F"},
+      {"charge_gain_V_per_C", "/charge/charge_gain_V_per_C"},
+      {"input_referred_charge_rms_C", "/noise/input_referred_charge_rms_C"},
       {"output_rms_V_at_min", "/temperature/min/output_rms_V"},
       {"output_rms_V_at_max", "/temperature/max/output_rms_V"},
       {"worst_case_V_at_min", "/temperature/min/worst_case_V"},

@@ -44,7 +44,7 @@ void CheckSame(const json& a, const json& b, const char* what) {
 
 TEST_CASE("compare gives each op-amp the figures of budget with that device") {
   for (const char* example :
-       {"hydrophone-preamp", "thermopile-stage", "smoke-chamber-receiver"}) {
+       {"geophone-preamp", "thermopile-stage", "smoke-chamber-receiver"}) {
     CAPTURE(example);
     const json doc =
         ParseOrFail(Compare({test::ExamplePath(example), "--json"}));
@@ -76,7 +76,7 @@ TEST_CASE("compare ranks by input noise or offset with the fitting first") {
   for (const std::string rank : {"input-noise", "offset"}) {
     CAPTURE(rank);
     const json doc = ParseOrFail(Compare(
-        {test::ExamplePath("hydrophone-preamp"), "--json", "--rank", rank}));
+        {test::ExamplePath("geophone-preamp"), "--json", "--rank", rank}));
     CHECK(doc.at("ranking") == rank);
     const char* key =
         rank == "offset" ? "offset_worst_case_V" : "input_referred_rms";
@@ -162,7 +162,7 @@ TEST_CASE("compare keeps a refused op-amp as a row") {
 
 TEST_CASE("compare refuses an unknown device and a bad rank in one line") {
   const test::RunResult unknown =
-      Compare({test::ExamplePath("hydrophone-preamp"), "--devices-list",
+      Compare({test::ExamplePath("geophone-preamp"), "--devices-list",
                "jfet-input,precision-bipolr"});
   CHECK(unknown.exit_code == 2);
   CHECK(unknown.out.empty());
@@ -171,22 +171,22 @@ TEST_CASE("compare refuses an unknown device and a bad rank in one line") {
         "\"precision-bipolr\" (did you mean \"precision-bipolar\"?)\n");
 
   const test::RunResult twice =
-      Compare({test::ExamplePath("hydrophone-preamp"), "--devices-list",
+      Compare({test::ExamplePath("geophone-preamp"), "--devices-list",
                "zero-drift,zero-drift"});
   CHECK(twice.exit_code == 2);
   CHECK(twice.err ==
         "error: command line: --devices-list: device \"zero-drift\" is named "
         "twice\n");
 
-  const test::RunResult empty = Compare({test::ExamplePath("hydrophone-preamp"),
-                                         "--devices-list", "zero-drift,"});
+  const test::RunResult empty = Compare(
+      {test::ExamplePath("geophone-preamp"), "--devices-list", "zero-drift,"});
   CHECK(empty.exit_code == 2);
   CHECK(empty.err ==
         "error: command line: --devices-list: expected device names or part "
         "files separated by commas, got \"zero-drift,\"\n");
 
   const test::RunResult rank =
-      Compare({test::ExamplePath("hydrophone-preamp"), "--rank", "ofset"});
+      Compare({test::ExamplePath("geophone-preamp"), "--rank", "ofset"});
   CHECK(rank.exit_code == 2);
   CHECK(rank.out.empty());
   CHECK(rank.err ==
@@ -298,7 +298,7 @@ TEST_CASE("compare draws each op-amp's noise as bars split by kind") {
 }
 
 TEST_CASE("compare as text names the ranking and the optimum source") {
-  const test::RunResult r = Compare({test::ExamplePath("hydrophone-preamp")});
+  const test::RunResult r = Compare({test::ExamplePath("geophone-preamp")});
   REQUIRE(r.exit_code == 0);
   CHECK(r.out.find("ranked by input-referred noise rms, smallest first") !=
         std::string::npos);

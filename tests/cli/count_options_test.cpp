@@ -25,7 +25,7 @@ struct BadCount {
 };
 
 TEST_CASE("count options outside their range are one line and exit 2") {
-  const std::string tee = ExamplePath("hydrophone-preamp");
+  const std::string tee = ExamplePath("geophone-preamp");
   const std::string tia = ExamplePath("smoke-chamber-receiver");
   const std::vector<BadCount> cases = {
       {{"spread", tee, "--samples", "2147483648"},
@@ -70,7 +70,7 @@ TEST_CASE("count options outside their range are one line and exit 2") {
 TEST_CASE("the largest seed is accepted as given") {
   const RunResult r =
       RunBinary(HUSHGAIN_BINARY,
-                {"spread", ExamplePath("hydrophone-preamp"), "--samples", "20",
+                {"spread", ExamplePath("geophone-preamp"), "--samples", "20",
                  "--seed", "18446744073709551615", "--format", "json"});
   CHECK(r.exit_code == 0);
   CHECK(r.out.find("18446744073709551615") != std::string::npos);

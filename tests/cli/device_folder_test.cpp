@@ -127,7 +127,7 @@ TEST_CASE("device folder: none found names every place looked at") {
 
 TEST_CASE("--devices stands before or after the command") {
   const std::string stage =
-      std::string(HUSHGAIN_SOURCE_DIR) + "/examples/hydrophone-preamp.json";
+      std::string(HUSHGAIN_SOURCE_DIR) + "/examples/geophone-preamp.json";
   const std::string devices = std::string(HUSHGAIN_SOURCE_DIR) + "/devices";
   const RunResult before =
       RunBinary(HUSHGAIN_BINARY, {"--devices", devices, "budget", stage});

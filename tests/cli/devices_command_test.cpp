@@ -119,7 +119,7 @@ std::string WithDevice(const std::string& stage_path, const std::string& name) {
 
 TEST_CASE("--device gives the budget of the stage written with that device") {
   test::TempFolder folder;
-  const std::string example = ExamplePath("hydrophone-preamp");
+  const std::string example = ExamplePath("geophone-preamp");
   for (const char* device : {"low-noise-bipolar", "zero-drift"}) {
     CAPTURE(device);
     folder.Write("edited.json", WithDevice(example, device));
@@ -142,11 +142,11 @@ TEST_CASE("--device gives the budget of the stage written with that device") {
 TEST_CASE("--device is refused with a suggestion when the name is unknown") {
   for (const std::vector<std::string>& command :
        std::vector<std::vector<std::string>>{
-           {"budget", ExamplePath("hydrophone-preamp")},
-           {"plot", ExamplePath("hydrophone-preamp"), "-o", "x.png"},
-           {"spread", ExamplePath("hydrophone-preamp")},
-           {"tee", "sweep", ExamplePath("hydrophone-preamp")},
-           {"tee", "search", ExamplePath("hydrophone-preamp"), "--max", "100k"},
+           {"budget", ExamplePath("geophone-preamp")},
+           {"plot", ExamplePath("geophone-preamp"), "-o", "x.png"},
+           {"spread", ExamplePath("geophone-preamp")},
+           {"tee", "sweep", ExamplePath("geophone-preamp")},
+           {"tee", "search", ExamplePath("geophone-preamp"), "--max", "100k"},
            {"tia", "suggest", ExamplePath("smoke-chamber-receiver"),
             "--bandwidth", "10k"},
            {"tia", "snr", ExamplePath("smoke-chamber-receiver"),

@@ -38,13 +38,13 @@ std::string Replace(std::string text, const std::string& from,
 }
 
 struct Duplicate {
-  std::string from, to;  // an edit of the hydrophone example
+  std::string from, to;  // an edit of the geophone example
   std::string pointer;   // the JSON pointer of the second occurrence
 };
 
 TEST_CASE("a key given twice in a stage file is exit 2 at its second place") {
   TempFolder dir("duplicate-key");
-  const std::string stage = ReadAll(ExamplePath("hydrophone-preamp"));
+  const std::string stage = ReadAll(ExamplePath("geophone-preamp"));
   const std::vector<Duplicate> cases = {
       {"\"r2\": \"100k\",", "\"r2\": \"100k\", \"r2\": \"1k\",",
        "/stage/feedback/tee/r2"},
@@ -91,7 +91,7 @@ TEST_CASE("a key given twice in a device file is exit 2 naming that file") {
   WriteText(device, Replace(ReadAll(device), "\"gbw\": \"5 MHz\",",
                             "\"gbw\": \"5 MHz\", \"gbw\": \"50 MHz\","));
   const RunResult r =
-      RunBinary(HUSHGAIN_BINARY, {"budget", ExamplePath("hydrophone-preamp"),
+      RunBinary(HUSHGAIN_BINARY, {"budget", ExamplePath("geophone-preamp"),
                                   "--devices", devices.string()});
   CHECK(r.exit_code == 2);
   CHECK(r.err == "error: " + device +
@@ -102,7 +102,7 @@ TEST_CASE("a key given twice in a device file is exit 2 naming that file") {
 
 TEST_CASE("a stage file of exactly 16 MiB is read; one byte more is refused") {
   TempFolder dir("size-limit");
-  const std::string stage = ReadAll(ExamplePath("hydrophone-preamp"));
+  const std::string stage = ReadAll(ExamplePath("geophone-preamp"));
   REQUIRE(stage.size() < kLimitBytes);
   // JSON allows any amount of white space after the value (RFC 8259
   // section 2), so padding keeps the stage valid.
@@ -140,12 +140,12 @@ TEST_CASE("an endless device like /dev/zero is refused at the limit") {
 }
 
 TEST_CASE("a stage file on standard input is read as \"-\"") {
-  const RunResult file = RunBinary(
-      HUSHGAIN_BINARY,
-      {"budget", ExamplePath("hydrophone-preamp"), "--format", "json"});
+  const RunResult file =
+      RunBinary(HUSHGAIN_BINARY,
+                {"budget", ExamplePath("geophone-preamp"), "--format", "json"});
   const RunResult piped =
       RunBinary(HUSHGAIN_BINARY, {"budget", "-", "--format", "json"}, "",
-                ExamplePath("hydrophone-preamp"));
+                ExamplePath("geophone-preamp"));
   CHECK(piped.exit_code == 0);
   CHECK(piped.out == file.out);
 }

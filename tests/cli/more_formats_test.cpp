@@ -129,7 +129,7 @@ TEST_CASE("spread: csv and json carry the same statistics and yields") {
 }
 
 TEST_CASE("spread: markdown carries the text report's tables") {
-  const std::string stage = ExamplePath("hydrophone-preamp");
+  const std::string stage = ExamplePath("geophone-preamp");
   const RunResult t =
       Hushgain({"spread", stage, "--samples", "500", "--noise-limit", "1.2m"});
   const RunResult m =
@@ -137,7 +137,7 @@ TEST_CASE("spread: markdown carries the text report's tables") {
                 "--format", "markdown"});
   REQUIRE(t.exit_code == 0);
   REQUIRE(m.exit_code == 0);
-  CHECK(m.out.rfind("## Monte Carlo: hydrophone preamp", 0) == 0);
+  CHECK(m.out.rfind("## Monte Carlo: geophone preamp", 0) == 0);
   CHECK(m.out.find("| output noise rms |") != std::string::npos);
   CHECK(m.out.find("### Yield") != std::string::npos);
   CHECK(t.out.find("\nYield\n") != std::string::npos);

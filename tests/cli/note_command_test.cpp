@@ -25,7 +25,7 @@ using test::RunResult;
 TEST_CASE("the HTML note holds the budget's figures and an inline sheet") {
   test::TempFolder folder;
   const std::string note = (folder.path() / "note.html").string();
-  const std::string stage = ExamplePath("hydrophone-preamp");
+  const std::string stage = ExamplePath("geophone-preamp");
   const RunResult r = RunBinary(HUSHGAIN_BINARY, {"note", stage, "-o", note});
   REQUIRE(r.exit_code == 0);
   CHECK(r.out.empty());
@@ -62,7 +62,7 @@ TEST_CASE("the Markdown note writes its sheet beside it and links it") {
 
 TEST_CASE("a stage name cannot inject markup into the note") {
   test::TempFolder folder;
-  json stage = json::parse(ReadAll(ExamplePath("hydrophone-preamp")));
+  json stage = json::parse(ReadAll(ExamplePath("geophone-preamp")));
   stage["name"] = "<script>alert(1)</script>";
   folder.Write("stage.json", stage.dump());
   const std::string note = (folder.path() / "note.html").string();
@@ -78,7 +78,7 @@ TEST_CASE("a stage name cannot inject markup into the note") {
 
 TEST_CASE("note refuses a bad format and an empty output with one line") {
   test::TempFolder folder;
-  const std::string stage = ExamplePath("hydrophone-preamp");
+  const std::string stage = ExamplePath("geophone-preamp");
   const RunResult format =
       RunBinary(HUSHGAIN_BINARY,
                 {"note", stage, "-o", (folder.path() / "n.html").string(),

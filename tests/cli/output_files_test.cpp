@@ -169,7 +169,7 @@ TEST_CASE("an empty output name is refused by every option") {
       {{"spread", stage, "--samples", "10", "--plot", ""}, "--plot"},
       {{"plot", stage, "-o", ""}, "-o"},
       {{"plot", stage, "-o", dir / "p.png", "--script", ""}, "--script"},
-      {{"tee", "sweep", ExamplePath("hydrophone-preamp"), "--plot", ""},
+      {{"tee", "sweep", ExamplePath("geophone-preamp"), "--plot", ""},
        "--plot"},
       {{"note", stage, "-o", ""}, "-o"},
       {{"compare", stage, "--plot", ""}, "--plot"},

@@ -69,7 +69,7 @@ bool WholePdf(const std::string& bytes) {
 
 TEST_CASE("plot tee sweep and spread write a whole PDF for a .pdf name") {
   TempFolder dir("pdf");
-  const std::string tee = test::ExamplePath("hydrophone-preamp");
+  const std::string tee = test::ExamplePath("geophone-preamp");
   const std::vector<std::vector<std::string>> runs = {
       {"plot", tee, "-o", dir / "sheet.pdf"},
       {"tee", "sweep", tee, "--points", "5", "--plot", dir / "sweep.pdf"},
@@ -116,7 +116,7 @@ TEST_CASE("plot writes a well-formed SVG naming every contributor") {
 
 TEST_CASE("--only draws one panel in a smaller picture") {
   TempFolder dir("only");
-  const std::string stage = test::ExamplePath("hydrophone-preamp");
+  const std::string stage = test::ExamplePath("geophone-preamp");
   const auto full = RunHushgain({"plot", stage, "-o", dir / "full.svg"});
   REQUIRE(full.exit_code == 0);
   const std::string sheet = ReadAll(dir / "full.svg");
@@ -151,7 +151,7 @@ TEST_CASE("names from the stage file reach gnuplot as text and never as code") {
   };
   for (const std::string& name : names) {
     INFO("name " << name);
-    json stage = json::parse(ReadAll(test::ExamplePath("hydrophone-preamp")));
+    json stage = json::parse(ReadAll(test::ExamplePath("geophone-preamp")));
     stage["name"] = name;
     const std::string stage_path = dir / "stage.json";
     {

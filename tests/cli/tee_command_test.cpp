@@ -28,7 +28,7 @@ RunResult RunHushgain(const std::string& args) {
   return test::RunBinary(HUSHGAIN_BINARY, words, HUSHGAIN_SOURCE_DIR);
 }
 
-const char* kTee = "examples/hydrophone-preamp.json";
+const char* kTee = "examples/geophone-preamp.json";
 
 void CheckBadInput(const std::string& args, const std::string& message) {
   const RunResult r = RunHushgain(args);
@@ -79,7 +79,7 @@ TEST_CASE("a search with nothing in tolerance says what to relax, exit 1") {
                                   " --series E6 --max 100k --gain-tol 0.1%");
   CHECK(r.exit_code == 1);
   CHECK(r.err ==
-        "error: examples/hydrophone-preamp.json: no T network of E6 values "
+        "error: examples/geophone-preamp.json: no T network of E6 values "
         "from 100.0 \xCE\xA9 to 100.0 k\xCE\xA9 has a gain within 0.1 % of "
         "909.447; relax --gain-tol, widen --min/--max or take a denser "
         "--series\n");
@@ -169,7 +169,7 @@ TEST_CASE("tee sweep JSON starts at the plain resistor") {
 
 TEST_CASE(
     "tee sweep --min 300 flags the rows whose offset exceeds full scale") {
-  // The hydrophone's full scale is 10 V; down at 300 ohm the T network's
+  // The geophone's full scale is 10 V; down at 300 ohm the T network's
   // noise gain (3.3e4) takes the worst-case offset to 10.79 V. Every row
   // whose offset is beyond 10 V carries offset>FS, and no other row does.
   const RunResult r =

@@ -38,7 +38,7 @@ constexpr std::size_t kMinPictureBytes = 20000;
 const std::vector<std::string> kSearch = {"--series",   "E96",  "--max", "100k",
                                           "--gain-tol", "0.5%", "--top", "6"};
 
-std::string Example() { return test::ExamplePath("hydrophone-preamp"); }
+std::string Example() { return test::ExamplePath("geophone-preamp"); }
 
 test::RunResult Tee(const std::string& sub, std::vector<std::string> args,
                     const std::string& stage = Example()) {
@@ -87,7 +87,7 @@ TEST_CASE("tee sweep markdown holds the JSON's figures, one row per network") {
   const json j = TeeJson("sweep");
   const auto r = Tee("sweep", {"--format", "markdown"});
   REQUIRE(r.exit_code == 0);
-  CHECK(r.out.rfind("## T-network sweep: hydrophone preamp", 0) == 0);
+  CHECK(r.out.rfind("## T-network sweep: geophone preamp", 0) == 0);
   CHECK(r.out.find("\n- temperature: ") != std::string::npos);
   CHECK(r.out.find("\n- band: ") != std::string::npos);
   CHECK(r.out.find("\n- gain kept: ") != std::string::npos);
@@ -126,7 +126,7 @@ TEST_CASE("tee search markdown holds the JSON's figures in rank order") {
   const json j = TeeJson("search");
   const auto r = Tee("search", {"--format", "markdown"});
   REQUIRE(r.exit_code == 0);
-  CHECK(r.out.rfind("## T-network search: hydrophone preamp", 0) == 0);
+  CHECK(r.out.rfind("## T-network search: geophone preamp", 0) == 0);
   CHECK(r.out.find("\n- target gain: ") != std::string::npos);
   const auto rows = MarkdownRows(r.out);
   const json& best = j["best"];
@@ -243,10 +243,9 @@ TEST_CASE("tee sweep and search --plot write a valid PNG and a valid SVG") {
     std::string why;
     CHECK_MESSAGE(test::WellFormedXml(text, &why), why);
     const std::string decoded = test::DecodeXmlEntities(text);
-    CHECK(
-        decoded.find(
-            ">hydrophone preamp, 10 M equivalent feedback from 100 k parts<") !=
-        std::string::npos);
+    CHECK(decoded.find(
+              ">geophone preamp, 10 M equivalent feedback from 100 k parts<") !=
+          std::string::npos);
     CHECK(decoded.find(std::string(sub) == "sweep"
                            ? ">Total output noise and noise cost against the "
                              "largest resistor<"

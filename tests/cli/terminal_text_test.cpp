@@ -67,8 +67,8 @@ TEST_CASE("a stage name holding esc and bel never reaches stdout raw") {
   test::TempFolder folder;
   const std::vector<std::pair<std::string, Command>> commands = {
       {"budget", {"load-cell-bridge", {}}},
-      {"tee sweep", {"hydrophone-preamp", {}}},
-      {"tee search", {"hydrophone-preamp", {"--max", "100k"}}},
+      {"tee sweep", {"geophone-preamp", {}}},
+      {"tee search", {"geophone-preamp", {"--max", "100k"}}},
       {"tia suggest", {"smoke-chamber-receiver", {"--bandwidth", "1k"}}},
       {"tia snr", {"smoke-chamber-receiver", {"--power-range", "1n..1u"}}},
       {"spread", {"load-cell-bridge", {"--samples", "200"}}},

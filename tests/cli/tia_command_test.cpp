@@ -59,8 +59,8 @@ TEST_CASE("tia suggest refuses bad input with exit code 2 and one line") {
       {{"sugest"},
        "error: command line: unknown tia command \"sugest\" (did you mean "
        "\"suggest\"?); try tia --help\n"},
-      {{"suggest", "examples/hydrophone-preamp.json", "--bandwidth", "5k"},
-       "error: examples/hydrophone-preamp.json: /stage/topology: tia suggest "
+      {{"suggest", "examples/geophone-preamp.json", "--bandwidth", "5k"},
+       "error: examples/geophone-preamp.json: /stage/topology: tia suggest "
        "needs a \"transimpedance\" stage\n"},
       {{"suggest", "examples/smoke-chamber-receiver.json", "--bandwidth",
         "fast"},

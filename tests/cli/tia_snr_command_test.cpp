@@ -95,8 +95,8 @@ TEST_CASE("tia snr refuses bad input with exit code 2 and one line") {
        "\"0\"\n"},
       {{kStage, "--power-range", "1n..1m", "--points", "1"},
        "error: command line: --points: expected 2 to 10000, got 1\n"},
-      {{"examples/hydrophone-preamp.json", "--power-range", "1n..1m"},
-       "error: examples/hydrophone-preamp.json: /stage/topology: tia snr "
+      {{"examples/geophone-preamp.json", "--power-range", "1n..1m"},
+       "error: examples/geophone-preamp.json: /stage/topology: tia snr "
        "needs a \"transimpedance\" stage\n"},
   };
   for (const Case& c : cases) {

@@ -33,7 +33,7 @@ foreach(file
     share/doc/hushgain/README.md
     share/doc/hushgain/LICENSE
     share/doc/hushgain/CHANGELOG.md
-    share/doc/hushgain/examples/hydrophone-preamp.json)
+    share/doc/hushgain/examples/geophone-preamp.json)
   check("EXISTS ${WORK_DIR}/prefix/${file}" "${file} not installed")
 endforeach()
 if(HELP2MAN AND EXISTS "${BUILD_DIR}/hushgain.1")
@@ -45,19 +45,19 @@ check("NOT EXISTS ${WORK_DIR}/prefix/bin/hushgain-source-devices"
 
 # Relocate: the prefix moves, the binary follows its own location.
 file(RENAME "${WORK_DIR}/prefix" "${WORK_DIR}/moved")
-file(COPY "${SOURCE_DIR}/examples/hydrophone-preamp.json"
+file(COPY "${SOURCE_DIR}/examples/geophone-preamp.json"
      DESTINATION "${WORK_DIR}/elsewhere")
 set(program "${WORK_DIR}/moved/bin/hushgain")
 execute_process(
   COMMAND ${CMAKE_COMMAND} -E env --unset=HUSHGAIN_DEVICES
-          "${program}" budget hydrophone-preamp.json --format json
+          "${program}" budget geophone-preamp.json --format json
   WORKING_DIRECTORY "${WORK_DIR}/elsewhere"
   OUTPUT_VARIABLE out ERROR_VARIABLE err RESULT_VARIABLE status)
 check("status EQUAL 0" "relocated budget failed (${status}): ${err}")
 # The same budget as the build tree's binary with the source tree's devices.
 execute_process(
   COMMAND "${BUILD_DIR}/hushgain" --devices "${SOURCE_DIR}/devices" budget
-          "${SOURCE_DIR}/examples/hydrophone-preamp.json" --format json
+          "${SOURCE_DIR}/examples/geophone-preamp.json" --format json
   OUTPUT_VARIABLE reference RESULT_VARIABLE status)
 check("status EQUAL 0" "the build tree's budget failed")
 check("out STREQUAL reference" "relocated budget differs:\n${out}")
@@ -74,7 +74,7 @@ check("at_source EQUAL -1 AND at_build EQUAL -1"
 file(REMOVE_RECURSE "${WORK_DIR}/moved/share/hushgain/devices")
 execute_process(
   COMMAND ${CMAKE_COMMAND} -E env --unset=HUSHGAIN_DEVICES
-          "${program}" budget hydrophone-preamp.json
+          "${program}" budget geophone-preamp.json
   WORKING_DIRECTORY "${WORK_DIR}/elsewhere"
   OUTPUT_VARIABLE out ERROR_VARIABLE err RESULT_VARIABLE status)
 set(expected "error: command line: device folder not found; looked in \

@@ -141,7 +141,7 @@ TEST_CASE("the stage schema and the stage parser know the same keys") {
                    library);
 
   // Branches the examples may not take.
-  json tee = Example("hydrophone-preamp");
+  json tee = Example("geophone-preamp");
   tee.merge_patch(R"({
     "$schema": "../schema/stage.schema.json",
     "temperature_C": {"min": -10, "nominal": 20, "max": 60},
@@ -304,8 +304,7 @@ TEST_CASE("a stage file may carry \"$schema\" and comments") {
   const DeviceLibrary library = ShippedLibrary();
   StageContext context;
   context.library = &library;
-  const std::string plain =
-      ReadText(kSource / "examples/hydrophone-preamp.json");
+  const std::string plain = ReadText(kSource / "examples/geophone-preamp.json");
   std::string annotated = plain;
   annotated.replace(annotated.find('{'), 1,
                     "// a T-network preamp\n{\n  \"$schema\": "

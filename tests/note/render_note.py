@@ -66,7 +66,7 @@ def main():
         sys.exit(1 if os.environ.get("CI") else 77)
     with tempfile.TemporaryDirectory(prefix="hushgain-note-") as tmp:
         note = os.path.join(tmp, "note.html")
-        stage = os.path.join(source, "examples", "hydrophone-preamp.json")
+        stage = os.path.join(source, "examples", "geophone-preamp.json")
         run = subprocess.run([hushgain, "note", stage, "-o", note],
                              capture_output=True, text=True)
         if run.returncode != 0:

@@ -53,7 +53,7 @@ for path, v in [(p, stage) for p in examples] + [(p, device) for p in devices]:
         failures.append(f"{path.relative_to(root)}: " + "; ".join(found))
 
 # Files the schemas must refuse.
-base = json.loads((root / "examples" / "hydrophone-preamp.json").read_text())
+base = json.loads((root / "examples" / "geophone-preamp.json").read_text())
 bad = []
 typo = copy.deepcopy(base); typo["stage"]["lod"] = "2k"; bad.append(("stage key typo", stage, typo))
 noband = copy.deepcopy(base); del noband["band_Hz"]; bad.append(("no band", stage, noband))

@@ -49,6 +49,18 @@ here anew) equal to 1/sqrt 2, by brentq in ln C_f; it is compared with
 section 7's exact C_f = sqrt(2 w_t R_f C - 1)/(w_t R_f), and the search
 is checked to reproduce that closed form on section 7's own model.
 
+A capacitive sensor (source.capacitive): method 2 drives the sensor's
+node from the source's open-circuit voltage through C_s, puts R_leak
+(noisy) from that node to ground and R_in (when given) from it to the -
+input, else the node is the - input itself; method 1 is the ideal charge
+amplifier (no R_in): every current into the virtual ground sees Z_f =
+R/(1 + s C_f R), R = R_f or R_eq, and e_n the noise gain
+(NG_0 + s R (C_s + C_f))/(1 + s R C_f), NG_0 = 1 + R2/R3 + R/R_leak (KCL at
+the - input and the tee node), so |NG|^2 = K^2 + (NG_0^2 - K^2)/(1 +
+(f/f_p)^2) with K = 1 + C_s/C_f (REFERENCES.md section 13). The charge
+gain is the largest |gain| in the band (scanned, then bounded Brent in
+ln f) over C_s, against the ideal 1/C_f.
+
 A stage with a "chain" (a second gain stage, a filter, a converter): the
 nodal analysis's output density times the second stage's gain^2 / (1 +
 (f/f_p)^2) and the filter's |H|^2 (scipy.signal's analog Butterworth or
@@ -140,13 +152,18 @@ def load_stage(path):
         "fL": quantity(doc["band_Hz"]["low"]),
         "fH": quantity(doc["band_Hz"]["high"]),
         "Rs": quantity(doc.get("source", {}).get("voltage", {}).get("resistance", 0)),
-        "Rin": 0.0 if tia else quantity(st["input_resistor"]),
+        "Rin": 0.0 if tia else quantity(st.get("input_resistor", 0)),
         "Cf": 0.0 if fb.get("capacitor") == "auto" else quantity(fb.get("capacitor", 0)),
         "Cf_target": fb.get("capacitor_target", "butterworth")
                      if fb.get("capacitor") == "auto" else None,
         "RL": quantity(st["load"]) if "load" in st else None,
         "op": p,
     }
+    cap = doc.get("source", {}).get("capacitive")
+    stage["Cs"] = quantity(cap["capacitance"]) if cap else 0.0
+    stage["Rleak"] = quantity(cap.get("leakage_resistance", 0)) if cap else 0.0
+    if "input_capacitor" in st or "c3" in fb.get("tee", {}):
+        raise NotImplementedError("no coupling capacitors in this nodal model")
     if tia:
         pd = doc["source"]["photodiode"]
         stage["Cd"] = quantity(pd.get("capacitance", 0))
@@ -290,6 +307,8 @@ def plus_resistor(stage):
         fb = stage["Rf"]
         rsh = stage["Rsh"]
         return fb if rsh == 0 else rsh * fb / (rsh + fb)
+    if mode == "auto" and stage.get("Cs", 0) > 0:
+        raise NotImplementedError("no auto R_plus for a capacitive sensor here")
     if mode == "auto":
         if "tee" in stage:
             r1, r2, r3 = stage["tee"]
@@ -319,7 +338,12 @@ class Network:
         self.Cd = op.get("input_capacitance_diff", 0.0)
         self.Rp = plus_resistor(stage)
         self.tia = stage["topology"] == "transimpedance"
+        self.cap = stage.get("Cs", 0) > 0
+        # A capacitive sensor's node: "x" before R_in, else the - input.
+        self.sensor = ("x" if stage["Rin"] > 0 else "n") if self.cap else None
         names = (["in"] if stage["Rs"] > 0 and not self.tia else []) + ["n", "o"]
+        if self.sensor == "x":
+            names.append("x")
         if "tee" in stage:
             names.append("t")
         if self.Rp > 0:
@@ -334,6 +358,13 @@ class Network:
             # The photodiode: its shunt resistance (noisy) from - to ground.
             if stage["Rsh"] > 0:
                 r.append(("R_sh", "n", None, stage["Rsh"]))
+        elif self.cap:
+            # The sensor: C_s from the source (in matrix), its leakage from
+            # its node to ground, R_in (when given) on to the - input.
+            if stage["Rleak"] > 0:
+                r.append(("R_leak", self.sensor, None, stage["Rleak"]))
+            if self.sensor == "x":
+                r.append(("R_in", "x", "n", stage["Rin"]))
         elif stage["Rs"] > 0:
             r.append(("R_source", "src", "in", stage["Rs"]))
             r.append(("R_in", "in", "n", stage["Rin"]))
@@ -426,6 +457,8 @@ class Network:
             admit("n", "o", 1j * w * self.s["Cf"])
         if self.tia:
             admit("n", None, 1j * w * self.s["Cd"])
+        if self.cap:
+            admit("src", self.sensor, 1j * w * self.s["Cs"])
         plus = "p" if "p" in self.idx else None
         admit("n", None, 1j * w * self.Ccm)
         if plus:
@@ -760,6 +793,8 @@ def closed_form(stage):
         assert all(spec_for(stage, n) is None for n in ("R_f", "R_sh", "R_load")), \
             "no closed form for a photodiode stage's excess noise is written here"
         return tia_closed_form(stage) + ({},)
+    if stage.get("Cs", 0) > 0:
+        return charge_closed_form(stage) + ({},)
     T, fL, fH = stage["T"], stage["fL"], stage["fH"]
     op = stage["op"]
     ew, fcv = op["voltage_noise"], op.get("voltage_noise_corner", 0.0)
@@ -830,6 +865,77 @@ def closed_form(stage):
     return rms, rms / gain, vos + abs(ib) + ios, excess
 
 
+def charge_closed_form(stage):
+    """The ideal charge amplifier (module docstring): output rms, the
+    input-referred rms at the reference's gain, the worst-case offset. With
+    R_in only the offset (C_s open at DC: R_in + R_leak is the input's DC
+    path), the noise as None."""
+    assert plus_resistor(stage) == 0 and stage["Cf"] > 0
+    assert all(spec_for(stage, n) is None for n in ("R_f", "R1", "R2", "R3", "R_load")), \
+        "no excess noise in the charge closed form"
+    T, fL, fH = stage["T"], stage["fL"], stage["fH"]
+    op = stage["op"]
+    ew, fcv = op["voltage_noise"], op.get("voltage_noise_corner", 0.0)
+    iw, fci = op["current_noise"], op.get("current_noise_corner", 0.0)
+    kt4 = 4 * K_B * T
+    if "tee" in stage:
+        r1, r2, r3 = stage["tee"]
+        rfb = equivalent(stage)
+        ng0 = 1 + r2 / r3
+        paths = [(r1, 1 + r2 / r3), (r2, 1.0), (r3, r2 / r3)]
+    else:
+        rfb = stage["Rf"]
+        ng0 = 1.0
+        paths = [(rfb, 1.0)]
+    if stage["Rleak"] > 0:
+        ng0 += rfb / (stage["Rleak"] + stage["Rin"])
+        # A current 4kT/R_leak into the virtual ground: as a voltage in
+        # series with R_leak, its gain to the output is R / R_leak.
+        paths.append((stage["Rleak"], rfb / stage["Rleak"]))
+    vos = op["offset_voltage"] * ng0
+    ib = op["bias_current"] * rfb
+    ios = 0.5 * op["offset_current"] * rfb
+    if stage["Rin"] > 0:
+        return None, None, vos + abs(ib) + ios
+    fp = 1 / (2 * math.pi * rfb * stage["Cf"])
+    k = 1 + stage["Cs"] / stage["Cf"]
+
+    def white(at_fp):  # integral of 1/(1 + (f/fp)^2) df
+        return at_fp * (math.atan(fH / at_fp) - math.atan(fL / at_fp))
+
+    def flicker(at_fp):  # integral of 1/(f (1 + (f/fp)^2)) df
+        def g(f):
+            return math.log(f) - 0.5 * math.log1p((f / at_fp) ** 2)
+        return g(fH) - g(fL)
+
+    power = sum(kt4 * ohms * g ** 2 * white(fp) for ohms, g in paths)
+    power += (iw * rfb) ** 2 * (white(fp) + fci * flicker(fp))
+    ng_white = k * k * (fH - fL) + (ng0 ** 2 - k * k) * white(fp)
+    ng_flicker = k * k * math.log(fH / fL) + (ng0 ** 2 - k * k) * flicker(fp)
+    power += ew * ew * (ng_white + fcv * ng_flicker)
+    x = stage["fref"] / fp
+    gain = stage["Cs"] / stage["Cf"] * x / math.sqrt(1 + x * x)
+    rms = math.sqrt(power)
+    return rms, rms / gain, vos + abs(ib) + ios
+
+
+def passband_gain(net):
+    """The largest |gain| in the band (the passband of a stage that blocks
+    DC, src/analysis/frequency_response.h's definition, coded here anew):
+    a scan at 40 points a decade, then bounded Brent in ln f."""
+    lo, hi = math.log(net.s["fL"]), math.log(net.s["fH"])
+    grid = np.linspace(lo, hi, int(40 * (hi - lo) / math.log(10)) + 2)
+    values = [net.signal_gain(math.exp(u)) for u in grid]
+    i = int(np.argmax(values))
+    a, b = grid[max(i - 1, 0)], grid[min(i + 1, len(grid) - 1)]
+    if b <= a:
+        return values[i]
+    best = optimize.minimize_scalar(lambda u: -net.signal_gain(math.exp(u)),
+                                    bounds=(a, b), method="bounded",
+                                    options={"xatol": 1e-10})
+    return max(values[i], -best.fun)
+
+
 def check_closed_form(stage):
     """The closed forms must be the nodal analysis's limit for an ideal
     op-amp: A0 = 1e12 with its pole at 1 MHz, no R_out, no pin capacitance.
@@ -840,7 +946,9 @@ def check_closed_form(stage):
                        input_capacitance_diff=0.0)
     net = Network(ideal)
     cf = closed_form(ideal)
-    gaps = [net.output_rms() / cf[0] - 1, net.offsets()[3] / cf[2] - 1]
+    gaps = [net.offsets()[3] / cf[2] - 1]
+    if cf[0] is not None:
+        gaps.append(net.output_rms() / cf[0] - 1)
     gaps += [net.output_rms(only=c) / cf[3][c] - 1 for c in cf[3]]
     worst = max(abs(g) for g in gaps)
     assert worst < 1e-8, gaps
@@ -956,6 +1064,21 @@ def chain_figures(stage, net):
 
 # Why each example does or does not sit in closed-form territory.
 NOTES = {
+    "accelerometer-charge-amp.json":
+        "a 1.2 nF piezo accelerometer (10 pC/g) with 10 G leakage behind a "
+        "1 k input resistor into 1 G || 1 nF: 1 mV/pC in the passband, the "
+        "low corner 1/(2 pi R_f C_f) = 0.16 Hz. At DC C_s is open, so the "
+        "noise gain is 1 + R_f/(R_in + R_leak) and the offset V_os NG + "
+        "(I_b + I_os/2) R_f; with R_in there is no noise closed form here",
+    "hydrophone-preamp.json":
+        "at 15 C (laws as for the geophone): a 4.7 nF ceramic with 20 G "
+        "leakage straight into the - input, C_f 100 pF (10 mV/pC, 4.7 mV/Pa "
+        "at 0.47 pC/Pa) with a T network of 4.7 M, 4.7 M, 10 k (R_eq 2.2 G, "
+        "the low corner 0.72 Hz) as the DC path. The T's price: the DC noise "
+        "gain 1 + R2/R3 + R_eq/R_leak = 471 multiplies V_os, and R1's noise "
+        "rides on 1 + R2/R3 through the pole 1/(2 pi R_eq C_f). Closed forms: "
+        "the ideal charge amplifier (module docstring); the finite GBW moves "
+        "the noise gain's plateau 1 + C_s/C_f little in this band",
     "large-area-receiver.json":
         "a large-area photodiode (470 pF) at zero bias, 25 C, 47 k "
         "transimpedance with 220 pF across it (its pole at 15.4 kHz, above "
@@ -965,7 +1088,7 @@ NOTES = {
         "4kT/R_f gives 0.59 pA/rtHz. Offset: V_os (1 + R_f/R_sh) + "
         "(I_b + I_os/2) R_f; the photocurrent's DC output (-0.94 V) is the "
         "signal's DC level, no offset",
-    "hydrophone-preamp.json":
+    "geophone-preamp.json":
         "at 15 C: V_os = 300 uV + 3 uV/C x 10 C, I_b and I_os halved "
         "(doubling every 10 C), 4kT at 288.15 K; no resistors block, so no "
         "tempco and no excess noise. The closed-loop bandwidth (about 19 "
@@ -1084,6 +1207,13 @@ def main():
         }
         if cap is not None:
             figures["feedback_capacitor_F"] = cap
+        if stage["Cs"] > 0:
+            # The charge figures: the passband gain and the input-referred
+            # rms (volts at the sensor) per coulomb of the sensor.
+            figures["charge_gain_V_per_C"] = passband_gain(net) / stage["Cs"]
+            closed["charge_gain_V_per_C"] = 1 / stage["Cf"]
+            figures["input_referred_charge_rms_C"] = (
+                figures["input_referred_rms"] * stage["Cs"])
         if cf[0] is not None:
             closed["output_rms_V"] = cf[0]
             # The photodiode closed form integrates S_out / |Z(f)|^2 as the
@@ -1120,6 +1250,12 @@ def main():
             method = NODAL
             if key.startswith("worst_case_V"):
                 method = NODAL_DC
+            if key == "charge_gain_V_per_C":
+                method = ("the largest |gain| in the band of this file's "
+                          "nodal analysis (scan, bounded Brent in ln f) over "
+                          "C_s; closed_form is the ideal 1/C_f")
+            if key == "input_referred_charge_rms_C":
+                method = NODAL + "; times C_s"
             if key.startswith(("chain_", "adc_")):
                 method = ("the chain on this file's nodal output density, "
                           "scipy.signal's analog filter, quad in ln f to "
