@@ -8,8 +8,11 @@
 #include <cmath>
 #include <complex>
 
+#include "analysis/mna_system.h"
 #include "base/physical_constants.h"
 #include "budget/compute_budget.h"
+#include "circuit/expand_stage.h"
+#include "fixture_stages.h"
 #include "test_support.h"
 
 namespace hushgain {
@@ -101,6 +104,71 @@ TEST_CASE("the pi arms, the output arm's load and the noise gain's term") {
   REQUIRE(ideal_out.status.ok);
   CHECK(RelErr(ideal_out.budget.noise_gain_dc, 1 + req / kRin + kR2 / kR3) <
         test::kRelIdeal);
+}
+
+MnaSystem BuildSystem(const Netlist& net) {
+  MnaSystem system;
+  const Status s = MnaSystem::Build(net, &system);
+  REQUIRE_MESSAGE(s.ok, s.message);
+  return system;
+}
+
+TEST_CASE("the pi network solved by the engine has the T network's transfers") {
+  // The star-mesh transform (Kennelly 1899 for three terminals) is exact at
+  // every frequency: the T (R1 from the summing node, R2 to the output, R3
+  // to ground) and its pi (S/R3 across, S/R2 and S/R1 to ground) give the
+  // same transfer from every excitation to the output. The stage is the
+  // JFET-like one with its source resistance, R_out, pin capacitances and
+  // load, so the arms load a real output and a node that is not at exactly
+  // zero volts. The pi is built from the plain stage with R_f = S/R3 and
+  // the two arms added to its nodes.
+  Stage tee = test::JfetTeeStage();
+  tee.feedback.capacitor_f = 10e-12;
+  const TeeNetwork& t = tee.feedback.tee;
+  const double s =
+      t.r1_ohm * t.r2_ohm + t.r2_ohm * t.r3_ohm + t.r3_ohm * t.r1_ohm;
+  Stage plain = tee;
+  plain.feedback.kind = Feedback::Kind::kResistor;
+  plain.feedback.resistor_ohm = s / t.r3_ohm;
+  Netlist pi = ExpandStage(plain);
+  NodeId summing = kGround, output = kGround;
+  for (const Resistor& r : pi.resistors)
+    if (r.name == "R_f") {
+      summing = r.a;
+      output = r.b;
+    }
+  REQUIRE(summing != kGround);
+  REQUIRE(output != kGround);
+  pi.resistors.push_back({"S/R2", summing, kGround, s / t.r2_ohm, true});
+  pi.resistors.push_back({"S/R1", output, kGround, s / t.r1_ohm, true});
+
+  const Netlist star = ExpandStage(tee);
+  NodeId star_summing = kGround;
+  for (const Resistor& r : star.resistors)
+    if (r.name == "R1") star_summing = r.a;
+  REQUIRE(star_summing != kGround);
+  const MnaSystem star_system = BuildSystem(star);
+  const MnaSystem pi_system = BuildSystem(pi);
+  AdjointSolver star_solver(star_system);
+  AdjointSolver pi_solver(pi_system);
+  // The signal, e_n (and Vos) at the + input, and a current into the
+  // summing node (i_n-, the bias current).
+  const std::vector<std::pair<Excitation, Excitation>> ports = {
+      {star.signal, pi.signal},
+      {OpAmpInputVoltage{0}, OpAmpInputVoltage{0}},
+      {CurrentInjection{star_summing, kGround},
+       CurrentInjection{summing, kGround}},
+  };
+  for (double f : {0.0, 1.0, 1e3, 1e5, 1e6, 1e7}) {
+    CAPTURE(f);
+    REQUIRE(star_solver.SolveAt(f).ok);
+    REQUIRE(pi_solver.SolveAt(f).ok);
+    for (const auto& [a, b] : ports) {
+      const Complex ts = star_solver.Transfer(star_system.Compile(a));
+      const Complex tp = pi_solver.Transfer(pi_system.Compile(b));
+      CHECK(std::abs(ts - tp) <= 1e-9 * std::abs(ts));
+    }
+  }
 }
 
 TEST_CASE("a plain feedback resistor has no pi block") {
