@@ -11,6 +11,7 @@
 
 #include "base/worker_pool.h"
 #include "circuit/inverting_topology.h"
+#include "circuit/stage_at_temperature.h"
 #include "review/tee_comparison.h"
 
 namespace hushgain {
@@ -76,6 +77,19 @@ struct Scorer {
     return rms;
   }
 };
+
+// The closed form of the stage as the full engine budgets it: ComputeBudget
+// moves the op-amp to the stage's temperature (|Vos| + |drift| |T - 25 °C|,
+// Ib and Ios by their law, i_n with the bias current:
+// circuit/stage_at_temperature.h), so the closed form takes the same
+// values. With the 25 °C values the offset bound of a stage away from 25 °C
+// was loose by the drift (every network within that margin had to be
+// budgeted) or, where Ib and i_n fall with temperature, not a bound at all.
+ClosedFormModel ModelAtTemperature(const Stage& stage) {
+  Stage at = stage;
+  at.opamp = StageAtTemperature(stage, stage.temperature_k).opamp;
+  return MakeClosedFormModel(at);
+}
 
 // What the closed-form sweep shares between its workers.
 struct Sweep {
@@ -308,7 +322,7 @@ SweepOutcome RunSweep(const Stage& stage, const TeeSearchOptions& o,
                       bool report) {
   Sweep s;
   s.options = &o;
-  s.model = MakeClosedFormModel(stage);
+  s.model = ModelAtTemperature(stage);
   s.bound_model = s.model;
   s.bound_model.plus_mode = PlusResistor::Mode::kNone;
   s.scorer = scorer;
@@ -485,7 +499,7 @@ TeeSearchResult SearchTee(const Stage& stage, const TeeSearchOptions& o) {
   const BudgetOptions& ranking_budget = o.budget;
 
   // The references of the weighted figure: the stage as given.
-  const ClosedFormModel model = MakeClosedFormModel(stage);
+  const ClosedFormModel model = ModelAtTemperature(stage);
   const ClosedFormFigures closed_ref =
       stage.feedback.kind == Feedback::Kind::kTee
           ? ClosedFormTee(model, stage.input_resistor_ohm,

@@ -8,7 +8,9 @@
 // What is guaranteed. For the rankings by input-referred noise (the
 // default) and by offset, the list is the true top N of every network in
 // tolerance under the full engine's figure (for input noise: to the
-// integrator's accuracy, below):
+// integrator's accuracy, below). The closed form takes the op-amp at the
+// stage's temperature, as the full engine does (Vos with its drift, Ib, Ios
+// and a bias-following i_n by their law: circuit/stage_at_temperature.h):
 //  - Gain. The DC gain is below the ideal Req/Ra (the loop's T/(1+T) < 1;
 //    design/closed_form_budget.h gives it exactly for the macro model), so a
 //    network with Req/Ra below the window cannot be in it; above it, the

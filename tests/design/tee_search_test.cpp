@@ -9,6 +9,7 @@
 #include <vector>
 
 #include "circuit/preferred_series.h"
+#include "circuit/stage_at_temperature.h"
 #include "test_support.h"
 
 namespace hushgain {
@@ -170,6 +171,42 @@ TEST_CASE("search by offset and by weight equal the brute force too") {
   o.ranking = TeeRanking::kWeighted;
   o.offset_weight = 0.3;
   CheckSameAsBruteForce(stage, o);
+}
+
+TEST_CASE(
+    "away from 25 C the bounds take the op-amp at the stage's temperature") {
+  // The full engine budgets the op-amp at the stage's temperature
+  // (circuit/stage_at_temperature.h): |Vos| + |drift| |T - 25 C|, Ib and
+  // Ios halved every 10 C, i_n with the bias current. At 5 C that is 250 uV
+  // of Vos instead of 150 and a quarter of the bias current. The closed
+  // form takes the same values, so the offset bound stays the full figure
+  // times the DC loop factor (header: within 1e-6, not the drift's 67 %),
+  // and both exact rankings still equal the brute force.
+  Stage stage = RealisticStage();
+  stage.temperature_k = kDeviceReferenceK - 20;
+  stage.opamp.vos_drift_v_per_k = 5e-6;
+  stage.opamp.ib_law = BiasTemperatureLaw::kDoubling;
+  stage.opamp.ib_law_value = 10;
+  stage.opamp.current_noise_temperature =
+      CurrentNoiseTemperature::kWithBiasCurrent;
+  TeeSearchOptions o;
+  o.values = SeriesValuesInRange(PreferredSeries::kE12, 1e3, 100e3);
+  o.target_gain = 250;
+  o.gain_tolerance = 0.03;
+  o.top = 5;
+  o.ranking = TeeRanking::kOffset;
+  CheckSameAsBruteForce(stage, o);
+  o.threads = 1;
+  const TeeSearchResult by_offset = SearchTee(stage, o);
+  REQUIRE(by_offset.best.size() == 5);
+  CHECK(by_offset.warnings.empty());
+  for (const TeeCandidate& c : by_offset.best) {
+    CHECK(c.score >= c.closed_score);
+    CHECK(c.score < c.closed_score * (1 + 1e-5));
+  }
+  o.ranking = TeeRanking::kInputNoise;
+  CheckSameAsBruteForce(stage, o);
+  CHECK(SearchTee(stage, o).warnings.empty());
 }
 
 TEST_CASE("search with a free input resistor equals the brute force") {
