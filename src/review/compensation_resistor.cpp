@@ -4,7 +4,7 @@
 
 namespace hushgain {
 
-Status ComputeCompensationBlock(const Stage& stage,
+Status ComputeCompensationBlock(const Stage& stage, const Budget& nominal,
                                 const BudgetOptions& options,
                                 CompensationBlock* block) {
   BudgetOptions plain = options;
@@ -14,8 +14,19 @@ Status ComputeCompensationBlock(const Stage& stage,
   without.plus_resistor_bypass_f = 0;
   Stage with = stage;
   with.plus_resistor = {PlusResistor::Mode::kValue, BalanceResistorOhm(stage)};
-  BudgetOutcome a = ComputeBudgetAsGiven(without, plain);
-  if (!a.status.ok) return a.status;
+  // A stage without R_plus (and so without its bypass) is the stage
+  // without: its own budget has the figures, the same network solved the
+  // same way.
+  const bool stage_is_without =
+      stage.plus_resistor.mode == PlusResistor::Mode::kNone &&
+      stage.plus_resistor_bypass_f == 0;
+  BudgetOutcome a;
+  if (stage_is_without) {
+    a.budget = nominal;
+  } else {
+    a = ComputeBudgetAsGiven(without, plain);
+    if (!a.status.ok) return a.status;
+  }
   BudgetOutcome b = ComputeBudgetAsGiven(with, plain);
   if (!b.status.ok) return b.status;
   block->balance_ohm = with.plus_resistor.ohms;

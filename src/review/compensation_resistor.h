@@ -14,8 +14,10 @@
 
 namespace hushgain {
 
-// `stage` is at its temperature with its feedback capacitor fixed.
-Status ComputeCompensationBlock(const Stage& stage,
+// `stage` is at its temperature with its feedback capacitor fixed;
+// `nominal` is its budget (computed with `options`), which stands for the
+// stage without R_plus when the stage has none.
+Status ComputeCompensationBlock(const Stage& stage, const Budget& nominal,
                                 const BudgetOptions& options,
                                 CompensationBlock* block);
 

@@ -39,8 +39,8 @@ BudgetOutcome ReviewStage(const Stage& stage, const ReviewOptions& options) {
   };
   if (options.compensation) {
     CompensationBlock block;
-    Status s =
-        ComputeCompensationBlock(outcome.stage_used, options.budget, &block);
+    Status s = ComputeCompensationBlock(outcome.stage_used, outcome.budget,
+                                        options.budget, &block);
     if (!s.ok) return fail(s);
     outcome.budget.compensation = block;
   }

@@ -150,6 +150,27 @@ TEST_CASE("compensation beside a dominant Vos term is not worth fitting") {
   CHECK_FALSE(c.noise_matters);
 }
 
+TEST_CASE("compensation of a stage with its own R_plus grounds the + input") {
+  // The "without" figures are those of the stage with the + input grounded:
+  // for a stage without R_plus its own budget, for one with R_plus a
+  // budget of its own. 1 M at the + input adds 4kTR and i_n+ R through the
+  // noise gain, so the two differ (common practice, no source).
+  OpAmpModel m = test::IdealOpAmp(5e-9, 0.5e-12);
+  Stage grounded = test::TeeStage(4.7e3, 47e3, 220e3, 2.2e3, m, 300.0);
+  Stage with_own = grounded;
+  with_own.plus_resistor = {PlusResistor::Mode::kValue, 1e6};
+  const Budget a = Compute(grounded);
+  const Budget b = Compute(with_own);
+  REQUIRE(a.compensation.has_value());
+  REQUIRE(b.compensation.has_value());
+  CHECK(a.compensation->noise_without_v == a.output_rms_v);
+  CHECK(a.compensation->offset_without_v == a.offset.worst_case_v);
+  CHECK(b.output_rms_v > 1.01 * a.output_rms_v);
+  CHECK(RelErr(b.compensation->noise_without_v, a.output_rms_v) < 1e-12);
+  CHECK(RelErr(b.compensation->offset_without_v, a.offset.worst_case_v) <
+        1e-12);
+}
+
 TEST_CASE(
     "a bypass capacitor across R_plus removes its noise above 1/(2 pi R C)") {
   OpAmpModel m = test::IdealOpAmp(5e-9, 0.5e-12);
