@@ -79,30 +79,42 @@ Status RefineCrossing(const GainFunction& gain, double threshold, double inside,
 
 }  // namespace
 
+ResponseMaximum LargestSampledMagnitude(const GainFunction& gain,
+                                        const std::vector<double>& f_hz,
+                                        const std::vector<double>& magnitude) {
+  ResponseMaximum out;
+  const int n = static_cast<int>(f_hz.size()) - 1;
+  int best = 0;
+  for (int i = 1; i <= n; ++i)
+    if (magnitude[i] > magnitude[best]) best = i;
+  out.magnitude = magnitude[best];
+  out.f_hz = f_hz[best];
+  out.at_low_end = best == 0;
+  if (best > 0 && best < n)
+    out.status =
+        RefineMaximum(gain, std::log(f_hz[best - 1]), std::log(f_hz[best + 1]),
+                      &out.magnitude, &out.f_hz);
+  return out;
+}
+
 ResponseMaximum LargestMagnitude(const GainFunction& gain, double f_lo_hz,
                                  double f_hi_hz, int points_per_decade) {
-  ResponseMaximum out;
   const double decades = std::log10(f_hi_hz / f_lo_hz);
   const int n =
       std::max(1, static_cast<int>(std::ceil(decades * points_per_decade)));
   std::vector<double> f(n + 1), m(n + 1);
   std::complex<double> h;
-  int best = 0;
   for (int i = 0; i <= n; ++i) {
     f[i] = f_lo_hz * std::pow(f_hi_hz / f_lo_hz, static_cast<double>(i) / n);
-    out.status = gain(f[i], &h);
-    if (!out.status.ok) return out;
+    Status status = gain(f[i], &h);
+    if (!status.ok) {
+      ResponseMaximum out;
+      out.status = status;
+      return out;
+    }
     m[i] = std::abs(h);
-    if (m[i] > m[best]) best = i;
   }
-  out.magnitude = m[best];
-  out.f_hz = f[best];
-  out.at_low_end = best == 0;
-  if (best > 0 && best < n)
-    out.status =
-        RefineMaximum(gain, std::log(f[best - 1]), std::log(f[best + 1]),
-                      &out.magnitude, &out.f_hz);
-  return out;
+  return LargestSampledMagnitude(gain, f, m);
 }
 
 PassbandResponse SummarizePassband(const GainFunction& gain, double band_low_hz,

@@ -9,6 +9,7 @@
 
 #include <complex>
 #include <functional>
+#include <vector>
 
 #include "base/status.h"
 
@@ -69,6 +70,14 @@ struct ResponseMaximum {
 };
 ResponseMaximum LargestMagnitude(const GainFunction& gain, double f_lo_hz,
                                  double f_hi_hz, int points_per_decade = 20);
+
+// The same search on samples already taken: f_hz ascending (f_hz[0] is the
+// low end), magnitude[i] = |H(f_hz[i])|; the golden-section refinement
+// between the best sample's neighbours calls `gain`. For a caller whose
+// scan of another transfer solved the network at these frequencies anyway.
+ResponseMaximum LargestSampledMagnitude(const GainFunction& gain,
+                                        const std::vector<double>& f_hz,
+                                        const std::vector<double>& magnitude);
 
 // The quality factor of a second-order low-pass read off the response: at
 // the frequency f_90 where the phase has turned by -90 degrees from its value

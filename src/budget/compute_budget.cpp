@@ -4,6 +4,7 @@
 #include <cmath>
 #include <complex>
 #include <cstdio>
+#include <utility>
 #include <vector>
 
 #include "analysis/frequency_response.h"
@@ -209,10 +210,16 @@ Status ResponseFigures(const Stage& stage, const Ports& p,
   const double f_lo =
       1e-3 * std::min(stage.band_low_hz,
                       stage.opamp.gbw_hz / stage.opamp.open_loop_gain);
+  // One adjoint solve gives every transfer to the output: the scan of the
+  // signal's response also samples the e_n noise gain, whose maximum is
+  // then refined from those samples.
+  std::vector<std::pair<double, double>> noise_gain_samples;
   PassbandResponse response = SummarizePassband(
       [&](double f, std::complex<double>* h) {
         Status st = ev.SolveAt(f);
         *h = ev.Transfer(p.signal);
+        if (st.ok && f >= f_lo && f <= f_max)
+          noise_gain_samples.push_back({f, std::abs(ev.Transfer(p.e_n))});
         return st;
       },
       stage.band_low_hz, stage.band_high_hz, f_lo, f_max, 10);
@@ -226,14 +233,27 @@ Status ResponseFigures(const Stage& stage, const Ports& p,
   b.peak_hz = response.peak_hz;
   // The e_n noise gain's true maximum over frequency, from three decades
   // below the band to the search limit; "flat" when it never rises above
-  // its DC value by more than kFlatNoiseGainDb.
-  ResponseMaximum ng = LargestMagnitude(
-      [&](double f, std::complex<double>* h) {
-        Status st = ev.SolveAt(f);
-        *h = ev.Transfer(p.e_n);
-        return st;
-      },
-      f_lo, f_max, 10);
+  // its DC value by more than kFlatNoiseGainDb. The samples serve when the
+  // scan started at f_lo itself (the response passed there); otherwise the
+  // noise gain gets its own scan.
+  const GainFunction noise_gain = [&](double f, std::complex<double>* h) {
+    Status st = ev.SolveAt(f);
+    *h = ev.Transfer(p.e_n);
+    return st;
+  };
+  std::sort(noise_gain_samples.begin(), noise_gain_samples.end());
+  ResponseMaximum ng;
+  if (!noise_gain_samples.empty() && noise_gain_samples.front().first == f_lo) {
+    std::vector<double> f_hz, magnitude;
+    for (const auto& [f, m] : noise_gain_samples) {
+      if (!f_hz.empty() && f == f_hz.back()) continue;
+      f_hz.push_back(f);
+      magnitude.push_back(m);
+    }
+    ng = LargestSampledMagnitude(noise_gain, f_hz, magnitude);
+  } else {
+    ng = LargestMagnitude(noise_gain, f_lo, f_max, 10);
+  }
   if (!ng.status.ok) return ng.status;
   b.noise_gain_flat =
       ng.at_low_end ||

@@ -6,6 +6,7 @@
 
 #include <cmath>
 #include <complex>
+#include <vector>
 
 #include "base/physical_constants.h"
 #include "test_support.h"
@@ -75,10 +76,42 @@ TEST_CASE("a second-order low-pass: -3 dB and peaking against the DC gain") {
     REQUIRE(p.status.ok);
     CHECK_FALSE(p.blocks_dc);
     CHECK(p.passband_gain == 1.0);
-    CHECK(RelErr(p.high_corner_hz, bw) < 1e-7);
+    // Brent's method refines the corner to 1e-10 in ln f.
+    CHECK(RelErr(p.high_corner_hz, bw) < 1e-9);
     CHECK(std::fabs(p.peaking_db - peaking) < 1e-9);
     CHECK(RelErr(p.peak_hz, f0 / std::sqrt(2.0)) < 1e-5);
   }
+}
+
+TEST_CASE("the largest magnitude of uneven samples is refined between them") {
+  // The same Q = 1 low-pass: |H| is largest at f0 / sqrt 2, where |H|^2 =
+  // 4/3 (derived above). Samples at uneven frequencies, as a scan of
+  // another transfer leaves them, the lowest at the range's low end.
+  const double f0 = 1e3;
+  const GainFunction h = [&](double f, std::complex<double>* out) {
+    const std::complex<double> x(0, f / f0);
+    *out = 1.0 / (1.0 + x + x * x);
+    return Status::Ok();
+  };
+  std::vector<double> f = {1.0, 10.0, 230.0, 500.0, 900.0, 1e4, 1e5};
+  std::vector<double> m;
+  for (double fi : f) {
+    std::complex<double> v;
+    REQUIRE(h(fi, &v).ok);
+    m.push_back(std::abs(v));
+  }
+  const ResponseMaximum r = LargestSampledMagnitude(h, f, m);
+  REQUIRE(r.status.ok);
+  CHECK_FALSE(r.at_low_end);
+  CHECK(RelErr(r.magnitude, std::sqrt(4.0 / 3.0)) < 1e-10);
+  CHECK(RelErr(r.f_hz, f0 / std::sqrt(2.0)) < 1e-5);
+  // A response falling from the low end: the maximum is the first sample.
+  const std::vector<double> falling = {3.0, 2.0, 1.0};
+  const ResponseMaximum low =
+      LargestSampledMagnitude(h, {1.0, 2.0, 3.0}, falling);
+  CHECK(low.at_low_end);
+  CHECK(low.magnitude == 3.0);
+  CHECK(low.f_hz == 1.0);
 }
 
 }  // namespace
