@@ -11,7 +11,7 @@ include(GNUInstallDirs)
 # (src/cli/device_folder.h), so the installed tree can move.
 file(RELATIVE_PATH hushgain_devices_from_program
   "/${CMAKE_INSTALL_BINDIR}" "/${CMAKE_INSTALL_DATADIR}/hushgain/devices")
-target_compile_definitions(hushgain PRIVATE
+target_compile_definitions(hushgain_cli PRIVATE
   HUSHGAIN_DEVICES_FROM_PROGRAM="${hushgain_devices_from_program}")
 
 install(TARGETS hushgain RUNTIME DESTINATION ${CMAKE_INSTALL_BINDIR})

@@ -6,6 +6,7 @@
 #include <cstdlib>
 #include <cstring>
 #include <iostream>
+#include <memory>
 #include <streambuf>
 
 #include "base/control_characters.h"
@@ -34,6 +35,16 @@ class AsciiStreambuf : public std::streambuf {
   }
   int sync() override { return target_->pubsync(); }
 
+ public:
+  // Passes on what is held back (a UTF-8 sequence never completed) as it
+  // is, before the filter goes.
+  void Drain() {
+    target_->sputn(pending_.data(),
+                   static_cast<std::streamsize>(pending_.size()));
+    pending_.clear();
+    target_->pubsync();
+  }
+
  private:
   void Pass() {
     const std::size_t whole = CompleteUtf8Prefix(pending_);
@@ -47,7 +58,7 @@ class AsciiStreambuf : public std::streambuf {
   std::string pending_;
 };
 
-// The run's choice, set once by main before any command runs.
+// The run's choice, set by an AsciiOutput while it lives.
 bool ascii_output = false;
 
 bool Set(const char* name) {
@@ -70,12 +81,17 @@ bool LocaleWantsAscii() {
   return ascii;
 }
 
-void UseAsciiOutput() {
-  if (ascii_output) return;
+AsciiOutput::AsciiOutput()
+    : previous_(std::cerr.rdbuf()),
+      filter_(std::make_unique<AsciiStreambuf>(previous_)) {
+  std::cerr.rdbuf(filter_.get());
   ascii_output = true;
-  // Never destroyed: std::cerr may be written to until the very end.
-  static AsciiStreambuf* const filter = new AsciiStreambuf(std::cerr.rdbuf());
-  std::cerr.rdbuf(filter);
+}
+
+AsciiOutput::~AsciiOutput() {
+  static_cast<AsciiStreambuf*>(filter_.get())->Drain();
+  std::cerr.rdbuf(previous_);
+  ascii_output = false;
 }
 
 void WriteReport(const std::string& report, const std::string& format) {

@@ -3,12 +3,14 @@
 // --ascii, or by itself when the locale's character set is not UTF-8
 // (LC_ALL, LC_CTYPE or LANG set to, say, en_US.ISO-8859-1 or C). With no
 // locale variable set at all the output stays UTF-8.
-// The choice is made once in main; ASCII applies to text and Markdown
-// reports on stdout and to every message on stderr. JSON and CSV keep
-// their data as it is (UTF-8).
+// The choice is made once per run (cli/run_cli.h); ASCII applies to text and
+// Markdown reports on stdout and to every message on stderr. JSON and CSV
+// keep their data as it is (UTF-8).
 #ifndef HUSHGAIN_CLI_TEXT_OUTPUT_H_
 #define HUSHGAIN_CLI_TEXT_OUTPUT_H_
 
+#include <memory>
+#include <streambuf>
 #include <string>
 
 namespace hushgain {
@@ -18,9 +20,22 @@ namespace hushgain {
 // nothing else in hushgain depends on the locale.
 bool LocaleWantsAscii();
 
-// Turns ASCII output on: from then on std::cerr is filtered, and
-// WriteReport spells text and Markdown in ASCII. Call once, from main.
-void UseAsciiOutput();
+// ASCII output for as long as it lives: std::cerr is filtered through a
+// buffer that spells what passes in ASCII, and WriteReport spells text and
+// Markdown in ASCII. The destructor puts std::cerr's buffer back and turns
+// ASCII off, so one process can run the command line again and again
+// (RunCli holds one for a run that asks for ASCII). Scopes do not nest.
+class AsciiOutput {
+ public:
+  AsciiOutput();
+  ~AsciiOutput();
+  AsciiOutput(const AsciiOutput&) = delete;
+  AsciiOutput& operator=(const AsciiOutput&) = delete;
+
+ private:
+  std::streambuf* previous_;
+  std::unique_ptr<std::streambuf> filter_;
+};
 
 // Writes `report` to stdout (`format`: text, markdown, json or csv) and
 // flushes. Whatever a report quotes from a stage or device file, no control

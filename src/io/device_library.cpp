@@ -1,9 +1,11 @@
 #include "io/device_library.h"
 
+#include <cmath>
 #include <filesystem>
 #include <fstream>
 #include <sstream>
 
+#include "base/printf.h"
 #include "io/read_file.h"
 #include "io/suggest.h"
 
@@ -62,6 +64,24 @@ void CheckRule(double value, Rule rule, Quantity quantity, ObjectReader& reader,
       key, std::string("expected a ") +
                (rule == Rule::kPositive ? "positive " : "non-negative ") + q +
                ", got " + reader.json().at(key).dump());
+}
+
+// The engine divides by the open-loop pole GBW / A0 (where the loop and
+// response searches start) and by A0: each positive alone, their ratio can
+// still leave the double range (1e-300 Hz over 1e300 is 0, and a search
+// from 0 Hz never moves). Checked on the whole model, so that a stage's
+// "set" is checked with the device it changes.
+void CheckOpenLoopPole(ObjectReader& reader, const OpAmpModel& model) {
+  const char* key = reader.Has("gbw")              ? "gbw"
+                    : reader.Has("open_loop_gain") ? "open_loop_gain"
+                                                   : nullptr;
+  if (key == nullptr) return;
+  const double pole = model.gbw_hz / model.open_loop_gain;
+  if (std::isnormal(pole) && std::isfinite(1 / model.open_loop_gain)) return;
+  throw reader.ErrorAt(
+      key, Printf("expected a GBW / open_loop_gain ratio (the open-loop "
+                  "pole) inside the double range, got %g Hz / %g",
+                  model.gbw_hz, model.open_loop_gain));
 }
 
 void ApplyBiasTemperature(ObjectReader& reader, OpAmpModel* model) {
@@ -213,6 +233,7 @@ void ApplyOpAmpParameters(ObjectReader& reader, OpAmpModel* model) {
     CheckRule(value, k.rule, k.quantity, reader, k.key);
     model->*k.member = value;
   }
+  CheckOpenLoopPole(reader, *model);
   ApplyBiasTemperature(reader, model);
   ApplyNoiseTables(reader, model);
   if (auto spread = reader.OptionalString("offset_distribution")) {

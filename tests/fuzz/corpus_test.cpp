@@ -56,6 +56,14 @@ TEST_CASE("every stage corpus file keeps the ParseStage contract") {
   CHECK(RunCorpus("stage", hushgain::fuzz::FuzzStage) >= 10);
 }
 
+TEST_CASE("every device corpus file keeps the device parsers' contract") {
+  CHECK(RunCorpus("device", hushgain::fuzz::FuzzDevice) >= 10);
+}
+
+TEST_CASE("every command-line corpus file keeps the command line's contract") {
+  CHECK(RunCorpus("cli", hushgain::fuzz::FuzzCli) >= 10);
+}
+
 TEST_CASE("a good quantity and empty input pass the fuzz entry points") {
   const std::string good(
       "\x00"
@@ -65,6 +73,8 @@ TEST_CASE("a good quantity and empty input pass the fuzz entry points") {
             reinterpret_cast<const std::uint8_t*>(good.data()), good.size()) ==
         "");
   CHECK(hushgain::fuzz::FuzzStage(nullptr, 0) == "");
+  CHECK(hushgain::fuzz::FuzzDevice(nullptr, 0) == "");
+  CHECK(hushgain::fuzz::FuzzCli(nullptr, 0) == "");
 }
 
 }  // namespace hushgain::test

@@ -7,11 +7,14 @@
 #include <string_view>
 
 #include "analysis/mna_system.h"
+#include "budget/compute_budget.h"
 #include "circuit/expand_stage.h"
+#include "circuit/opamp_model.h"
 #include "io/device_library.h"
 #include "io/error.h"
 #include "io/stage_parser.h"
 #include "io/units.h"
+#include "report/device_report.h"
 
 namespace hushgain::fuzz {
 namespace {
@@ -157,6 +160,67 @@ std::string CheckSolves(const Stage& stage) {
   return "";
 }
 
+// "" when a refusal keeps the message rules: one line, starting with the
+// file it names.
+std::string CheckRefusal(const Error& e, const std::string& who) {
+  const std::string message = e.what();
+  if (message.find('\n') != std::string::npos)
+    return who + " error message spans lines: " + message;
+  if (message.rfind(e.source(), 0) != 0)
+    return who + " error message does not start with its file: " + message;
+  return "";
+}
+
+// The documented rules of an accepted op-amp device; "" when all hold.
+std::string CheckOpAmp(const OpAmpModel& o) {
+  for (double v : {o.e_w_v_per_rthz, o.f_cv_hz, o.i_w_a_per_rthz, o.f_ci_hz,
+                   o.output_resistance_ohm, o.c_cm_f, o.c_diff_f, o.vos_v,
+                   o.vos_drift_v_per_k, o.ios_a})
+    if (!NonNegative(v)) return "parameter negative or not finite";
+  if (!Finite(o.ib_a) || !Finite(o.ib_law_value))
+    return "bias current or its law not finite";
+  if (o.ib_law == BiasTemperatureLaw::kDoubling && !Positive(o.ib_law_value))
+    return "doubling interval not positive";
+  if (!Positive(o.open_loop_gain) || !Positive(o.gbw_hz) ||
+      !Positive(o.output_current_limit_a) || !Positive(o.supply_v))
+    return "gain, GBW, output current or supply not positive";
+  for (const NoiseTable* t : {&o.voltage_noise_table, &o.current_noise_table}) {
+    if (const std::string why = t->Validate(); !why.empty())
+      return "noise table: " + why;
+    for (std::size_t i = 0; i < t->f_hz.size(); ++i)
+      if (!Positive(t->f_hz[i]) || !Positive(t->density[i]))
+        return "noise table point not positive and finite";
+  }
+  if (o.e_w_v_per_rthz == 0 && o.voltage_noise_table.empty() && o.f_cv_hz > 0)
+    return "a voltage noise corner without a voltage noise";
+  // The densities at the points of a table and between them are numbers.
+  for (double f : {1e-3, 0.1, 10.0, 1e3, 1e5, 1e7}) {
+    if (!NonNegative(VoltageNoiseDensity(o, f)) ||
+        !NonNegative(CurrentNoiseDensity(o, f)))
+      return "noise density not a non-negative number at " + std::to_string(f) +
+             " Hz";
+  }
+  return "";
+}
+
+// A transimpedance stage and a tee stage that take their op-amp from the
+// file "device.json" (the fuzzed bytes).
+constexpr std::string_view kDeviceStages[] = {
+    R"({"name": "device under test", "band_Hz": {"low": "1", "high": "10k"},
+  "opamp": {"device": "device.json"},
+  "source": {"photodiode": {"capacitance": "20p", "shunt_resistance": "1G",
+    "dark_current": "1n"}},
+  "stage": {"topology": "transimpedance",
+    "feedback": {"resistor": "1M", "capacitor": "2p"}}})",
+    R"({"name": "device in a tee", "band_Hz": {"low": "0.1", "high": "20k"},
+  "opamp": {"device": "device.json"},
+  "source": {"voltage": {"resistance": "1k"}},
+  "stage": {"topology": "inverting", "input_resistor": "10k",
+    "feedback": {"tee": {"r1": "100k", "r2": "100k", "r3": "1k"},
+                 "capacitor": "10p"},
+    "plus_resistor": "auto", "load": "10k"},
+  "full_scale_output_V": 10})"};
+
 }  // namespace
 
 std::string FuzzQuantity(const std::uint8_t* data, std::size_t size) {
@@ -212,6 +276,86 @@ std::string FuzzStage(const std::uint8_t* data, std::size_t size) {
   } catch (const std::exception& e) {
     return std::string("the engine threw: ") + e.what();
   }
+}
+
+std::string FuzzDevice(const std::uint8_t* data, std::size_t size) {
+  const std::string text(reinterpret_cast<const char*>(data), size);
+  DeviceLibrary library = Library();
+  bool opamp = false;
+  try {
+    DeviceFileInfo info;
+    const OpAmpModel model = ParseOpAmpDevice(text, "device.json", &info);
+    if (std::string broken = CheckOpAmp(model); !broken.empty())
+      return "accepted op-amp breaks a rule: " + broken;
+    library.opamps["device"] = model;
+    library.opamp_files["device"] = info;
+    opamp = true;
+  } catch (const Error& e) {
+    if (std::string f = CheckRefusal(e, "op-amp"); !f.empty()) return f;
+  } catch (const std::exception& e) {
+    return std::string("ParseOpAmpDevice threw a non-Error: ") + e.what();
+  }
+  bool resistor = false;
+  try {
+    DeviceFileInfo info;
+    const ResistorTechnology tech =
+        ParseResistorTechnology(text, "device.json", &info);
+    if (!Finite(tech.noise_index_db) || !Finite(tech.tempco_per_k) ||
+        !NonNegative(tech.tolerance))
+      return "accepted resistor technology breaks a rule";
+    library.resistors["device"] = tech;
+    library.resistor_files["device"] = info;
+    resistor = true;
+  } catch (const Error& e) {
+    if (std::string f = CheckRefusal(e, "resistor"); !f.empty()) return f;
+  } catch (const std::exception& e) {
+    return std::string("ParseResistorTechnology threw a non-Error: ") +
+           e.what();
+  }
+  if (opamp && resistor) return "one file accepted as two kinds of device";
+  if (!opamp && !resistor) return "";
+  try {
+    for (const char* format : {"text", "json", "markdown", "csv"}) {
+      (void)DeviceListReport(library, format);
+      (void)DeviceDetailReport(library, "device", format);
+    }
+  } catch (const std::exception& e) {
+    return std::string("the device report threw: ") + e.what();
+  }
+  if (!opamp) return "";
+  // The op-amp in two stages: parsed by name of its file, built, solved
+  // and budgeted. A refusal of the stage is an answer; a budget that says
+  // ok must hold numbers.
+  StageContext context;
+  context.library = &library;
+  context.read_file = [&text](const std::string& path) -> std::string {
+    if (path == "device.json") return text;
+    throw Error(path, "", "cannot read: no such file or directory");
+  };
+  for (std::string_view stage_text : kDeviceStages) {
+    Stage stage;
+    try {
+      stage = ParseStage(stage_text, "stage.json", context);
+    } catch (const Error& e) {
+      if (std::string f = CheckRefusal(e, "stage with the op-amp"); !f.empty())
+        return f;
+      continue;
+    } catch (const std::exception& e) {
+      return std::string("ParseStage threw a non-Error: ") + e.what();
+    }
+    try {
+      if (std::string f = CheckSolves(stage); !f.empty()) return f;
+      BudgetOptions options;
+      options.integration.relative_tolerance = 1e-3;
+      const BudgetOutcome outcome = ComputeBudget(stage, options);
+      if (outcome.status.ok && (!NonNegative(outcome.budget.output_rms_v) ||
+                                !NonNegative(outcome.budget.input_rms)))
+        return "a budget that says ok holds a noise that is not a number";
+    } catch (const std::exception& e) {
+      return std::string("the engine threw: ") + e.what();
+    }
+  }
+  return "";
 }
 
 }  // namespace hushgain::fuzz

@@ -56,6 +56,39 @@ TEST_CASE("a device file without its core parameters is refused by key") {
       Error);
 }
 
+// GBW / A0 is the open-loop pole, where the loop search starts: 1e-300 Hz
+// over 1e300 underflows to 0 and a search from 0 Hz never ended (found by
+// the device fuzzer); 1e300 Hz over 1e-300 overflows; 1 / 1e-310 is
+// beyond the double range (IEEE 754 binary64: largest 1.8e308, smallest
+// normal 2.2e-308).
+TEST_CASE("a device whose open-loop pole leaves the double range is refused") {
+  const std::string core =
+      R"({"kind": "opamp", "class": "c", "parameters": {"voltage_noise": "1n",
+          "current_noise": "1p", )";
+  CHECK_THROWS_WITH_AS(
+      ParseOpAmpDevice(core + R"("open_loop_gain": 1e300, "gbw": 1e-300}})",
+                       "x.json"),
+      "x.json: /parameters/gbw: expected a GBW / open_loop_gain ratio (the "
+      "open-loop pole) inside the double range, got 1e-300 Hz / 1e+300",
+      Error);
+  CHECK_THROWS_WITH_AS(
+      ParseOpAmpDevice(core + R"("open_loop_gain": 1e-300, "gbw": 1e300}})",
+                       "x.json"),
+      "x.json: /parameters/gbw: expected a GBW / open_loop_gain ratio (the "
+      "open-loop pole) inside the double range, got 1e+300 Hz / 1e-300",
+      Error);
+  CHECK_THROWS_WITH_AS(
+      ParseOpAmpDevice(core + R"("open_loop_gain": 1e-310, "gbw": 1e-310}})",
+                       "x.json"),
+      "x.json: /parameters/gbw: expected a GBW / open_loop_gain ratio (the "
+      "open-loop pole) inside the double range, got 1e-310 Hz / 1e-310",
+      Error);
+  // Extreme but inside the range: a 1e-100 Hz pole is a number.
+  CHECK(ParseOpAmpDevice(core + R"("open_loop_gain": 1e100, "gbw": 1}})",
+                         "x.json")
+            .gbw_hz == 1);
+}
+
 TEST_CASE("a device file with an unknown parameter gets a suggestion") {
   const char* text = R"({"kind": "opamp", "class": "c", "illustrative": "x",
                          "parameters": {"voltage_noise": "1n", "current_noise": "1p", "gbw": "1M",
