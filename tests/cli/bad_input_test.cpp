@@ -214,6 +214,16 @@ std::vector<BadInputCase> BudgetCases() {
        "error: devs/opamps/my-class.json: malformed JSON at line 1, column 10: "
        "unexpected end of "
        "input; expected '[', '{', or a literal"},
+      // Found by the device fuzzer: GBW 1e-300 Hz over A0 1e300 puts the
+      // open-loop pole at 0 Hz, where the loop search never moved on.
+      {"an op-amp whose open-loop pole leaves the double range",
+       {{"stage.json",
+         With("/opamp/set", {{"open_loop_gain", 1e300}, {"gbw", 1e-300}})}},
+       {"budget", "stage.json"},
+       2,
+       "error: stage.json: /opamp/set/gbw: expected a GBW / open_loop_gain "
+       "ratio (the open-loop pole) inside the double range, got 1e-300 Hz / "
+       "1e+300"},
       // Refused analyses: exit 1, the file named, the reason given.
       {"a phase margin no capacitor can reach",
        {{"stage.json", unreachable.dump(2)}},
@@ -243,7 +253,7 @@ TEST_CASE(
     "budget: every bad-input case exits 2 (1 when refused) with one line and "
     "no harm") {
   const std::vector<BadInputCase> cases = BudgetCases();
-  CHECK(cases.size() == 20);  // the count in tests/README.md
+  CHECK(cases.size() == 21);  // the count in tests/README.md
   for (const BadInputCase& c : cases) RunCase(c);
 }
 

@@ -252,13 +252,14 @@ class Bytes {
   bool more() const { return at_ < size_; }
   unsigned Next() { return at_ < size_ ? data_[at_++] : 0; }
   // A token of the fuzzer's own: up to 31 bytes, "/" made "_" so that no
-  // raw path leaves the scratch folder.
+  // raw path leaves the scratch folder, and NUL made "_" as a command line
+  // cannot hold it.
   std::string Raw() {
     const std::size_t length = Next() % 32;
     std::string text;
     for (std::size_t i = 0; i < length && more(); ++i) {
       const char c = static_cast<char>(Next());
-      text += c == '/' ? '_' : c;
+      text += c == '/' || c == '\0' ? '_' : c;
     }
     return text;
   }
@@ -395,7 +396,8 @@ Argv BuildArgv(const std::uint8_t* data, std::size_t size) {
     }
   }
   // Bounded work: small counts, one worker thread unless asked, a small
-  // series for a search that also draws the input resistor.
+  // series for a search that also draws the input resistor, and for tia
+  // suggest unless asked (a budget per value of the series).
   const std::string first = command->words.front();
   if (first == "spread" && !Mentions(w, "--samples")) {
     w.push_back("--samples");
@@ -405,6 +407,11 @@ Argv BuildArgv(const std::uint8_t* data, std::size_t size) {
       !Mentions(w, "--threads")) {
     w.push_back("--threads");
     w.push_back("1");
+  }
+  if (command->words.back() == std::string("suggest") &&
+      !Mentions(w, "--series")) {
+    w.push_back("--series");
+    w.push_back("E6");
   }
   if (Mentions(w, "--free-input")) {
     bool series = false;

@@ -191,8 +191,6 @@ std::string CheckOpAmp(const OpAmpModel& o) {
       if (!Positive(t->f_hz[i]) || !Positive(t->density[i]))
         return "noise table point not positive and finite";
   }
-  if (o.e_w_v_per_rthz == 0 && o.voltage_noise_table.empty() && o.f_cv_hz > 0)
-    return "a voltage noise corner without a voltage noise";
   // The densities at the points of a table and between them are numbers.
   for (double f : {1e-3, 0.1, 10.0, 1e3, 1e5, 1e7}) {
     if (!NonNegative(VoltageNoiseDensity(o, f)) ||
