@@ -14,6 +14,9 @@ Stage SecondStageInChain(const Stage& front, const Stage& network) {
   s.band_low_hz = front.band_low_hz;
   s.band_high_hz = front.band_high_hz;
   s.reference_hz = front.reference_hz;
+  // Its swing is the front stage's times its gain: the converter's check
+  // (chain/chain_budget.h) sees it, not its own headroom figure.
+  s.full_scale_output_v.reset();
   s.chain.reset();
   return s;
 }

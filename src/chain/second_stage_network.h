@@ -13,7 +13,8 @@
 //
 // It is evaluated as part of the front stage's circuit: at the front
 // stage's temperature, over its band and reference frequency (the file's
-// own band_Hz, reference_frequency_Hz and temperature_C are not used), with
+// own band_Hz, reference_frequency_Hz, temperature_C and
+// full_scale_output_V are not used), with
 // an "auto" feedback capacitor chosen by its own budget
 // (budget/compute_budget.h), whose warnings are handed on, each starting
 // "second stage <file>: ".
@@ -61,7 +62,8 @@ class SecondStageNetwork {
 };
 
 // The second stage's Stage as the chain evaluates it: `network` with the
-// front stage's temperature, band and reference, no temperature range.
+// front stage's temperature, band and reference, no temperature range and
+// no full-scale output of its own.
 Stage SecondStageInChain(const Stage& front, const Stage& network);
 
 }  // namespace hushgain

@@ -3,6 +3,7 @@
 #include <cstdio>
 
 #include "base/printf.h"
+#include "chain/chain_noise.h"
 #include "io/units.h"
 #include "report/budget_tables.h"
 #include "report/csv_report.h"
@@ -160,8 +161,13 @@ std::vector<std::pair<std::string, std::string>> ChainNotes(const Budget& b) {
   for (const ChainNoiseShare& block : c.blocks)
     if (block.name == c.dominant)
       dominant += " (" + FormatShare(block.share) + ")";
-  if (c.dominant == "front end" && !c.front_end_contributors.empty()) {
-    const ChainNoiseShare& top = c.front_end_contributors.front();
+  const std::vector<ChainNoiseShare>* within = nullptr;
+  if (c.dominant == "front end") within = &c.front_end_contributors;
+  if (c.chain.second_stage &&
+      c.dominant == SecondStageBlockName(*c.chain.second_stage))
+    within = &c.second_stage_contributors;
+  if (within && !within->empty()) {
+    const ChainNoiseShare& top = within->front();
     dominant += "; its largest contributor " + top.name + " (" +
                 FormatShare(top.share) + " of the total)";
   }

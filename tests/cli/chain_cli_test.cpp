@@ -216,6 +216,50 @@ TEST_CASE("a second stage file that is not there is one line naming its path") {
                      path + "): a stage cannot follow itself\n");
 }
 
+TEST_CASE(
+    "a second stage file hands on its warnings and names its largest part") {
+  // The second stage R_in 1 M, R_f 10 M on the precision-bipolar class:
+  // at its output R_in's 4kT R_in (R_f/R_in)^2 is ten times R_f's 4kT R_f
+  // and far above e_n NG = 8 nV x 11 (REFERENCES.md section 6), so it is
+  // the block's largest contributor; 10 M against the class's 4 pF pins
+  // leaves it a low phase margin, which its own budget warns of.
+  TempFolder dir("chain-second-warnings");
+  json front = json::parse(test::BadInputBaseStageText());
+  front["stage"]["input_resistor"] = "100k";
+  front["chain"] = json::parse(R"({"second_stage": {"stage": "second.json"},
+      "adc": {"bits": 16, "full_scale": "4.096", "sample_rate": "100k"}})");
+  json second = json::parse(test::BadInputBaseStageText());
+  second["name"] = "noisy second";
+  second.erase("source");
+  second["opamp"]["device"] = "precision-bipolar";
+  second["stage"]["input_resistor"] = "1M";
+  second["stage"]["feedback"]["resistor"] = "10M";
+  const std::string front_path = dir.Write("front.json", front.dump(2));
+  const std::string second_path = dir.Write("second.json", second.dump(2));
+  const auto r = RunHushgain({"budget", front_path});
+  REQUIRE(r.exit_code == 0);
+  // Its band and temperature are the front stage's here, so its own
+  // budget's warnings are the ones it hands on.
+  const auto alone = RunHushgain({"budget", second_path});
+  REQUIRE(alone.exit_code == 0);
+  const std::string prefix = "warning: ";
+  int handed_on = 0;
+  for (const std::string& line : test::Lines(alone.err)) {
+    REQUIRE(line.rfind(prefix, 0) == 0);
+    CAPTURE(line);
+    CHECK(r.err.find(prefix + "second stage second.json: " +
+                     line.substr(prefix.size()) + "\n") != std::string::npos);
+    ++handed_on;
+  }
+  CHECK(handed_on >= 1);
+  CHECK(alone.err.find("phase margin") != std::string::npos);
+  CHECK(r.out.find("  dominant               second stage second.json (") !=
+        std::string::npos);
+  const std::size_t dominant = r.out.find("  dominant ");
+  CHECK(r.out.find("its largest contributor R_in (", dominant) !=
+        std::string::npos);
+}
+
 TEST_CASE("examples without a chain print no chain") {
   for (const std::string& example : test::ExamplePaths()) {
     const json stage = json::parse(test::ReadAll(example));
