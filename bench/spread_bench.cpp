@@ -4,7 +4,7 @@
 //                   GBW, tolerances and a temperature range), in process,
 //                   on every hardware thread; the median of 5 runs (s)
 //   spread_tee_1e6  the whole `hushgain spread` process on the T-network
-//                   example (examples/hydrophone-preamp.json), 1e6 samples
+//                   example (examples/geophone-preamp.json), 1e6 samples
 //                   on 2 threads, report to /dev/null: its wall time (s)
 //                   and its peak resident memory (MB, the kernel's
 //                   ru_maxrss of the process), the medians of 3 runs
@@ -53,7 +53,7 @@ void BenchInProcess() {
 void BenchProcess() {
   const std::string binary = HUSHGAIN_BINARY;
   const std::string stage_path =
-      std::string(HUSHGAIN_SOURCE_DIR) + "/examples/hydrophone-preamp.json";
+      std::string(HUSHGAIN_SOURCE_DIR) + "/examples/geophone-preamp.json";
   std::vector<std::string> storage = {
       binary, "spread", stage_path, "--samples", "1000000", "--threads", "2"};
   std::vector<char*> argv;
