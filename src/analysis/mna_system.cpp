@@ -158,51 +158,77 @@ Port MnaSystem::Compile(const Excitation& excitation) const {
 
 AdjointSolver::AdjointSolver(const MnaSystem& system)
     : system_(&system),
-      yt_(system.size(), system.size()),
-      lu_(system.size()),
-      condition_lu_(system.size()),
-      rhs_(ComplexVector::Zero(system.size())),
-      z_(system.size()),
-      residual_(system.size()),
-      row_scale_(system.size()),
-      column_scale_(system.size()),
-      scaled_(system.size(), system.size()),
-      scaled_rhs_(system.size()) {
+      n_(system.size()),
+      g_t_(static_cast<std::size_t>(n_) * n_),
+      c_t_(static_cast<std::size_t>(n_) * n_),
+      a_re_(static_cast<std::size_t>(n_) * n_),
+      a_im_(static_cast<std::size_t>(n_) * n_),
+      lu_(n_),
+      condition_lu_(n_),
+      rhs_(ComplexVector::Zero(n_)),
+      z_(n_),
+      row_scale_(n_),
+      column_scale_(n_),
+      scaled_(n_, n_),
+      scaled_rhs_(n_) {
   if (system.output_index() >= 0) rhs_[system.output_index()] = 1.0;
+  // Y^T row by row: row i of Y^T is column i of G and C.
+  for (int i = 0; i < n_; ++i)
+    for (int j = 0; j < n_; ++j) {
+      g_t_[i * n_ + j] = system.g()(j, i);
+      c_t_[i * n_ + j] = system.c()(j, i);
+    }
 }
 
 Status AdjointSolver::SolveAt(double f_hz) {
   const double w = 2.0 * kPi * f_hz;
-  yt_.real() = system_->g().transpose();
-  yt_.imag() = w * system_->c().transpose();
-  // Equilibrate: scale each row, then each column, to a largest entry of 1,
-  // sizes measured as |re| + |im| (within sqrt 2 of the modulus, and no
-  // hypot: see analysis/small_complex_lu.h).
-  const int n = system_->size();
+  const int n = n_;
+  double* ar = a_re_.data();
+  double* ai = a_im_.data();
+  // Y^T = G^T + j w C^T, row by row, with each row's largest entry and its
+  // sum for the residual's scale. Equilibrate: scale each row, then each
+  // column, to a largest entry of 1, sizes measured as |re| + |im| (within
+  // sqrt 2 of the modulus, and no hypot: see analysis/small_complex_lu.h).
+  double row_sum_max = 0;
   for (int i = 0; i < n; ++i) {
-    double m = 0;
-    for (int j = 0; j < n; ++j) m = std::max(m, Size(yt_(i, j)));
-    row_scale_[i] = m > 0 ? 1.0 / m : 1.0;
+    double largest = 0, sum = 0;
+    for (int j = 0; j < n; ++j) {
+      const double re = g_t_[i * n + j], im = w * c_t_[i * n + j];
+      ar[i * n + j] = re;
+      ai[i * n + j] = im;
+      const double size = std::fabs(re) + std::fabs(im);
+      largest = std::max(largest, size);
+      sum += size;
+    }
+    row_scale_[i] = largest > 0 ? 1.0 / largest : 1.0;
+    row_sum_max = std::max(row_sum_max, sum);
   }
   for (int j = 0; j < n; ++j) {
     double m = 0;
     for (int i = 0; i < n; ++i)
-      m = std::max(m, Size(yt_(i, j)) * row_scale_[i]);
+      m = std::max(m, (std::fabs(ar[i * n + j]) + std::fabs(ai[i * n + j])) *
+                          row_scale_[i]);
     column_scale_[j] = m > 0 ? 1.0 / m : 1.0;
   }
-  for (int j = 0; j < n; ++j)
-    for (int i = 0; i < n; ++i)
-      scaled_(i, j) = yt_(i, j) * (row_scale_[i] * column_scale_[j]);
+  for (int i = 0; i < n; ++i)
+    for (int j = 0; j < n; ++j) {
+      const double scale = row_scale_[i] * column_scale_[j];
+      ar[i * n + j] *= scale;
+      ai[i * n + j] *= scale;
+    }
   // A column without a nonzero pivot is singular. The condition estimate
   // (a third of the cost of a solve) runs only when the pivots spread over
   // more than 1e6, the sign of a badly conditioned system.
-  bool singular = !lu_.Factor(scaled_);
+  bool singular = !lu_.Factor(ar, ai);
   if (!singular) {
     const double smallest_pivot = lu_.SmallestPivot();
     const bool suspicious =
         smallest_pivot < kPivotSpreadForConditionCheck * lu_.LargestPivot();
     singular = !(smallest_pivot >= kMinReciprocalCondition);
     if (!singular && suspicious) {
+      for (int i = 0; i < n; ++i)
+        for (int j = 0; j < n; ++j)
+          scaled_(i, j) = Complex(ar[i * n + j], ai[i * n + j]);
       condition_lu_.compute(scaled_);
       singular = !(condition_lu_.rcond() >= kMinReciprocalCondition);
     }
@@ -215,9 +241,21 @@ Status AdjointSolver::SolveAt(double f_hz) {
   scaled_rhs_ = row_scale_.asDiagonal() * rhs_;
   lu_.Solve(scaled_rhs_, &z_);
   z_.array() *= column_scale_.array();
-  residual_.noalias() = yt_ * z_;
-  residual_ -= rhs_;
-  const double relative = RelativeResidual(yt_, z_, residual_);
+  // The residual Y^T z - e_out against |Y^T| |z| + 1, in the norms of
+  // RelativeResidual, from the unscaled matrix.
+  double z_max = 0, r_max = 0;
+  for (int i = 0; i < n; ++i) z_max = std::max(z_max, Size(z_[i]));
+  for (int i = 0; i < n; ++i) {
+    double sr = -rhs_[i].real(), si = -rhs_[i].imag();
+    for (int j = 0; j < n; ++j) {
+      const double gr = g_t_[i * n + j], gi = w * c_t_[i * n + j];
+      const double zr = z_[j].real(), zi = z_[j].imag();
+      sr += gr * zr - gi * zi;
+      si += gr * zi + gi * zr;
+    }
+    r_max = std::max(r_max, std::fabs(sr) + std::fabs(si));
+  }
+  const double relative = r_max / (row_sum_max * z_max + 1.0);
   if (!z_.allFinite() || !(relative <= kMaxRelativeResidual))
     return Status::Fail(
         "the network is singular or too ill-conditioned to "

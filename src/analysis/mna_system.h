@@ -93,15 +93,20 @@ class AdjointSolver {
 
  private:
   const MnaSystem* system_;
-  ComplexMatrix yt_;
+  int n_;
+  // Y^T's real and imaginary parts (G^T, C^T) and the equilibrated Y^T at
+  // the last frequency, row-major.
+  std::vector<double> g_t_;
+  std::vector<double> c_t_;
+  std::vector<double> a_re_;
+  std::vector<double> a_im_;
   SmallComplexLu lu_;
   ComplexLu condition_lu_;  // only for the condition estimate
   ComplexVector rhs_;
   ComplexVector z_;
-  ComplexVector residual_;
   Eigen::VectorXd row_scale_;
   Eigen::VectorXd column_scale_;
-  ComplexMatrix scaled_;
+  ComplexMatrix scaled_;  // only for the condition estimate
   ComplexVector scaled_rhs_;
 };
 

@@ -11,18 +11,29 @@ SmallComplexLu::SmallComplexLu(int n)
       re_(static_cast<std::size_t>(n) * n),
       im_(static_cast<std::size_t>(n) * n),
       pivot_(n),
+      inverse_re_(n),
+      inverse_im_(n),
+      work_matrix_re_(static_cast<std::size_t>(n) * n),
+      work_matrix_im_(static_cast<std::size_t>(n) * n),
       work_re_(n),
       work_im_(n) {}
 
 bool SmallComplexLu::Factor(const ComplexMatrix& a) {
   const int n = n_;
-  double* ar = re_.data();
-  double* ai = im_.data();
   for (int i = 0; i < n; ++i)
     for (int j = 0; j < n; ++j) {
-      ar[i * n + j] = a(i, j).real();
-      ai[i * n + j] = a(i, j).imag();
+      work_matrix_re_[i * n + j] = a(i, j).real();
+      work_matrix_im_[i * n + j] = a(i, j).imag();
     }
+  return Factor(work_matrix_re_.data(), work_matrix_im_.data());
+}
+
+bool SmallComplexLu::Factor(const double* re, const double* im) {
+  const int n = n_;
+  double* ar = re_.data();
+  double* ai = im_.data();
+  std::copy(re, re + n * n, ar);
+  std::copy(im, im + n * n, ai);
   for (int k = 0; k < n; ++k) {
     int p = k;
     double best = std::fabs(ar[k * n + k]) + std::fabs(ai[k * n + k]);
@@ -50,6 +61,8 @@ bool SmallComplexLu::Factor(const ComplexMatrix& a) {
       inv_r = r / d;
       inv_i = -1 / d;
     }
+    inverse_re_[k] = inv_r;
+    inverse_im_[k] = inv_i;
     for (int i = k + 1; i < n; ++i) {
       const double xr = ar[i * n + k], xi = ai[i * n + k];
       if (xr == 0 && xi == 0) continue;
@@ -98,33 +111,34 @@ void SmallComplexLu::Solve(const ComplexVector& b, ComplexVector* x) const {
       sr -= ur * zr[j] - ui * zi[j];
       si -= ur * zi[j] + ui * zr[j];
     }
-    // (sr + j si) / (pr + j pi), Smith's division.
-    const double pr = ar[i * n + i], pi = ai[i * n + i];
-    if (std::fabs(pr) >= std::fabs(pi)) {
-      const double r = pi / pr, d = pr + pi * r;
-      zr[i] = (sr + si * r) / d;
-      zi[i] = (si - sr * r) / d;
-    } else {
-      const double r = pr / pi, d = pr * r + pi;
-      zr[i] = (sr * r + si) / d;
-      zi[i] = (si * r - sr) / d;
-    }
+    // Times 1 / U(i, i), kept from the factorization: a division costs
+    // more than the whole row's products.
+    const double ir = inverse_re_[i], ii = inverse_im_[i];
+    zr[i] = sr * ir - si * ii;
+    zi[i] = sr * ii + si * ir;
   }
   x->resize(n);
   for (int i = 0; i < n; ++i) (*x)[i] = Complex(zr[i], zi[i]);
 }
 
+// The pivots' moduli without hypot: sqrt(re^2 + im^2) is exact to rounding
+// unless the squares overflow or underflow, for moduli beyond 1e+-150, far
+// outside any threshold the solvers compare them with (such a pivot reads
+// as infinity or 0).
+double SmallComplexLu::PivotModulus(int k) const {
+  const double re = re_[k * n_ + k], im = im_[k * n_ + k];
+  return std::sqrt(re * re + im * im);
+}
+
 double SmallComplexLu::SmallestPivot() const {
   double m = INFINITY;
-  for (int k = 0; k < n_; ++k)
-    m = std::min(m, std::hypot(re_[k * n_ + k], im_[k * n_ + k]));
+  for (int k = 0; k < n_; ++k) m = std::min(m, PivotModulus(k));
   return m;
 }
 
 double SmallComplexLu::LargestPivot() const {
   double m = 0;
-  for (int k = 0; k < n_; ++k)
-    m = std::max(m, std::hypot(re_[k * n_ + k], im_[k * n_ + k]));
+  for (int k = 0; k < n_; ++k) m = std::max(m, PivotModulus(k));
   return m;
 }
 

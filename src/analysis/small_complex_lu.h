@@ -28,6 +28,9 @@ class SmallComplexLu {
   // Factors `a` (n x n). Returns false when a column has no nonzero pivot
   // or an entry is not finite; the factors are then unusable.
   bool Factor(const ComplexMatrix& a);
+  // The same for a matrix given row-major as real and imaginary parts
+  // (n x n each), read and not changed.
+  bool Factor(const double* re, const double* im);
 
   // Solves A x = b with the last factors (x may not alias b).
   void Solve(const ComplexVector& b, ComplexVector* x) const;
@@ -37,10 +40,16 @@ class SmallComplexLu {
   double LargestPivot() const;
 
  private:
+  double PivotModulus(int k) const;
+
   int n_;
   std::vector<double> re_;  // row-major, L below the diagonal, U on and above
   std::vector<double> im_;
-  std::vector<int> pivot_;  // row swapped with row k at step k
+  std::vector<int> pivot_;          // row swapped with row k at step k
+  std::vector<double> inverse_re_;  // 1 / U(k, k), for the solves
+  std::vector<double> inverse_im_;
+  std::vector<double> work_matrix_re_;  // a ComplexMatrix split, row-major
+  std::vector<double> work_matrix_im_;
   mutable std::vector<double> work_re_;
   mutable std::vector<double> work_im_;
 };

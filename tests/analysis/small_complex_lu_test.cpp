@@ -60,6 +60,26 @@ TEST_CASE("small complex lu agrees with the inverse of a 2x2 matrix") {
         kRelTight * lu.SmallestPivot());
 }
 
+TEST_CASE("small complex lu factors a matrix given as split parts") {
+  // Row-major real and imaginary parts of A = [[0, 1 + 2j], [3 - 1j, 4]]
+  // (a zero leading entry: it must pivot) and b = A x0 for a chosen x0.
+  const double re[4] = {0, 1, 3, 4};
+  const double im[4] = {0, 2, -1, 0};
+  ComplexVector x0(2);
+  x0 << Complex(2, -1), Complex(-0.5, 3);
+  ComplexMatrix a(2, 2);
+  for (int i = 0; i < 2; ++i)
+    for (int j = 0; j < 2; ++j) a(i, j) = Complex(re[i * 2 + j], im[i * 2 + j]);
+  const ComplexVector b = a * x0;
+  SmallComplexLu lu(2);
+  REQUIRE(lu.Factor(re, im));
+  ComplexVector x;
+  lu.Solve(b, &x);
+  CHECK(Distance(x, x0) < kRelTight);
+  CHECK(re[0] == 0);  // the input is read, not changed
+  CHECK(im[1] == 2);
+}
+
 TEST_CASE("small complex lu refuses a matrix with a zero column") {
   ComplexMatrix a = ComplexMatrix::Zero(3, 3);
   a(0, 0) = Complex(1, 1);
