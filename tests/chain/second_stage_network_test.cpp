@@ -215,6 +215,41 @@ TEST_CASE("a second stage file that cuts the band says so by its name") {
         b.warnings.end());
 }
 
+TEST_CASE(
+    "a second stage file with an automatic C_f is solved with its choice") {
+  // "auto" C_f: its own budget chooses it (budget/feedback_capacitor.h);
+  // the network the chain solves must be that one, so |G2|^2 at the
+  // budget's -3 dB corner is half its passband gain squared (the corner's
+  // definition, analysis/frequency_response.h).
+  // 100 k into 10 M with 50 pF pins: without C_f the loop rings.
+  OpAmpModel opamp = test::JfetLikeOpAmp();
+  opamp.c_cm_f = 50e-12;
+  opamp.c_diff_f = 50e-12;
+  Stage network = test::InvertingStage(100e3, 10e6, opamp);
+  network.capacitor_target = CapacitorTarget{};
+  const Stage front = Front(FileStage(network, "auto.json"));
+  SecondStageNetwork net;
+  REQUIRE(net.Prepare(front, *front.chain->second_stage, BudgetOptions{}).ok);
+  const SecondStageFigures& fig = net.figures();
+  REQUIRE(fig.bandwidth_3db_hz > 0);
+  std::vector<double> psd(net.spectra().names.size());
+  double g2 = 0;
+  REQUIRE(net.spectra().densities(fig.bandwidth_3db_hz, &g2, psd.data()).ok);
+  CHECK(RelErr(g2, fig.passband_gain * fig.passband_gain / 2) < 1e-6);
+  // Without a C_f the same network is well away from that at the corner,
+  // so the check above sees which network was solved.
+  Stage bare = network;
+  bare.capacitor_target.reset();
+  SecondStageNetwork none;
+  REQUIRE(
+      none.Prepare(front, FileStage(bare, "bare.json"), BudgetOptions{}).ok);
+  double bare_g2 = 0;
+  psd.resize(none.spectra().names.size());
+  REQUIRE(
+      none.spectra().densities(fig.bandwidth_3db_hz, &bare_g2, psd.data()).ok);
+  CHECK(RelErr(bare_g2, fig.passband_gain * fig.passband_gain / 2) > 0.1);
+}
+
 TEST_CASE("the chain's samples see the second stage file's gain") {
   // SampleChain's density at f is the front stage's white S_1 times
   // |G2(f)|^2 = 100 for an ideal x(-10) stage, plus its own white S_2,
