@@ -66,6 +66,8 @@ struct Model {
   std::vector<ResistorInfo> resistors;
   std::vector<SourceSlot> sources;
   std::vector<QuadratureNode> nodes;
+  std::vector<double> inverse_f;  // 1 / f of each node
+  std::vector<int> table_slots;   // the sources with a tabulated density
   // A tabulated density at every node: row r of the sources with a table,
   // table_psd[r * nodes.size() + node] (fixed per run: tabulated once).
   std::vector<double> table_psd;
@@ -122,11 +124,16 @@ struct Workspace {
         ohms(m.resistors.size()),
         farads(m.capacitors.size()),
         slots(m.sources),
+        level(m.sources.size()),
+        slope(m.sources.size()),
         rhs(m.system.size()) {}
   RestampSolver solver;
   std::vector<double> ohms;
   std::vector<double> farads;
   std::vector<SourceSlot> slots;
+  // A slot's density at f without its table: level + slope / f.
+  std::vector<double> level;
+  std::vector<double> slope;
   std::vector<double> rhs;
   HeadroomInputs headroom;  // reused per sample
 };
@@ -230,20 +237,29 @@ Status EvaluateAt(const Model& m, const Draw& d, Workspace& w,
           ExcessNoiseCoefficient(r.noise_index_db, va - vb) / (ohms * ohms);
     }
   }
+  // white (1 + corner / f) + flicker / f as level + slope / f: no division
+  // in the loop over nodes, the tables added apart.
+  const std::size_t slot_count = w.slots.size();
+  for (std::size_t k = 0; k < slot_count; ++k) {
+    const SourceSlot& slot = w.slots[k];
+    w.level[k] = slot.white;
+    w.slope[k] = slot.white * slot.corner + slot.flicker;
+  }
   double power = 0;
   const std::size_t node_count = m.nodes.size();
   for (std::size_t q = 0; q < node_count; ++q) {
     const QuadratureNode& node = m.nodes[q];
     st = s.SolveAdjoint(node.f_hz);
     if (!st.ok) return st;
-    const double f = node.f_hz;
+    const double inv_f = m.inverse_f[q];
     double psd = 0;
-    for (const SourceSlot& slot : w.slots) {
-      double source = slot.white * (1.0 + slot.corner / f) + slot.flicker / f;
-      if (slot.table_row >= 0)
-        source +=
-            slot.table_scale * m.table_psd[slot.table_row * node_count + q];
-      psd += s.TransferNorm(slot.port) * source;
+    for (std::size_t k = 0; k < slot_count; ++k)
+      psd +=
+          s.TransferNorm(w.slots[k].port) * (w.level[k] + w.slope[k] * inv_f);
+    for (const int k : m.table_slots) {
+      const SourceSlot& slot = w.slots[k];
+      psd += s.TransferNorm(slot.port) * slot.table_scale *
+             m.table_psd[slot.table_row * node_count + q];
     }
     power += node.weight_hz * psd;
   }
@@ -308,6 +324,8 @@ Status BuildModel(const Stage& stage, const BudgetOutcome& nominal, Model* m) {
   m->full_scale_v = stage.full_scale_output_v;
   m->supply_v = stage.opamp.supply_v;
   m->nodes = QuadratureNodes(nominal.noise_partition);
+  for (const QuadratureNode& node : m->nodes)
+    m->inverse_f.push_back(1.0 / node.f_hz);
   const Netlist& net = m->netlist;
   for (const Resistor& r : net.resistors) {
     ResistorInfo info;
@@ -363,6 +381,8 @@ Status BuildModel(const Stage& stage, const BudgetOutcome& nominal, Model* m) {
       for (const QuadratureNode& node : m->nodes)
         m->table_psd.push_back(src.table.PsdAt(node.f_hz));
     }
+    if (slot.table_row >= 0)
+      m->table_slots.push_back(static_cast<int>(m->sources.size()));
     slot.follows_dark = src.kind == NoiseKind::kShot && src.name == "I_dark";
     if (src.kind == NoiseKind::kThermal)
       slot.thermal_of = noisy[next_thermal++];
