@@ -16,29 +16,37 @@ constexpr double kCrossoverTolerance = 1e-10;
 
 LoopGainSolver::LoopGainSolver(const MnaSystem& system, int opamp,
                                const OpAmpModel& model)
-    : g_(system.g()),
-      c_(system.c()),
-      y_(system.size(), system.size()),
-      lu_(system.size()),
-      b_(ComplexVector::Zero(system.size())),
-      x_(system.size()),
+    : n_(system.size()),
+      g_(static_cast<std::size_t>(n_) * n_),
+      c_(static_cast<std::size_t>(n_) * n_),
+      y_re_(static_cast<std::size_t>(n_) * n_),
+      y_im_(static_cast<std::size_t>(n_) * n_),
+      lu_(n_),
+      b_(ComplexVector::Zero(n_)),
+      x_(n_),
       plus_(system.OpAmpPlus(opamp)),
       minus_(system.OpAmpMinus(opamp)),
       inverse_a0_(1.0 / model.open_loop_gain),
       inverse_wt_(1.0 / (2.0 * kPi * model.gbw_hz)) {
+  for (int i = 0; i < n_; ++i)
+    for (int j = 0; j < n_; ++j) {
+      g_[i * n_ + j] = system.g()(i, j);
+      c_[i * n_ + j] = system.c()(i, j);
+    }
   // Replace the controlled-source row by V_amp = 1.
   const int row = system.OpAmpRow(opamp);
-  g_.row(row).setZero();
-  c_.row(row).setZero();
-  g_(row, system.OpAmpAmplifierNode(opamp)) = 1.0;
+  for (int j = 0; j < n_; ++j) g_[row * n_ + j] = c_[row * n_ + j] = 0;
+  g_[row * n_ + system.OpAmpAmplifierNode(opamp)] = 1.0;
   b_[row] = 1.0;
 }
 
 Status LoopGainSolver::LoopGainAt(double f_hz, Complex* loop_gain) {
   const double w = 2.0 * kPi * f_hz;
-  y_.real() = g_;
-  y_.imag() = w * c_;
-  if (!lu_.Factor(y_))
+  for (std::size_t i = 0; i < g_.size(); ++i) {
+    y_re_[i] = g_[i];
+    y_im_[i] = w * c_[i];
+  }
+  if (!lu_.Factor(y_re_.data(), y_im_.data()))
     return Status::Fail("the loop cannot be solved at " + HzText(f_hz));
   lu_.Solve(b_, &x_);
   if (!x_.allFinite())

@@ -10,6 +10,8 @@
 #ifndef HUSHGAIN_ANALYSIS_LOOP_GAIN_H_
 #define HUSHGAIN_ANALYSIS_LOOP_GAIN_H_
 
+#include <vector>
+
 #include "analysis/linear_algebra.h"
 #include "analysis/mna_system.h"
 #include "analysis/small_complex_lu.h"
@@ -26,9 +28,13 @@ class LoopGainSolver {
   Status LoopGainAt(double f_hz, Complex* loop_gain);
 
  private:
-  RealMatrix g_;
-  RealMatrix c_;
-  ComplexMatrix y_;
+  int n_;
+  // G and C with the controlled-source row replaced, and Y at the last
+  // frequency, row-major (the split storage SmallComplexLu reads).
+  std::vector<double> g_;
+  std::vector<double> c_;
+  std::vector<double> y_re_;
+  std::vector<double> y_im_;
   SmallComplexLu lu_;
   ComplexVector b_;
   ComplexVector x_;
