@@ -504,6 +504,44 @@ void RefuseUnknownOptions(CLI::App* app, int argc, char** argv) {
   }
 }
 
+// "--name=" with nothing after the "=" becomes "--name" and "", so an empty
+// value is refused as `--name ""` is ("--spectrum: expected a file name, got
+// """). Left whole, CLI11 would take the next word as the value: "budget
+// s.json --spectrum= --json" wrote the spectrum to a file named "--json".
+std::vector<std::string> SplitEmptyValues(CLI::App* app, int argc,
+                                          char** argv) {
+  std::vector<std::string> words;
+  CLI::App* current = app;
+  bool positional = false;  // after "--"
+  for (int i = 0; i < argc; ++i) {
+    const std::string word = argv[i];
+    words.push_back(word);
+    if (i == 0 || positional) continue;
+    if (word == "--") {
+      positional = true;
+      continue;
+    }
+    if (word.rfind("--", 0) != 0) {
+      for (CLI::App* s :
+           current->get_subcommands([](CLI::App*) { return true; }))
+        if (s->get_name() == word) current = s;
+      continue;
+    }
+    const std::size_t equals = word.find('=');
+    const std::string name = word.substr(0, equals);
+    const CLI::Option* option = current->get_option_no_throw(name);
+    if (option == nullptr || option->get_items_expected_max() == 0) continue;
+    if (equals == std::string::npos) {
+      // The next word is this option's value.
+      if (i + 1 < argc) words.push_back(argv[++i]);
+    } else if (equals + 1 == word.size()) {
+      words.back() = name;
+      words.push_back("");
+    }
+  }
+  return words;
+}
+
 int Run(int argc, char** argv) {
   // Named, so usage lines say "hushgain", not the path it was started by.
   CLI::App app{
@@ -536,6 +574,12 @@ int Run(int argc, char** argv) {
   }
   // --devices and --ascii may also follow the command.
   AddGlobalOptions(&app, set_devices);
+  std::vector<std::string> words = SplitEmptyValues(&app, argc, argv);
+  std::vector<char*> pointers;
+  for (std::string& w : words) pointers.push_back(w.data());
+  pointers.push_back(nullptr);
+  argc = static_cast<int>(words.size());
+  argv = pointers.data();
   RefuseUnknownOptions(&app, argc, argv);
   // An unknown subcommand gets a suggestion from the same table.
   for (int i = 1; i < argc; ++i) {

@@ -187,6 +187,42 @@ TEST_CASE("an empty output name is refused by every option") {
   CHECK(dir.Files() == std::vector<std::string>{"s.json"});
 }
 
+// Found by the command-line fuzzer: "--spectrum=" took the next word as its
+// value and wrote the spectrum to a file named "--json". An empty value
+// after "=" is the empty value, refused in the same words.
+TEST_CASE("an empty value after an equals sign is refused as an empty value") {
+  TempFolder dir("out-equals");
+  const std::string stage = CopyStage(dir);
+  struct Case {
+    std::vector<std::string> args;
+    std::string line;
+  };
+  const std::vector<Case> cases = {
+      {{"budget", stage, "--spectrum=", "--json"},
+       "error: command line: --spectrum: expected a file name, got \"\""},
+      {{"spread", stage, "--samples", "10", "--csv=", "--json"},
+       "error: command line: --csv: expected a file name, got \"\""},
+      {{"spread", stage, "--samples=", "10"},
+       "error: command line: --samples: expected a whole number, got \"\""},
+      {{"budget", stage, "--spectrum="},
+       "error: command line: --spectrum: expected a file name, got \"\""},
+  };
+  for (const Case& c : cases) {
+    CAPTURE(c.line);
+    const RunResult r = RunBinary(HUSHGAIN_BINARY, c.args, dir.path().string());
+    CHECK(r.exit_code == 2);
+    CHECK(r.err == c.line + "\n");
+    CHECK(r.out.empty());
+  }
+  CHECK(dir.Files() == std::vector<std::string>{"s.json"});
+  // A value after the "=" is still the value.
+  const RunResult r =
+      RunBinary(HUSHGAIN_BINARY, {"budget", stage, "--spectrum=x.csv"},
+                dir.path().string());
+  CHECK(r.exit_code == 0);
+  CHECK(dir.Files() == std::vector<std::string>{"s.json", "x.csv"});
+}
+
 TEST_CASE("a dash writes the spectrum samples and script to standard output") {
   TempFolder dir("out-stdout");
   const std::string stage = CopyStage(dir);
