@@ -65,14 +65,29 @@ CLI::Validator NumberValidator() {
       "NUMBER");
 }
 
+// --device, the same for every command that budgets a stage.
+void AddDeviceOption(CLI::App* app, std::string* device) {
+  app->add_option("--device", *device,
+                  "op-amp device (a name in the device folder or a part file) "
+                  "replacing the stage's op-amp")
+      ->type_name("NAME");
+}
+
+// --format with its --csv and --json synonyms, for the commands that write
+// all four formats.
+void AddFormatOptions(CLI::App* app, std::string* format, bool* csv,
+                      bool* json) {
+  app->add_option("--format", *format,
+                  "text, json, markdown or csv (default text)");
+  app->add_flag("--csv", *csv, "the same as --format csv");
+  app->add_flag("--json", *json, "the same as --format json");
+}
+
 std::function<int()> DefineBudget(CLI::App* app, const GlobalOptions& global) {
   auto options = std::make_shared<BudgetCommandOptions>();
   app->add_option("stage", options->stage_path, "stage file (JSON)")
       ->required();
-  app->add_option("--device", options->device,
-                  "op-amp device (a name in the device folder or a part file) "
-                  "replacing the stage's op-amp")
-      ->type_name("NAME");
+  AddDeviceOption(app, &options->device);
   app->add_flag("--json", options->json, "the same as --format json");
   app->add_option("--format", options->format,
                   "text, json, markdown or csv (default text)");
@@ -131,20 +146,14 @@ std::function<int()> DefineTee(CLI::App* app, const GlobalOptions& global) {
   s->allow_extras(false);  // the group allows them only to name a command
   s->add_option("stage", sweep->stage_path, "stage file (JSON) with a tee")
       ->required();
-  s->add_option("--device", sweep->device,
-                "op-amp device (a name in the device folder or a part file) "
-                "replacing the stage's op-amp")
-      ->type_name("NAME");
+  AddDeviceOption(s, &sweep->device);
   s->add_option("--min", sweep->min,
                 "smallest largest-resistor value (default Req / 1000)");
   s->add_option("--points", sweep->points, "rows, both ends included (13)")
       ->check(WholeNumber<int>());
   s->add_option("--ratio", sweep->ratio,
                 "fix R1/R2 to a number, or to the stage's (\"stage\")");
-  s->add_option("--format", sweep->format,
-                "text, json, markdown or csv (default text)");
-  s->add_flag("--csv", sweep->csv, "the same as --format csv");
-  s->add_flag("--json", sweep->json, "the same as --format json");
+  AddFormatOptions(s, &sweep->format, &sweep->csv, &sweep->json);
   s->add_option("--plot", sweep->plot_path,
                 "also draw noise and offset against the largest resistor "
                 "(.png, .svg or .pdf)")
@@ -163,10 +172,7 @@ std::function<int()> DefineTee(CLI::App* app, const GlobalOptions& global) {
       "search", "standard-value T networks for the gain, least noise first");
   q->allow_extras(false);
   q->add_option("stage", search->stage_path, "stage file (JSON)")->required();
-  q->add_option("--device", search->device,
-                "op-amp device (a name in the device folder or a part file) "
-                "replacing the stage's op-amp")
-      ->type_name("NAME");
+  AddDeviceOption(q, &search->device);
   q->add_option("--series", search->series,
                 "E6, E12, E24, E48, E96 or E192 (default E96)");
   q->add_option("--max", search->max, "largest R1, R2, R3 (required)");
@@ -192,10 +198,7 @@ std::function<int()> DefineTee(CLI::App* app, const GlobalOptions& global) {
   q->add_option("--threads", search->threads,
                 "worker threads (0: one per core)")
       ->check(WholeNumber<int>());
-  q->add_option("--format", search->format,
-                "text, json, markdown or csv (default text)");
-  q->add_flag("--csv", search->csv, "the same as --format csv");
-  q->add_flag("--json", search->json, "the same as --format json");
+  AddFormatOptions(q, &search->format, &search->csv, &search->json);
   q->add_option("--plot", search->plot_path,
                 "also draw the networks' noise, offset and resistors by rank "
                 "(.png, .svg or .pdf)")
@@ -222,10 +225,7 @@ std::function<int()> DefineTia(CLI::App* app, const GlobalOptions& global) {
   s->add_option("stage", options->stage_path,
                 "transimpedance stage file (JSON)")
       ->required();
-  s->add_option("--device", options->device,
-                "op-amp device (a name in the device folder or a part file) "
-                "replacing the stage's op-amp")
-      ->type_name("NAME");
+  AddDeviceOption(s, &options->device);
   s->add_option("--bandwidth", options->bandwidth,
                 "the -3 dB target, e.g. 50k (required)")
       ->required();
@@ -245,10 +245,7 @@ std::function<int()> DefineTia(CLI::App* app, const GlobalOptions& global) {
   s->add_option("--cap-series", options->cap_series,
                 "fit C_f from a capacitor series, e.g. E6 or E12, the "
                 "resistor's parasitic counted in");
-  s->add_option("--format", options->format,
-                "text, json, markdown or csv (default text)");
-  s->add_flag("--csv", options->csv, "the same as --format csv");
-  s->add_flag("--json", options->json, "the same as --format json");
+  AddFormatOptions(s, &options->format, &options->csv, &options->json);
   s->callback([options, chosen, &global] {
     *chosen = [options, &global] {
       options->devices_dir = global.devices_dir;
@@ -260,20 +257,14 @@ std::function<int()> DefineTia(CLI::App* app, const GlobalOptions& global) {
   n->allow_extras(false);
   n->add_option("stage", snr->stage_path, "transimpedance stage file (JSON)")
       ->required();
-  n->add_option("--device", snr->device,
-                "op-amp device (a name in the device folder or a part file) "
-                "replacing the stage's op-amp")
-      ->type_name("NAME");
+  AddDeviceOption(n, &snr->device);
   n->add_option("--power-range", snr->power_range,
                 "incident optical power LOW..HIGH, e.g. 1n..1m (required)")
       ->required();
   n->add_option("--points", snr->points,
                 "log-spaced powers, both ends included (default 31)")
       ->check(WholeNumber<int>());
-  n->add_option("--format", snr->format,
-                "text, json, markdown or csv (default text)");
-  n->add_flag("--csv", snr->csv, "the same as --format csv");
-  n->add_flag("--json", snr->json, "the same as --format json");
+  AddFormatOptions(n, &snr->format, &snr->csv, &snr->json);
   n->add_option("--plot", snr->plot_path,
                 "also draw SNR against power, log-log (.png, .svg or .pdf)")
       ->check(OutputPath());
@@ -290,10 +281,7 @@ std::function<int()> DefinePlot(CLI::App* app, const GlobalOptions& global) {
   auto options = std::make_shared<PlotCommandOptions>();
   app->add_option("stage", options->stage_path, "stage file (JSON)")
       ->required();
-  app->add_option("--device", options->device,
-                  "op-amp device (a name in the device folder or a part file) "
-                  "replacing the stage's op-amp")
-      ->type_name("NAME");
+  AddDeviceOption(app, &options->device);
   app->add_option("-o,--output", options->output_path,
                   "picture to write, .png, .svg or .pdf")
       ->required()
@@ -314,10 +302,7 @@ std::function<int()> DefinePlot(CLI::App* app, const GlobalOptions& global) {
 std::function<int()> DefineSpread(CLI::App* app, const GlobalOptions& global) {
   auto o = std::make_shared<SpreadCommandOptions>();
   app->add_option("stage", o->stage_path, "stage file (JSON)")->required();
-  app->add_option("--device", o->device,
-                  "op-amp device (a name in the device folder or a part file) "
-                  "replacing the stage's op-amp")
-      ->type_name("NAME");
+  AddDeviceOption(app, &o->device);
   app->add_option("--samples", o->samples,
                   "number of Monte Carlo samples (default 10000)")
       ->check(WholeNumber<long>());
@@ -373,10 +358,7 @@ std::function<int()> DefineCompare(CLI::App* app, const GlobalOptions& global) {
   app->add_option("--rank", o->rank,
                   "input-noise (input-referred noise rms) or offset "
                   "(worst-case output offset), smallest first (input-noise)");
-  app->add_option("--format", o->format,
-                  "text, json, markdown or csv (default text)");
-  app->add_flag("--csv", o->csv, "the same as --format csv");
-  app->add_flag("--json", o->json, "the same as --format json");
+  AddFormatOptions(app, &o->format, &o->csv, &o->json);
   app->add_option("--tolerance", o->tolerance,
                   "relative error target of each noise integral (default "
                   "1e-4)")
@@ -400,10 +382,7 @@ std::function<int()> DefineNote(CLI::App* app, const GlobalOptions& global) {
       ->required()
       ->check(OutputPath());
   app->add_option("--format", o->format, "html or markdown (default html)");
-  app->add_option("--device", o->device,
-                  "op-amp device (a name in the device folder or a part "
-                  "file) replacing the stage's op-amp")
-      ->type_name("NAME");
+  AddDeviceOption(app, &o->device);
   return [o, &global] {
     o->devices_dir = global.devices_dir;
     return RunNoteCommand(*o);

@@ -18,7 +18,8 @@ namespace {
 
 using test::RelErr;
 
-Stage Parse(const std::string& chain) {
+// The one op-amp class the test stages name.
+const DeviceLibrary& TestLibrary() {
   static const DeviceLibrary library = [] {
     DeviceLibrary lib;
     OpAmpModel m;
@@ -29,8 +30,12 @@ Stage Parse(const std::string& chain) {
     lib.opamps["precision-bipolar"] = m;
     return lib;
   }();
+  return library;
+}
+
+Stage Parse(const std::string& chain) {
   StageContext context;
-  context.library = &library;
+  context.library = &TestLibrary();
   context.read_file = [](const std::string& path) -> std::string {
     throw Error(path, "", "cannot read");
   };
@@ -202,18 +207,8 @@ TEST_CASE("bad chain blocks name the JSON path") {
 // with the files a test provides by the path they are read at.
 Stage ParseWithFiles(const std::string& second_stage,
                      std::map<std::string, std::string> files) {
-  static const DeviceLibrary library = [] {
-    DeviceLibrary lib;
-    OpAmpModel m;
-    m.class_name = "test class";
-    m.e_w_v_per_rthz = 4e-9;
-    m.gbw_hz = 8e6;
-    m.open_loop_gain = 1e6;
-    lib.opamps["precision-bipolar"] = m;
-    return lib;
-  }();
   StageContext context;
-  context.library = &library;
+  context.library = &TestLibrary();
   context.read_file = [files](const std::string& path) -> std::string {
     auto it = files.find(path);
     if (it == files.end())
