@@ -30,13 +30,17 @@ ClosedFormFigures Evaluate(const ClosedFormModel& m, double r_in, double r1,
   const double g = req / ra;
   const double ng = 1 + k + g;
   const double rp = PlusOhm(m, ra, feedback_dc_ohm);
+  const double shunt = 1 + rp * m.plus_shunt_s;
+  // Exactly 1 without a shunt: the figures are the same to the last bit.
+  const double plus_factor = 1 / (shunt * shunt);
   f.equivalent_ohm = req;
   f.gain = g;
   f.noise_gain = ng;
   f.output_power_v2 =
-      m.thermal_w *
-          (ra * g * g + r1 * (1 + k) * (1 + k) + r2 * (1 + k) + rp * ng * ng) +
-      m.e_n_power * ng * ng + m.i_n_power * (req * req + rp * rp * ng * ng);
+      m.thermal_w * (ra * g * g + r1 * (1 + k) * (1 + k) + r2 * (1 + k) +
+                     plus_factor * rp * ng * ng) +
+      m.e_n_power * ng * ng +
+      m.i_n_power * (req * req + plus_factor * rp * rp * ng * ng);
   f.output_rms_v = std::sqrt(f.output_power_v2);
   f.offset_worst_case_v = m.vos_v * ng + std::fabs(m.ib_a * (req - rp * ng)) +
                           m.half_ios_a * (req + rp * ng);
@@ -121,14 +125,18 @@ void ClosedFormTeePowerRow(const ClosedFormModel& m, double r_in, double r1,
       // R1 + R2 || R3 = R1 + R2 / (1 + k); Rp = Ra || that.
       const double fb = r1 + r2 / (1 + k);
       const double rp = ra * fb / (ra + fb);
+      const double shunt = 1 + rp * m.plus_shunt_s;
+      const double plus_factor = 1 / (shunt * shunt);
       out[j] = tw * (ra * g * g + r1 * (1 + k) * (1 + k) + r2 * (1 + k) +
-                     rp * ng * ng) +
-               en * ng * ng + in * (req * req + rp * rp * ng * ng);
+                     plus_factor * rp * ng * ng) +
+               en * ng * ng +
+               in * (req * req + plus_factor * rp * rp * ng * ng);
     }
     return;
   }
   const double rp = m.plus_mode == PlusResistor::Mode::kValue ? m.plus_ohm : 0;
-  const double plus_power = tw * rp + in * rp * rp;
+  const double shunt = 1 + rp * m.plus_shunt_s;
+  const double plus_power = (tw * rp + in * rp * rp) * (1 / (shunt * shunt));
   for (int j = 0; j < n; ++j) {
     const double k = r2 * inv_r3[j];
     const double req = r1 + r2 + r1 * k;

@@ -16,7 +16,8 @@
 //   P = 4kT B [Ra (Req/Ra)^2 + R1 (1+k)^2 + R2 (1+k) + Rp NG^2]
 //       + e_w^2 Bv NG^2 + i_w^2 Bi (Req^2 + Rp^2 NG^2)
 // with B = fH - fL, Bv and Bi the same with the e_n and i_n corners, Rp the
-// + input resistor (none, a value, or "auto" = Ra || (R1 + R2 || R3)).
+// + input resistor (none, a value, or "auto" = Ra || (R1 + R2 || R3)); the
+// Rp terms are times 1 / (1 + Rp plus_shunt_s)^2 (1 unless set, below).
 // The load draws no noise at an ideal output. The worst-case DC offset is
 //   |Vos| NG + |Ib (Req - Rp NG)| + |Ios|/2 (Req + Rp NG).
 //
@@ -53,6 +54,14 @@ struct ClosedFormModel {
   double open_loop_gain = 0;  // A0 at DC
   double output_ohm = 0;      // R_o
   double load_siemens = 0;    // 1 / R_L, 0 without a load
+  // For lower bounds only (design/tee_search.h): the largest susceptance
+  // across R_plus in the band, S. The + input resistor's noise (4kT/Rp and
+  // i_n+, currents into the + node) reaches the + pin through Rp in
+  // parallel with that susceptance, |Z|^2 >= Rp^2 / (1 + Rp B)^2 (the
+  // triangle inequality on the admittance: true whatever the susceptance's
+  // phase), so its terms are taken times 1 / (1 + Rp B)^2. 0, as
+  // MakeClosedFormModel leaves it: the ideal op-amp, nothing across Rp.
+  double plus_shunt_s = 0;
 };
 
 ClosedFormModel MakeClosedFormModel(const Stage& stage);

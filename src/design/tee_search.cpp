@@ -9,6 +9,7 @@
 #include <mutex>
 #include <queue>
 
+#include "base/physical_constants.h"
 #include "base/worker_pool.h"
 #include "circuit/inverting_topology.h"
 #include "circuit/stage_at_temperature.h"
@@ -52,6 +53,18 @@ Key KeyOf(const TeeCandidate& c, double score) {
   return {score, c.r_in_ohm, c.r1_ohm, c.r2_ohm, c.r3_ohm};
 }
 
+// A pool entry is its key alone (the closed-form score and the values):
+// the pool may hold tens of thousands, so it holds no budget.
+TeeCandidate CandidateOf(const Key& key) {
+  TeeCandidate c;
+  c.r_in_ohm = key.r_in;
+  c.r1_ohm = key.r1;
+  c.r2_ohm = key.r2;
+  c.r3_ohm = key.r3;
+  c.closed_score = key.score;
+  return c;
+}
+
 // Combines the two figures into the figure of merit.
 struct Scorer {
   TeeRanking ranking = TeeRanking::kNoise;
@@ -91,12 +104,33 @@ ClosedFormModel ModelAtTemperature(const Stage& stage) {
   return MakeClosedFormModel(at);
 }
 
+// The input-noise bound's model. The noise current of R_plus (4kT/Rp) and
+// i_n+ flow into the + node, which holds R_plus, its bypass capacitor, the
+// pin's C_cm to ground and C_diff to the summing node. Across C_diff lies
+// v+ - v- = v+ / (1 + T): where |1 + T| >= 1 (a loop that does not peak
+// inside the band) C_diff draws at most w C_diff |v+|, so the node's
+// admittance is at most 1/Rp + w_H (C_plus + C_cm + C_diff) over the band.
+// The + pin's voltage then is at least the current times Rp / (1 + Rp B),
+// and it reaches the output as e_n does (at least NG at DC: header). Left
+// out, these terms (a tenth of the power of a low-gain stage with an
+// automatic R_plus) put the bound below the figures of thousands of
+// networks, each of which was budgeted. A stage that breaks the assumption
+// shows in the check of every verified network against its bound.
+ClosedFormModel BoundModel(const Stage& stage, const ClosedFormModel& model) {
+  ClosedFormModel bound = model;
+  bound.plus_shunt_s = 2 * kPi * stage.band_high_hz *
+                       (stage.plus_resistor_bypass_f + stage.opamp.c_cm_f +
+                        stage.opamp.c_diff_f);
+  return bound;
+}
+
 // What the closed-form sweep shares between its workers.
 struct Sweep {
   const TeeSearchOptions* options = nullptr;
   ClosedFormModel model;
-  // The model without the + input resistor, whose noise a bypass capacitor
-  // or the input capacitance may remove: the input-noise bound's.
+  // The input-noise bound's model: the + input resistor's noise only as
+  // much as the capacitance across it lets through at the band's top
+  // (BoundModel).
   ClosedFormModel bound_model;
   // The ideal gain Req/Ra of a network whose DC gain (finite A0) is in the
   // window is below ideal_gain_max (header: the DC gain's shortfall).
@@ -175,15 +209,7 @@ double KLowerBound(double req_lo, double r1, double vmin, double vmax) {
   return std::max(vmin / vmax, (req_lo - r1 - vmax) / r1);
 }
 
-using Heap = std::priority_queue<std::pair<Key, TeeCandidate>,
-                                 std::vector<std::pair<Key, TeeCandidate>>,
-                                 bool (*)(const std::pair<Key, TeeCandidate>&,
-                                          const std::pair<Key, TeeCandidate>&)>;
-
-bool HeapLess(const std::pair<Key, TeeCandidate>& a,
-              const std::pair<Key, TeeCandidate>& b) {
-  return a.first < b.first;
-}
+using Heap = std::priority_queue<Key>;
 
 void LowerThreshold(std::atomic<double>& threshold, double value) {
   double current = threshold.load(std::memory_order_relaxed);
@@ -193,7 +219,7 @@ void LowerThreshold(std::atomic<double>& threshold, double value) {
 }
 
 struct WorkerOut {
-  std::vector<std::pair<Key, TeeCandidate>> kept;
+  std::vector<Key> kept;
   std::uint64_t in_tolerance = 0;
   std::uint64_t rows_pruned = 0;
 };
@@ -206,12 +232,12 @@ void Worker(Sweep& s, WorkerOut* out) {
   const double g = o.target_gain;
   const double tol = o.gain_tolerance;
   const double g_lo = g * (1 - tol);
-  Heap heap(HeapLess);
+  Heap heap;
   std::vector<double> power(n);
   const bool need_offset =
       o.ranking == TeeRanking::kOffset || o.ranking == TeeRanking::kWeighted;
   const bool need_power = o.ranking != TeeRanking::kOffset;
-  // The input-noise bound leaves out the + input resistor's terms.
+  // The input-noise bound takes the + input resistor's terms attenuated.
   const ClosedFormModel& power_model =
       o.ranking == TeeRanking::kInputNoise ? s.bound_model : s.model;
 
@@ -284,17 +310,11 @@ void Worker(Sweep& s, WorkerOut* out) {
           }
           if (score > threshold) continue;
           const Key key{score, r_in, r1, r2, v[i3]};
-          if (heap.size() >= s.pool && !(key < heap.top().first)) continue;
-          TeeCandidate c;
-          c.r_in_ohm = r_in;
-          c.r1_ohm = r1;
-          c.r2_ohm = r2;
-          c.r3_ohm = v[i3];
-          c.closed_score = score;
-          heap.emplace(key, c);
+          if (heap.size() >= s.pool && !(key < heap.top())) continue;
+          heap.push(key);
           if (heap.size() > s.pool) heap.pop();
           if (heap.size() == s.pool) {
-            LowerThreshold(s.threshold, heap.top().first.score);
+            LowerThreshold(s.threshold, heap.top().score);
             threshold = s.threshold.load(std::memory_order_relaxed);
           }
         }
@@ -309,7 +329,7 @@ void Worker(Sweep& s, WorkerOut* out) {
 }
 
 struct SweepOutcome {
-  std::vector<TeeCandidate> pool;  // best first
+  std::vector<Key> pool;  // best first
   std::uint64_t in_tolerance = 0;
   std::uint64_t rows_pruned = 0;
   bool cancelled = false;
@@ -323,8 +343,7 @@ SweepOutcome RunSweep(const Stage& stage, const TeeSearchOptions& o,
   Sweep s;
   s.options = &o;
   s.model = ModelAtTemperature(stage);
-  s.bound_model = s.model;
-  s.bound_model.plus_mode = PlusResistor::Mode::kNone;
+  s.bound_model = BoundModel(stage, s.model);
   s.scorer = scorer;
   s.values = o.values;
   for (double x : s.values) s.inv_values.push_back(1 / x);
@@ -365,19 +384,14 @@ SweepOutcome RunSweep(const Stage& stage, const TeeSearchOptions& o,
       threads, [&](int t) { Worker(s, &outs[t]); }, tick);
 
   SweepOutcome result;
-  std::vector<std::pair<Key, TeeCandidate>> all;
   for (WorkerOut& w : outs) {
     result.in_tolerance += w.in_tolerance;
     result.rows_pruned += w.rows_pruned;
-    all.insert(all.end(), w.kept.begin(), w.kept.end());
+    result.pool.insert(result.pool.end(), w.kept.begin(), w.kept.end());
+    w.kept = {};
   }
-  std::sort(all.begin(), all.end(),
-            [](const auto& a, const auto& b) { return a.first < b.first; });
-  if (all.size() > pool_size) all.resize(pool_size);
-  for (auto& [key, c] : all) {
-    c.closed = ClosedFormTee(s.model, c.r_in_ohm, c.r1_ohm, c.r2_ohm, c.r3_ohm);
-    result.pool.push_back(c);
-  }
+  std::sort(result.pool.begin(), result.pool.end());
+  if (result.pool.size() > pool_size) result.pool.resize(pool_size);
   result.cancelled = o.cancel && o.cancel->load();
   if (o.progress && report && !result.cancelled) o.progress(1.0);
   return result;
@@ -517,7 +531,11 @@ TeeSearchResult SearchTee(const Stage& stage, const TeeSearchOptions& o) {
     result.in_tolerance = sweep.in_tolerance;
     result.rows_pruned = sweep.rows_pruned;
     result.cancelled = sweep.cancelled;
-    result.best = std::move(sweep.pool);
+    for (const Key& key : sweep.pool) {
+      TeeCandidate c = CandidateOf(key);
+      c.closed = ClosedFormTee(model, c.r_in_ohm, c.r1_ohm, c.r2_ohm, c.r3_ohm);
+      result.best.push_back(std::move(c));
+    }
     result.status = Status::Ok();
     return result;
   }
@@ -547,12 +565,14 @@ TeeSearchResult SearchTee(const Stage& stage, const TeeSearchOptions& o) {
   // Verification by the full engine, in closed-form order, in batches of a
   // fixed size so that the stop rule sees the same sequence on any number
   // of threads. Only networks whose engine DC gain is within the tolerance
-  // are ranked.
+  // are ranked. Only the best `top` verified keep their budgets (the stop
+  // rule needs no more): memory stays that and one batch, however many
+  // networks have to be budgeted.
   const bool exact =
       o.ranking == TeeRanking::kInputNoise || o.ranking == TeeRanking::kOffset;
   const double g = o.target_gain;
-  std::vector<TeeCandidate> verified;
-  std::vector<std::pair<Key, int>> ranked;  // full-engine keys of verified
+  const std::size_t top = static_cast<std::size_t>(o.top);
+  std::vector<std::pair<Key, TeeCandidate>> kept;  // best first, at most top
   int budgets = 0;
   bool bound_failed = false;
   double ratio_min = kInf;
@@ -571,18 +591,16 @@ TeeSearchResult SearchTee(const Stage& stage, const TeeSearchOptions& o) {
       sweep.pool = std::move(larger.pool);
       if (next >= sweep.pool.size()) break;
     }
-    const std::size_t batch_size =
-        budgets == 0 ? static_cast<std::size_t>(o.top) : 8;
+    const std::size_t batch_size = budgets == 0 ? top : 8;
     const std::size_t end = std::min(sweep.pool.size(), next + batch_size);
     std::vector<BudgetOutcome> outcomes(end - next);
     ParallelFor(static_cast<int>(end - next), o.threads, [&](int i) {
-      const TeeCandidate& c = sweep.pool[next + i];
+      const Key& key = sweep.pool[next + i];
       outcomes[i] = ComputeBudget(
-          WithTee(stage, c.r_in_ohm, c.r1_ohm, c.r2_ohm, c.r3_ohm),
-          ranking_budget);
+          WithTee(stage, key.r_in, key.r1, key.r2, key.r3), ranking_budget);
     });
     for (std::size_t i = 0; i < outcomes.size(); ++i) {
-      TeeCandidate c = sweep.pool[next + i];
+      TeeCandidate c = CandidateOf(sweep.pool[next + i]);
       if (!outcomes[i].status.ok) {
         result.status =
             Status::Fail(Describe(c) + ": " + outcomes[i].status.message);
@@ -590,6 +608,7 @@ TeeSearchResult SearchTee(const Stage& stage, const TeeSearchOptions& o) {
       }
       ++budgets;
       c.budget = std::move(outcomes[i].budget);
+      outcomes[i] = {};
       c.score = FullScore(c.budget, o, noise_ref, offset_ref);
       if (!(std::fabs(std::fabs(c.budget.signal_gain_dc) / g - 1) <=
             o.gain_tolerance))
@@ -608,21 +627,24 @@ TeeSearchResult SearchTee(const Stage& stage, const TeeSearchOptions& o) {
       }
       if (!exact && c.closed_score > 0)
         ratio_min = std::min(ratio_min, c.score / c.closed_score);
-      ranked.push_back({KeyOf(c, c.score), static_cast<int>(verified.size())});
-      verified.push_back(std::move(c));
+      const Key key = KeyOf(c, c.score);
+      if (kept.size() >= top && !(key < kept.back().first)) continue;
+      const auto at = std::upper_bound(
+          kept.begin(), kept.end(), key,
+          [](const Key& k, const auto& entry) { return k < entry.first; });
+      kept.insert(at, {key, std::move(c)});
+      if (kept.size() > top) kept.pop_back();
     }
     next = end;
     if (result.cancelled) break;
-    const bool full_top = ranked.size() >= static_cast<std::size_t>(o.top);
+    const bool full_top = kept.size() >= top;
     if (exact) {
       // Every unverified network's full figure is at least its bound, and
       // the pool is in order of the bound: once the next bound is above
       // the top-th verified figure, no unverified network can enter.
-      if (full_top && next < sweep.pool.size()) {
-        std::sort(ranked.begin(), ranked.end());
-        if (sweep.pool[next].closed_score > ranked[o.top - 1].first.score)
-          break;
-      }
+      if (full_top && next < sweep.pool.size() &&
+          sweep.pool[next].score > kept.back().first.score)
+        break;
       continue;
     }
     if (static_cast<std::size_t>(budgets) >= kMaxVerified) {
@@ -630,12 +652,10 @@ TeeSearchResult SearchTee(const Stage& stage, const TeeSearchOptions& o) {
                         std::to_string(budgets) + " full-engine budgets";
       if (next < sweep.pool.size() && full_top && ratio_min < kInf &&
           ratio_min > 0) {
-        std::sort(ranked.begin(), ranked.end());
         // How far below the smallest full/closed ratio seen an unverified
         // network's ratio would have to fall to enter the top.
         const double needed =
-            1 - ranked[o.top - 1].first.score /
-                    (sweep.pool[next].closed_score * ratio_min);
+            1 - kept.back().first.score / (sweep.pool[next].score * ratio_min);
         char buf[160];
         std::snprintf(buf, sizeof buf,
                       "; an unverified network would enter the top %d only if "
@@ -651,18 +671,19 @@ TeeSearchResult SearchTee(const Stage& stage, const TeeSearchOptions& o) {
     // rest with: the closed-form order stands.
     if (ratio_min == kInf && full_top) break;
     if (full_top && next < sweep.pool.size()) {
-      std::sort(ranked.begin(), ranked.end());
-      const double top_score = ranked[o.top - 1].first.score;
+      const double top_score = kept.back().first.score;
       const double bound =
-          sweep.pool[next].closed_score * ratio_min * (1 - o.verify_margin);
+          sweep.pool[next].score * ratio_min * (1 - o.verify_margin);
       if (bound > top_score) break;
     }
   }
   result.verified = budgets;
-  std::sort(ranked.begin(), ranked.end());
-  const std::size_t shown = std::min<std::size_t>(o.top, ranked.size());
-  for (std::size_t i = 0; i < shown; ++i)
-    result.best.push_back(verified[ranked[i].second]);
+  const std::size_t shown = kept.size();
+  for (auto& [key, c] : kept) {
+    c.closed = ClosedFormTee(model, c.r_in_ohm, c.r1_ohm, c.r2_ohm, c.r3_ohm);
+    result.best.push_back(std::move(c));
+  }
+  kept.clear();
 
   // The shown candidates get their comparison with the plain resistor.
   std::vector<BudgetOutcome> plains(shown);

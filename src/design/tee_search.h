@@ -26,10 +26,17 @@
 //    admittance 1/Ra, which is real), and e_n's is at least the closed
 //    form's (|Y_f + 1/Ra + Y_arm + j w C| / (1/Ra) is at least its real
 //    part, the DC value). The finite loop gain cancels between the signal
-//    and every source it does not bypass. So the full figure is at least
-//    sqrt(P0)/(Req/Ra), P0 the closed-form power without the + input
-//    resistor's terms (a bypass capacitor may remove those); the bound is
-//    that times 1 - 1e-6 (rounding, the output resistance's feedthrough).
+//    and every source it does not bypass. The + input resistor's noise and
+//    i_n+ reach the + pin through R_plus in parallel with its bypass
+//    capacitor and the pin capacitances, at worst as at the band's top:
+//    their terms count times 1 / (1 + Rp w_H (C_plus + C_cm + C_diff))^2
+//    (ClosedFormModel::plus_shunt_s; C_diff counts fully while the loop
+//    does not peak in the band, |1 + T| >= 1). So the full figure is at
+//    least sqrt(P0)/(Req/Ra), P0 the closed-form power with those terms so
+//    scaled; the bound is that times 1 - 1e-6 (rounding, the output
+//    resistance's feedthrough). Without them it lay a tenth of the power
+//    below every network of a low-gain stage with an automatic R_plus,
+//    and thousands were budgeted to no purpose.
 //    The engine's figure itself is exact only to the integrator's relative
 //    tolerance tol on the power, so a network left out is at worst
 //    3 tol below the N-th listed (networks that close differ by less than
@@ -54,8 +61,11 @@
 //     skip whole rows that cannot beat the current pool (a strict
 //     comparison, so the result does not depend on the order).
 //  3. Survivors are kept in a pool of the best `pool` candidates (ties
-//     broken on R_in, R1, R2, R3); when verification exhausts it, the
-//     search runs again with a pool four times larger.
+//     broken on R_in, R1, R2, R3; values and score only); when
+//     verification exhausts it, the search runs again with a pool four
+//     times larger. Of the verified networks only the best `top` keep
+//     their budgets: memory is the pool's keys and `top` budgets, however
+//     many networks are budgeted.
 // Work is shared between `threads` workers by rows; the list and every
 // count reported are the same for any thread count. Nothing here prints:
 // progress reaches the caller through a callback, cancellation through an

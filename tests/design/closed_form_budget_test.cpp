@@ -159,6 +159,51 @@ TEST_CASE("the power row equals the closed form network by network") {
   }
 }
 
+TEST_CASE("a shunt across R_plus scales its terms by 1 / (1 + Rp B) squared") {
+  // The closed form's power splits into the + input resistor's terms,
+  // (4kT B Rp + i_n^2 Bi Rp^2) NG^2 (header), and the rest, which is the
+  // power without R_plus. With plus_shunt_s = B only the first is scaled,
+  // by 1 / (1 + Rp B)^2; the row function agrees network by network.
+  OpAmpModel m = test::IdealOpAmp(7e-9, 1e-12);
+  for (PlusResistor::Mode mode :
+       {PlusResistor::Mode::kValue, PlusResistor::Mode::kAuto}) {
+    Stage stage = test::TeeStage(1e3, 1e3, 1e3, 1e3, m);
+    stage.source.resistance_ohm = 100;
+    stage.plus_resistor.mode = mode;
+    stage.plus_resistor.ohms = 2e3;
+    const ClosedFormModel plain = MakeClosedFormModel(stage);
+    CHECK(plain.plus_shunt_s == 0);
+    ClosedFormModel none = plain;
+    none.plus_mode = PlusResistor::Mode::kNone;
+    ClosedFormModel shunted = plain;
+    shunted.plus_shunt_s = 1e-3;  // 1 mS: Rp B of 2 for 2 kOhm
+    const double r3[] = {100, 470, 1e3, 22e3};
+    double inv[4];
+    double row[4];
+    for (int j = 0; j < 4; ++j) inv[j] = 1 / r3[j];
+    ClosedFormTeePowerRow(shunted, 2.2e3, 47e3, 33e3, inv, 4, row);
+    for (int j = 0; j < 4; ++j) {
+      CAPTURE(j);
+      const double rp =
+          mode == PlusResistor::Mode::kValue
+              ? 2e3
+              : 1 / (1 / 2.3e3 + 1 / (47e3 + 1 / (1 / 33e3 + inv[j])));
+      const double p_none =
+          ClosedFormTee(none, 2.2e3, 47e3, 33e3, r3[j]).output_power_v2;
+      const double p_plus =
+          ClosedFormTee(plain, 2.2e3, 47e3, 33e3, r3[j]).output_power_v2;
+      const double expected =
+          p_none + (p_plus - p_none) / ((1 + rp * 1e-3) * (1 + rp * 1e-3));
+      REQUIRE(p_plus > p_none * 1.01);
+      CHECK(
+          RelErr(
+              ClosedFormTee(shunted, 2.2e3, 47e3, 33e3, r3[j]).output_power_v2,
+              expected) < 1e-12);
+      CHECK(RelErr(row[j], expected) < 1e-12);
+    }
+  }
+}
+
 }  // namespace
 }  // namespace hushgain
 

@@ -134,6 +134,87 @@ TEST_CASE(
   CheckSameAsBruteForce(stage, o);
 }
 
+TEST_CASE("search by input noise equals the brute force with R_plus bypassed") {
+  // 100 nF across the automatic R_plus (a few kOhm) takes most of its
+  // noise above a few hundred hertz of the 5 kHz band: the bound takes its
+  // terms at the band's top, 1 / (1 + Rp w_H (C_plus + C_cm + C_diff))^2,
+  // and stays below every network's full figure.
+  Stage stage = RealisticStage();
+  stage.plus_resistor_bypass_f = 100e-9;
+  TeeSearchOptions o;
+  o.values = SeriesValuesInRange(PreferredSeries::kE6, 1e3, 68e3);
+  o.target_gain = 100;
+  o.gain_tolerance = 0.05;
+  o.top = 6;
+  CheckSameAsBruteForce(stage, o);
+  o.threads = 1;
+  CHECK(SearchTee(stage, o).warnings.empty());
+}
+
+// A low-gain bridge amplifier whose automatic R_plus (R_in || R_eq, about
+// 1.3 kOhm) gives a tenth of the input noise: 350 ohm source, 1 kOhm R_in,
+// a chopper-like op-amp (15 nV/rtHz, 100 fA/rtHz, A0 150 dB, 2 MHz,
+// 100 ohm out, 5 pF pins), 0.1 .. 10 Hz, 10 kOhm load, 10 nF across the
+// network; gain 300.
+Stage BridgeStage() {
+  OpAmpModel m = test::IdealOpAmp(15e-9, 100e-15);
+  m.open_loop_gain = std::pow(10.0, 150.0 / 20);
+  m.gbw_hz = 2e6;
+  m.output_resistance_ohm = 100;
+  m.c_cm_f = 5e-12;
+  m.c_diff_f = 5e-12;
+  Stage s = test::TeeStage(1e3, 100e3, 100e3, 50e3, m, 298.15);
+  s.source.resistance_ohm = 350;
+  s.feedback.capacitor_f = 10e-9;
+  s.plus_resistor.mode = PlusResistor::Mode::kAuto;
+  s.load_ohm = 10e3;
+  return s;
+}
+
+TEST_CASE("search by input noise budgets only the networks its bound admits") {
+  // Every network's input noise lies within 0.1 % of the others' here, and
+  // the + input resistor gives a tenth of it. A bound without its terms
+  // lies 5 % below every full figure, so every network whose bound fell
+  // under the top-th figure was budgeted (and held with its budget): 248
+  // of E24's three decades, 13 456 of E96's. The networks the search must
+  // budget are those whose bound is below the top-th figure; the bound is the
+  // closed form (with R_plus, ideal op-amp) to 1e-6 at 10 Hz, so they number no
+  // more than those whose closed form is within 1e-3 of it, plus the last
+  // batch of 8 that shows the next bound above it.
+  const Stage stage = BridgeStage();
+  TeeSearchOptions o;
+  o.values = SeriesValuesInRange(PreferredSeries::kE24, 100, 100e3);
+  o.target_gain = 300;
+  o.threads = 1;
+  const TeeSearchResult result = SearchTee(stage, o);
+  REQUIRE(result.status.ok);
+  REQUIRE(result.best.size() == 10);
+  CHECK(result.warnings.empty());
+  const double tenth = result.best.back().score;
+  const ClosedFormModel model = MakeClosedFormModel(stage);
+  ClosedFormModel without_plus = model;
+  without_plus.plus_mode = PlusResistor::Mode::kNone;
+  int in_reach = 0;
+  int old_bound_in_reach = 0;
+  for (double r1 : o.values)
+    for (double r2 : o.values)
+      for (double r3 : o.values) {
+        const ClosedFormFigures f = ClosedFormTee(model, 1e3, r1, r2, r3);
+        if (!(std::fabs(f.gain / o.target_gain - 1) <= o.gain_tolerance))
+          continue;
+        if (f.output_rms_v / f.gain <= tenth * (1 + 1e-3)) ++in_reach;
+        const ClosedFormFigures w =
+            ClosedFormTee(without_plus, 1e3, r1, r2, r3);
+        if (w.output_rms_v / w.gain <= tenth) ++old_bound_in_reach;
+      }
+  CAPTURE(in_reach);
+  CAPTURE(old_bound_in_reach);
+  CHECK(result.verified <= in_reach + 8);
+  // The stage is one where leaving R_plus out of the bound costs: more
+  // than five times the budgets.
+  CHECK(old_bound_in_reach > 5 * (in_reach + 8));
+}
+
 TEST_CASE("search by output noise equals the brute force on this stage") {
   const Stage stage = RealisticStage();
   TeeSearchOptions o;
