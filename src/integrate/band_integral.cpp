@@ -234,4 +234,23 @@ std::vector<QuadratureNode> QuadratureNodes(
   return nodes;
 }
 
+std::vector<QuadratureNode> GaussNodes(
+    const std::vector<LogInterval>& partition) {
+  std::vector<QuadratureNode> nodes;
+  nodes.reserve(partition.size() * 7);
+  for (const LogInterval& iv : partition) {
+    const double center = 0.5 * (iv.a + iv.b);
+    const double half = 0.5 * (iv.b - iv.a);
+    // The odd nodes of QuadratureNodes' order: xk[1], xk[3], xk[5] on the
+    // left, the centre xk[7], then xk[5], xk[3], xk[1] on the right.
+    for (int j = 1; j < 15; j += 2) {
+      const int i = j < 8 ? j : 14 - j;
+      const double x = j < 8 ? -kXk[i] : kXk[i];
+      const double f = std::exp(center + half * x);
+      nodes.push_back({f, half * kWg[i / 2] * f});
+    }
+  }
+  return nodes;
+}
+
 }  // namespace hushgain

@@ -79,6 +79,14 @@ struct QuadratureNode {
 std::vector<QuadratureNode> QuadratureNodes(
     const std::vector<LogInterval>& partition);
 
+// The Gauss-7 nodes of every interval of `partition` with their Gauss
+// weights (half-width x Gauss weight x f): the embedded rule whose
+// difference from the Kronrod one is the integrator's error estimate. Node
+// k (0 to 6) of interval i is node 15 i + 2 k + 1 of QuadratureNodes, the
+// same frequency to the bit.
+std::vector<QuadratureNode> GaussNodes(
+    const std::vector<LogInterval>& partition);
+
 }  // namespace hushgain
 
 #endif  // HUSHGAIN_INTEGRATE_BAND_INTEGRAL_H_

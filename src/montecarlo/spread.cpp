@@ -167,9 +167,10 @@ double DcOffset(const Model& m, const RestampSolver& s, const Draw& d,
 }
 
 // Evaluates one sample whose resistor (and capacitor) values are already
-// in w.ohms (and w.farads).
+// in w.ohms (and w.farads). With node_psd, the output density at every
+// node goes there too.
 Status EvaluateAt(const Model& m, const Draw& d, Workspace& w,
-                  SpreadSample* out) {
+                  SpreadSample* out, double* node_psd = nullptr) {
   RestampSolver& s = w.solver;
   if (m.vary_capacitors) s.SetCapacitors(w.farads.data());
   s.SetResistors(w.ohms.data());
@@ -261,6 +262,7 @@ Status EvaluateAt(const Model& m, const Draw& d, Workspace& w,
       psd += s.TransferNorm(slot.port) * slot.table_scale *
              m.table_psd[slot.table_row * node_count + q];
     }
+    if (node_psd != nullptr) node_psd[q] = psd;
     power += node.weight_hz * psd;
   }
   out->noise_rms_v = std::sqrt(power);
@@ -399,6 +401,69 @@ Status BuildModel(const Stage& stage, const BudgetOutcome& nominal, Model* m) {
   return Status::Ok();
 }
 
+// The draw of a sample with every error zero: the nominal temperature,
+// Vos = Ios = 0, the bias current at the nominal temperature.
+Draw NominalDraw(const Model& m) {
+  Draw d;
+  d.temperature_k = m.nominal_k;
+  d.ib_a = m.opamp.ib_a * BiasCurrentFactor(m.opamp, m.nominal_k);
+  return d;
+}
+
+// The per-sample rule (see SpreadRun::noise_nodes): m->nodes go from the
+// Kronrod-15 nodes of every interval of `partition` to its Gauss-7 nodes,
+// their weights scaled by K_i / G_i, the two rules' integrals of the
+// nominal output density on the interval, so the nominal density still
+// integrates to the Kronrod sum. An interval keeps its 15 nodes when
+// |K_i - G_i| exceeds `tolerance` times the whole nominal integral (a
+// converged nominal budget meets that on every interval: its summed
+// estimate met it) or its G_i is not positive. w.ohms holds the nominal
+// resistors.
+Status ReduceNodes(const std::vector<LogInterval>& partition, double tolerance,
+                   Model* m, Workspace& w) {
+  const std::size_t full_count = m->nodes.size();
+  std::vector<double> psd(full_count, 0.0);
+  SpreadSample unused;
+  Status st = EvaluateAt(*m, NominalDraw(*m), w, &unused, psd.data());
+  if (!st.ok) return st;
+  const std::vector<QuadratureNode> gauss = GaussNodes(partition);
+  double total = 0;
+  for (std::size_t q = 0; q < full_count; ++q)
+    total += m->nodes[q].weight_hz * psd[q];
+  std::vector<QuadratureNode> nodes;
+  std::vector<std::size_t> kept;  // index into the full nodes
+  for (std::size_t i = 0; i < partition.size(); ++i) {
+    double k_sum = 0, g_sum = 0;
+    for (std::size_t j = 0; j < 15; ++j)
+      k_sum += m->nodes[15 * i + j].weight_hz * psd[15 * i + j];
+    for (std::size_t j = 0; j < 7; ++j)
+      g_sum += gauss[7 * i + j].weight_hz * psd[15 * i + 2 * j + 1];
+    if (g_sum > 0 && std::isfinite(k_sum / g_sum) &&
+        std::fabs(k_sum - g_sum) <= tolerance * total) {
+      const double scale = k_sum / g_sum;
+      for (std::size_t j = 0; j < 7; ++j) {
+        nodes.push_back(
+            {gauss[7 * i + j].f_hz, gauss[7 * i + j].weight_hz * scale});
+        kept.push_back(15 * i + 2 * j + 1);
+      }
+    } else {
+      for (std::size_t j = 0; j < 15; ++j) {
+        nodes.push_back(m->nodes[15 * i + j]);
+        kept.push_back(15 * i + j);
+      }
+    }
+  }
+  std::vector<double> inverse_f, table_psd;
+  for (std::size_t q : kept) inverse_f.push_back(m->inverse_f[q]);
+  for (std::size_t row = 0; row * full_count < m->table_psd.size(); ++row)
+    for (std::size_t q : kept)
+      table_psd.push_back(m->table_psd[row * full_count + q]);
+  m->nodes = std::move(nodes);
+  m->inverse_f = std::move(inverse_f);
+  m->table_psd = std::move(table_psd);
+  return Status::Ok();
+}
+
 // See SpreadRun::worst_case_offset_v.
 double WorstCaseOffset(const Model& m, Workspace& w) {
   std::vector<int> varied;
@@ -504,6 +569,18 @@ SpreadRun RunSpread(const Stage& stage, const SpreadOptions& options,
       run.nominal_gain = at_ref;
     }
     run.worst_case_offset_v = WorstCaseOffset(model, w);
+    run.noise_nodes_full = static_cast<int>(model.nodes.size());
+    if (!options.every_node) {
+      for (std::size_t k = 0; k < m; ++k)
+        w.ohms[k] = OhmsAt(model, model.resistors[k], 0.0, model.nominal_k);
+      for (std::size_t k = 0; k < model.capacitors.size(); ++k)
+        w.farads[k] = model.capacitors[k].first;
+      run.status =
+          ReduceNodes(nominal.noise_partition,
+                      options.budget.integration.relative_tolerance, &model, w);
+      if (!run.status.ok) return run;
+    }
+    run.noise_nodes = static_cast<int>(model.nodes.size());
   }
 
   auto draws = std::make_shared<SpreadDraws>();

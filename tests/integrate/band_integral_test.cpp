@@ -123,6 +123,42 @@ TEST_CASE(
   CHECK(RelErr(moved, kPi / 4 * 1.001 * fp) < 1e-8);
 }
 
+TEST_CASE(
+    "the Gauss nodes are the embedded 7-point rule on the same frequencies") {
+  // In u = ln f, S(f) = u^k / f is u^k: Gauss-Legendre with 7 points is
+  // exact to degree 13 and not beyond (the 15-point Kronrod rule is exact to
+  // degree 22); the integral over u in [0, 2] is 2^(k+1) / (k + 1).
+  const std::vector<LogInterval> partition = {{0.0, 1.0}, {1.0, 2.0}};
+  const std::vector<QuadratureNode> gauss = GaussNodes(partition);
+  const std::vector<QuadratureNode> kronrod = QuadratureNodes(partition);
+  REQUIRE(gauss.size() == 14);
+  for (std::size_t i = 0; i < 2; ++i)
+    for (std::size_t k = 0; k < 7; ++k)
+      CHECK(gauss[7 * i + k].f_hz == kronrod[15 * i + 2 * k + 1].f_hz);
+  auto integral = [](const std::vector<QuadratureNode>& nodes, int k) {
+    double sum = 0;
+    for (const QuadratureNode& n : nodes)
+      sum += n.weight_hz * std::pow(std::log(n.f_hz), k) / n.f_hz;
+    return sum;
+  };
+  for (int k : {0, 1, 6, 13}) {
+    CAPTURE(k);
+    CHECK(RelErr(integral(gauss, k), std::pow(2.0, k + 1) / (k + 1)) < 1e-13);
+  }
+  // One interval of width 2, degree 14: the rule's error is
+  // (b - a)^15 (7!)^4 / (15 (14!)^3) f^(14) with f^(14) = 14! constant
+  // (Abramowitz and Stegun 25.4.30), 8.5e-8 of the integral 2^15 / 15.
+  const std::vector<QuadratureNode> one = GaussNodes({{0.0, 2.0}});
+  const double exact = std::pow(2.0, 15) / 15;
+  double factorial_7 = 1, factorial_14 = 1;
+  for (int i = 2; i <= 7; ++i) factorial_7 *= i;
+  for (int i = 2; i <= 14; ++i) factorial_14 *= i;
+  const double error = std::pow(2.0, 15) * std::pow(factorial_7, 4) /
+                       (15 * factorial_14 * factorial_14);
+  CHECK(RelErr(exact - integral(one, 14), error) < 1e-5);
+  CHECK(RelErr(integral(QuadratureNodes({{0.0, 2.0}}), 14), exact) < 1e-13);
+}
+
 TEST_CASE("several components share evaluations and keep their own integrals") {
   IntegrationOptions options;
   auto r = IntegrateBand(
