@@ -24,7 +24,7 @@
 namespace hushgain {
 namespace {
 
-OpAmpRanking ParseRanking(const std::string& text) {
+OpAmpRanking ParseOpAmpRanking(const std::string& text) {
   std::vector<std::string> words;
   for (OpAmpRanking r : {OpAmpRanking::kInputNoise, OpAmpRanking::kOffset}) {
     if (text == OpAmpRankingWord(r)) return r;
@@ -78,7 +78,7 @@ int RunCompareCommand(const CompareCommandOptions& options) {
   const std::string format =
       ResolveOutputFormat(options.format, options.json, options.csv);
   OpAmpComparisonOptions compare;
-  compare.ranking = ParseRanking(options.rank);
+  compare.ranking = ParseOpAmpRanking(options.rank);
   compare.review.budget.integration.relative_tolerance = options.tolerance;
   ThrowIfInvalid(compare.Validate(), {{"relative_tolerance", "--tolerance"}});
 

@@ -32,11 +32,10 @@
 #include "report/enum_words.h"
 #include "report/tee_plot_script.h"
 #include "report/tee_report.h"
+#include "report/unit_symbols.h"
 
 namespace hushgain {
 namespace {
-
-constexpr const char* kOhm = "\xCE\xA9";
 
 double PositiveResistance(const std::string& option, const std::string& text) {
   const double ohms = QuantityOption(option, text, Quantity::kResistance);
@@ -84,7 +83,7 @@ int Refused(const std::string& path, const Status& status) {
 
 // A progress bar on stderr, drawn only when stderr is a terminal.
 
-TeeRanking ParseRanking(const std::string& text) {
+TeeRanking ParseTeeRanking(const std::string& text) {
   std::vector<std::string> words;
   for (TeeRanking r : {TeeRanking::kInputNoise, TeeRanking::kNoise,
                        TeeRanking::kOffset, TeeRanking::kWeighted}) {
@@ -230,7 +229,7 @@ int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
   if (!(search.gain_tolerance < 1))
     throw OptionError("--gain-tol", "expected a tolerance below 100 %, got \"" +
                                         options.gain_tolerance + "\"");
-  search.ranking = ParseRanking(options.rank);
+  search.ranking = ParseTeeRanking(options.rank);
   if (!(options.offset_weight >= 0 && options.offset_weight <= 1))
     throw OptionError("--offset-weight",
                       "expected a weight from 0 to 1, got " +

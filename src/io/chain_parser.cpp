@@ -12,8 +12,6 @@
 namespace hushgain {
 namespace {
 
-std::string Dump(const nlohmann::json& value) { return value.dump(); }
-
 // A whole JSON number from `low` to `high`.
 int WholeNumber(ObjectReader& reader, const std::string& key, int low,
                 int high) {
@@ -24,7 +22,7 @@ int WholeNumber(ObjectReader& reader, const std::string& key, int low,
     throw reader.ErrorAt(key, rule + ", got " + JsonTypeName(v));
   const double d = v.get<double>();
   if (!(d >= low && d <= high && d == std::floor(d)))
-    throw reader.ErrorAt(key, rule + ", got " + Dump(v));
+    throw reader.ErrorAt(key, rule + ", got " + v.dump());
   return static_cast<int>(d);
 }
 
@@ -33,7 +31,7 @@ double Positive(ObjectReader& reader, const std::string& key, Quantity kind,
   const double v = reader.Quantity(key, kind);
   if (!(v > 0))
     throw reader.ErrorAt(
-        key, "expected a positive " + what + ", got " + Dump(reader.Get(key)));
+        key, "expected a positive " + what + ", got " + reader.Get(key).dump());
   return v;
 }
 
@@ -75,7 +73,7 @@ ChainFilter ParseFilter(ObjectReader& r) {
   if (auto e = r.OptionalQuantity("noise", Quantity::kVoltageDensity)) {
     if (!(*e >= 0))
       throw r.ErrorAt("noise", "expected a non-negative voltage density, got " +
-                                   Dump(r.Get("noise")));
+                                   r.Get("noise").dump());
     f.noise_v_per_rthz = *e;
   }
   r.Finish();
@@ -90,12 +88,12 @@ CornerNoise ParseCornerNoise(ObjectReader& parent, const std::string& key,
   noise.density = r.Quantity("density", kind);
   if (!(noise.density >= 0))
     throw r.ErrorAt("density", "expected a non-negative " + what +
-                                   " density, got " + Dump(r.Get("density")));
+                                   " density, got " + r.Get("density").dump());
   if (auto corner = r.OptionalQuantity("corner", Quantity::kFrequency)) {
     if (!(*corner >= 0))
       throw r.ErrorAt("corner",
                       "expected a non-negative frequency (0 = white), got " +
-                          Dump(r.Get("corner")));
+                          r.Get("corner").dump());
     noise.corner_hz = *corner;
   }
   r.Finish();
@@ -120,13 +118,13 @@ SecondStage ParseSecondStage(ObjectReader& r, const SecondStageLoader& load) {
   s.gain = r.Quantity("gain", Quantity::kGain);
   if (!(s.gain != 0))
     throw r.ErrorAt("gain",
-                    "expected a non-zero gain, got " + Dump(r.Get("gain")));
+                    "expected a non-zero gain, got " + r.Get("gain").dump());
   s.noise_gain = std::fabs(s.gain);
   if (r.Has("noise_gain")) {
     s.noise_gain = r.Quantity("noise_gain", Quantity::kGain);
     if (!(s.noise_gain >= 1))
       throw r.ErrorAt("noise_gain", "expected a gain of at least 1, got " +
-                                        Dump(r.Get("noise_gain")));
+                                        r.Get("noise_gain").dump());
   }
   if (r.Has("bandwidth")) {
     if (r.Get("bandwidth").is_object()) {
@@ -148,7 +146,7 @@ SecondStage ParseSecondStage(ObjectReader& r, const SecondStageLoader& load) {
     if (!(s.source_resistance_ohm >= 0))
       throw r.ErrorAt("source_resistance",
                       "expected a non-negative resistance, got " +
-                          Dump(r.Get("source_resistance")));
+                          r.Get("source_resistance").dump());
   }
   if (r.Has("input_current_noise")) {
     if (!r.Has("source_resistance"))
@@ -173,7 +171,7 @@ ChainAdc ParseAdc(ObjectReader& r, double band_low_hz) {
     throw r.ErrorAt("sample_rate",
                     "expected a rate above twice the band's low edge (" +
                         FormatEng(2 * band_low_hz, "Hz") + "), got " +
-                        Dump(r.Get("sample_rate")));
+                        r.Get("sample_rate").dump());
   if (r.Has("input_noise_rms") && r.Has("snr_dB"))
     throw r.ErrorAt("snr_dB",
                     "expected \"input_noise_rms\" or \"snr_dB\", not both");
@@ -181,7 +179,7 @@ ChainAdc ParseAdc(ObjectReader& r, double band_low_hz) {
     if (!(*n >= 0))
       throw r.ErrorAt("input_noise_rms",
                       "expected a non-negative voltage, got " +
-                          Dump(r.Get("input_noise_rms")));
+                          r.Get("input_noise_rms").dump());
     adc.input_noise_rms_v = *n;
   }
   if (r.Has("snr_dB")) {
@@ -197,7 +195,7 @@ ChainAdc ParseAdc(ObjectReader& r, double band_low_hz) {
     const double db = v.get<double>();
     // The ideal value is printed rounded to 0.01 dB; so much is allowed.
     if (!(db > 0 && db <= ideal + 0.005))
-      throw r.ErrorAt("snr_dB", std::string(rule) + ", got " + Dump(v));
+      throw r.ErrorAt("snr_dB", std::string(rule) + ", got " + v.dump());
     adc.snr_db = std::min(db, ideal);
   }
   r.Finish();

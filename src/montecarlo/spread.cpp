@@ -21,16 +21,9 @@
 #include "noise/excess_noise.h"
 
 namespace hushgain {
-namespace {
-
-// Samples a worker takes at a time.
-constexpr long kBlock = 512;
-// The worst-case bound visits 2^m tolerance corners; beyond this m it is
-// not computed.
-constexpr int kMaxCornerResistors = 16;
-constexpr double kInfinity = std::numeric_limits<double>::infinity();
-
-struct ResistorInfo {
+// A resistor as the draws see it (outside the anonymous namespace: the
+// run's SpreadDraws, declared in the header, holds them).
+struct SpreadResistor {
   double ohms_25 = 0;
   double tolerance = 0;
   double tempco_per_k = 0;
@@ -41,6 +34,15 @@ struct ResistorInfo {
   // A photodiode's R_sh: divided by PhotodiodeTemperatureFactor at T.
   bool photodiode_shunt = false;
 };
+
+namespace {
+
+// Samples a worker takes at a time.
+constexpr long kBlock = 512;
+// The worst-case bound visits 2^m tolerance corners; beyond this m it is
+// not computed.
+constexpr int kMaxCornerResistors = 16;
+constexpr double kInfinity = std::numeric_limits<double>::infinity();
 
 // One noise source with the parts of its density that change per sample.
 struct SourceSlot {
@@ -63,7 +65,7 @@ struct Model {
   Netlist netlist;  // at 25 °C
   MnaSystem system;
   std::unique_ptr<RestampSolver> prototype;
-  std::vector<ResistorInfo> resistors;
+  std::vector<SpreadResistor> resistors;
   std::vector<SourceSlot> sources;
   std::vector<QuadratureNode> nodes;
   std::vector<double> inverse_f;  // 1 / f of each node
@@ -110,7 +112,7 @@ struct SpreadDraws {
   std::uint64_t seed = 1;
   double nominal_k = 298.15;
   std::optional<TemperatureRange> range;
-  std::vector<ResistorInfo> resistors;
+  std::vector<SpreadResistor> resistors;
   std::vector<std::pair<double, double>> capacitors;  // farads, tolerance
   OpAmpModel opamp;
   Photodiode photodiode;
@@ -140,7 +142,7 @@ struct Workspace {
 
 // A resistor's value at T with relative error e: tempco, and the
 // photodiode's law for R_sh.
-double OhmsAt(const Photodiode& photodiode, const ResistorInfo& r, double e,
+double OhmsAt(const Photodiode& photodiode, const SpreadResistor& r, double e,
               double t) {
   double ohms =
       r.ohms_25 * (1.0 + e) * ResistorTemperatureFactor(r.tempco_per_k, t);
@@ -148,7 +150,7 @@ double OhmsAt(const Photodiode& photodiode, const ResistorInfo& r, double e,
   return ohms;
 }
 
-double OhmsAt(const Model& m, const ResistorInfo& r, double e, double t) {
+double OhmsAt(const Model& m, const SpreadResistor& r, double e, double t) {
   return OhmsAt(m.photodiode, r, e, t);
 }
 
@@ -230,7 +232,7 @@ Status EvaluateAt(const Model& m, const Draw& d, Workspace& w,
     }
     if (slot.thermal_of >= 0) slot.white = four_kt / w.ohms[slot.thermal_of];
     if (slot.excess_of >= 0) {
-      const ResistorInfo& r = m.resistors[slot.excess_of];
+      const SpreadResistor& r = m.resistors[slot.excess_of];
       const double va = r.a >= 0 ? w.rhs[r.a] : 0.0;
       const double vb = r.b >= 0 ? w.rhs[r.b] : 0.0;
       const double ohms = w.ohms[slot.excess_of];
@@ -285,7 +287,7 @@ Draw DrawSample(const SpreadDraws& m, std::uint64_t index,
     d.temperature_k =
         m.range->min_k + (m.range->max_k - m.range->min_k) * rng.Uniform01();
   for (std::size_t k = 0; k < m.resistors.size(); ++k) {
-    const ResistorInfo& r = m.resistors[k];
+    const SpreadResistor& r = m.resistors[k];
     const double e = rng.UniformSymmetric(r.tolerance);
     (*ohms)[k] = OhmsAt(m.photodiode, r, e, d.temperature_k);
   }
@@ -330,7 +332,7 @@ Status BuildModel(const Stage& stage, const BudgetOutcome& nominal, Model* m) {
     m->inverse_f.push_back(1.0 / node.f_hz);
   const Netlist& net = m->netlist;
   for (const Resistor& r : net.resistors) {
-    ResistorInfo info;
+    SpreadResistor info;
     info.ohms_25 = r.ohms;
     info.a = m->system.NodeIndex(r.a);
     info.b = m->system.NodeIndex(r.b);
@@ -492,7 +494,7 @@ double WorstCaseOffset(const Model& m, Workspace& w) {
         w.ohms[k2] = OhmsAt(m, m.resistors[k2], 0.0, t);
       }
       for (std::size_t v = 0; v < varied.size(); ++v) {
-        const ResistorInfo& r = m.resistors[varied[v]];
+        const SpreadResistor& r = m.resistors[varied[v]];
         const double e = (corner >> v) & 1 ? r.tolerance : -r.tolerance;
         w.ohms[varied[v]] = OhmsAt(m, r, e, t);
       }

@@ -7,12 +7,10 @@
 #include "base/printf.h"
 #include "io/units.h"
 #include "report/enum_words.h"
+#include "report/unit_symbols.h"
 
 namespace hushgain {
 namespace {
-
-constexpr const char* kPerRtHz = "/\xE2\x88\x9AHz";  // "/√Hz"
-constexpr const char* kOhm = "\xCE\xA9";             // "Ω"
 
 std::string ChangeLabel(const TeeChange& c) {
   switch (c.kind) {
@@ -33,6 +31,8 @@ std::string ChangeLabel(const TeeChange& c) {
 }  // namespace
 
 std::string FormatGain(double value) { return Printf("%.4g", value); }
+
+std::string FormatOhms(double ohms) { return FormatEng(ohms, kOhm); }
 
 std::string FormatDensity(double value, const std::string& unit) {
   return FormatEng(value, unit + kPerRtHz);

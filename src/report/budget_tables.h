@@ -92,8 +92,10 @@ std::string FormatCharge(double coulombs);
 std::string FormatChargeGain(double v_per_c);
 
 // Shared cell formats: "%.4g" for gains, engineering notation with
-// "<unit>/√Hz" for densities, "12.3 %" (or "<0.1 %") for shares.
+// "<unit>/√Hz" for densities and with "Ω" for resistances, "12.3 %" (or
+// "<0.1 %") for shares.
 std::string FormatGain(double value);
+std::string FormatOhms(double ohms);
 std::string FormatDensity(double value, const std::string& unit);
 std::string FormatShare(double fraction);
 

@@ -11,7 +11,6 @@
 namespace hushgain {
 namespace {
 
-constexpr int kWidthPx = 1400;
 constexpr int kRowPx = 56;  // one bar and its gap
 constexpr int kMinPanelPx = 280;
 
@@ -24,8 +23,6 @@ constexpr const char* kKindTitles[] = {"e_n x noise gain", "i_n (both inputs)",
 constexpr const char* kRefusedColour = "#888888";
 // The bar's height, of the distance between two bars.
 constexpr double kBarHalfHeight = 0.32;
-
-std::string Num(double v) { return PlotNumber(v); }
 
 double ShareOf(const NoiseKindShares& s, int kind) {
   switch (kind) {
@@ -46,7 +43,13 @@ std::string BuildComparePlotScript(const Stage& stage, const OpAmpComparison& c,
                                    const ComparePlotOptions& o) {
   assert(!c.rows.empty());
   const int n = static_cast<int>(c.rows.size());
-  SheetLayout layout{kWidthPx, 300, 400, 40, 90, 50, 280, 75};
+  SheetLayout layout{.left_px = 300,
+                     .legend_px = 400,
+                     .key_gap_px = 40,
+                     .heading_px = 90,
+                     .panel_top_px = 50,
+                     .panel_px = 280,
+                     .panel_bottom_px = 75};
   layout.panel_px = std::max(kMinPanelPx, kRowPx * n);
   const int height = layout.HeightPx(1);
 
@@ -55,7 +58,8 @@ std::string BuildComparePlotScript(const Stage& stage, const OpAmpComparison& c,
     if (r.status.ok) top = std::max(top, r.budget.input_rms);
   const auto [scale, unit] = UnitScale(top, c.input_unit);
 
-  std::string out = TerminalCommands(o.format, kWidthPx, height, o.output_path);
+  std::string out =
+      TerminalCommands(o.format, layout.width_px, height, o.output_path);
   // One datablock per kind: x, y, x_low, x_high, y_low, y_high of each
   // segment (boxxyerror), the first row at the top (y = n).
   for (int kind = 0; kind < 4; ++kind) {
@@ -69,16 +73,17 @@ std::string BuildComparePlotScript(const Stage& stage, const OpAmpComparison& c,
       const double x0 = from * rms;
       const double x1 = (from + ShareOf(r.shares, kind)) * rms;
       const double y = n - i;
-      out += Num(0.5 * (x0 + x1)) + " " + Num(y) + " " + Num(x0) + " " +
-             Num(x1) + " " + Num(y - kBarHalfHeight) + " " +
-             Num(y + kBarHalfHeight) + "\n";
+      out += PlotNumber(0.5 * (x0 + x1)) + " " + PlotNumber(y) + " " +
+             PlotNumber(x0) + " " + PlotNumber(x1) + " " +
+             PlotNumber(y - kBarHalfHeight) + " " +
+             PlotNumber(y + kBarHalfHeight) + "\n";
     }
     out += "EOD\n";
   }
 
   out += "set multiplot\n";
   out += "set label 1 " + GnuplotString(stage.name) +
-         " at screen 0.5, screen " + Num(1.0 - 32.0 / height) +
+         " at screen 0.5, screen " + PlotNumber(1.0 - 32.0 / height) +
          " center font ',16'\n";
   out += "set label 2 " +
          GnuplotString(
@@ -89,13 +94,14 @@ std::string BuildComparePlotScript(const Stage& stage, const OpAmpComparison& c,
                                                  : std::string("noise")) +
              "; each bar split by kind in proportion to its share of the "
              "noise power") +
-         " at screen 0.5, screen " + Num(1.0 - 64.0 / height) + " center\n";
+         " at screen 0.5, screen " + PlotNumber(1.0 - 64.0 / height) +
+         " center\n";
   out += PanelFrame(layout, 0, height,
                     "Input-referred noise rms by op-amp, and the verdict", 3);
   // Bars grow from 0; room on the right for the verdict.
   const double x_max = top > 0 ? 1.45 * top / scale : 1;
-  out += "set xrange [0:" + Num(x_max) + "]\n";
-  out += "set yrange [0.3:" + Num(n + 0.7) + "]\n";
+  out += "set xrange [0:" + PlotNumber(x_max) + "]\n";
+  out += "set yrange [0.3:" + PlotNumber(n + 0.7) + "]\n";
   out += "set xlabel " +
          GnuplotString("input-referred noise rms (" + unit + ")") + "\n";
   out += "unset ylabel\nset grid noytics nomytics\nset mxtics 2\n";
@@ -115,7 +121,7 @@ std::string BuildComparePlotScript(const Stage& stage, const OpAmpComparison& c,
       text = FormatEng(r.budget.input_rms, c.input_unit) + "  " + text;
     out +=
         "set label " + std::to_string(20 + i) + " " + GnuplotString(text) +
-        " at first " + Num(x) + ", first " + Num(n - i) +
+        " at first " + PlotNumber(x) + ", first " + PlotNumber(n - i) +
         " left offset 0.8,0 tc rgb '" +
         (r.status.ok ? std::string("#000000") : std::string(kRefusedColour)) +
         "'\n";

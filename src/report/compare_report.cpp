@@ -13,20 +13,19 @@
 #include "report/enum_words.h"
 #include "report/table.h"
 #include "report/text_escape.h"
+#include "report/unit_symbols.h"
 
 namespace hushgain {
 namespace {
 
-constexpr const char* kOhm = "\xCE\xA9";             // "Ω"
-constexpr const char* kPerRtHz = "/\xE2\x88\x9AHz";  // "/√Hz"
-constexpr const char* kDegree = "\xC2\xB0";          // "°"
+constexpr const char* kDegree = "\xC2\xB0";  // "°"
 constexpr const char* kNone = "-";
 
 using Row = OpAmpComparisonRow;
 
 // One column: its header and cell in each style; an empty header leaves the
 // column out of that style.
-struct Column {
+struct CompareColumn {
   std::string display_header;
   std::string csv_header;
   std::function<std::string(const Row&)> display;
@@ -36,12 +35,12 @@ struct Column {
 
 enum class Cells { kDisplay, kCsv };
 
-Table Build(const std::vector<Column>& columns, const std::vector<Row>& rows,
-            Cells cells) {
+Table Build(const std::vector<CompareColumn>& columns,
+            const std::vector<Row>& rows, Cells cells) {
   const bool display = cells == Cells::kDisplay;
   Table t;
-  std::vector<const Column*> shown;
-  for (const Column& c : columns) {
+  std::vector<const CompareColumn*> shown;
+  for (const CompareColumn& c : columns) {
     const std::string& header = display ? c.display_header : c.csv_header;
     if (header.empty()) continue;
     shown.push_back(&c);
@@ -50,7 +49,7 @@ Table Build(const std::vector<Column>& columns, const std::vector<Row>& rows,
   }
   for (const Row& r : rows) {
     std::vector<std::string> cells_of_row;
-    for (const Column* c : shown)
+    for (const CompareColumn* c : shown)
       cells_of_row.push_back(display ? c->display(r) : c->csv(r));
     t.AddRow(std::move(cells_of_row));
   }
@@ -90,10 +89,10 @@ std::string BandwidthCell(const Budget& b) {
 }
 
 // The columns of the ranking table (display) and of the CSV record.
-std::vector<Column> RankingColumns(const OpAmpComparison& c) {
+std::vector<CompareColumn> RankingColumns(const OpAmpComparison& c) {
   const std::string unit = c.input_unit;
   const std::string f_ref = FormatEng(c.reference_hz, "Hz");
-  std::vector<Column> cols;
+  std::vector<CompareColumn> cols;
   cols.push_back({"rank", "rank",
                   [](const Row& r) {
                     return r.rank > 0 ? std::to_string(r.rank)
@@ -159,9 +158,9 @@ std::vector<Column> RankingColumns(const OpAmpComparison& c) {
 }
 
 // The columns of the "why" table (display) and the rest of the CSV record.
-std::vector<Column> WhyColumns(const OpAmpComparison& c, bool display) {
+std::vector<CompareColumn> WhyColumns(const OpAmpComparison& c, bool display) {
   const std::string f_ref = FormatEng(c.reference_hz, "Hz");
-  std::vector<Column> cols;
+  std::vector<CompareColumn> cols;
   if (display)
     cols.push_back({"device", "", [](const Row& r) { return r.device; },
                     nullptr, Table::Align::kLeft});
@@ -231,11 +230,11 @@ Table WhyTable(const OpAmpComparison& c) {
 }
 
 Table CsvTable(const OpAmpComparison& c) {
-  std::vector<Column> cols = RankingColumns(c);
+  std::vector<CompareColumn> cols = RankingColumns(c);
   // The verdict closes the record.
-  Column verdict = cols.back();
+  CompareColumn verdict = cols.back();
   cols.pop_back();
-  for (Column& w : WhyColumns(c, false)) cols.push_back(std::move(w));
+  for (CompareColumn& w : WhyColumns(c, false)) cols.push_back(std::move(w));
   cols.push_back(std::move(verdict));
   return Build(cols, c.rows, Cells::kCsv);
 }

@@ -8,11 +8,10 @@
 #include "io/units.h"
 #include "report/table.h"
 #include "report/text_escape.h"
+#include "report/unit_symbols.h"
 
 namespace hushgain {
 namespace {
-
-constexpr const char* kRtHz = "/\xE2\x88\x9AHz";  // "/√Hz"
 
 std::string Label(const DeviceFileInfo& info) {
   return info.illustrative.empty() ? "user" : "illustrative";
@@ -20,9 +19,9 @@ std::string Label(const DeviceFileInfo& info) {
 
 const DeviceFileInfo& InfoOf(const std::map<std::string, DeviceFileInfo>& files,
                              const std::string& name) {
-  static const DeviceFileInfo kNone;
+  static const DeviceFileInfo kNoInfo;
   auto it = files.find(name);
-  return it == files.end() ? kNone : it->second;
+  return it == files.end() ? kNoInfo : it->second;
 }
 
 std::string BiasLawText(const OpAmpModel& m) {
@@ -70,9 +69,9 @@ Table OpAmpTable(const DeviceLibrary& library, bool si) {
                 Printf("%.6g", m.ib_a), data});
     else
       t.AddRow(
-          {name, m.class_name, FormatEng(e, std::string("V") + kRtHz),
+          {name, m.class_name, FormatEng(e, std::string("V") + kPerRtHz),
            m.voltage_noise_table.empty() ? FormatEng(m.f_cv_hz, "Hz") : "table",
-           FormatEng(i, std::string("A") + kRtHz), FormatEng(m.gbw_hz, "Hz"),
+           FormatEng(i, std::string("A") + kPerRtHz), FormatEng(m.gbw_hz, "Hz"),
            FormatEng(m.vos_v, "V"), FormatEng(m.ib_a, "A"), data});
   }
   return t;
@@ -109,8 +108,8 @@ struct Field {
 };
 
 std::vector<Field> OpAmpFields(const OpAmpModel& m) {
-  const std::string v_rthz = std::string("V") + kRtHz;
-  const std::string a_rthz = std::string("A") + kRtHz;
+  const std::string v_rthz = std::string("V") + kPerRtHz;
+  const std::string a_rthz = std::string("A") + kPerRtHz;
   return {
       {"voltage_noise", FormatEng(m.e_w_v_per_rthz, v_rthz), m.e_w_v_per_rthz},
       {"voltage_noise_corner", FormatEng(m.f_cv_hz, "Hz"), m.f_cv_hz},
@@ -174,9 +173,9 @@ std::string OpAmpDetail(const std::string& name, const OpAmpModel& m,
                                 : FormatEng(table.density[k], unit)});
   };
   add_table("voltage_noise_table", m.voltage_noise_table,
-            std::string("V") + kRtHz);
+            std::string("V") + kPerRtHz);
   add_table("current_noise_table", m.current_noise_table,
-            std::string("A") + kRtHz);
+            std::string("A") + kPerRtHz);
   if (format == "csv") return RenderCsv(t);
   std::string head;
   const std::string about =

@@ -22,10 +22,6 @@ std::string Inline(std::string_view text) {
   return EscapeHtml(plain);
 }
 
-bool StartsWith(std::string_view s, std::string_view prefix) {
-  return s.substr(0, prefix.size()) == prefix;
-}
-
 // The cells of a pipe-table row, split at unescaped "|", trimmed.
 std::vector<std::string> Cells(std::string_view line) {
   std::vector<std::string> cells;
@@ -109,7 +105,7 @@ std::string MarkdownToHtml(std::string_view markdown, int heading_shift) {
     const std::string_view line = lines[i];
     if (line.find_first_not_of(' ') == std::string_view::npos) {
       ++i;
-    } else if (StartsWith(line, "#")) {
+    } else if (line.starts_with("#")) {
       const std::size_t level = line.find_first_not_of('#');
       const int h = std::clamp(static_cast<int>(level) + heading_shift, 1, 6);
       const std::string tag = "h" + std::to_string(h);
@@ -117,12 +113,12 @@ std::string MarkdownToHtml(std::string_view markdown, int heading_shift) {
              Inline(line.substr(std::min(line.size(), level + 1))) + "</" +
              tag + ">\n";
       ++i;
-    } else if (StartsWith(line, "- ")) {
+    } else if (line.starts_with("- ")) {
       out += "<ul>\n";
-      for (; i < lines.size() && StartsWith(lines[i], "- "); ++i)
+      for (; i < lines.size() && lines[i].starts_with("- "); ++i)
         out += "<li>" + Inline(lines[i].substr(2)) + "</li>\n";
       out += "</ul>\n";
-    } else if (StartsWith(line, "|") && i + 1 < lines.size() &&
+    } else if (line.starts_with("|") && i + 1 < lines.size() &&
                IsDelimiterRow(Cells(lines[i + 1]))) {
       const std::vector<std::string> header = Cells(line);
       const std::vector<std::string> delimiters = Cells(lines[i + 1]);
@@ -135,7 +131,7 @@ std::string MarkdownToHtml(std::string_view markdown, int heading_shift) {
       for (std::size_t k = 0; k < header.size(); ++k)
         out += cell("th", k, header[k]);
       out += "</tr></thead>\n<tbody>\n";
-      for (i += 2; i < lines.size() && StartsWith(lines[i], "|"); ++i) {
+      for (i += 2; i < lines.size() && lines[i].starts_with("|"); ++i) {
         const std::vector<std::string> row = Cells(lines[i]);
         out += "<tr>";
         for (std::size_t k = 0; k < row.size(); ++k)
@@ -143,12 +139,12 @@ std::string MarkdownToHtml(std::string_view markdown, int heading_shift) {
         out += "</tr>\n";
       }
       out += "</tbody>\n</table>\n";
-    } else if (StartsWith(line, ">")) {
+    } else if (line.starts_with(">")) {
       out += "<blockquote>";
       bool first = true;
-      for (; i < lines.size() && StartsWith(lines[i], ">"); ++i) {
+      for (; i < lines.size() && lines[i].starts_with(">"); ++i) {
         std::string_view q = lines[i].substr(1);
-        if (StartsWith(q, " ")) q.remove_prefix(1);
+        if (q.starts_with(" ")) q.remove_prefix(1);
         out += (first ? "" : " ") + Inline(q);
         first = false;
       }
@@ -159,8 +155,8 @@ std::string MarkdownToHtml(std::string_view markdown, int heading_shift) {
       for (; i < lines.size(); ++i) {
         const std::string_view l = lines[i];
         if (l.find_first_not_of(' ') == std::string_view::npos ||
-            StartsWith(l, "#") || StartsWith(l, "- ") || StartsWith(l, "|") ||
-            StartsWith(l, ">"))
+            l.starts_with("#") || l.starts_with("- ") || l.starts_with("|") ||
+            l.starts_with(">"))
           break;
         out += (first ? "" : " ") + Inline(l);
         first = false;

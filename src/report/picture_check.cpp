@@ -3,10 +3,6 @@
 namespace hushgain {
 namespace {
 
-bool StartsWith(std::string_view text, std::string_view prefix) {
-  return text.substr(0, prefix.size()) == prefix;
-}
-
 bool EndsWith(std::string_view text, std::string_view suffix) {
   return text.size() >= suffix.size() &&
          text.substr(text.size() - suffix.size()) == suffix;
@@ -29,7 +25,7 @@ std::string IncompletePicture(PlotFormat format, std::string_view head,
       static constexpr char kSignature[] = "\x89PNG\r\n\x1A\n";
       static constexpr char kIend[] =
           "\x00\x00\x00\x00IEND\xAE\x42\x60\x82";  // length 0, type, CRC
-      if (!StartsWith(head, std::string_view(kSignature, 8)))
+      if (!head.starts_with(std::string_view(kSignature, 8)))
         return "no PNG signature at its start";
       if (!EndsWith(tail, std::string_view(kIend, 12)))
         return "no IEND chunk at its end";
@@ -40,7 +36,7 @@ std::string IncompletePicture(PlotFormat format, std::string_view head,
         return "no closing </svg> tag at its end";
       return "";
     case PlotFormat::kPdf:
-      if (!StartsWith(head, "%PDF-")) return "no %PDF- header at its start";
+      if (!head.starts_with("%PDF-")) return "no %PDF- header at its start";
       if (!EndsWith(TrimEnd(tail), "%%EOF"))
         return "no %%EOF trailer at its end";
       return "";

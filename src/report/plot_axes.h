@@ -26,7 +26,8 @@ std::string TerminalCommands(PlotFormat format, int width_px, int height_px,
 std::string GridCommand();
 
 // The pixel geometry of a sheet of stacked panels: tic labels on the left,
-// a legend column on the right, a heading above the first panel.
+// a legend column on the right, a heading above the first panel. Every
+// sheet is 1400 pixels wide.
 struct SheetLayout {
   int width_px = 1400;
   int left_px = 140;

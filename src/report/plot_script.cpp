@@ -14,7 +14,6 @@
 namespace hushgain {
 namespace {
 
-std::string Num(double v) { return PlotNumber(v); }
 std::string LogNum(double v) { return PlotLogNumber(v); }
 std::string Short(double v, const std::string& unit) {
   return ShortEng(v, unit);
@@ -22,7 +21,7 @@ std::string Short(double v, const std::string& unit) {
 
 // Sheet geometry in pixels. The legend column on the right holds names
 // with their rms and share; the left margin holds tic labels with units.
-constexpr int kWidthPx = 1400;
+constexpr int kWidthPx = SheetLayout{}.width_px;
 constexpr int kLeftPx = 150;
 constexpr int kLegendPx = 440;
 // Room between the plot and the legend for the dB axis of the gain panel.
@@ -141,7 +140,7 @@ class ScriptWriter {
     const SpectrumSamples& s = d_.samples;
     out_ += "$samples << EOD\n";
     for (std::size_t i = 0; i < s.f_hz.size(); ++i) {
-      out_ += Num(s.f_hz[i]);
+      out_ += PlotNumber(s.f_hz[i]);
       for (int k : order_) out_ += " " + LogNum(s.density_v_per_rthz[k][i]);
       out_ += " " + LogNum(s.total_v_per_rthz[i]) + " " +
               LogNum(s.signal_gain_abs[i]) + " " + LogNum(s.noise_gain_abs[i]) +
@@ -150,19 +149,20 @@ class ScriptWriter {
     out_ += "EOD\n";
     out_ += "$cumulative << EOD\n";
     for (std::size_t i = 0; i < d_.cumulative_f_hz.size(); ++i)
-      out_ +=
-          Num(d_.cumulative_f_hz[i]) + " " + Num(d_.cumulative_rms_v[i]) + "\n";
+      out_ += PlotNumber(d_.cumulative_f_hz[i]) + " " +
+              PlotNumber(d_.cumulative_rms_v[i]) + "\n";
     out_ += "EOD\n";
     // The band total (from the band integral) as a level across the band.
     const double total = b_.output_rms_v;
-    out_ += "$band_total << EOD\n" + Num(b_.band_low_hz) + " " + Num(total) +
-            "\n" + Num(b_.band_high_hz) + " " + Num(total) + "\nEOD\n";
+    out_ += "$band_total << EOD\n" + PlotNumber(b_.band_low_hz) + " " +
+            PlotNumber(total) + "\n" + PlotNumber(b_.band_high_hz) + " " +
+            PlotNumber(total) + "\nEOD\n";
     if (!d_.chain_f_hz.empty()) {
       out_ += "$chain << EOD\n";
       for (std::size_t i = 0; i < d_.chain_f_hz.size(); ++i)
-        out_ += Num(d_.chain_f_hz[i]) + " " +
-                Num(d_.chain_cumulative_rms_v[i]) + " " +
-                Num(d_.chain_filter_db[i]) + "\n";
+        out_ += PlotNumber(d_.chain_f_hz[i]) + " " +
+                PlotNumber(d_.chain_cumulative_rms_v[i]) + " " +
+                PlotNumber(d_.chain_filter_db[i]) + "\n";
       out_ += "EOD\n";
     }
   }
@@ -186,10 +186,10 @@ class ScriptWriter {
         FormatEng(b_.output_peak_to_peak_v, "V") + " p-p), input-referred " +
         FormatEng(b_.input_rms, b_.input_unit) + " rms";
     out_ += "set label 1 " + GnuplotString(b_.stage_name) +
-            " at screen 0.5, screen " + Num(1.0 - 32.0 / height_px_) +
+            " at screen 0.5, screen " + PlotNumber(1.0 - 32.0 / height_px_) +
             " center font ',16'\n";
     out_ += "set label 2 " + GnuplotString(summary) +
-            " at screen 0.5, screen " + Num(1.0 - 64.0 / height_px_) +
+            " at screen 0.5, screen " + PlotNumber(1.0 - 64.0 / height_px_) +
             " center\n";
   }
 
@@ -199,13 +199,15 @@ class ScriptWriter {
         "unset label 12\nunset label 13\nunset label 14\n"
         "unset logscale\nunset y2tics\nunset y2label\nunset title\n"
         "set ytics auto nomirror\nset xtics auto\n";
-    out_ += "set lmargin at screen " + Num(double(kLeftPx) / kWidthPx) + "\n";
+    out_ += "set lmargin at screen " + PlotNumber(double(kLeftPx) / kWidthPx) +
+            "\n";
     out_ += "set rmargin at screen " +
-            Num(double(kWidthPx - kLegendPx) / kWidthPx) + "\n";
-    out_ += "set tmargin at screen " + Num(f.top) + "\n";
-    out_ += "set bmargin at screen " + Num(f.bottom) + "\n";
+            PlotNumber(double(kWidthPx - kLegendPx) / kWidthPx) + "\n";
+    out_ += "set tmargin at screen " + PlotNumber(f.top) + "\n";
+    out_ += "set bmargin at screen " + PlotNumber(f.bottom) + "\n";
     out_ += "set logscale x\n";
-    out_ += "set xrange [" + Num(f_min_) + ":" + Num(f_max_) + "]\n";
+    out_ +=
+        "set xrange [" + PlotNumber(f_min_) + ":" + PlotNumber(f_max_) + "]\n";
     out_ += LogTicsCommand("x", f_min_, f_max_,
                            [](double v) { return Short(v, "Hz"); });
     out_ += "set xlabel 'frequency (Hz)'\n";
@@ -214,28 +216,29 @@ class ScriptWriter {
     // The parts outside the band shaded, the edges drawn and labelled above
     // the plot.
     out_ += "set object 1 rect from graph 0, graph 0 to first " +
-            Num(b_.band_low_hz) + ", graph 1 behind fc rgb '" + kBandShade +
-            "' fs solid 1.0 noborder\n";
-    out_ += "set object 2 rect from first " + Num(b_.band_high_hz) +
+            PlotNumber(b_.band_low_hz) + ", graph 1 behind fc rgb '" +
+            kBandShade + "' fs solid 1.0 noborder\n";
+    out_ += "set object 2 rect from first " + PlotNumber(b_.band_high_hz) +
             ", graph 0 to graph 1, graph 1 behind fc rgb '" + kBandShade +
             "' fs solid 1.0 noborder\n";
     for (double edge : {b_.band_low_hz, b_.band_high_hz})
-      out_ += "set arrow from first " + Num(edge) + ", graph 0 to first " +
-              Num(edge) + ", graph 1 nohead dt 2 lw 1.5 lc rgb '" +
-              kEdgeColour + "' front\n";
+      out_ += "set arrow from first " + PlotNumber(edge) +
+              ", graph 0 to first " + PlotNumber(edge) +
+              ", graph 1 nohead dt 2 lw 1.5 lc rgb '" + kEdgeColour +
+              "' front\n";
     out_ +=
         "set label 10 " +
         GnuplotString("band " + Short(b_.band_low_hz, "Hz") + " \xE2\x96\xB8") +
-        " at first " + Num(b_.band_low_hz) +
+        " at first " + PlotNumber(b_.band_low_hz) +
         ", graph 1 right offset 0.4,0.7 tc rgb '" + kEdgeColour + "'\n";
     out_ += "set label 11 " +
             GnuplotString("\xE2\x97\x82 " + Short(b_.band_high_hz, "Hz") +
                           " band") +
-            " at first " + Num(b_.band_high_hz) +
+            " at first " + PlotNumber(b_.band_high_hz) +
             ", graph 1 left offset -0.4,0.7 tc rgb '" + kEdgeColour + "'\n";
     out_ += "set key at screen " +
-            Num(double(kWidthPx - kLegendPx + kKeyGapPx) / kWidthPx) +
-            ", screen " + Num(f.top) +
+            PlotNumber(double(kWidthPx - kLegendPx + kKeyGapPx) / kWidthPx) +
+            ", screen " + PlotNumber(f.top) +
             " left top Left reverse samplen 2.5 spacing 1.25 "
             "box lc rgb '#bbbbbb' width -1\n";
   }
@@ -259,8 +262,8 @@ class ScriptWriter {
     PanelTitle("Output noise density by contributor");
     out_ += "set logscale y\n";
     // The slight padding keeps gnuplot from dropping the end tics.
-    out_ += "set yrange [" + Num(std::pow(10.0, lo) * 0.999) + ":" +
-            Num(std::pow(10.0, hi) * 1.001) + "]\n";
+    out_ += "set yrange [" + PlotNumber(std::pow(10.0, lo) * 0.999) + ":" +
+            PlotNumber(std::pow(10.0, hi) * 1.001) + "]\n";
     out_ +=
         LogTicsCommand("y", std::pow(10.0, lo), std::pow(10.0, hi),
                        [](double v) { return Short(v, "V/\xE2\x88\x9AHz"); });
@@ -309,13 +312,14 @@ class ScriptWriter {
   void Cumulative(const Frame&) {
     const auto [scale, unit] = UnitScale(b_.output_rms_v, "V");
     PanelTitle("Cumulative output noise from the low band edge up");
-    out_ += "set yrange [0:" + Num(1.15 * b_.output_rms_v / scale) + "]\n";
+    out_ +=
+        "set yrange [0:" + PlotNumber(1.15 * b_.output_rms_v / scale) + "]\n";
     out_ += "set ytics auto\nset format y '%g'\n";
     out_ += "set ylabel " + GnuplotString("output rms (" + unit + ")") + "\n";
-    out_ += "plot $cumulative using 1:($2/" + Num(scale) +
+    out_ += "plot $cumulative using 1:($2/" + PlotNumber(scale) +
             ") with lines lw 3 lc rgb '" + kColours[0] + "' title " +
             GnuplotString("rms from " + Short(b_.band_low_hz, "Hz") + " to f") +
-            ", \\\n  $band_total using 1:($2/" + Num(scale) +
+            ", \\\n  $band_total using 1:($2/" + PlotNumber(scale) +
             ") with lines dt 3 lw 1.5 lc rgb '#000000' title " +
             GnuplotString("band total " + FormatEng(b_.output_rms_v, "V") +
                           " rms") +
@@ -345,8 +349,9 @@ class ScriptWriter {
   // A vertical marker line; its words go into the legend (a key entry in
   // the same colour and dash), so no text ever crosses a curve.
   std::string Marker(double f, const std::string& text, const char* colour) {
-    out_ += "set arrow from first " + Num(f) + ", graph 0 to first " + Num(f) +
-            ", graph 1 nohead dt 4 lw 1.5 lc rgb '" + colour + "' front\n";
+    out_ += "set arrow from first " + PlotNumber(f) + ", graph 0 to first " +
+            PlotNumber(f) + ", graph 1 nohead dt 4 lw 1.5 lc rgb '" + colour +
+            "' front\n";
     return ", \\\n  keyentry with lines dt 4 lw 1.5 lc rgb '" +
            std::string(colour) + "' title " + GnuplotString(text);
   }
@@ -366,23 +371,26 @@ class ScriptWriter {
     const char* ratio_axis = "x1y1";
     if (transimpedance) {
       const auto [z_bottom, z_top] = LogRange({&s.signal_gain_abs}, 4, false);
-      out_ += "set yrange [" + Num(z_bottom) + ":" + Num(z_top) + "]\n";
+      out_ += "set yrange [" + PlotNumber(z_bottom) + ":" + PlotNumber(z_top) +
+              "]\n";
       out_ += LogTicsCommand("y", z_bottom, z_top,
                              [](double v) { return Short(v, "\xCE\xA9"); });
       out_ += "set ylabel " + GnuplotString("transimpedance (V/A = \xCE\xA9)") +
               "\n";
       out_ += "set logscale y2\n";
-      out_ += "set y2range [" + Num(r_bottom) + ":" + Num(r_top) + "]\n";
+      out_ += "set y2range [" + PlotNumber(r_bottom) + ":" + PlotNumber(r_top) +
+              "]\n";
       out_ += "set y2tics out\n";
       out_ += LogTicsCommand("y2", r_bottom, r_top, GainLabel);
       out_ += "set y2label 'noise gain, loop gain (V/V)'\n";
       ratio_axis = "x1y2";
     } else {
-      out_ += "set yrange [" + Num(r_bottom) + ":" + Num(r_top) + "]\n";
+      out_ += "set yrange [" + PlotNumber(r_bottom) + ":" + PlotNumber(r_top) +
+              "]\n";
       out_ += LogTicsCommand("y", r_bottom, r_top, GainLabel);
       out_ += "set ylabel 'gain (V/V)'\n";
-      out_ += "set y2range [" + Num(20.0 * std::log10(r_bottom)) + ":" +
-              Num(20.0 * std::log10(r_top)) + "]\n";
+      out_ += "set y2range [" + PlotNumber(20.0 * std::log10(r_bottom)) + ":" +
+              PlotNumber(20.0 * std::log10(r_top)) + "]\n";
       out_ += "set y2tics 20 out\nset y2label 'dB'\n";
     }
     out_ += "set border 11 lw 1\n";
@@ -431,7 +439,7 @@ class ScriptWriter {
     out_ += "unset label 10\n";
     const double f_lo = d_.chain_f_hz.front();
     const double f_hi = d_.chain_f_hz.back();
-    out_ += "set xrange [" + Num(f_lo) + ":" + Num(f_hi) + "]\n";
+    out_ += "set xrange [" + PlotNumber(f_lo) + ":" + PlotNumber(f_hi) + "]\n";
     out_ += LogTicsCommand("x", f_lo, f_hi,
                            [](double v) { return Short(v, "Hz"); });
     const double converter_rms =
@@ -439,7 +447,7 @@ class ScriptWriter {
     const double top = std::max(c.analog_rms_v, converter_rms);
     const auto [scale, unit] = UnitScale(top, "V");
     PanelTitle("Signal chain: noise at the converter's input and the filter");
-    out_ += "set yrange [0:" + Num(1.15 * top / scale) + "]\n";
+    out_ += "set yrange [0:" + PlotNumber(1.15 * top / scale) + "]\n";
     out_ += "set ytics auto\nset format y '%g'\n";
     out_ += "set ylabel " +
             GnuplotString("cumulative rms at the ADC input (" + unit + ")") +
@@ -452,7 +460,8 @@ class ScriptWriter {
     const double y2_top = 20 * std::ceil((db_max + 10) / 20);
     const double y2_bottom =
         std::max(20 * std::floor(db_min / 20), y2_top - 160);
-    out_ += "set y2range [" + Num(y2_bottom) + ":" + Num(y2_top) + "]\n";
+    out_ += "set y2range [" + PlotNumber(y2_bottom) + ":" + PlotNumber(y2_top) +
+            "]\n";
     out_ += "set y2tics 20 out\nset y2label 'filter |H| (dB)'\n";
     out_ += "set border 11 lw 1\n";
     std::string markers = Marker(
@@ -462,13 +471,14 @@ class ScriptWriter {
           c.chain.filter->cutoff_hz,
           "filter -3 dB at " + FormatEng(c.chain.filter->cutoff_hz, "Hz"),
           kColours[2]);
-    out_ += "$converter << EOD\n" + Num(f_lo) + " " + Num(converter_rms) +
-            "\n" + Num(f_hi) + " " + Num(converter_rms) + "\nEOD\n";
-    out_ += "plot $chain using 1:($2/" + Num(scale) +
+    out_ += "$converter << EOD\n" + PlotNumber(f_lo) + " " +
+            PlotNumber(converter_rms) + "\n" + PlotNumber(f_hi) + " " +
+            PlotNumber(converter_rms) + "\nEOD\n";
+    out_ += "plot $chain using 1:($2/" + PlotNumber(scale) +
             ") axes x1y1 with lines lw 3 lc rgb '" + kColours[0] + "' title " +
             GnuplotString("analog, " + Short(b_.band_low_hz, "Hz") + " to f (" +
                           FormatEng(c.analog_rms_v, "V") + ")") +
-            ", \\\n  $converter using 1:($2/" + Num(scale) +
+            ", \\\n  $converter using 1:($2/" + PlotNumber(scale) +
             ") axes x1y1 with lines dt 3 lw 1.5 lc rgb '#000000' title " +
             GnuplotString(
                 "converter + q/\xE2\x88\x9A"

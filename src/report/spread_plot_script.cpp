@@ -20,12 +20,13 @@ namespace {
 
 // Sheet geometry in pixels: tic labels on the left, the legend column on
 // the right.
-constexpr int kWidthPx = 1400;
-constexpr int kLegendPx = 440;
-constexpr int kKeyGapPx = 40;
-constexpr int kHeadingPx = 90;
-constexpr SheetLayout kLayout{kWidthPx,   120, kLegendPx, kKeyGapPx,
-                              kHeadingPx, 50,  300,       75};
+constexpr SheetLayout kSpreadSheet{.left_px = 120,
+                                   .legend_px = 440,
+                                   .key_gap_px = 40,
+                                   .heading_px = 90,
+                                   .panel_top_px = 50,
+                                   .panel_px = 300,
+                                   .panel_bottom_px = 75};
 constexpr int kPanels = 3;
 
 // Our own colours (as the other sheets').
@@ -34,9 +35,7 @@ constexpr const char* kMeanColour = "#000000";
 constexpr const char* kPercentileColour = "#555555";
 constexpr const char* kLimitColour = "#e07b00";
 
-std::string Num(double v) { return PlotNumber(v); }
-
-std::string Percent(double fraction) {
+std::string PercentLabel(double fraction) {
   return Printf("%.3f %%", 100 * fraction);
 }
 
@@ -56,7 +55,7 @@ struct Figure {
 };
 
 void Panel(std::string& out, int index, int height_px, const Figure& f) {
-  out += PanelFrame(kLayout, index, height_px, f.title, 3);
+  out += PanelFrame(kSpreadSheet, index, height_px, f.title, 3);
 
   const std::vector<double>& values = f.values;
   // No spread (every sample equal to 1e-9 relative, e.g. zero tolerances):
@@ -96,20 +95,21 @@ void Panel(std::string& out, int index, int height_px, const Figure& f) {
       hi = std::max(hi, l);
     }
   const double pad = 0.04 * (hi - lo);
-  out += "set xrange [" + Num(lo - pad) + ":" + Num(hi + pad) + "]\n";
+  out += "set xrange [" + PlotNumber(lo - pad) + ":" + PlotNumber(hi + pad) +
+         "]\n";
   long peak = 1;
   for (long c : h.counts) peak = std::max(peak, c);
-  out += "set yrange [0:" + Num(std::ceil(peak * 1.12)) + "]\n";
+  out += "set yrange [0:" + PlotNumber(std::ceil(peak * 1.12)) + "]\n";
   out += "set xlabel " + GnuplotString(f.axis_label) + "\n";
   out += "set ylabel " + GnuplotString("samples per bin") + "\n";
 
   const std::string block = "$hist" + std::to_string(index);
   out += block + " << EOD\n";
   for (int k = 0; k < h.Bins(); ++k)
-    out += Num(0.5 * (h.edges[k] + h.edges[k + 1])) + " " +
+    out += PlotNumber(0.5 * (h.edges[k] + h.edges[k + 1])) + " " +
            std::to_string(h.counts[k]) + "\n";
   out += "EOD\n";
-  out += "set boxwidth " + Num(h.Width()) + " absolute\n";
+  out += "set boxwidth " + PlotNumber(h.Width()) + " absolute\n";
 
   const std::string mean_style =
       std::string("lw 2.5 lc rgb '") + kMeanColour + "'";
@@ -118,8 +118,8 @@ void Panel(std::string& out, int index, int height_px, const Figure& f) {
   const std::string limit_style =
       std::string("dt 3 lw 3 lc rgb '") + kLimitColour + "'";
   auto vertical = [&](double x, const std::string& style) {
-    out += "set arrow from first " + Num(x) + ", graph 0 to first " + Num(x) +
-           ", graph 1 nohead " + style + " front\n";
+    out += "set arrow from first " + PlotNumber(x) + ", graph 0 to first " +
+           PlotNumber(x) + ", graph 1 nohead " + style + " front\n";
   };
   vertical(f.dist.mean * f.factor, mean_style);
   if (!flat) {
@@ -149,7 +149,7 @@ void Panel(std::string& out, int index, int height_px, const Figure& f) {
   if (f.limit) {
     std::string text = std::string("limit ") + (f.two_sided ? "\xC2\xB1" : "") +
                        f.text(*f.limit);
-    if (f.yield) text += ", yield " + Percent(*f.yield);
+    if (f.yield) text += ", yield " + PercentLabel(*f.yield);
     if (drawn_limits.size() < limit_lines.size()) text += " (off the axis)";
     entry(limit_style, text);
   }
@@ -163,9 +163,9 @@ std::string BuildSpreadPlotScript(const SpreadRun& run,
                                   const SpreadLimits& limits,
                                   const SpreadPlotOptions& o) {
   assert(run.size() > 0);
-  const int height_px = kLayout.HeightPx(kPanels);
-  std::string out =
-      TerminalCommands(o.format, kWidthPx, height_px, o.output_path);
+  const int height_px = kSpreadSheet.HeightPx(kPanels);
+  std::string out = TerminalCommands(o.format, kSpreadSheet.width_px, height_px,
+                                     o.output_path);
   out += "set style fill solid 0.45 border\n";
 
   const Budget& nominal = run.nominal;
@@ -180,14 +180,15 @@ std::string BuildSpreadPlotScript(const SpreadRun& run,
                   " \xC2\xB0"
                   "C";
   if (summary.yield.all)
-    summary_line += ";  yield " + Percent(*summary.yield.all);
+    summary_line += ";  yield " + PercentLabel(*summary.yield.all);
 
   out += "set multiplot\n";
   out += "set label 1 " + GnuplotString(nominal.stage_name) +
-         " at screen 0.5, screen " + Num(1.0 - 32.0 / height_px) +
+         " at screen 0.5, screen " + PlotNumber(1.0 - 32.0 / height_px) +
          " center font ',16'\n";
   out += "set label 2 " + GnuplotString(summary_line) +
-         " at screen 0.5, screen " + Num(1.0 - 64.0 / height_px) + " center\n";
+         " at screen 0.5, screen " + PlotNumber(1.0 - 64.0 / height_px) +
+         " center\n";
 
   // One panel's values at a time, in display units.
   const auto scaled = [](const std::vector<double>& si, double factor) {

@@ -12,20 +12,20 @@
 #include "report/enum_words.h"
 #include "report/plot_axes.h"
 #include "report/text_escape.h"
+#include "report/unit_symbols.h"
 
 namespace hushgain {
 namespace {
 
-constexpr const char* kOhm = "\xCE\xA9";
-
 // Sheet geometry in pixels: tic labels with units on the left, the right
 // axis (room before the legend) and then the legend column on the right.
-constexpr int kWidthPx = 1400;
-constexpr int kLegendPx = 430;
-constexpr int kKeyGapPx = 110;
-constexpr int kHeadingPx = 90;
-constexpr SheetLayout kLayout{kWidthPx,   140, kLegendPx, kKeyGapPx,
-                              kHeadingPx, 50,  380,       75};
+constexpr SheetLayout kTeeSheet{.left_px = 140,
+                                .legend_px = 430,
+                                .key_gap_px = 110,
+                                .heading_px = 90,
+                                .panel_top_px = 50,
+                                .panel_px = 380,
+                                .panel_bottom_px = 75};
 
 // Our own colours (as the plot sheet's).
 constexpr const char* kNoiseColour = "#1f5fa8";
@@ -34,15 +34,13 @@ constexpr const char* kStageColour = "#2e933c";
 constexpr const char* kPartColours[] = {"#1f5fa8", "#d1495b", "#2e933c",
                                         "#7b4b94"};
 
-std::string Num(double v) { return PlotNumber(v); }
-
-std::string Temperature(const Budget& b) {
+std::string TemperatureLabel(const Budget& b) {
   return Printf("%.2f", b.temperature_k - kZeroCelsiusK) +
          " \xC2\xB0"
          "C";
 }
 
-std::string Band(const Budget& b) {
+std::string BandLabel(const Budget& b) {
   return "band " + FormatEng(b.band_low_hz, "Hz") + " to " +
          FormatEng(b.band_high_hz, "Hz");
 }
@@ -56,8 +54,9 @@ std::string RankingWords(const TeeSearchQuery& q) {
 class Sheet {
  public:
   Sheet(const TeePlotOptions& o, int panels)
-      : height_px_(kLayout.HeightPx(panels)) {
-    out_ += TerminalCommands(o.format, kWidthPx, height_px_, o.output_path);
+      : height_px_(kTeeSheet.HeightPx(panels)) {
+    out_ += TerminalCommands(o.format, kTeeSheet.width_px, height_px_,
+                             o.output_path);
   }
 
   std::string& out() { return out_; }
@@ -65,15 +64,15 @@ class Sheet {
   void Heading(const std::string& title, const std::string& summary) {
     out_ += "set multiplot\n";
     out_ += "set label 1 " + GnuplotString(title) + " at screen 0.5, screen " +
-            Num(1.0 - 32.0 / height_px_) + " center font ',16'\n";
+            PlotNumber(1.0 - 32.0 / height_px_) + " center font ',16'\n";
     out_ += "set label 2 " + GnuplotString(summary) +
-            " at screen 0.5, screen " + Num(1.0 - 64.0 / height_px_) +
+            " at screen 0.5, screen " + PlotNumber(1.0 - 64.0 / height_px_) +
             " center\n";
   }
 
   // Margins, grid, legend place and title of panel `index` (from 0).
   void Panel(int index, const std::string& title) {
-    out_ += PanelFrame(kLayout, index, height_px_, title, 11);
+    out_ += PanelFrame(kTeeSheet, index, height_px_, title, 11);
   }
 
   std::string Finish() {
@@ -103,7 +102,8 @@ std::string RatioTics(const char* axis, double lo, double hi) {
   auto add = [&](double v) {
     char label[32];
     std::snprintf(label, sizeof label, "x%.*f", decimals, v);
-    list += (list.empty() ? "" : ", ") + GnuplotString(label) + " " + Num(v);
+    list +=
+        (list.empty() ? "" : ", ") + GnuplotString(label) + " " + PlotNumber(v);
   };
   bool one = false;
   for (long k = static_cast<long>(std::ceil(lo / step - 1e-9));
@@ -145,11 +145,12 @@ void RatioAxes(std::string& out, const std::vector<double>& values,
     out += "set ylabel " + GnuplotString(left_label + " (" + prefixed + ")") +
            "\n";
   }
-  out += "set yrange [" + Num(y_lo) + ":" + Num(y_hi) + "]\n";
+  out += "set yrange [" + PlotNumber(y_lo) + ":" + PlotNumber(y_hi) + "]\n";
   if (!(ref > 0)) return;
   // The right axis spans the left one divided by the reference: on a
   // linear or a log pair of axes alike, each point reads as its ratio.
-  out += "set y2range [" + Num(y_lo / ref) + ":" + Num(y_hi / ref) + "]\n";
+  out += "set y2range [" + PlotNumber(y_lo / ref) + ":" +
+         PlotNumber(y_hi / ref) + "]\n";
   out += log ? LogTicsCommand("y2", y_lo / ref, y_hi / ref,
                               [](double v) { return Printf("x%g", v); })
              : RatioTics("y2", y_lo / ref, y_hi / ref);
@@ -159,7 +160,8 @@ void RatioAxes(std::string& out, const std::vector<double>& values,
 // The log axis of the largest resistor.
 void LargestAxis(std::string& out, double lo_ohm, double hi_ohm) {
   const double lo = lo_ohm / 1.6, hi = hi_ohm * 1.6;
-  out += "set logscale x\nset xrange [" + Num(lo) + ":" + Num(hi) + "]\n";
+  out += "set logscale x\nset xrange [" + PlotNumber(lo) + ":" +
+         PlotNumber(hi) + "]\n";
   out +=
       LogTicsCommand("x", lo, hi, [](double v) { return ShortEng(v, kOhm); });
   out += "set xlabel " +
@@ -193,18 +195,19 @@ std::string BuildSweepPlotScript(const TeeSweepResult& s,
   // same for the first row alone.
   out += "$sweep << EOD\n";
   for (const TeeSweepRow& r : s.rows)
-    out += Num(r.largest_ohm) + " " + Num(r.budget.output_rms_v / noise_scale) +
-           " " + Num(r.budget.offset.worst_case_v / offset_scale) + "\n";
-  out += "EOD\n$plain << EOD\n" + Num(s.rows.front().largest_ohm) + " " +
-         Num(plain.output_rms_v / noise_scale) + " " +
-         Num(plain.offset.worst_case_v / offset_scale) + "\nEOD\n";
+    out += PlotNumber(r.largest_ohm) + " " +
+           PlotNumber(r.budget.output_rms_v / noise_scale) + " " +
+           PlotNumber(r.budget.offset.worst_case_v / offset_scale) + "\n";
+  out += "EOD\n$plain << EOD\n" + PlotNumber(s.rows.front().largest_ohm) + " " +
+         PlotNumber(plain.output_rms_v / noise_scale) + " " +
+         PlotNumber(plain.offset.worst_case_v / offset_scale) + "\nEOD\n";
 
   sheet.Heading(
       plain.stage_name,
       "T-network sweep at Req = " + FormatEng(s.equivalent_ohm, kOhm) +
-          " (gain kept);  " + Band(plain) + ", " + Temperature(plain) +
-          ";  largest resistor " + FormatEng(l_hi, kOhm) + " (plain) down to " +
-          FormatEng(l_lo, kOhm));
+          " (gain kept);  " + BandLabel(plain) + ", " +
+          TemperatureLabel(plain) + ";  largest resistor " +
+          FormatEng(l_hi, kOhm) + " (plain) down to " + FormatEng(l_lo, kOhm));
 
   const std::string plain_title =
       "plain R_f = " + FormatEng(s.equivalent_ohm, kOhm);
@@ -214,8 +217,8 @@ std::string BuildSweepPlotScript(const TeeSweepResult& s,
   auto markers = [&]() {
     std::string m;
     if (!stage_marked) return m;
-    out += "set arrow from first " + Num(*o.stage_largest_ohm) +
-           ", graph 0 to first " + Num(*o.stage_largest_ohm) +
+    out += "set arrow from first " + PlotNumber(*o.stage_largest_ohm) +
+           ", graph 0 to first " + PlotNumber(*o.stage_largest_ohm) +
            ", graph 1 nohead dt 2 lw 2 lc rgb '" + kStageColour + "' front\n";
     m += ", \\\n  keyentry with lines dt 2 lw 2 lc rgb '" +
          std::string(kStageColour) + "' title " +
@@ -225,9 +228,9 @@ std::string BuildSweepPlotScript(const TeeSweepResult& s,
   };
   auto plain_label = [&](int column) {
     out += "set label 13 " + GnuplotString("plain R_f") + " at first " +
-           Num(s.rows.front().largest_ohm) + ", first " +
-           Num(column == 2 ? plain.output_rms_v / noise_scale
-                           : plain.offset.worst_case_v / offset_scale) +
+           PlotNumber(s.rows.front().largest_ohm) + ", first " +
+           PlotNumber(column == 2 ? plain.output_rms_v / noise_scale
+                                  : plain.offset.worst_case_v / offset_scale) +
            " center offset 0,1.6 tc rgb '#000000'\n";
   };
 
@@ -291,9 +294,10 @@ std::string BuildSearchPlotScript(const TeeSearchResult& s,
   out += "$best << EOD\n";
   for (int i = 0; i < n; ++i) {
     const TeeCandidate& c = s.best[i];
-    out += std::to_string(i + 1) + " " + Num(rms[i] / noise_scale) + " " +
-           Num(offset[i] / offset_scale) + " " + Num(c.r_in_ohm) + " " +
-           Num(c.r1_ohm) + " " + Num(c.r2_ohm) + " " + Num(c.r3_ohm) + "\n";
+    out += std::to_string(i + 1) + " " + PlotNumber(rms[i] / noise_scale) +
+           " " + PlotNumber(offset[i] / offset_scale) + " " +
+           PlotNumber(c.r_in_ohm) + " " + PlotNumber(c.r1_ohm) + " " +
+           PlotNumber(c.r2_ohm) + " " + PlotNumber(c.r3_ohm) + "\n";
   }
   out += "EOD\n";
 
@@ -301,13 +305,13 @@ std::string BuildSearchPlotScript(const TeeSearchResult& s,
                         Printf("%.6g", q.target_gain) + " within " +
                         Printf("%.3g %%", 100 * q.gain_tolerance) +
                         ", ranked by " + TeeRankingWord(q.ranking) + ";  " +
-                        Band(first) + ", " + Temperature(first);
+                        BandLabel(first) + ", " + TemperatureLabel(first);
   if (s.cancelled) summary += ";  interrupted: best so far";
   sheet.Heading(first.stage_name, summary);
 
   // Rank axis: every rank labelled "#k" while they fit.
   auto rank_axis = [&]() {
-    out += "set xrange [0.5:" + Num(n + 0.5) + "]\n";
+    out += "set xrange [0.5:" + PlotNumber(n + 0.5) + "]\n";
     const int step = n <= 25 ? 1 : (n + 24) / 25;
     std::string tics;
     for (int k = 1; k <= n; k += step)
@@ -325,8 +329,9 @@ std::string BuildSearchPlotScript(const TeeSearchResult& s,
     const double lo = *std::min_element(rms.begin(), rms.end());
     const double hi = *std::max_element(rms.begin(), rms.end());
     const double span = std::max(hi - lo, 0.02 * hi);
-    out += "set yrange [" + Num(std::max(0.0, lo - 0.1 * span) / noise_scale) +
-           ":" + Num((hi + 0.15 * span) / noise_scale) + "]\n";
+    out += "set yrange [" +
+           PlotNumber(std::max(0.0, lo - 0.1 * span) / noise_scale) + ":" +
+           PlotNumber((hi + 0.15 * span) / noise_scale) + "]\n";
     out +=
         "set ylabel " +
         GnuplotString("output noise rms over the band (" + noise_unit + ")") +
@@ -335,8 +340,8 @@ std::string BuildSearchPlotScript(const TeeSearchResult& s,
     const double ohi = *std::max_element(offset.begin(), offset.end());
     const double ospan = std::max(ohi - olo, 0.02 * ohi);
     out += "set y2range [" +
-           Num(std::max(0.0, olo - 0.1 * ospan) / offset_scale) + ":" +
-           Num((ohi + 0.15 * ospan) / offset_scale) + "]\n";
+           PlotNumber(std::max(0.0, olo - 0.1 * ospan) / offset_scale) + ":" +
+           PlotNumber((ohi + 0.15 * ospan) / offset_scale) + "]\n";
     out += "set y2tics out\nset y2label " +
            GnuplotString("worst-case output offset (" + offset_unit + ")") +
            "\n";
@@ -364,15 +369,16 @@ std::string BuildSearchPlotScript(const TeeSearchResult& s,
     double hi = *std::max_element(parts.begin(), parts.end());
     lo = std::min(lo, q.min_ohm) / 2;
     hi = std::max(hi, q.max_ohm) * 2;
-    out += "set logscale y\nset yrange [" + Num(lo) + ":" + Num(hi) + "]\n";
+    out += "set logscale y\nset yrange [" + PlotNumber(lo) + ":" +
+           PlotNumber(hi) + "]\n";
     out +=
         LogTicsCommand("y", lo, hi, [](double v) { return ShortEng(v, kOhm); });
     out += "set ylabel " +
            GnuplotString(std::string("resistance (") + kOhm + ")") + "\n";
     out += "set border 3 lw 1\n";
     for (double edge : {q.min_ohm, q.max_ohm})
-      out += "set arrow from graph 0, first " + Num(edge) +
-             " to graph 1, first " + Num(edge) +
+      out += "set arrow from graph 0, first " + PlotNumber(edge) +
+             " to graph 1, first " + PlotNumber(edge) +
              " nohead dt 3 lw 1.5 lc rgb '#666666' back\n";
   }
   std::string plot =
@@ -389,9 +395,10 @@ std::string BuildSearchPlotScript(const TeeSearchResult& s,
     const int column = k < 3 ? 5 + k : 4;
     const double dodge = 0.15 * (k - (count - 1) / 2.0);
     plot += ", \\\n  $best using ($1" + (dodge < 0 ? std::string("") : "+") +
-            Num(dodge) + "):" + std::to_string(column) + " with points pt " +
-            std::to_string(points[k]) + " ps 1.6 lc rgb '" + kPartColours[k] +
-            "' title " + GnuplotString(names[k]);
+            PlotNumber(dodge) + "):" + std::to_string(column) +
+            " with points pt " + std::to_string(points[k]) +
+            " ps 1.6 lc rgb '" + kPartColours[k] + "' title " +
+            GnuplotString(names[k]);
   }
   out += plot + "\n";
   return sheet.Finish();

@@ -7,16 +7,13 @@
 #include "base/physical_constants.h"
 #include "base/printf.h"
 #include "io/units.h"
+#include "report/budget_tables.h"
 #include "report/enum_words.h"
 #include "report/table.h"
 #include "report/text_escape.h"
 
 namespace hushgain {
 namespace {
-
-constexpr const char* kOhm = "\xCE\xA9";
-
-std::string Ohms(double value) { return FormatEng(value, kOhm); }
 
 nlohmann::json Flags(const Budget& b) {
   nlohmann::json out = nlohmann::json::array();
@@ -50,10 +47,11 @@ std::string Band(const Budget& b) {
 // The lines above a search table, shared by text and Markdown: the values
 // searched, the gain window and ranking, and how much was evaluated.
 std::string SearchSpace(const TeeSearchQuery& q) {
-  std::string out = q.series + " values " + Ohms(q.min_ohm) + " to " +
-                    Ohms(q.max_ohm) + " for R1, R2, R3";
+  std::string out = q.series + " values " + FormatOhms(q.min_ohm) + " to " +
+                    FormatOhms(q.max_ohm) + " for R1, R2, R3";
   if (q.input_min_ohm)
-    out += "; R_in " + Ohms(*q.input_min_ohm) + " to " + Ohms(*q.input_max_ohm);
+    out += "; R_in " + FormatOhms(*q.input_min_ohm) + " to " +
+           FormatOhms(*q.input_max_ohm);
   return out;
 }
 
@@ -75,10 +73,6 @@ std::string SearchCounts(const TeeSearchResult& s) {
 const char* kGainErrorNote = "the full engine's DC gain against the target";
 const char* kNoiseCostNote = "output rms / one resistor of the same Req";
 
-std::string Item(const std::string& label, const std::string& text) {
-  return "- " + label + ": " + EscapeMarkdown(text) + "\n";
-}
-
 std::string Temperature(const Budget& b) {
   return Printf("%.2f", b.temperature_k - kZeroCelsiusK) +
          " \xC2\xB0"
@@ -92,9 +86,10 @@ std::string SweepToText(const TeeSweepResult& s) {
   const Budget* first = FirstBudget(s);
   if (!first) return "";
   std::string out = EscapeText(first->stage_name) + "\n";
-  out += "  T-network sweep at Req = " + Ohms(s.equivalent_ohm) +
-         " (gain kept), largest resistor " + Ohms(s.rows.front().largest_ohm) +
-         " down to " + Ohms(s.rows.back().largest_ohm) + "\n";
+  out += "  T-network sweep at Req = " + FormatOhms(s.equivalent_ohm) +
+         " (gain kept), largest resistor " +
+         FormatOhms(s.rows.front().largest_ohm) + " down to " +
+         FormatOhms(s.rows.back().largest_ohm) + "\n";
   out += "  band " + Band(*first) +
          "; the first row is the plain resistor; noise cost = output rms / "
          "the plain row's\n\n";
@@ -111,17 +106,20 @@ std::string SweepToMarkdown(const TeeSweepResult& s) {
   if (!first) return "";
   std::string out =
       "## T-network sweep: " + EscapeMarkdown(first->stage_name) + "\n\n";
-  out += Item("temperature", Temperature(*first));
-  out += Item("band", Band(*first));
-  out += Item("gain kept", Printf("%.4g", std::fabs(first->signal_gain_dc)) +
-                               (first->input_unit == "A" ? " V/A" : " V/V") +
-                               " at DC (the plain resistor's), Req = " +
-                               Ohms(s.equivalent_ohm));
-  out += Item("largest resistor", Ohms(s.rows.front().largest_ohm) +
-                                      " (the plain resistor) down to " +
-                                      Ohms(s.rows.back().largest_ohm));
+  out += MarkdownItem("temperature", Temperature(*first));
+  out += MarkdownItem("band", Band(*first));
+  out += MarkdownItem("gain kept",
+                      Printf("%.4g", std::fabs(first->signal_gain_dc)) +
+                          (first->input_unit == "A" ? " V/A" : " V/V") +
+                          " at DC (the plain resistor's), Req = " +
+                          FormatOhms(s.equivalent_ohm));
+  out += MarkdownItem("largest resistor",
+                      FormatOhms(s.rows.front().largest_ohm) +
+                          " (the plain resistor) down to " +
+                          FormatOhms(s.rows.back().largest_ohm));
   out += "\n" + RenderMarkdown(SweepTable(s, TeeCells::kDisplay)) + "\n";
-  out += Item("noise cost", "output rms / the plain resistor's (first row)");
+  out += MarkdownItem("noise cost",
+                      "output rms / the plain resistor's (first row)");
   return out;
 }
 
@@ -175,17 +173,17 @@ std::string SearchToMarkdown(const TeeSearchResult& s,
       "## T-network search: " + EscapeMarkdown(first ? first->stage_name : "") +
       "\n\n";
   if (first) {
-    out += Item("temperature", Temperature(*first));
-    out += Item("band", Band(*first));
+    out += MarkdownItem("temperature", Temperature(*first));
+    out += MarkdownItem("band", Band(*first));
   }
-  out += Item("target gain", SearchGain(q));
-  out += Item("search space", SearchSpace(q));
-  out += Item("searched", SearchCounts(s));
+  out += MarkdownItem("target gain", SearchGain(q));
+  out += MarkdownItem("search space", SearchSpace(q));
+  out += MarkdownItem("searched", SearchCounts(s));
   if (s.cancelled)
-    out += Item("interrupted", "the best of the part searched so far");
+    out += MarkdownItem("interrupted", "the best of the part searched so far");
   out += "\n" + RenderMarkdown(SearchTable(s, q, TeeCells::kDisplay)) + "\n";
-  out += Item("gain err", kGainErrorNote);
-  out += Item("noise cost", kNoiseCostNote);
+  out += MarkdownItem("gain err", kGainErrorNote);
+  out += MarkdownItem("noise cost", kNoiseCostNote);
   return out;
 }
 

@@ -7,15 +7,13 @@
 
 #include "base/printf.h"
 #include "io/units.h"
+#include "report/budget_tables.h"
 #include "report/csv_report.h"
 #include "report/enum_words.h"
 
 namespace hushgain {
 namespace {
 
-constexpr const char* kOhm = "\xCE\xA9";
-
-std::string Ohms(double value) { return FormatEng(value, kOhm); }
 std::string Ratio(double value) { return Printf("x%.4f", value); }
 
 // One column of a report table: its header and cell in each style; an
@@ -123,16 +121,19 @@ Table SweepTable(const TeeSweepResult& s, TeeCells cells) {
   const std::string unit =
       s.rows.empty() ? std::string("V") : s.rows.front().budget.input_unit;
   std::vector<Column<Row>> columns = {
-      {"largest", "largest_ohm", [](Row r) { return Ohms(r->largest_ohm); },
+      {"largest", "largest_ohm",
+       [](Row r) { return FormatOhms(r->largest_ohm); },
        [](Row r) { return CsvNumber(r->largest_ohm); }},
-      {"R1", "r1_ohm", [](Row r) { return Ohms(r->tee.r1_ohm); },
+      {"R1", "r1_ohm", [](Row r) { return FormatOhms(r->tee.r1_ohm); },
        [](Row r) { return CsvNumber(r->tee.r1_ohm); }},
       {"R2", "r2_ohm",
-       [](Row r) { return r->plain ? std::string("-") : Ohms(r->tee.r2_ohm); },
+       [](Row r) {
+         return r->plain ? std::string("-") : FormatOhms(r->tee.r2_ohm);
+       },
        [](Row r) { return CsvNumber(r->tee.r2_ohm); }},
       {"R3", "r3_ohm",
        [](Row r) {
-         return r->plain ? std::string("(plain)") : Ohms(r->tee.r3_ohm);
+         return r->plain ? std::string("(plain)") : FormatOhms(r->tee.r3_ohm);
        },
        [](Row r) { return CsvNumber(r->tee.r3_ohm); }},
       {"", "plain", nullptr,
@@ -159,7 +160,8 @@ Table SearchTable(const TeeSearchResult& s, const TeeSearchQuery& q,
   auto ohm_column = [](const char* display, const char* csv,
                        double TeeCandidate::*field) {
     return Column<Row>{
-        display, csv, [=](const Row& r) { return Ohms(r.candidate->*field); },
+        display, csv,
+        [=](const Row& r) { return FormatOhms(r.candidate->*field); },
         [=](const Row& r) { return CsvNumber(r.candidate->*field); }};
   };
   std::vector<Column<Row>> columns = {

@@ -71,4 +71,8 @@ std::string GnuplotString(std::string_view text) {
   return out + "\"";
 }
 
+std::string MarkdownItem(const std::string& label, const std::string& text) {
+  return "- " + label + ": " + EscapeMarkdown(text) + "\n";
+}
+
 }  // namespace hushgain

@@ -20,6 +20,9 @@ std::string EscapeText(std::string_view text);
 // control characters are made visible as EscapeText does.
 std::string EscapeMarkdown(std::string_view text);
 
+// A Markdown list item "- label: text\n", the text escaped.
+std::string MarkdownItem(const std::string& label, const std::string& text);
+
 // One CSV field per RFC 4180: quoted when it holds a comma, a double quote,
 // CR or LF (or starts or ends with a space), with each double quote doubled.
 std::string CsvField(std::string_view text);

@@ -12,11 +12,10 @@
 #include "report/real_parts_text.h"
 #include "report/table.h"
 #include "report/text_escape.h"
+#include "report/unit_symbols.h"
 
 namespace hushgain {
 namespace {
-
-constexpr const char* kPerRtHz = "/\xE2\x88\x9AHz";  // "/√Hz"
 
 std::string Gain(double value) { return FormatGain(value); }
 

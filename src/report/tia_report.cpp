@@ -8,11 +8,10 @@
 #include "report/enum_words.h"
 #include "report/table.h"
 #include "report/text_escape.h"
+#include "report/unit_symbols.h"
 
 namespace hushgain {
 namespace {
-
-const char* kPerRtHz = "/\xE2\x88\x9AHz";
 
 std::string Note(const TiaSuggestion& s, std::size_t i) {
   const TiaCandidate& r = s.rows[i];

@@ -11,35 +11,41 @@
 namespace hushgain {
 namespace {
 
-constexpr int kWidthPx = 1400;
-constexpr SheetLayout kLayout{kWidthPx, 140, 430, 60, 90, 50, 520, 75};
+constexpr SheetLayout kSnrSheet{.left_px = 140,
+                                .legend_px = 430,
+                                .key_gap_px = 60,
+                                .heading_px = 90,
+                                .panel_top_px = 50,
+                                .panel_px = 520,
+                                .panel_bottom_px = 75};
 
 // Our own colours (as the other sheets').
 constexpr const char* kCurveColour = "#1f5fa8";
 constexpr const char* kSaturatedColour = "#d1495b";
 constexpr const char* kMarkColour = "#2e933c";
 
-std::string Num(double v) { return PlotNumber(v); }
-
 }  // namespace
 
 std::string BuildTiaSnrPlotScript(const Stage& stage, const TiaSnrResult& r,
                                   const TiaSnrPlotOptions& o) {
   assert(r.points.size() >= 2);
-  const int height = kLayout.HeightPx(1);
-  std::string out = TerminalCommands(o.format, kWidthPx, height, o.output_path);
+  const int height = kSnrSheet.HeightPx(1);
+  std::string out =
+      TerminalCommands(o.format, kSnrSheet.width_px, height, o.output_path);
   // $snr: power, SNR (within the headroom); $saturated: the points beyond.
   out += "$snr << EOD\n";
   for (const TiaSnrPoint& p : r.points)
-    if (!p.saturated) out += Num(p.power_w) + " " + PlotLogNumber(p.snr) + "\n";
+    if (!p.saturated)
+      out += PlotNumber(p.power_w) + " " + PlotLogNumber(p.snr) + "\n";
   out += "EOD\n$saturated << EOD\n";
   for (const TiaSnrPoint& p : r.points)
-    if (p.saturated) out += Num(p.power_w) + " " + PlotLogNumber(p.snr) + "\n";
+    if (p.saturated)
+      out += PlotNumber(p.power_w) + " " + PlotLogNumber(p.snr) + "\n";
   out += "EOD\n";
 
   out += "set multiplot\n";
   out += "set label 1 " + GnuplotString(stage.name) +
-         " at screen 0.5, screen " + Num(1.0 - 32.0 / height) +
+         " at screen 0.5, screen " + PlotNumber(1.0 - 32.0 / height) +
          " center font ',16'\n";
   out += "set label 2 " +
          GnuplotString("SNR over " + FormatEng(r.band_low_hz, "Hz") + " to " +
@@ -49,8 +55,9 @@ std::string BuildTiaSnrPlotScript(const Stage& stage, const TiaSnrResult& r,
                        ", background photocurrent " +
                        FormatEng(r.background_current_a, "A") + "; headroom: " +
                        r.limit_name + " " + FormatEng(r.limit_v, "V")) +
-         " at screen 0.5, screen " + Num(1.0 - 64.0 / height) + " center\n";
-  out += PanelFrame(kLayout, 0, height,
+         " at screen 0.5, screen " + PlotNumber(1.0 - 64.0 / height) +
+         " center\n";
+  out += PanelFrame(kSnrSheet, 0, height,
                     "Signal current R x P against the input noise rms", 3);
 
   double snr_lo = r.points.front().snr, snr_hi = snr_lo;
@@ -63,8 +70,8 @@ std::string BuildTiaSnrPlotScript(const Stage& stage, const TiaSnrResult& r,
   const double p_lo = r.points.front().power_w / 1.3;
   const double p_hi = r.points.back().power_w * 1.3;
   out += "set logscale x\nset logscale y\n";
-  out += "set xrange [" + Num(p_lo) + ":" + Num(p_hi) + "]\n";
-  out += "set yrange [" + Num(snr_lo) + ":" + Num(snr_hi) + "]\n";
+  out += "set xrange [" + PlotNumber(p_lo) + ":" + PlotNumber(p_hi) + "]\n";
+  out += "set yrange [" + PlotNumber(snr_lo) + ":" + PlotNumber(snr_hi) + "]\n";
   out += LogTicsCommand("x", p_lo, p_hi,
                         [](double v) { return ShortEng(v, "W"); });
   out += LogTicsCommand("y", snr_lo, snr_hi,
@@ -81,7 +88,7 @@ std::string BuildTiaSnrPlotScript(const Stage& stage, const TiaSnrResult& r,
       "lc rgb '" +
       std::string(kCurveColour) + "' title " + GnuplotString("SNR");
   if (r.nep_w > p_lo && r.nep_w < p_hi) {
-    out += "$nep << EOD\n" + Num(r.nep_w) + " 1\nEOD\n";
+    out += "$nep << EOD\n" + PlotNumber(r.nep_w) + " 1\nEOD\n";
     plot += ", \\\n  $nep using 1:2 with points pt 6 ps 2.4 lw 2 lc rgb '" +
             std::string(kMarkColour) + "' title " +
             GnuplotString("NEP over the band " + FormatEng(r.nep_w, "W") +
@@ -93,8 +100,8 @@ std::string BuildTiaSnrPlotScript(const Stage& stage, const TiaSnrResult& r,
                           " (off the axis)");
   }
   if (r.saturation_power_w > p_lo && r.saturation_power_w < p_hi)
-    out += "set arrow 2 from first " + Num(r.saturation_power_w) +
-           ", graph 0 to first " + Num(r.saturation_power_w) +
+    out += "set arrow 2 from first " + PlotNumber(r.saturation_power_w) +
+           ", graph 0 to first " + PlotNumber(r.saturation_power_w) +
            ", graph 1 nohead dt 2 lw 2 lc rgb '" + kSaturatedColour +
            "' front\n";
   const std::string saturation =
