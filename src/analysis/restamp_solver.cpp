@@ -29,31 +29,80 @@ std::string Hz(double f_hz) {
 }
 
 // The factorization and both triangular solves, for a size known at
-// compile time (N > 0: the loops unroll) or at run time (N = 0).
-template <int N>
+// compile time (N > 0: the loops unroll) or at run time (N = 0). kReal (at
+// DC, w = 0) leaves out the imaginary parts, all zero there: the same
+// arithmetic on the real parts, so the same bits as the complex path.
+template <int N, bool kReal>
 bool FactorAndSolve(int runtime_n, double w, const double* __restrict g_t,
                     const double* __restrict c_t, int output,
                     double* __restrict ar, double* __restrict ai,
                     int* __restrict pivot, double* __restrict row_scale,
                     double* __restrict zr, double* __restrict zi) {
   const int n = N > 0 ? N : runtime_n;
-  const bool real_only = w == 0;
-  // Form A = Y^T and equilibrate its rows to a largest entry of 1.
+  // Form A = Y^T and equilibrate its rows to a largest entry of 1 (NaN
+  // entries skipped, as std::fmax does).
   for (int i = 0; i < n; ++i) {
     double largest = 0;
     for (int j = 0; j < n; ++j) {
       const double re = g_t[i * n + j];
-      const double im = w * c_t[i * n + j];
       ar[i * n + j] = re;
-      ai[i * n + j] = im;
-      largest = std::fmax(largest, std::fabs(re) + std::fabs(im));
+      double m = std::fabs(re);
+      if constexpr (!kReal) {
+        const double im = w * c_t[i * n + j];
+        ai[i * n + j] = im;
+        m += std::fabs(im);
+      }
+      if (m > largest) largest = m;
     }
     const double s = largest > 0 ? 1.0 / largest : 1.0;
     row_scale[i] = s;
     for (int j = 0; j < n; ++j) {
       ar[i * n + j] *= s;
-      ai[i * n + j] *= s;
+      if constexpr (!kReal) ai[i * n + j] *= s;
     }
+  }
+  if constexpr (kReal) {
+    // The complex path below with every imaginary part zero, written out:
+    // 1 / p is p / (p p), a quotient (s p + 0) / (p p).
+    for (int k = 0; k < n; ++k) {
+      int p = k;
+      double best = std::fabs(ar[k * n + k]);
+      for (int i = k + 1; i < n; ++i) {
+        const double m = std::fabs(ar[i * n + k]);
+        if (m > best) best = m, p = i;
+      }
+      if (!(best > 1e-300) || !std::isfinite(best)) return false;
+      pivot[k] = p;
+      if (p != k)
+        for (int j = 0; j < n; ++j) std::swap(ar[k * n + j], ar[p * n + j]);
+      const double pr = ar[k * n + k];
+      const double inv_r = pr / (pr * pr);
+      for (int i = k + 1; i < n; ++i) {
+        const double xr = ar[i * n + k];
+        if (xr == 0) continue;
+        const double lr = xr * inv_r;
+        ar[i * n + k] = lr;
+        for (int j = k + 1; j < n; ++j) ar[i * n + j] -= lr * ar[k * n + j];
+      }
+    }
+    for (int i = 0; i < n; ++i) zr[i] = zi[i] = 0;
+    if (output >= 0) zr[output] = row_scale[output];
+    for (int k = 0; k < n; ++k)
+      if (pivot[k] != k) std::swap(zr[k], zr[pivot[k]]);
+    for (int i = 1; i < n; ++i) {
+      double sr = zr[i];
+      for (int j = 0; j < i; ++j) sr -= ar[i * n + j] * zr[j];
+      zr[i] = sr;
+    }
+    for (int i = n - 1; i >= 0; --i) {
+      double sr = zr[i];
+      for (int j = i + 1; j < n; ++j) sr -= ar[i * n + j] * zr[j];
+      const double pr = ar[i * n + i];
+      zr[i] = (sr * pr + 0.0) / (pr * pr);  // + 0: a zero's sign too
+    }
+    for (int i = 0; i < n; ++i)
+      if (!std::isfinite(zr[i])) return false;
+    return true;
   }
   // LU with partial pivoting (by |re| + |im|), in place.
   for (int k = 0; k < n; ++k) {
@@ -81,14 +130,10 @@ bool FactorAndSolve(int runtime_n, double w, const double* __restrict g_t,
       const double li = xr * inv_i + xi * inv_r;
       ar[i * n + k] = lr;
       ai[i * n + k] = li;
-      if (real_only) {
-        for (int j = k + 1; j < n; ++j) ar[i * n + j] -= lr * ar[k * n + j];
-      } else {
-        for (int j = k + 1; j < n; ++j) {
-          const double ur = ar[k * n + j], ui = ai[k * n + j];
-          ar[i * n + j] -= lr * ur - li * ui;
-          ai[i * n + j] -= lr * ui + li * ur;
-        }
+      for (int j = k + 1; j < n; ++j) {
+        const double ur = ar[k * n + j], ui = ai[k * n + j];
+        ar[i * n + j] -= lr * ur - li * ui;
+        ai[i * n + j] -= lr * ui + li * ur;
       }
     }
   }
@@ -123,6 +168,75 @@ bool FactorAndSolve(int runtime_n, double w, const double* __restrict g_t,
   }
   for (int i = 0; i < n; ++i)
     if (!std::isfinite(zr[i]) || !std::isfinite(zi[i])) return false;
+  return true;
+}
+
+// (I + j w K) y = y0 by Gaussian elimination with partial pivoting, then
+// z = z0 - j w W y (K = kk, r x r row-major; W = wm, n x r column-major),
+// for a rank known at compile time (R > 0: the loops unroll) or at run
+// time (R = 0, r at most 8). False on a zero pivot.
+template <int R>
+bool SolveWoodbury(int runtime_r, int n, double w, const double* __restrict kk,
+                   const double* __restrict y0, const double* __restrict wm,
+                   const double* __restrict z0, double* __restrict zr,
+                   double* __restrict zi) {
+  const int r = R > 0 ? R : runtime_r;
+  // (I + j w K) y = y0, by Gaussian elimination with partial pivoting
+  // (r is at most n / 2).
+  double mr[64], mi[64], yr[8], yi[8];
+  for (int i = 0; i < r; ++i) {
+    for (int j = 0; j < r; ++j) {
+      mr[i * r + j] = i == j ? 1.0 : 0.0;
+      mi[i * r + j] = w * kk[i * r + j];
+    }
+    yr[i] = y0[i];
+    yi[i] = 0;
+  }
+  for (int k = 0; k < r; ++k) {
+    int p = k;
+    double best = std::fabs(mr[k * r + k]) + std::fabs(mi[k * r + k]);
+    for (int i = k + 1; i < r; ++i) {
+      const double m = std::fabs(mr[i * r + k]) + std::fabs(mi[i * r + k]);
+      if (m > best) best = m, p = i;
+    }
+    if (!(best > 1e-300)) return false;
+    if (p != k) {
+      for (int j = 0; j < r; ++j)
+        std::swap(mr[k * r + j], mr[p * r + j]),
+            std::swap(mi[k * r + j], mi[p * r + j]);
+      std::swap(yr[k], yr[p]);
+      std::swap(yi[k], yi[p]);
+    }
+    const double pr = mr[k * r + k], pi = mi[k * r + k], d = pr * pr + pi * pi;
+    for (int i = k + 1; i < r; ++i) {
+      const double xr = mr[i * r + k], xi = mi[i * r + k];
+      const double lr = (xr * pr + xi * pi) / d, li = (xi * pr - xr * pi) / d;
+      for (int j = k + 1; j < r; ++j) {
+        mr[i * r + j] -= lr * mr[k * r + j] - li * mi[k * r + j];
+        mi[i * r + j] -= lr * mi[k * r + j] + li * mr[k * r + j];
+      }
+      yr[i] -= lr * yr[k] - li * yi[k];
+      yi[i] -= lr * yi[k] + li * yr[k];
+    }
+  }
+  for (int i = r - 1; i >= 0; --i) {
+    double sr = yr[i], si = yi[i];
+    for (int j = i + 1; j < r; ++j) {
+      sr -= mr[i * r + j] * yr[j] - mi[i * r + j] * yi[j];
+      si -= mr[i * r + j] * yi[j] + mi[i * r + j] * yr[j];
+    }
+    const double pr = mr[i * r + i], pi = mi[i * r + i], d = pr * pr + pi * pi;
+    yr[i] = (sr * pr + si * pi) / d;
+    yi[i] = (si * pr - sr * pi) / d;
+  }
+  // z = z0 - j w W y.
+  for (int m = 0; m < n; ++m) {
+    double ar = 0, ai = 0;
+    for (int c = 0; c < r; ++c)
+      ar += wm[c * n + m] * yr[c], ai += wm[c * n + m] * yi[c];
+    zr[m] = z0[m] + w * ai;
+    zi[m] = -w * ar;
+  }
   return true;
 }
 
@@ -269,73 +383,44 @@ Status RestampSolver::SolveAdjoint(double f_hz) {
       Status s = Prepare();
       if (!s.ok) return s;
     }
-    // (I + j w K) y = y0, by Gaussian elimination with partial pivoting
-    // (r is at most n / 2).
-    const int r = rank_, n = n_;
-    double mr[64], mi[64], yr[8], yi[8];
-    for (int i = 0; i < r; ++i) {
-      for (int j = 0; j < r; ++j) {
-        mr[i * r + j] = i == j ? 1.0 : 0.0;
-        mi[i * r + j] = w * k_[i * r + j];
-      }
-      yr[i] = y0_[i];
-      yi[i] = 0;
+    bool ok = false;
+    switch (rank_) {
+      case 1:
+        ok = SolveWoodbury<1>(rank_, n_, w, k_.data(), y0_.data(), w_.data(),
+                              dc_z0_.data(), zr_.data(), zi_.data());
+        break;
+      case 2:
+        ok = SolveWoodbury<2>(rank_, n_, w, k_.data(), y0_.data(), w_.data(),
+                              dc_z0_.data(), zr_.data(), zi_.data());
+        break;
+      case 3:
+        ok = SolveWoodbury<3>(rank_, n_, w, k_.data(), y0_.data(), w_.data(),
+                              dc_z0_.data(), zr_.data(), zi_.data());
+        break;
+      case 4:
+        ok = SolveWoodbury<4>(rank_, n_, w, k_.data(), y0_.data(), w_.data(),
+                              dc_z0_.data(), zr_.data(), zi_.data());
+        break;
+      default:
+        ok = SolveWoodbury<0>(rank_, n_, w, k_.data(), y0_.data(), w_.data(),
+                              dc_z0_.data(), zr_.data(), zi_.data());
+        break;
     }
-    for (int k = 0; k < r; ++k) {
-      int p = k;
-      double best = std::fabs(mr[k * r + k]) + std::fabs(mi[k * r + k]);
-      for (int i = k + 1; i < r; ++i) {
-        const double m = std::fabs(mr[i * r + k]) + std::fabs(mi[i * r + k]);
-        if (m > best) best = m, p = i;
-      }
-      if (!(best > 1e-300))
-        return Status::Fail("the network is singular at " + Hz(f_hz));
-      if (p != k) {
-        for (int j = 0; j < r; ++j)
-          std::swap(mr[k * r + j], mr[p * r + j]),
-              std::swap(mi[k * r + j], mi[p * r + j]);
-        std::swap(yr[k], yr[p]);
-        std::swap(yi[k], yi[p]);
-      }
-      const double pr = mr[k * r + k], pi = mi[k * r + k],
-                   d = pr * pr + pi * pi;
-      for (int i = k + 1; i < r; ++i) {
-        const double xr = mr[i * r + k], xi = mi[i * r + k];
-        const double lr = (xr * pr + xi * pi) / d, li = (xi * pr - xr * pi) / d;
-        for (int j = k + 1; j < r; ++j) {
-          mr[i * r + j] -= lr * mr[k * r + j] - li * mi[k * r + j];
-          mi[i * r + j] -= lr * mi[k * r + j] + li * mr[k * r + j];
-        }
-        yr[i] -= lr * yr[k] - li * yi[k];
-        yi[i] -= lr * yi[k] + li * yr[k];
-      }
-    }
-    for (int i = r - 1; i >= 0; --i) {
-      double sr = yr[i], si = yi[i];
-      for (int j = i + 1; j < r; ++j) {
-        sr -= mr[i * r + j] * yr[j] - mi[i * r + j] * yi[j];
-        si -= mr[i * r + j] * yi[j] + mi[i * r + j] * yr[j];
-      }
-      const double pr = mr[i * r + i], pi = mi[i * r + i],
-                   d = pr * pr + pi * pi;
-      yr[i] = (sr * pr + si * pi) / d;
-      yi[i] = (si * pr - sr * pi) / d;
-    }
-    // z = z0 - j w W y.
-    for (int m = 0; m < n; ++m) {
-      double ar = 0, ai = 0;
-      for (int c = 0; c < r; ++c)
-        ar += w_[c * n + m] * yr[c], ai += w_[c * n + m] * yi[c];
-      zr_[m] = dc_z0_[m] + w * ai;
-      zi_[m] = -w * ar;
-    }
+    if (!ok) return Status::Fail("the network is singular at " + Hz(f_hz));
     return Status::Ok();
   }
   real_only_ = w == 0;
   auto run = [&](auto size) {
-    return FactorAndSolve<decltype(size)::value>(
-        n_, w, g_t_.data(), c_t_.data(), output_, ar_.data(), ai_.data(),
-        pivot_.data(), row_scale_.data(), zr_.data(), zi_.data());
+    constexpr int kN = decltype(size)::value;
+    return real_only_
+               ? FactorAndSolve<kN, true>(n_, w, g_t_.data(), c_t_.data(),
+                                          output_, ar_.data(), ai_.data(),
+                                          pivot_.data(), row_scale_.data(),
+                                          zr_.data(), zi_.data())
+               : FactorAndSolve<kN, false>(n_, w, g_t_.data(), c_t_.data(),
+                                           output_, ar_.data(), ai_.data(),
+                                           pivot_.data(), row_scale_.data(),
+                                           zr_.data(), zi_.data());
   };
   bool ok = false;
   switch (n_) {
