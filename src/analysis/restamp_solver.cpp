@@ -30,14 +30,15 @@ std::string Hz(double f_hz) {
 
 // The factorization and both triangular solves, for a size known at
 // compile time (N > 0: the loops unroll) or at run time (N = 0). kReal (at
-// DC, w = 0) leaves out the imaginary parts, all zero there: the same
-// arithmetic on the real parts, so the same bits as the complex path.
+// DC, w = 0) leaves out the imaginary parts, all zero there, and keeps
+// 1 / U_kk of each pivot in inv_diag (one division a pivot).
 template <int N, bool kReal>
 bool FactorAndSolve(int runtime_n, double w, const double* __restrict g_t,
                     const double* __restrict c_t, int output,
                     double* __restrict ar, double* __restrict ai,
                     int* __restrict pivot, double* __restrict row_scale,
-                    double* __restrict zr, double* __restrict zi) {
+                    double* __restrict inv_diag, double* __restrict zr,
+                    double* __restrict zi) {
   const int n = N > 0 ? N : runtime_n;
   // Form A = Y^T and equilibrate its rows to a largest entry of 1 (NaN
   // entries skipped, as std::fmax does).
@@ -62,8 +63,6 @@ bool FactorAndSolve(int runtime_n, double w, const double* __restrict g_t,
     }
   }
   if constexpr (kReal) {
-    // The complex path below with every imaginary part zero, written out:
-    // 1 / p is p / (p p), a quotient (s p + 0) / (p p).
     for (int k = 0; k < n; ++k) {
       int p = k;
       double best = std::fabs(ar[k * n + k]);
@@ -75,8 +74,8 @@ bool FactorAndSolve(int runtime_n, double w, const double* __restrict g_t,
       pivot[k] = p;
       if (p != k)
         for (int j = 0; j < n; ++j) std::swap(ar[k * n + j], ar[p * n + j]);
-      const double pr = ar[k * n + k];
-      const double inv_r = pr / (pr * pr);
+      const double inv_r = 1.0 / ar[k * n + k];
+      inv_diag[k] = inv_r;
       for (int i = k + 1; i < n; ++i) {
         const double xr = ar[i * n + k];
         if (xr == 0) continue;
@@ -97,8 +96,7 @@ bool FactorAndSolve(int runtime_n, double w, const double* __restrict g_t,
     for (int i = n - 1; i >= 0; --i) {
       double sr = zr[i];
       for (int j = i + 1; j < n; ++j) sr -= ar[i * n + j] * zr[j];
-      const double pr = ar[i * n + i];
-      zr[i] = (sr * pr + 0.0) / (pr * pr);  // + 0: a zero's sign too
+      zr[i] = sr * inv_diag[i];
     }
     for (int i = 0; i < n; ++i)
       if (!std::isfinite(zr[i])) return false;
@@ -171,6 +169,52 @@ bool FactorAndSolve(int runtime_n, double w, const double* __restrict g_t,
   return true;
 }
 
+// G^T x = b with a real factorization P D G^T = L U of FactorAndSolve (D
+// the row scaling, P the exchanges, 1 / U_kk in inv_diag), b overwritten.
+template <int N>
+void SolveFactored(int runtime_n, const double* __restrict lu,
+                   const double* __restrict scale, const int* __restrict pivot,
+                   const double* __restrict inv_diag, double* __restrict b) {
+  const int n = N > 0 ? N : runtime_n;
+  for (int i = 0; i < n; ++i) b[i] *= scale[i];
+  for (int k = 0; k < n; ++k)
+    if (pivot[k] != k) std::swap(b[k], b[pivot[k]]);
+  for (int i = 1; i < n; ++i) {
+    double s = b[i];
+    for (int j = 0; j < i; ++j) s -= lu[i * n + j] * b[j];
+    b[i] = s;
+  }
+  for (int i = n - 1; i >= 0; --i) {
+    double s = b[i];
+    for (int j = i + 1; j < n; ++j) s -= lu[i * n + j] * b[j];
+    b[i] = s * inv_diag[i];
+  }
+}
+
+// Calls f(std::integral_constant<int, n>) for the sizes the solver unrolls
+// (4 to 10) and f(std::integral_constant<int, 0>) for the others.
+template <class F>
+auto WithSize(int n, F&& f) {
+  switch (n) {
+    case 4:
+      return f(std::integral_constant<int, 4>{});
+    case 5:
+      return f(std::integral_constant<int, 5>{});
+    case 6:
+      return f(std::integral_constant<int, 6>{});
+    case 7:
+      return f(std::integral_constant<int, 7>{});
+    case 8:
+      return f(std::integral_constant<int, 8>{});
+    case 9:
+      return f(std::integral_constant<int, 9>{});
+    case 10:
+      return f(std::integral_constant<int, 10>{});
+    default:
+      return f(std::integral_constant<int, 0>{});
+  }
+}
+
 // (I + j w K) y = y0 by Gaussian elimination with partial pivoting, then
 // z = z0 - j w W y (K = kk, r x r row-major; W = wm, n x r column-major),
 // for a rank known at compile time (R > 0: the loops unroll) or at run
@@ -183,7 +227,7 @@ bool SolveWoodbury(int runtime_r, int n, double w, const double* __restrict kk,
   const int r = R > 0 ? R : runtime_r;
   // (I + j w K) y = y0, by Gaussian elimination with partial pivoting
   // (r is at most n / 2).
-  double mr[64], mi[64], yr[8], yi[8];
+  double mr[64], mi[64], yr[8], yi[8], inv_r[8], inv_i[8];
   for (int i = 0; i < r; ++i) {
     for (int j = 0; j < r; ++j) {
       mr[i * r + j] = i == j ? 1.0 : 0.0;
@@ -207,10 +251,15 @@ bool SolveWoodbury(int runtime_r, int n, double w, const double* __restrict kk,
       std::swap(yr[k], yr[p]);
       std::swap(yi[k], yi[p]);
     }
-    const double pr = mr[k * r + k], pi = mi[k * r + k], d = pr * pr + pi * pi;
+    // 1 / U_kk = conj(U_kk) / |U_kk|^2, kept for the back substitution.
+    const double pr = mr[k * r + k], pi = mi[k * r + k];
+    const double inv_d = 1.0 / (pr * pr + pi * pi);
+    inv_r[k] = pr * inv_d;
+    inv_i[k] = -pi * inv_d;
     for (int i = k + 1; i < r; ++i) {
       const double xr = mr[i * r + k], xi = mi[i * r + k];
-      const double lr = (xr * pr + xi * pi) / d, li = (xi * pr - xr * pi) / d;
+      const double lr = xr * inv_r[k] - xi * inv_i[k];
+      const double li = xr * inv_i[k] + xi * inv_r[k];
       for (int j = k + 1; j < r; ++j) {
         mr[i * r + j] -= lr * mr[k * r + j] - li * mi[k * r + j];
         mi[i * r + j] -= lr * mi[k * r + j] + li * mr[k * r + j];
@@ -225,9 +274,8 @@ bool SolveWoodbury(int runtime_r, int n, double w, const double* __restrict kk,
       sr -= mr[i * r + j] * yr[j] - mi[i * r + j] * yi[j];
       si -= mr[i * r + j] * yi[j] + mi[i * r + j] * yr[j];
     }
-    const double pr = mr[i * r + i], pi = mi[i * r + i], d = pr * pr + pi * pi;
-    yr[i] = (sr * pr + si * pi) / d;
-    yi[i] = (si * pr - sr * pi) / d;
+    yr[i] = sr * inv_r[i] - si * inv_i[i];
+    yi[i] = sr * inv_i[i] + si * inv_r[i];
   }
   // z = z0 - j w W y.
   for (int m = 0; m < n; ++m) {
@@ -285,6 +333,7 @@ RestampSolver::RestampSolver(const MnaSystem& system, const Netlist& netlist)
   ai_.assign(n * n, 0.0);
   pivot_.assign(n, 0);
   row_scale_.assign(n, 1.0);
+  inv_diag_.assign(n, 0.0);
   zr_.assign(n, 0.0);
   zi_.assign(n, 0.0);
 }
@@ -338,17 +387,11 @@ void RestampSolver::SetResistors(const double* ohms) {
 }
 
 void RestampSolver::SolveDc(double* b) const {
-  const int n = n_;
-  const double* lu = dc_lu_.data();
-  for (int i = 0; i < n; ++i) b[i] *= dc_scale_[i];
-  for (int k = 0; k < n; ++k)
-    if (dc_pivot_[k] != k) std::swap(b[k], b[dc_pivot_[k]]);
-  for (int i = 1; i < n; ++i)
-    for (int j = 0; j < i; ++j) b[i] -= lu[i * n + j] * b[j];
-  for (int i = n - 1; i >= 0; --i) {
-    for (int j = i + 1; j < n; ++j) b[i] -= lu[i * n + j] * b[j];
-    b[i] /= lu[i * n + i];
-  }
+  WithSize(n_, [&](auto size) {
+    SolveFactored<decltype(size)::value>(n_, dc_lu_.data(), dc_scale_.data(),
+                                         dc_pivot_.data(), dc_inv_diag_.data(),
+                                         b);
+  });
 }
 
 Status RestampSolver::Prepare() { return SolveAdjoint(0.0); }
@@ -356,6 +399,7 @@ Status RestampSolver::Prepare() { return SolveAdjoint(0.0); }
 void RestampSolver::KeepDcFactorization() {
   const int n = n_, r = rank_;
   dc_lu_ = ar_;
+  dc_inv_diag_ = inv_diag_;
   dc_scale_ = row_scale_;
   dc_pivot_ = pivot_;
   dc_z0_ = zr_;
@@ -410,45 +454,18 @@ Status RestampSolver::SolveAdjoint(double f_hz) {
     return Status::Ok();
   }
   real_only_ = w == 0;
-  auto run = [&](auto size) {
+  const bool ok = WithSize(n_, [&](auto size) {
     constexpr int kN = decltype(size)::value;
     return real_only_
-               ? FactorAndSolve<kN, true>(n_, w, g_t_.data(), c_t_.data(),
-                                          output_, ar_.data(), ai_.data(),
-                                          pivot_.data(), row_scale_.data(),
-                                          zr_.data(), zi_.data())
-               : FactorAndSolve<kN, false>(n_, w, g_t_.data(), c_t_.data(),
-                                           output_, ar_.data(), ai_.data(),
-                                           pivot_.data(), row_scale_.data(),
-                                           zr_.data(), zi_.data());
-  };
-  bool ok = false;
-  switch (n_) {
-    case 4:
-      ok = run(std::integral_constant<int, 4>{});
-      break;
-    case 5:
-      ok = run(std::integral_constant<int, 5>{});
-      break;
-    case 6:
-      ok = run(std::integral_constant<int, 6>{});
-      break;
-    case 7:
-      ok = run(std::integral_constant<int, 7>{});
-      break;
-    case 8:
-      ok = run(std::integral_constant<int, 8>{});
-      break;
-    case 9:
-      ok = run(std::integral_constant<int, 9>{});
-      break;
-    case 10:
-      ok = run(std::integral_constant<int, 10>{});
-      break;
-    default:
-      ok = run(std::integral_constant<int, 0>{});
-      break;
-  }
+               ? FactorAndSolve<kN, true>(
+                     n_, w, g_t_.data(), c_t_.data(), output_, ar_.data(),
+                     ai_.data(), pivot_.data(), row_scale_.data(),
+                     inv_diag_.data(), zr_.data(), zi_.data())
+               : FactorAndSolve<kN, false>(
+                     n_, w, g_t_.data(), c_t_.data(), output_, ar_.data(),
+                     ai_.data(), pivot_.data(), row_scale_.data(),
+                     inv_diag_.data(), zr_.data(), zi_.data());
+  });
   if (!ok) return Status::Fail("the network is singular at " + Hz(f_hz));
   if (w == 0 && rank_ >= 0) KeepDcFactorization();
   return Status::Ok();
@@ -463,7 +480,7 @@ void RestampSolver::SolveDirectDc(double* b) {
   for (int i = 0; i < n; ++i) {  // U^T y = b: lower triangular
     double s = b[i];
     for (int j = 0; j < i; ++j) s -= ar[j * n + i] * b[j];
-    b[i] = s / ar[i * n + i];
+    b[i] = s * inv_diag_[i];
   }
   for (int i = n - 1; i >= 0; --i) {  // L^T w = y: unit upper
     double s = b[i];

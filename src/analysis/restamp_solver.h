@@ -83,6 +83,7 @@ class RestampSolver {
   std::vector<double> ar_, ai_;
   std::vector<int> pivot_;
   std::vector<double> row_scale_;
+  std::vector<double> inv_diag_;  // 1 / U_kk of the last DC factorization
   std::vector<double> zr_, zi_;
   bool real_only_ = false;  // the last factorization was at DC
   // The low-rank split of C^T (n x r each, column-major) and the per-values
@@ -90,7 +91,7 @@ class RestampSolver {
   int rank_ = 0;
   std::vector<double> p_, q_;
   bool prepared_ = false;  // dc_* below match the current resistors
-  std::vector<double> dc_lu_, dc_scale_, dc_z0_, w_, k_, y0_;
+  std::vector<double> dc_lu_, dc_scale_, dc_inv_diag_, dc_z0_, w_, k_, y0_;
   std::vector<int> dc_pivot_;
   Status Prepare();
   void SplitCapacitance();        // C^T = P Q^T into p_, q_, rank_
