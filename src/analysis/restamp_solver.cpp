@@ -417,6 +417,31 @@ void RestampSolver::KeepDcFactorization() {
     for (int m = 0; m < n; ++m) sum += q_[i * n + m] * dc_z0_[m];
     y0_[i] = sum;
   }
+  if (r <= 2) {
+    // K, y0 and W padded to rank 2 with zeros. M = I + j w K has
+    //   det M = 1 - w^2 det K + j w tr K,
+    //   adj(M) y0 = y0 + j w a,  a = (k11 y0_0 - k01 y0_1,
+    //                                 k00 y0_1 - k10 y0_0),
+    // so W y = (u + j w v) / det M with u = W y0, v = W a (Cramer's rule,
+    // forward stable for two unknowns).
+    const auto at = [&](const std::vector<double>& v, int i) {
+      return i < static_cast<int>(v.size()) ? v[i] : 0.0;
+    };
+    const double k00 = at(k_, 0), k01 = r == 2 ? k_[1] : 0.0;
+    const double k10 = r == 2 ? k_[2] : 0.0, k11 = r == 2 ? k_[3] : 0.0;
+    const double y0 = at(y0_, 0), y1 = at(y0_, 1);
+    det_k_ = k00 * k11 - k01 * k10;
+    trace_k_ = k00 + k11;
+    const double a0 = k11 * y0 - k01 * y1, a1 = k00 * y1 - k10 * y0;
+    low_u_.assign(n, 0.0);
+    low_v_.assign(n, 0.0);
+    for (int m = 0; m < n; ++m) {
+      const double w0 = r >= 1 ? w_[m] : 0.0;
+      const double w1 = r == 2 ? w_[n + m] : 0.0;
+      low_u_[m] = w0 * y0 + w1 * y1;
+      low_v_[m] = w0 * a0 + w1 * a1;
+    }
+  }
   prepared_ = true;
 }
 
@@ -429,14 +454,25 @@ Status RestampSolver::SolveAdjoint(double f_hz) {
     }
     bool ok = false;
     switch (rank_) {
+      case 0:
       case 1:
-        ok = SolveWoodbury<1>(rank_, n_, w, k_.data(), y0_.data(), w_.data(),
-                              dc_z0_.data(), zr_.data(), zi_.data());
+      case 2: {
+        // z = z0 - j w W y, W y = (u + j w v) / det M (KeepDcFactorization).
+        const double dr = 1.0 - w * w * det_k_, di = w * trace_k_;
+        const double d2 = dr * dr + di * di;
+        ok = d2 > 1e-300 && std::isfinite(d2);
+        const double inv = 1.0 / d2, ir = dr * inv, ii = -di * inv;
+        const double* u = low_u_.data();
+        const double* v = low_v_.data();
+        for (int m = 0; m < n_; ++m) {
+          const double wv = w * v[m];
+          const double re = u[m] * ir - wv * ii;
+          const double im = u[m] * ii + wv * ir;
+          zr_[m] = dc_z0_[m] + w * im;
+          zi_[m] = -w * re;
+        }
         break;
-      case 2:
-        ok = SolveWoodbury<2>(rank_, n_, w, k_.data(), y0_.data(), w_.data(),
-                              dc_z0_.data(), zr_.data(), zi_.data());
-        break;
+      }
       case 3:
         ok = SolveWoodbury<3>(rank_, n_, w, k_.data(), y0_.data(), w_.data(),
                               dc_z0_.data(), zr_.data(), zi_.data());

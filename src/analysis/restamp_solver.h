@@ -16,8 +16,9 @@
 // set of resistor values, each frequency is a Woodbury update:
 //   z0 = G^-T e_out, W = G^-T P, K = Q^T W,
 //   (I + j w K) y = Q^T z0,  z = z0 - j w W y
-// an r x r complex solve instead of an n x n one. With r > n / 2 the dense
-// complex LU is used instead.
+// an r x r complex solve instead of an n x n one (for r <= 2 by Cramer's
+// rule with W y0 and W adj(K)-part precomputed, one division a frequency).
+// With r > n / 2 the dense complex LU is used instead.
 #ifndef HUSHGAIN_ANALYSIS_RESTAMP_SOLVER_H_
 #define HUSHGAIN_ANALYSIS_RESTAMP_SOLVER_H_
 
@@ -92,6 +93,9 @@ class RestampSolver {
   std::vector<double> p_, q_;
   bool prepared_ = false;  // dc_* below match the current resistors
   std::vector<double> dc_lu_, dc_scale_, dc_inv_diag_, dc_z0_, w_, k_, y0_;
+  // Rank 2 or less: det K, tr K, W y0 and W adj-part (KeepDcFactorization).
+  double det_k_ = 0, trace_k_ = 0;
+  std::vector<double> low_u_, low_v_;
   std::vector<int> dc_pivot_;
   Status Prepare();
   void SplitCapacitance();        // C^T = P Q^T into p_, q_, rank_

@@ -77,6 +77,11 @@ TEST_CASE(
   stage.plus_resistor = {};
   stage.plus_resistor_bypass_f = 0;
   CheckAgainstAdjoint(stage, 2);
+  // Without pin capacitances only the GBW term is left: rank 1.
+  Stage gbw_only = stage;
+  gbw_only.opamp.c_cm_f = 0;
+  gbw_only.opamp.c_diff_f = 0;
+  CheckAgainstAdjoint(gbw_only, 1);
   // A photodiode stage (C_d, C_f, the GBW term: rank 3 of n = 3, above
   // n / 2): the dense complex LU runs.
   Stage tia = stage;
