@@ -122,6 +122,7 @@ endif()
 if(HUSHGAIN_BUILD_TESTS AND hushgain_top_level)
 add_test(NAME deb_package
   COMMAND ${CMAKE_COMMAND} -DBUILD_DIR=${CMAKE_CURRENT_BINARY_DIR}
+          -DSTATIC_PROGRAM=${hushgain_static_program}
           -P ${CMAKE_CURRENT_SOURCE_DIR}/tests/install/deb_test.cmake)
 set_tests_properties(deb_package PROPERTIES SKIP_RETURN_CODE 77
   SKIP_REGULAR_EXPRESSION "skipped: ")

@@ -413,21 +413,40 @@ const std::vector<Command>& Commands() {
   return commands;
 }
 
-// Gives every leaf command (budget, tee sweep, ...) a --devices and an
-// --ascii of its own, the same as the ones before the command.
-void AddGlobalOptions(CLI::App* app,
+// Gives `command`, or each leaf command under it (tee sweep, ...), a
+// --devices and an --ascii of its own, the same as the ones before the
+// command.
+void AddGlobalOptions(CLI::App* command,
                       const std::function<void(const std::string&)>& set) {
-  for (CLI::App* sub : app->get_subcommands([](CLI::App*) { return true; })) {
-    if (sub->get_subcommands([](CLI::App*) { return true; }).empty()) {
-      sub->add_option_function<std::string>(
-             "--devices", set, "device folder (as before the command)")
-          ->type_name("DIR");
-      sub->add_flag("--ascii")->description(
-          "ASCII text (as before the command)");
-    } else {
-      AddGlobalOptions(sub, set);
-    }
+  const std::vector<CLI::App*> subs =
+      command->get_subcommands([](CLI::App*) { return true; });
+  if (subs.empty()) {
+    command
+        ->add_option_function<std::string>(
+            "--devices", set, "device folder (as before the command)")
+        ->type_name("DIR");
+    command->add_flag("--ascii")->description(
+        "ASCII text (as before the command)");
   }
+  for (CLI::App* sub : subs) AddGlobalOptions(sub, set);
+}
+
+// The command the words name: the first word that is neither an option nor
+// the value of --devices, when it is a command's name; empty otherwise.
+std::string CommandWord(int argc, char** argv,
+                        const std::vector<std::string>& names) {
+  for (int i = 1; i < argc; ++i) {
+    const std::string word = argv[i];
+    if (word == "--") break;
+    if (!word.empty() && word[0] == '-') {
+      if (word == "--devices") ++i;
+      continue;
+    }
+    for (const std::string& n : names)
+      if (n == word) return word;
+    break;
+  }
+  return "";
 }
 
 // Refuses an option that the command it follows does not know, with a
@@ -544,15 +563,21 @@ int Run(int argc, char** argv) {
       ->type_name("DIR");
 
   std::vector<std::string> names;
+  for (const Command& command : Commands()) names.push_back(command.name);
+  // Every command is listed (name and help, for --help and the "did you
+  // mean"), but only the one the words name gets its options: declaring
+  // all of them took a fifth of a budget's process time, and no other
+  // command's options can be used in the same run.
+  const std::string chosen = CommandWord(argc, argv, names);
   std::function<int()> handler;
   for (const Command& command : Commands()) {
-    names.push_back(command.name);
     CLI::App* sub = app.add_subcommand(command.name, command.help);
+    if (command.name != chosen) continue;
     auto run = command.define(sub, global);
     sub->callback([&handler, run] { handler = run; });
+    // --devices and --ascii may also follow the command.
+    AddGlobalOptions(sub, set_devices);
   }
-  // --devices and --ascii may also follow the command.
-  AddGlobalOptions(&app, set_devices);
   std::vector<std::string> words = SplitEmptyValues(&app, argc, argv);
   std::vector<char*> pointers;
   for (std::string& w : words) pointers.push_back(w.data());
