@@ -88,15 +88,13 @@ bool FactorAndSolve(int runtime_n, double w, const double* __restrict g_t,
     if (output >= 0) zr[output] = row_scale[output];
     for (int k = 0; k < n; ++k)
       if (pivot[k] != k) std::swap(zr[k], zr[pivot[k]]);
-    for (int i = 1; i < n; ++i) {
-      double sr = zr[i];
-      for (int j = 0; j < i; ++j) sr -= ar[i * n + j] * zr[j];
-      zr[i] = sr;
-    }
-    for (int i = n - 1; i >= 0; --i) {
-      double sr = zr[i];
-      for (int j = i + 1; j < n; ++j) sr -= ar[i * n + j] * zr[j];
-      zr[i] = sr * inv_diag[i];
+    // By columns: the rows below (above) a solved entry update at once, a
+    // chain of n steps instead of n^2 / 2.
+    for (int j = 0; j < n; ++j)
+      for (int i = j + 1; i < n; ++i) zr[i] -= ar[i * n + j] * zr[j];
+    for (int j = n - 1; j >= 0; --j) {
+      zr[j] *= inv_diag[j];
+      for (int i = 0; i < j; ++i) zr[i] -= ar[i * n + j] * zr[j];
     }
     for (int i = 0; i < n; ++i)
       if (!std::isfinite(zr[i])) return false;
@@ -179,15 +177,11 @@ void SolveFactored(int runtime_n, const double* __restrict lu,
   for (int i = 0; i < n; ++i) b[i] *= scale[i];
   for (int k = 0; k < n; ++k)
     if (pivot[k] != k) std::swap(b[k], b[pivot[k]]);
-  for (int i = 1; i < n; ++i) {
-    double s = b[i];
-    for (int j = 0; j < i; ++j) s -= lu[i * n + j] * b[j];
-    b[i] = s;
-  }
-  for (int i = n - 1; i >= 0; --i) {
-    double s = b[i];
-    for (int j = i + 1; j < n; ++j) s -= lu[i * n + j] * b[j];
-    b[i] = s * inv_diag[i];
+  for (int j = 0; j < n; ++j)  // by columns, as in FactorAndSolve
+    for (int i = j + 1; i < n; ++i) b[i] -= lu[i * n + j] * b[j];
+  for (int j = n - 1; j >= 0; --j) {
+    b[j] *= inv_diag[j];
+    for (int i = 0; i < j; ++i) b[i] -= lu[i * n + j] * b[j];
   }
 }
 
@@ -334,8 +328,8 @@ RestampSolver::RestampSolver(const MnaSystem& system, const Netlist& netlist)
   pivot_.assign(n, 0);
   row_scale_.assign(n, 1.0);
   inv_diag_.assign(n, 0.0);
-  zr_.assign(n, 0.0);
-  zi_.assign(n, 0.0);
+  zr_.assign(n + 1, 0.0);  // [n]: ground, always 0
+  zi_.assign(n + 1, 0.0);
 }
 
 void RestampSolver::SplitCapacitance() {

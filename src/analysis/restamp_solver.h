@@ -22,6 +22,7 @@
 #ifndef HUSHGAIN_ANALYSIS_RESTAMP_SOLVER_H_
 #define HUSHGAIN_ANALYSIS_RESTAMP_SOLVER_H_
 
+#include <utility>
 #include <vector>
 
 #include "analysis/mna_system.h"
@@ -65,6 +66,15 @@ class RestampSolver {
     if (port.minus >= 0) re -= zr_[port.minus];
     return re;
   }
+
+  // A port as two indices into transfer_re() and transfer_im(), ground as
+  // the zero entry at n: its transfer is z[plus] - z[minus] without a branch.
+  std::pair<int, int> Terminals(Port port) const {
+    return {port.plus >= 0 ? port.plus : n_, port.minus >= 0 ? port.minus : n_};
+  }
+  // z after SolveAdjoint, n + 1 entries (the last 0).
+  const double* transfer_re() const { return zr_.data(); }
+  const double* transfer_im() const { return zi_.data(); }
 
   // After SolveAdjoint(0): solves G x = b (b given as unknown-sized vector,
   // overwritten by x). Uses the DC factorization.

@@ -67,6 +67,8 @@ struct Model {
   std::unique_ptr<RestampSolver> prototype;
   std::vector<SpreadResistor> resistors;
   std::vector<SourceSlot> sources;
+  // Each source's port as RestampSolver::Terminals (ground: the zero entry).
+  std::vector<std::pair<int, int>> terminals;
   std::vector<QuadratureNode> nodes;
   std::vector<double> inverse_f;  // 1 / f of each node
   std::vector<int> table_slots;   // the sources with a tabulated density
@@ -250,15 +252,25 @@ Status EvaluateAt(const Model& m, const Draw& d, Workspace& w,
   }
   double power = 0;
   const std::size_t node_count = m.nodes.size();
+  const double* zr = s.transfer_re();
+  const double* zi = s.transfer_im();
+  const std::pair<int, int>* terminals = m.terminals.data();
+  const double* level = w.level.data();
+  const double* slope = w.slope.data();
   for (std::size_t q = 0; q < node_count; ++q) {
     const QuadratureNode& node = m.nodes[q];
     st = s.SolveAdjoint(node.f_hz);
     if (!st.ok) return st;
-    const double inv_f = m.inverse_f[q];
-    double psd = 0;
-    for (std::size_t k = 0; k < slot_count; ++k)
-      psd +=
-          s.TransferNorm(w.slots[k].port) * (w.level[k] + w.slope[k] * inv_f);
+    // Sum of |H|^2 level and of |H|^2 slope apart: two chains of sums.
+    double level_sum = 0, slope_sum = 0;
+    for (std::size_t k = 0; k < slot_count; ++k) {
+      const auto [a, b] = terminals[k];
+      const double re = zr[a] - zr[b], im = zi[a] - zi[b];
+      const double norm = re * re + im * im;
+      level_sum += norm * level[k];
+      slope_sum += norm * slope[k];
+    }
+    double psd = level_sum + slope_sum * m.inverse_f[q];
     for (const int k : m.table_slots) {
       const SourceSlot& slot = w.slots[k];
       psd += s.TransferNorm(slot.port) * slot.table_scale *
@@ -400,6 +412,8 @@ Status BuildModel(const Stage& stage, const BudgetOutcome& nominal, Model* m) {
     slot.excess_of = static_cast<int>(k);
     m->sources.push_back(slot);
   }
+  for (const SourceSlot& slot : m->sources)
+    m->terminals.push_back(m->prototype->Terminals(slot.port));
   return Status::Ok();
 }
 
