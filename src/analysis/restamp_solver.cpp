@@ -427,13 +427,23 @@ void RestampSolver::KeepDcFactorization() {
     det_k_ = k00 * k11 - k01 * k10;
     trace_k_ = k00 + k11;
     const double a0 = k11 * y0 - k01 * y1, a1 = k00 * y1 - k10 * y0;
-    low_u_.assign(n, 0.0);
-    low_v_.assign(n, 0.0);
+    low_u_.assign(n + 1, 0.0);  // [n]: ground
+    low_v_.assign(n + 1, 0.0);
     for (int m = 0; m < n; ++m) {
       const double w0 = r >= 1 ? w_[m] : 0.0;
       const double w1 = r == 2 ? w_[n + m] : 0.0;
       low_u_[m] = w0 * y0 + w1 * y1;
       low_v_[m] = w0 * a0 + w1 * a1;
+    }
+    const std::size_t ports = norm_ports_.size();
+    port_t0_.resize(ports);
+    port_u_.resize(ports);
+    port_v_.resize(ports);
+    for (std::size_t k = 0; k < ports; ++k) {
+      const auto [a, b] = norm_ports_[k];
+      port_t0_[k] = dc_z0_[a] - dc_z0_[b];
+      port_u_[k] = low_u_[a] - low_u_[b];
+      port_v_[k] = low_v_[a] - low_v_[b];
     }
   }
   prepared_ = true;
@@ -498,6 +508,51 @@ Status RestampSolver::SolveAdjoint(double f_hz) {
   });
   if (!ok) return Status::Fail("the network is singular at " + Hz(f_hz));
   if (w == 0 && rank_ >= 0) KeepDcFactorization();
+  return Status::Ok();
+}
+
+void RestampSolver::SetNormPorts(const std::vector<Port>& ports) {
+  prepared_ = false;
+  norm_ports_.clear();
+  for (const Port& p : ports)
+    norm_ports_.push_back(
+        {p.plus >= 0 ? p.plus : n_, p.minus >= 0 ? p.minus : n_});
+}
+
+Status RestampSolver::TransferNorms(double f_hz, double* norms) {
+  const double w = 2.0 * kPi * f_hz;
+  const std::size_t ports = norm_ports_.size();
+  if (w != 0 && rank_ >= 0 && rank_ <= 2) {
+    if (!prepared_) {
+      Status s = Prepare();
+      if (!s.ok) return s;
+    }
+    // H = t0 - j w (u + j w v) / det M for each port (SolveAdjoint's
+    // rank-2 branch, taken port by port).
+    const double dr = 1.0 - w * w * det_k_, di = w * trace_k_;
+    const double d2 = dr * dr + di * di;
+    if (!(d2 > 1e-300 && std::isfinite(d2)))
+      return Status::Fail("the network is singular at " + Hz(f_hz));
+    const double inv = 1.0 / d2, ir = dr * inv, ii = -di * inv;
+    const double* t0 = port_t0_.data();
+    const double* u = port_u_.data();
+    const double* v = port_v_.data();
+    for (std::size_t k = 0; k < ports; ++k) {
+      const double wv = w * v[k];
+      const double re = u[k] * ir - wv * ii;
+      const double im = u[k] * ii + wv * ir;
+      const double hr = t0[k] + w * im, hi = -w * re;
+      norms[k] = hr * hr + hi * hi;
+    }
+    return Status::Ok();
+  }
+  Status s = SolveAdjoint(f_hz);
+  if (!s.ok) return s;
+  for (std::size_t k = 0; k < ports; ++k) {
+    const auto [a, b] = norm_ports_[k];
+    const double re = zr_[a] - zr_[b], im = zi_[a] - zi_[b];
+    norms[k] = re * re + im * im;
+  }
   return Status::Ok();
 }
 

@@ -67,14 +67,15 @@ class RestampSolver {
     return re;
   }
 
-  // A port as two indices into transfer_re() and transfer_im(), ground as
-  // the zero entry at n: its transfer is z[plus] - z[minus] without a branch.
-  std::pair<int, int> Terminals(Port port) const {
-    return {port.plus >= 0 ? port.plus : n_, port.minus >= 0 ? port.minus : n_};
-  }
-  // z after SolveAdjoint, n + 1 entries (the last 0).
-  const double* transfer_re() const { return zr_.data(); }
-  const double* transfer_im() const { return zi_.data(); }
+  // The ports whose |transfer|^2 TransferNorms gives, in this order.
+  void SetNormPorts(const std::vector<Port>& ports);
+  // |z^T b|^2 of every SetNormPorts port at f_hz into norms[0 .. count-1]:
+  // SolveAdjoint's figures. With a capacitance of rank 1 or 2 (and f > 0)
+  // z itself is not formed: each port's DC transfer and its parts of W y0
+  // and W a are kept per set of values, so a frequency costs one division
+  // and a few products a port, and TransferNorm/TransferReal still read
+  // the last SolveAdjoint.
+  Status TransferNorms(double f_hz, double* norms);
 
   // After SolveAdjoint(0): solves G x = b (b given as unknown-sized vector,
   // overwritten by x). Uses the DC factorization.
@@ -106,6 +107,11 @@ class RestampSolver {
   // Rank 2 or less: det K, tr K, W y0 and W adj-part (KeepDcFactorization).
   double det_k_ = 0, trace_k_ = 0;
   std::vector<double> low_u_, low_v_;
+  // SetNormPorts: each port's unknown indices (ground: n, a zero entry of
+  // dc_z0_, low_u_ and low_v_), and per set of values its DC transfer and
+  // its parts of W y0 and W a (rank 2 or less).
+  std::vector<std::pair<int, int>> norm_ports_;
+  std::vector<double> port_t0_, port_u_, port_v_;
   std::vector<int> dc_pivot_;
   Status Prepare();
   void SplitCapacitance();        // C^T = P Q^T into p_, q_, rank_

@@ -67,8 +67,6 @@ struct Model {
   std::unique_ptr<RestampSolver> prototype;
   std::vector<SpreadResistor> resistors;
   std::vector<SourceSlot> sources;
-  // Each source's port as RestampSolver::Terminals (ground: the zero entry).
-  std::vector<std::pair<int, int>> terminals;
   std::vector<QuadratureNode> nodes;
   std::vector<double> inverse_f;  // 1 / f of each node
   std::vector<int> table_slots;   // the sources with a tabulated density
@@ -130,6 +128,7 @@ struct Workspace {
         slots(m.sources),
         level(m.sources.size()),
         slope(m.sources.size()),
+        norms(m.sources.size()),
         rhs(m.system.size()) {}
   RestampSolver solver;
   std::vector<double> ohms;
@@ -138,6 +137,7 @@ struct Workspace {
   // A slot's density at f without its table: level + slope / f.
   std::vector<double> level;
   std::vector<double> slope;
+  std::vector<double> norms;  // each source's |H|^2 at one node
   std::vector<double> rhs;
   HeadroomInputs headroom;  // reused per sample
 };
@@ -252,28 +252,23 @@ Status EvaluateAt(const Model& m, const Draw& d, Workspace& w,
   }
   double power = 0;
   const std::size_t node_count = m.nodes.size();
-  const double* zr = s.transfer_re();
-  const double* zi = s.transfer_im();
-  const std::pair<int, int>* terminals = m.terminals.data();
   const double* level = w.level.data();
   const double* slope = w.slope.data();
+  double* norms = w.norms.data();  // |H|^2 of each source, its order
   for (std::size_t q = 0; q < node_count; ++q) {
     const QuadratureNode& node = m.nodes[q];
-    st = s.SolveAdjoint(node.f_hz);
+    st = s.TransferNorms(node.f_hz, norms);
     if (!st.ok) return st;
     // Sum of |H|^2 level and of |H|^2 slope apart: two chains of sums.
     double level_sum = 0, slope_sum = 0;
     for (std::size_t k = 0; k < slot_count; ++k) {
-      const auto [a, b] = terminals[k];
-      const double re = zr[a] - zr[b], im = zi[a] - zi[b];
-      const double norm = re * re + im * im;
-      level_sum += norm * level[k];
-      slope_sum += norm * slope[k];
+      level_sum += norms[k] * level[k];
+      slope_sum += norms[k] * slope[k];
     }
     double psd = level_sum + slope_sum * m.inverse_f[q];
     for (const int k : m.table_slots) {
       const SourceSlot& slot = w.slots[k];
-      psd += s.TransferNorm(slot.port) * slot.table_scale *
+      psd += norms[k] * slot.table_scale *
              m.table_psd[slot.table_row * node_count + q];
     }
     if (node_psd != nullptr) node_psd[q] = psd;
@@ -412,8 +407,9 @@ Status BuildModel(const Stage& stage, const BudgetOutcome& nominal, Model* m) {
     slot.excess_of = static_cast<int>(k);
     m->sources.push_back(slot);
   }
-  for (const SourceSlot& slot : m->sources)
-    m->terminals.push_back(m->prototype->Terminals(slot.port));
+  std::vector<Port> ports;
+  for (const SourceSlot& slot : m->sources) ports.push_back(slot.port);
+  m->prototype->SetNormPorts(ports);
   return Status::Ok();
 }
 

@@ -49,9 +49,21 @@ void CheckAgainstAdjoint(const Stage& base, int expected_rank) {
   AdjointSolver reference(reference_system);
   fast.SetResistors(ohms.data());
   const std::vector<NoiseSource> sources = CollectNoiseSources(changed, 300);
+  // TransferNorms of every source port (rank 1 or 2: without forming z).
+  std::vector<Port> ports;
+  for (const NoiseSource& s : sources)
+    ports.push_back(system.Compile(s.excitation));
+  fast.SetNormPorts(ports);
+  std::vector<double> norms(ports.size());
   for (double f : {0.0, 0.1, 10.0, 1e3, 1e5, 3e6}) {
     CAPTURE(f);
     REQUIRE(reference.SolveAt(f).ok);
+    REQUIRE(fast.TransferNorms(f, norms.data()).ok);
+    for (std::size_t k = 0; k < ports.size(); ++k) {
+      CAPTURE(sources[k].name);
+      CHECK(RelErr(norms[k], std::norm(reference.Transfer(ports[k]))) <
+            kRelSolve);
+    }
     REQUIRE(fast.SolveAdjoint(f).ok);
     for (const NoiseSource& s : sources) {
       CAPTURE(s.name);
@@ -162,9 +174,21 @@ TEST_CASE(
   fast.SetCapacitors(farads.data());
   fast.SetResistors(ohms.data());
   const std::vector<NoiseSource> sources = CollectNoiseSources(changed, 300);
+  // TransferNorms of every source port (rank 1 or 2: without forming z).
+  std::vector<Port> ports;
+  for (const NoiseSource& s : sources)
+    ports.push_back(system.Compile(s.excitation));
+  fast.SetNormPorts(ports);
+  std::vector<double> norms(ports.size());
   for (double f : {0.0, 0.1, 10.0, 1e3, 1e5, 3e6}) {
     CAPTURE(f);
     REQUIRE(reference.SolveAt(f).ok);
+    REQUIRE(fast.TransferNorms(f, norms.data()).ok);
+    for (std::size_t k = 0; k < ports.size(); ++k) {
+      CAPTURE(sources[k].name);
+      CHECK(RelErr(norms[k], std::norm(reference.Transfer(ports[k]))) <
+            kRelSolve);
+    }
     REQUIRE(fast.SolveAdjoint(f).ok);
     for (const NoiseSource& s : sources) {
       CAPTURE(s.name);
