@@ -9,6 +9,8 @@
 #include <algorithm>
 #include <cmath>
 
+#include "analysis/restamp_solver.h"
+#include "circuit/expand_stage.h"
 #include "circuit/stage_at_temperature.h"
 #include "montecarlo/spread_statistics.h"
 #include "test_support.h"
@@ -70,6 +72,35 @@ TEST_CASE("with every tolerance zero each sample equals the nominal budget") {
     CHECK(RelErr(s.offset_v, b.offset.ib_v) < kRelRounding);
     CHECK(s.temperature_k == stage.temperature_k);
   }
+}
+
+TEST_CASE(
+    "tabulated densities on a rank-2 network: zero spread equals the budget") {
+  // The T network on the JFET-like part has a capacitance of rank 2
+  // (checked), so every source's |H|^2 comes from
+  // RestampSolver::TransferNorms without the node voltages; a tabulated e_n
+  // and i_n (the latter scaled with the bias current at 40 C) go through
+  // the same norms, on the Gauss nodes cut at the tables' points. With zero
+  // spread each sample is the budget.
+  Stage stage = TeeWithFiniteGbw();
+  stage.temperature_k = kDeviceReferenceK + 15;
+  stage.opamp.voltage_noise_table.f_hz = {1, 30, 300, 3e3, 1e5};
+  stage.opamp.voltage_noise_table.density = {3e-7, 2e-8, 9e-9, 2e-8, 5e-9};
+  stage.opamp.current_noise_table.f_hz = {1, 100, 1e5};
+  stage.opamp.current_noise_table.density = {1e-13, 1e-14, 5e-14};
+  stage.opamp.current_noise_temperature =
+      CurrentNoiseTemperature::kWithBiasCurrent;
+  {
+    const Netlist net = ExpandStage(stage);
+    MnaSystem system;
+    REQUIRE(MnaSystem::Build(net, &system).ok);
+    CHECK(RestampSolver(system, net).capacitance_rank() == 2);
+  }
+  const SpreadRun run = Run(stage, 50);
+  CHECK(run.noise_nodes * 15 == run.noise_nodes_full * 7);
+  const Budget& b = run.nominal;
+  for (const SpreadSample& x : Samples(run))
+    CHECK(RelErr(x.noise_rms_v, b.output_rms_v) < kRelRounding);
 }
 
 TEST_CASE(
