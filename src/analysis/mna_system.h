@@ -13,6 +13,7 @@
 #ifndef HUSHGAIN_ANALYSIS_MNA_SYSTEM_H_
 #define HUSHGAIN_ANALYSIS_MNA_SYSTEM_H_
 
+#include <memory>
 #include <string>
 #include <vector>
 
@@ -69,12 +70,26 @@ class MnaSystem {
   std::vector<std::string> names_;
 };
 
+class RestampSolver;
+
 // Solves the transposed (adjoint) system Y(j w)^T z = e_out once per
 // frequency, after which the transfer from any excitation b to the output is
 // z^T b (Director and Rohrer 1969; Rohrer, Nagel, Meyer and Weber 1971).
+//
+// C has low rank r (a few capacitors and the op-amp's GBW term). When
+// r <= n / 2, a frequency above DC is first solved by RestampSolver's
+// Woodbury update on the one real LU of G^T (analysis/restamp_solver.h: an
+// r x r complex solve instead of an n x n one), and that z is kept only when
+// its relative residual against Y(j w)^T is at most 1e-14, the size the
+// dense LU leaves: an update that lost digits (a G ill-conditioned beside
+// w C, a cancellation of z0 against j w W y) falls back to the dense
+// equilibrated LU below, as does DC, a singular G and r > n / 2.
 class AdjointSolver {
  public:
   explicit AdjointSolver(const MnaSystem& system);
+  ~AdjointSolver();
+  AdjointSolver(const AdjointSolver&) = delete;
+  AdjointSolver& operator=(const AdjointSolver&) = delete;
 
   // Rows and columns are equilibrated before the factorization, so the
   // condition estimate measures the network, not its mix of units. Fails
@@ -82,6 +97,11 @@ class AdjointSolver {
   // 1e-13 or the solution's relative residual exceeds 1e-9; the message
   // names the frequency.
   Status SolveAt(double f_hz);
+
+  // Whether the last SolveAt kept the low-rank update's z (for tests).
+  bool last_solve_low_rank() const { return last_low_rank_; }
+  // r of C's low-rank split, or -1 when only the dense LU is used.
+  int capacitance_rank() const;
 
   // Output voltage per unit excitation at the last solved frequency.
   Complex Transfer(Port port) const {
@@ -108,6 +128,11 @@ class AdjointSolver {
   Eigen::VectorXd column_scale_;
   ComplexMatrix scaled_;  // only for the condition estimate
   ComplexVector scaled_rhs_;
+  std::unique_ptr<RestampSolver> low_rank_;  // null: dense only
+  bool last_low_rank_ = false;
+  Status SolveDense(double f_hz);
+  // |Y^T z - e_out| / (|Y^T| |z| + 1) at w, in RelativeResidual's norms.
+  double Residual(double w) const;
 };
 
 // The direct solve Y x = b for one excitation, writing every unknown into

@@ -36,6 +36,10 @@ class RestampSolver {
   // `system` was built from `netlist`; every resistor of the netlist becomes
   // restampable, in the netlist's order.
   RestampSolver(const MnaSystem& system, const Netlist& netlist);
+  // No restampable parts: the system as built (AdjointSolver's low-rank
+  // path, one DC factorization for every frequency).
+  explicit RestampSolver(const MnaSystem& system)
+      : RestampSolver(system, Netlist{}) {}
 
   int size() const { return n_; }
   int resistor_count() const { return static_cast<int>(nodes_.size()); }
@@ -66,6 +70,10 @@ class RestampSolver {
     if (port.minus >= 0) re -= zr_[port.minus];
     return re;
   }
+
+  // z after SolveAdjoint (n entries each, and a zero for ground at [n]).
+  const double* adjoint_real() const { return zr_.data(); }
+  const double* adjoint_imag() const { return zi_.data(); }
 
   // The ports whose |transfer|^2 TransferNorms gives, in this order.
   void SetNormPorts(const std::vector<Port>& ports);
