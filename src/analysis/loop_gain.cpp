@@ -38,10 +38,31 @@ LoopGainSolver::LoopGainSolver(const MnaSystem& system, int opamp,
   for (int j = 0; j < n_; ++j) g_[row * n_ + j] = c_[row * n_ + j] = 0;
   g_[row * n_ + system.OpAmpAmplifierNode(opamp)] = 1.0;
   b_[row] = 1.0;
+  RealMatrix g_t(n_, n_), c_t(n_, n_);
+  for (int i = 0; i < n_; ++i)
+    for (int j = 0; j < n_; ++j) {
+      g_t(i, j) = g_[j * n_ + i];
+      c_t(i, j) = c_[j * n_ + i];
+    }
+  low_rank_ = std::make_unique<RestampSolver>(g_t, c_t, row);
+  if (low_rank_->capacitance_rank() < 0) low_rank_.reset();
 }
 
 Status LoopGainSolver::LoopGainAt(double f_hz, Complex* loop_gain) {
   const double w = 2.0 * kPi * f_hz;
+  const Complex a = 1.0 / Complex(inverse_a0_, w * inverse_wt_);
+  last_low_rank_ = false;
+  if (w != 0 && low_rank_ && low_rank_->SolveAdjoint(f_hz).ok &&
+      low_rank_->Residual(f_hz) <= kLowRankResidualLimit) {
+    const double* xr = low_rank_->adjoint_real();
+    const double* xi = low_rank_->adjoint_imag();
+    Complex vd = 0;
+    if (plus_ >= 0) vd += Complex(xr[plus_], xi[plus_]);
+    if (minus_ >= 0) vd -= Complex(xr[minus_], xi[minus_]);
+    last_low_rank_ = true;
+    *loop_gain = -a * vd;
+    return Status::Ok();
+  }
   for (std::size_t i = 0; i < g_.size(); ++i) {
     y_re_[i] = g_[i];
     y_im_[i] = w * c_[i];
@@ -54,7 +75,6 @@ Status LoopGainSolver::LoopGainAt(double f_hz, Complex* loop_gain) {
   Complex vd = 0;
   if (plus_ >= 0) vd += x_[plus_];
   if (minus_ >= 0) vd -= x_[minus_];
-  const Complex a = 1.0 / Complex(inverse_a0_, w * inverse_wt_);
   *loop_gain = -a * vd;
   return Status::Ok();
 }

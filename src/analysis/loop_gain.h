@@ -10,10 +10,12 @@
 #ifndef HUSHGAIN_ANALYSIS_LOOP_GAIN_H_
 #define HUSHGAIN_ANALYSIS_LOOP_GAIN_H_
 
+#include <memory>
 #include <vector>
 
 #include "analysis/linear_algebra.h"
 #include "analysis/mna_system.h"
+#include "analysis/restamp_solver.h"
 #include "analysis/small_complex_lu.h"
 #include "base/status.h"
 #include "circuit/opamp_model.h"
@@ -24,8 +26,13 @@ class LoopGainSolver {
  public:
   LoopGainSolver(const MnaSystem& system, int opamp, const OpAmpModel& model);
 
-  // Writes T(j 2 pi f); fails like AdjointSolver::SolveAt.
+  // Writes T(j 2 pi f); fails like AdjointSolver::SolveAt. Above DC, with
+  // C of rank r <= n / 2, the network is first solved by RestampSolver's
+  // low-rank update on one real LU of G (as AdjointSolver::SolveAt), kept
+  // at a residual of at most kLowRankResidualLimit; otherwise the dense LU.
   Status LoopGainAt(double f_hz, Complex* loop_gain);
+  // Whether the last LoopGainAt kept the low-rank update (for tests).
+  bool last_solve_low_rank() const { return last_low_rank_; }
 
  private:
   int n_;
@@ -42,6 +49,10 @@ class LoopGainSolver {
   int minus_;
   double inverse_a0_;
   double inverse_wt_;
+  // (G + j w C) x = e_row as RestampSolver's transposed solve of G^T, C^T;
+  // null when C's rank is above n / 2.
+  std::unique_ptr<RestampSolver> low_rank_;
+  bool last_low_rank_ = false;
 };
 
 struct LoopSummary {

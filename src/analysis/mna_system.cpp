@@ -18,9 +18,6 @@ constexpr double kMaxRelativeResidual = 1e-9;
 // answer has fewer than about three good digits: refuse it.
 constexpr double kMinReciprocalCondition = 1e-13;
 constexpr double kPivotSpreadForConditionCheck = 1e-6;
-// The low-rank update's z is kept only at a residual the dense LU leaves
-// (about 1e-17 to 1e-15 on these networks); above it the dense LU runs.
-constexpr double kMaxLowRankResidual = 1e-14;
 
 void StampConductance(RealMatrix& m, int a, int b, double value) {
   if (a >= 0) m(a, a) += value;
@@ -182,7 +179,8 @@ AdjointSolver::AdjointSolver(const MnaSystem& system)
       g_t_[i * n_ + j] = system.g()(j, i);
       c_t_[i * n_ + j] = system.c()(j, i);
     }
-  low_rank_ = std::make_unique<RestampSolver>(system);
+  low_rank_ = std::make_unique<RestampSolver>(system.g(), system.c(),
+                                              system.output_index());
   if (low_rank_->capacitance_rank() < 0) low_rank_.reset();
 }
 
@@ -190,25 +188,6 @@ AdjointSolver::~AdjointSolver() = default;
 
 int AdjointSolver::capacitance_rank() const {
   return low_rank_ ? low_rank_->capacitance_rank() : -1;
-}
-
-double AdjointSolver::Residual(double w) const {
-  const int n = n_;
-  double row_sum_max = 0, z_max = 0, r_max = 0;
-  for (int i = 0; i < n; ++i) z_max = std::max(z_max, Size(z_[i]));
-  for (int i = 0; i < n; ++i) {
-    double sr = -rhs_[i].real(), si = -rhs_[i].imag(), sum = 0;
-    for (int j = 0; j < n; ++j) {
-      const double gr = g_t_[i * n + j], gi = w * c_t_[i * n + j];
-      const double zr = z_[j].real(), zi = z_[j].imag();
-      sr += gr * zr - gi * zi;
-      si += gr * zi + gi * zr;
-      sum += std::fabs(gr) + std::fabs(gi);
-    }
-    row_sum_max = std::max(row_sum_max, sum);
-    r_max = std::max(r_max, std::fabs(sr) + std::fabs(si));
-  }
-  return r_max / (row_sum_max * z_max + 1.0);
 }
 
 Status AdjointSolver::SolveAt(double f_hz) {
@@ -222,7 +201,7 @@ Status AdjointSolver::SolveAt(double f_hz) {
         z_[i] = Complex(zr[i], zi[i]);
         finite = finite && std::isfinite(zr[i]) && std::isfinite(zi[i]);
       }
-      if (finite && Residual(2.0 * kPi * f_hz) <= kMaxLowRankResidual) {
+      if (finite && low_rank_->Residual(f_hz) <= kLowRankResidualLimit) {
         last_low_rank_ = true;
         return Status::Ok();
       }

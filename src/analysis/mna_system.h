@@ -131,8 +131,6 @@ class AdjointSolver {
   std::unique_ptr<RestampSolver> low_rank_;  // null: dense only
   bool last_low_rank_ = false;
   Status SolveDense(double f_hz);
-  // |Y^T z - e_out| / (|Y^T| |z| + 1) at w, in RelativeResidual's norms.
-  double Residual(double w) const;
 };
 
 // The direct solve Y x = b for one excitation, writing every unknown into

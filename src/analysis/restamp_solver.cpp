@@ -284,16 +284,39 @@ bool SolveWoodbury(int runtime_r, int n, double w, const double* __restrict kk,
 
 }  // namespace
 
-RestampSolver::RestampSolver(const MnaSystem& system, const Netlist& netlist)
-    : n_(system.size()), output_(system.output_index()) {
+RestampSolver::RestampSolver(const RealMatrix& g, const RealMatrix& c,
+                             int output)
+    : n_(static_cast<int>(g.rows())), output_(output) {
   const int n = n_;
   g_base_t_.assign(n * n, 0.0);
   c_t_.assign(n * n, 0.0);
   for (int i = 0; i < n; ++i)
     for (int j = 0; j < n; ++j) {
-      g_base_t_[i * n + j] = system.g()(j, i);
-      c_t_[i * n + j] = system.c()(j, i);
+      g_base_t_[i * n + j] = g(j, i);
+      c_t_[i * n + j] = c(j, i);
     }
+  c_base_t_ = c_t_;
+  rest_.assign(n * n, 0.0);
+  col_.assign(n, 0.0);
+  row_.assign(n, 0.0);
+  p_.reserve(n * 9);
+  q_.reserve(n * 9);
+  SplitCapacitance();
+  g_t_ = g_base_t_;
+  ar_.assign(n * n, 0.0);
+  ai_.assign(n * n, 0.0);
+  pivot_.assign(n, 0);
+  row_scale_.assign(n, 1.0);
+  inv_diag_.assign(n, 0.0);
+  zr_.assign(n + 1, 0.0);  // [n]: ground, always 0
+  zi_.assign(n + 1, 0.0);
+}
+
+RestampSolver::RestampSolver(const MnaSystem& system, const Netlist& netlist)
+    : RestampSolver(system.g(), system.c(), system.output_index()) {
+  // The resistors' and capacitors' stamps taken out of the bases (G^T and
+  // C^T as built stay in g_t_ and c_t_ until new values are set).
+  const int n = n_;
   std::vector<double> magnitude(n * n, 0.0);
   for (const Resistor& r : netlist.resistors) {
     const int a = system.NodeIndex(r.a), b = system.NodeIndex(r.b);
@@ -316,20 +339,26 @@ RestampSolver::RestampSolver(const MnaSystem& system, const Netlist& netlist)
   for (int i = 0; i < n * n; ++i)
     if (std::fabs(c_base_t_[i]) <= 1e-12 * std::fabs(c_magnitude[i]))
       c_base_t_[i] = 0;
-  rest_.assign(n * n, 0.0);
-  col_.assign(n, 0.0);
-  row_.assign(n, 0.0);
-  p_.reserve(n * 9);
-  q_.reserve(n * 9);
-  SplitCapacitance();
-  g_t_ = g_base_t_;
-  ar_.assign(n * n, 0.0);
-  ai_.assign(n * n, 0.0);
-  pivot_.assign(n, 0);
-  row_scale_.assign(n, 1.0);
-  inv_diag_.assign(n, 0.0);
-  zr_.assign(n + 1, 0.0);  // [n]: ground, always 0
-  zi_.assign(n + 1, 0.0);
+}
+
+double RestampSolver::Residual(double f_hz) const {
+  const int n = n_;
+  const double w = 2.0 * kPi * f_hz;
+  double row_sum_max = 0, z_max = 0, r_max = 0;
+  for (int i = 0; i < n; ++i)
+    z_max = std::max(z_max, std::fabs(zr_[i]) + std::fabs(zi_[i]));
+  for (int i = 0; i < n; ++i) {
+    double sr = i == output_ ? -1.0 : 0.0, si = 0, sum = 0;
+    for (int j = 0; j < n; ++j) {
+      const double gr = g_t_[i * n + j], gi = w * c_t_[i * n + j];
+      sr += gr * zr_[j] - gi * zi_[j];
+      si += gr * zi_[j] + gi * zr_[j];
+      sum += std::fabs(gr) + std::fabs(gi);
+    }
+    row_sum_max = std::max(row_sum_max, sum);
+    r_max = std::max(r_max, std::fabs(sr) + std::fabs(si));
+  }
+  return r_max / (row_sum_max * z_max + 1.0);
 }
 
 void RestampSolver::SplitCapacitance() {

@@ -31,15 +31,21 @@
 
 namespace hushgain {
 
+// The relative residual (RestampSolver::Residual) at or below which a
+// caller keeps the low-rank update's answer: the size the dense LU leaves on
+// these networks (about 1e-17 to 1e-15); above it the caller solves densely.
+constexpr double kLowRankResidualLimit = 1e-14;
+
 class RestampSolver {
  public:
   // `system` was built from `netlist`; every resistor of the netlist becomes
   // restampable, in the netlist's order.
   RestampSolver(const MnaSystem& system, const Netlist& netlist);
-  // No restampable parts: the system as built (AdjointSolver's low-rank
-  // path, one DC factorization for every frequency).
-  explicit RestampSolver(const MnaSystem& system)
-      : RestampSolver(system, Netlist{}) {}
+  // No restampable parts: (G + j w C)^T z = e_output for the given G and C
+  // (n x n), one DC factorization for every frequency. AdjointSolver's
+  // low-rank path passes the system's matrices; LoopGainSolver passes its
+  // G and C transposed, for its direct solve.
+  RestampSolver(const RealMatrix& g, const RealMatrix& c, int output);
 
   int size() const { return n_; }
   int resistor_count() const { return static_cast<int>(nodes_.size()); }
@@ -74,6 +80,12 @@ class RestampSolver {
   // z after SolveAdjoint (n entries each, and a zero for ground at [n]).
   const double* adjoint_real() const { return zr_.data(); }
   const double* adjoint_imag() const { return zi_.data(); }
+
+  // |A z - e_output| / (|A| |z| + 1) for the last SolveAdjoint's z, A =
+  // (G + j w C)^T with the current values, norms built on |re| + |im| (the
+  // largest row sum of A, the largest entry of z and of the residual): how
+  // a caller judges whether the low-rank update kept its digits.
+  double Residual(double f_hz) const;
 
   // The ports whose |transfer|^2 TransferNorms gives, in this order.
   void SetNormPorts(const std::vector<Port>& ports);
