@@ -246,6 +246,11 @@ int RunTeeSearchCommand(const TeeSearchCommandOptions& options) {
                 "tee search needs a voltage source (its gain target is "
                 "R_eq / (R_source + R_in)); tee sweep takes a capacitive "
                 "sensor");
+  if (stage.topology == Topology::kTransimpedance)
+    throw Error(options.stage_path, "/stage/topology",
+                "tee search needs a voltage source (its gain target is R_eq / "
+                "(R_source + R_in)); a transimpedance stage's gain is R_eq "
+                "itself, and tee sweep takes a T network there");
   if (stage.feedback.kind == Feedback::Kind::kTee &&
       stage.feedback.tee.c3_f > 0)
     throw Error(options.stage_path, "/stage/feedback/tee/c3",

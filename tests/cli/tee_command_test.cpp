@@ -69,6 +69,19 @@ TEST_CASE("tee commands refuse bad input with one line and exit code 2") {
   CheckBadInput(std::string("tee sweep ") + kTee + " --min 20M",
                 "error: command line: --min: 20.00 M\xCE\xA9 is not below the "
                 "equivalent resistance (10.00 M\xCE\xA9)");
+  // A photodiode stage's gain is a transimpedance: no V/V target to search
+  // for (it was refused naming an internal field, "target_gain ... inf").
+  CheckBadInput("tee search examples/smoke-chamber-receiver.json --max 100k",
+                "error: examples/smoke-chamber-receiver.json: /stage/topology: "
+                "tee search needs a voltage source (its gain target is R_eq / "
+                "(R_source + R_in)); a transimpedance stage's gain is R_eq "
+                "itself, and tee sweep takes a T network there");
+  CheckBadInput(
+      "tee search examples/smoke-chamber-receiver.json --max 100k --gain 100",
+      "error: examples/smoke-chamber-receiver.json: /stage/topology: "
+      "tee search needs a voltage source (its gain target is R_eq / "
+      "(R_source + R_in)); a transimpedance stage's gain is R_eq "
+      "itself, and tee sweep takes a T network there");
   CheckBadInput("tee swep x.json",
                 "error: command line: unknown tee command \"swep\" (did you "
                 "mean \"sweep\"?); try tee --help");
