@@ -52,8 +52,7 @@ Status LoopGainSolver::LoopGainAt(double f_hz, Complex* loop_gain) {
   const double w = 2.0 * kPi * f_hz;
   const Complex a = 1.0 / Complex(inverse_a0_, w * inverse_wt_);
   last_low_rank_ = false;
-  if (w != 0 && low_rank_ && low_rank_->SolveAdjoint(f_hz).ok &&
-      low_rank_->Residual(f_hz) <= kLowRankResidualLimit) {
+  if (w != 0 && low_rank_ && low_rank_->SolveAdjointWithinLimit(f_hz)) {
     const double* xr = low_rank_->adjoint_real();
     const double* xi = low_rank_->adjoint_imag();
     Complex vd = 0;

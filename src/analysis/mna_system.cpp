@@ -192,20 +192,12 @@ int AdjointSolver::capacitance_rank() const {
 
 Status AdjointSolver::SolveAt(double f_hz) {
   last_low_rank_ = false;
-  if (f_hz != 0 && low_rank_) {
-    if (low_rank_->SolveAdjoint(f_hz).ok) {
-      const double* zr = low_rank_->adjoint_real();
-      const double* zi = low_rank_->adjoint_imag();
-      bool finite = true;
-      for (int i = 0; i < n_; ++i) {
-        z_[i] = Complex(zr[i], zi[i]);
-        finite = finite && std::isfinite(zr[i]) && std::isfinite(zi[i]);
-      }
-      if (finite && low_rank_->Residual(f_hz) <= kLowRankResidualLimit) {
-        last_low_rank_ = true;
-        return Status::Ok();
-      }
-    }
+  if (f_hz != 0 && low_rank_ && low_rank_->SolveAdjointWithinLimit(f_hz)) {
+    const double* zr = low_rank_->adjoint_real();
+    const double* zi = low_rank_->adjoint_imag();
+    for (int i = 0; i < n_; ++i) z_[i] = Complex(zr[i], zi[i]);
+    last_low_rank_ = true;
+    return Status::Ok();
   }
   return SolveDense(f_hz);
 }

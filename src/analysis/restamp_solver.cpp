@@ -361,6 +361,13 @@ double RestampSolver::Residual(double f_hz) const {
   return r_max / (row_sum_max * z_max + 1.0);
 }
 
+bool RestampSolver::SolveAdjointWithinLimit(double f_hz) {
+  if (!SolveAdjoint(f_hz).ok) return false;
+  for (int i = 0; i < n_; ++i)
+    if (!std::isfinite(zr_[i]) || !std::isfinite(zi_[i])) return false;
+  return Residual(f_hz) <= kLowRankResidualLimit;
+}
+
 void RestampSolver::SplitCapacitance() {
   // Split C^T = P Q^T by elimination with complete pivoting.
   const int n = n_;

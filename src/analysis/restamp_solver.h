@@ -86,6 +86,11 @@ class RestampSolver {
   // largest row sum of A, the largest entry of z and of the residual): how
   // a caller judges whether the low-rank update kept its digits.
   double Residual(double f_hz) const;
+  // SolveAdjoint judged as a caller with a dense solve to fall back on must
+  // judge it: true when it succeeded, z is finite and its Residual is at
+  // most kLowRankResidualLimit. (A NaN in z would not raise Residual, whose
+  // maxima pass over it, so finiteness is checked first.)
+  bool SolveAdjointWithinLimit(double f_hz);
 
   // The ports whose |transfer|^2 TransferNorms gives, in this order.
   void SetNormPorts(const std::vector<Port>& ports);

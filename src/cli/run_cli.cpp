@@ -3,6 +3,7 @@
 #include "cli/run_cli.h"
 
 #include <CLI/CLI.hpp>
+#include <algorithm>
 #include <cctype>
 #include <charconv>
 #include <cstdlib>
@@ -11,6 +12,7 @@
 #include <new>
 #include <optional>
 #include <string>
+#include <string_view>
 #include <vector>
 
 #include "cli/budget_command.h"
@@ -431,22 +433,23 @@ void AddGlobalOptions(CLI::App* command,
   for (CLI::App* sub : subs) AddGlobalOptions(sub, set);
 }
 
-// The command the words name: the first word that is neither an option nor
-// the value of --devices, when it is a command's name; empty otherwise.
-std::string CommandWord(int argc, char** argv,
-                        const std::vector<std::string>& names) {
+// Where the command word is: the first word that is not empty, not an
+// option and not the value of --devices; argc when there is none.
+int CommandWordIndex(int argc, char** argv) {
   for (int i = 1; i < argc; ++i) {
-    const std::string word = argv[i];
-    if (word == "--") break;
-    if (!word.empty() && word[0] == '-') {
-      if (word == "--devices") ++i;
+    const std::string_view word = argv[i];
+    if (word == "--devices") {
+      ++i;
       continue;
     }
-    for (const std::string& n : names)
-      if (n == word) return word;
-    break;
+    if (!word.empty() && word[0] != '-') return i;
   }
-  return "";
+  return argc;
+}
+
+bool IsCommandName(std::string_view word,
+                   const std::vector<std::string>& names) {
+  return std::find(names.begin(), names.end(), word) != names.end();
 }
 
 // Refuses an option that the command it follows does not know, with a
@@ -568,7 +571,9 @@ int Run(int argc, char** argv) {
   // mean"), but only the one the words name gets its options: declaring
   // all of them took a fifth of a budget's process time, and no other
   // command's options can be used in the same run.
-  const std::string chosen = CommandWord(argc, argv, names);
+  const int at = CommandWordIndex(argc, argv);
+  const std::string chosen =
+      at < argc && IsCommandName(argv[at], names) ? argv[at] : "";
   std::function<int()> handler;
   for (const Command& command : Commands()) {
     CLI::App* sub = app.add_subcommand(command.name, command.help);
@@ -586,22 +591,14 @@ int Run(int argc, char** argv) {
   argv = pointers.data();
   RefuseUnknownOptions(&app, argc, argv);
   // An unknown subcommand gets a suggestion from the same table.
-  for (int i = 1; i < argc; ++i) {
-    std::string word = argv[i];
-    if (word.empty() || word[0] == '-') {
-      if (word == "--devices") ++i;
-      continue;
-    }
-    bool known = false;
-    for (const std::string& n : names) known = known || n == word;
-    if (!known) {
-      std::cerr << "error: "
-                << Error::OneLine("unknown command \"" + word + "\"" +
-                                  DidYouMean(word, names) + "; try --help")
-                << "\n";
-      return kExitUsage;
-    }
-    break;
+  if (const int word = CommandWordIndex(argc, argv);
+      word < argc && !IsCommandName(argv[word], names)) {
+    std::cerr << "error: "
+              << Error::OneLine("unknown command \"" + std::string(argv[word]) +
+                                "\"" + DidYouMean(argv[word], names) +
+                                "; try --help")
+              << "\n";
+    return kExitUsage;
   }
   try {
     app.parse(argc, argv);
